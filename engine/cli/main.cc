@@ -1,0 +1,88 @@
+// calctrail: worksheet engine for screw-driven machines. The command line is
+// fixed by the contract (report, check, --set, exit codes); see --help.
+#include <CLI/CLI.hpp>
+
+#include <cstdio>
+#include <iostream>
+
+#include "engine/cli/commands.h"
+
+using namespace calctrail;
+
+int main(int argc, char** argv) {
+  CLI::App app{
+      "calctrail: calculation worksheets for screw-driven machines (jacks, gates, presses,\n"
+      "linear actuators), with units checked and an auditable step-by-step trail.\n",
+      "calctrail"};
+  app.set_version_flag("--version", std::string("calctrail ") + CALCTRAIL_VERSION);
+  app.require_subcommand(1);
+  app.footer(
+      "\nExit status: 0 all good; 1 a design check failed; 2 the worksheet has errors\n"
+      "or the command line is wrong.\n"
+      "Examples:\n"
+      "  calctrail report worksheets/canal-gate-hoist.calc\n"
+      "  calctrail report gate.calc --format json -o gate.json --set \"f=0.18\"\n"
+      "  calctrail check worksheets/*.calc");
+
+  ReportArgs report;
+  CLI::App* report_cmd = app.add_subcommand(
+      "report", "Recalculate a worksheet and print its calculation trail (exit 0 even when a check fails)");
+  report_cmd->add_option("FILE", report.file, "The worksheet (.calc)")->required();
+  report_cmd->add_option("--format,-f", report.format, "Output format")
+      ->check(CLI::IsMember({"text", "json"}))
+      ->default_str("text");
+  report_cmd->add_option("-o,--output", report.output, "Write the trail to this file instead of standard output");
+  report_cmd->add_option("--set", report.sets,
+                         "Replace the definition of NAME by VALUE for this run only, e.g. --set \"d=10 mm\"")
+      ->type_name("NAME=VALUE")
+      ->allow_extra_args(false);
+  report_cmd->add_option("--digits", report.digits, "Significant digits in human formats (1 to 15)")
+      ->check(CLI::Range(1, 15))
+      ->default_str("4");
+
+  CheckArgs check;
+  CLI::App* check_cmd = app.add_subcommand(
+      "check", "Evaluate worksheets; print one line per failed check and per error (exit 1 on a failed check)");
+  check_cmd->add_option("FILE", check.files, "Worksheets to check")->required();
+  check_cmd->add_option("--set", check.sets, "Replace NAME by VALUE in every file, e.g. --set \"f=0.18\"")
+      ->type_name("NAME=VALUE")
+      ->allow_extra_args(false);
+  check_cmd->add_flag("--quiet,-q", check.quiet, "No summary line, only the problems");
+
+  std::string fn_name, fn_format = "text";
+  CLI::App* fn_cmd = app.add_subcommand("functions", "List the built-in drive functions, or show one in detail");
+  fn_cmd->add_option("NAME", fn_name, "A function name");
+  fn_cmd->add_option("--format,-f", fn_format, "Output format")
+      ->check(CLI::IsMember({"text", "json", "md"}))
+      ->default_str("text");
+
+  std::string units_format = "text";
+  CLI::App* units_cmd = app.add_subcommand("units", "List the units of measure, their definitions and sources");
+  units_cmd->add_option("--format,-f", units_format, "Output format")
+      ->check(CLI::IsMember({"text", "md"}))
+      ->default_str("text");
+
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::CallForHelp& e) {
+    return app.exit(e);
+  } catch (const CLI::CallForAllHelp& e) {
+    return app.exit(e);
+  } catch (const CLI::CallForVersion& e) {
+    return app.exit(e);
+  } catch (const CLI::ParseError& e) {
+    std::cerr << "calctrail: error: " << e.what() << "\n";
+    std::cerr << "Run `calctrail --help` for the commands and options.\n";
+    return kExitError;
+  }
+  try {
+    if (report_cmd->parsed()) return runReport(report);
+    if (check_cmd->parsed()) return runCheck(check);
+    if (fn_cmd->parsed()) return runFunctions(fn_name, fn_format);
+    if (units_cmd->parsed()) return runUnits(units_format);
+  } catch (const std::exception& e) {
+    std::cerr << "calctrail: internal error: " << e.what() << "\n";
+    return kExitError;
+  }
+  return kExitError;
+}

@@ -1,0 +1,251 @@
+#include "engine/eval/dimension_check.h"
+
+#include <cmath>
+
+#include "engine/eval/math_functions.h"
+#include "engine/units/unit.h"
+#include "engine/util/edit_distance.h"
+#include "functions/function_decl.h"
+
+namespace calctrail {
+
+namespace {
+const Dimension kNone;
+const Dimension kAngle = Dimension::of(Base::Angle);
+const Dimension kLength = Dimension::of(Base::Length);
+
+std::string words(const Dimension& d) { return d.describe(); }
+}  // namespace
+
+bool workOrPower(const Dimension& d) {
+  const Dimension base = d.withoutAngle();
+  return base == Dimension::exponents(2, 1, -2) || base == Dimension::exponents(2, 1, -3);
+}
+
+std::string compareForSum(const Dimension& a, const Dimension& b, bool* incompatible) {
+  *incompatible = false;
+  if (a == b) return "";
+  if (a.sameIgnoringAngle(b)) {
+    if (workOrPower(a)) return "";  // T*theta is work and T*omega power: the radian is 1
+    return "adds " + words(a) + " and " + words(b) +
+           ", which differ only by an angle: the radian counts as 1, but check that no 2*pi is missing";
+  }
+  *incompatible = true;
+  return "";
+}
+
+std::string strayAngleWarning(const std::string& name, const Dimension& dim) {
+  const int a = dim.exponent(Base::Angle);
+  if (a == 0) return "";
+  if (workOrPower(dim)) return "";  // T*theta is work, T*omega is power
+  const Dimension base = dim.withoutAngle();
+  // Angles, rotational speeds and accelerations (any power of time), leads.
+  if ((a == 1 || a == 2) && base.exponent(Base::Length) == 0 && base.exponent(Base::Mass) == 0 &&
+      base == Dimension::of(Base::Time, base.exponent(Base::Time)))
+    return "";
+  if (a == -1 && base == kLength) return "";
+  if (a == 1 && base == Dimension::exponents(1, 0, -1)) {
+    return "`" + name + "` is a rotational speed times a plain length (" + dim.siSymbol() +
+           "): if the length is a lead, this is 2*pi too large; write the lead per revolution, as in `5 [mm/rev]` or `0.2 [in/rev]`";
+  }
+  return "`" + name + "` has a stray angle in its dimension (" + dim.siSymbol() +
+         "): a plain 2*pi where `1 [rev]` is meant, or a lead or speed written without /rev, gives a value off by 2*pi; write angles as `1 [rev]` and leads as `[mm/rev]`";
+}
+
+bool constantValue(const Expr& e, double* value) {
+  double a = 0, b = 0;
+  switch (e.kind) {
+    case ExprKind::Number: *value = e.siValue(); return true;
+    case ExprKind::Pi: *value = M_PI; return true;
+    case ExprKind::Group: return constantValue(*e.args[0], value);
+    case ExprKind::Negate:
+      if (!constantValue(*e.args[0], &a)) return false;
+      *value = -a;
+      return true;
+    case ExprKind::Add: case ExprKind::Subtract: case ExprKind::Multiply: case ExprKind::Divide:
+    case ExprKind::Power:
+      if (!constantValue(*e.args[0], &a) || !constantValue(*e.args[1], &b)) return false;
+      if (e.kind == ExprKind::Add) *value = a + b;
+      else if (e.kind == ExprKind::Subtract) *value = a - b;
+      else if (e.kind == ExprKind::Multiply) *value = a * b;
+      else if (e.kind == ExprKind::Divide) *value = a / b;
+      else *value = std::pow(a, b);
+      return std::isfinite(*value);
+    default:
+      return false;
+  }
+}
+
+DimensionChecker::DimensionChecker(const SourceFile& file, Diagnostics* diags, const Sheet& sheet,
+                                   const std::vector<Dimension>& dims, const std::vector<char>& known)
+    : file_(file), diags_(diags), sheet_(sheet), dims_(dims), known_(known) {}
+
+bool DimensionChecker::check(Expr& e) { return visit(e); }
+
+bool DimensionChecker::fail(const Expr& at, const std::string& message) {
+  diags_->error(file_, at.begin, at.end, message);
+  return false;
+}
+
+bool DimensionChecker::visit(Expr& e) {
+  switch (e.kind) {
+    case ExprKind::Number:
+      e.dim = e.unit ? e.unit->dim : kNone;
+      return true;
+    case ExprKind::Pi:
+      e.dim = kNone;
+      return true;
+    case ExprKind::Name: {
+      const int i = sheet_.find(e.text);
+      if (i < 0 || !known_[i]) return false;  // reported where it was defined
+      e.dim = dims_[i];
+      return true;
+    }
+    case ExprKind::Group:
+    case ExprKind::Negate:
+      if (!visit(*e.args[0])) return false;
+      e.dim = e.args[0]->dim;
+      return true;
+    case ExprKind::Call:
+      return checkCall(e);
+    default:
+      break;
+  }
+  Expr& l = *e.args[0];
+  Expr& r = *e.args[1];
+  if (!visit(l) || !visit(r)) return false;
+  switch (e.kind) {
+    case ExprKind::Add:
+    case ExprKind::Subtract: {
+      bool incompatible;
+      const std::string warning = compareForSum(l.dim, r.dim, &incompatible);
+      if (incompatible) {
+        return fail(e, std::string("cannot ") + (e.kind == ExprKind::Add ? "add " : "subtract ") +
+                           words(r.dim) + (e.kind == ExprKind::Add ? " to " : " from ") + words(l.dim));
+      }
+      if (!warning.empty()) diags_->warning(file_, e.begin, e.end, warning);
+      e.dim = l.dim;
+      return true;
+    }
+    case ExprKind::Multiply:
+      e.dim = l.dim * r.dim;
+      return true;
+    case ExprKind::Divide:
+      e.dim = l.dim / r.dim;
+      return true;
+    case ExprKind::Power: {
+      if (!r.dim.dimensionless()) return fail(r, "an exponent must be a plain number, not " + words(r.dim));
+      if (l.dim.dimensionless()) {
+        e.dim = kNone;
+        return true;
+      }
+      double p;
+      if (!constantValue(r, &p)) {
+        return fail(r, "the base is " + words(l.dim) +
+                           ", so the exponent must be a fixed number (like 2 or 0.5), not a formula of quantities");
+      }
+      // Whole powers, and roots that leave whole exponents (an area to the 0.5 is a length).
+      for (int den = 1; den <= 4; ++den) {
+        const double num = p * den;
+        if (std::fabs(num - std::round(num)) < 1e-9) {
+          Dimension rooted;
+          if (!l.dim.root(den, &rooted)) break;
+          e.dim = rooted.pow(static_cast<int>(std::lround(num)));
+          return true;
+        }
+      }
+      return fail(e, "raising " + words(l.dim) + " to the power " + r.text +
+                         " gives no dimension with whole exponents");
+    }
+    default:
+      return false;
+  }
+}
+
+bool DimensionChecker::checkCall(Expr& e) {
+  for (auto& a : e.args)
+    if (!visit(*a)) return false;
+  const int n = static_cast<int>(e.args.size());
+  if (const MathFunction* m = findMathFunction(e.text)) {
+    if (n < m->min_args || (m->max_args >= 0 && n > m->max_args)) {
+      std::string want = m->max_args < 0 ? "at least " + std::to_string(m->min_args)
+                                         : std::to_string(m->min_args);
+      return fail(e, "`" + e.text + "` takes " + want + " argument" + (want == "1" ? "" : "s") + ", not " +
+                         std::to_string(n));
+    }
+    const Dimension& a = e.args[0]->dim;
+    switch (m->rule) {
+      case MathRule::Sqrt:
+        if (!a.root(2, &e.dim)) {
+          return fail(*e.args[0], "sqrt of " + words(a) +
+                                      " has no dimension with whole exponents; only even powers have a square root");
+        }
+        return true;
+      case MathRule::TrigOfAngle:
+        if (a != kAngle && !a.dimensionless())
+          return fail(*e.args[0], "`" + e.text + "` takes an angle (or plain radians), not " + words(a));
+        e.dim = kNone;
+        return true;
+      case MathRule::InverseTrig:
+        if (!a.dimensionless()) return fail(*e.args[0], "`" + e.text + "` takes a plain number, not " + words(a));
+        e.dim = kAngle;
+        return true;
+      case MathRule::Atan2:
+        if (!a.sameIgnoringAngle(e.args[1]->dim))
+          return fail(e, "atan2(y, x) needs y and x alike; here " + words(a) + " and " + words(e.args[1]->dim));
+        e.dim = kAngle;
+        return true;
+      case MathRule::Dimensionless:
+        if (!a.dimensionless()) return fail(*e.args[0], "`" + e.text + "` takes a plain number, not " + words(a));
+        e.dim = kNone;
+        return true;
+      case MathRule::SameAsArg:
+        e.dim = a;
+        return true;
+      case MathRule::AllAlike:
+        for (int i = 1; i < n; ++i) {
+          if (!e.args[i]->dim.sameIgnoringAngle(a))
+            return fail(*e.args[i], "`" + e.text + "` compares alike values; argument " + std::to_string(i + 1) +
+                                        " is " + words(e.args[i]->dim) + ", the first is " + words(a));
+        }
+        e.dim = a;
+        return true;
+    }
+    return false;
+  }
+  const FunctionDecl* f = findFunction(e.text);
+  if (!f) {
+    std::vector<std::string> names;
+    for (const MathFunction& m : mathFunctions()) names.push_back(m.name);
+    for (const FunctionDecl& d : functionLibrary()) names.push_back(d.name);
+    std::string msg = "unknown function `" + e.text + "`";
+    auto near = nearestWords(e.text, names);
+    if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
+    msg += " (`calctrail functions` lists them)";
+    diags_->error(file_, e.begin, e.begin + static_cast<uint32_t>(e.text.size()), msg);
+    return false;
+  }
+  if (n != static_cast<int>(f->args.size())) {
+    std::string names;
+    for (size_t i = 0; i < f->args.size(); ++i) names += (i ? ", " : "") + f->args[i].name;
+    return fail(e, "`" + f->name + "` takes " + std::to_string(f->args.size()) + " arguments (" + names +
+                       "), not " + std::to_string(n));
+  }
+  for (int i = 0; i < n; ++i) {
+    const FunctionArg& arg = f->args[i];
+    const Dimension& got = e.args[i]->dim;
+    if (got == arg.dim) continue;
+    if (arg.per_revolution && got == arg.dim / kAngle) continue;  // [mm/rev]
+    std::string msg = "argument " + std::to_string(i + 1) + " of `" + f->name + "` (" + arg.name + ", " +
+                      arg.description + ") must be " + words(arg.dim);
+    if (arg.per_revolution) msg += " or a length per revolution";
+    msg += ", not " + words(got);
+    if (got.sameIgnoringAngle(arg.dim))
+      msg += "; a speed is rotational (rpm, [rev/s]) and a frequency in Hz is not: the two differ by 2*pi";
+    return fail(*e.args[i], msg);
+  }
+  e.dim = f->result_per_revolution ? f->result / kAngle : f->result;
+  return true;
+}
+
+}  // namespace calctrail

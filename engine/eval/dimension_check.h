@@ -1,0 +1,54 @@
+// The dimension check of a formula, before anything is evaluated: sums,
+// differences and comparisons of unlike dimensions, function arguments,
+// powers and roots. Fills Expr::dim on every node.
+#pragma once
+
+#include <vector>
+
+#include "engine/sheet/diagnostics.h"
+#include "engine/sheet/expr.h"
+#include "engine/sheet/sheet.h"
+
+namespace calctrail {
+
+class DimensionChecker {
+ public:
+  // dims[i]/known[i]: the dimension of quantity i, and whether it has one
+  // (a quantity whose own formula failed has none; its users stay quiet).
+  DimensionChecker(const SourceFile& file, Diagnostics* diags, const Sheet& sheet,
+                   const std::vector<Dimension>& dims, const std::vector<char>& known);
+
+  // True when the formula is consistent. False after reporting the first
+  // problem, or quietly when a quantity it uses has no dimension.
+  bool check(Expr& e);
+
+ private:
+  bool visit(Expr& e);
+  bool checkCall(Expr& e);
+  bool fail(const Expr& at, const std::string& message);
+
+  const SourceFile& file_;
+  Diagnostics* diags_;
+  const Sheet& sheet_;
+  const std::vector<Dimension>& dims_;
+  const std::vector<char>& known_;
+};
+
+// Adding an angle to a plain number (or rad/s to 1/s) is allowed, with a
+// warning: the radian is 1, but a 2*pi may be missing. Returns "" when the
+// two dimensions are alike, the warning text when they differ only in angle,
+// and sets *incompatible otherwise.
+std::string compareForSum(const Dimension& a, const Dimension& b, bool* incompatible);
+
+// A warning for a result whose dimension carries a stray angle (rpm times a
+// plain lead, a plain 2*pi where 1 rev is meant), with the fix; "" when none.
+std::string strayAngleWarning(const std::string& name, const Dimension& dim);
+
+// Torque or energy, or power, with any angle exponent: T*theta is work and
+// T*omega is power, so there the radian is 1 and the angle is dropped.
+bool workOrPower(const Dimension& d);
+
+// The value of an expression made of numbers, pi and arithmetic only.
+bool constantValue(const Expr& e, double* value);
+
+}  // namespace calctrail

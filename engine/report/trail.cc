@@ -1,0 +1,163 @@
+#include "engine/report/trail.h"
+
+#include <algorithm>
+
+#include "engine/eval/math_functions.h"
+#include "engine/report/number_format.h"
+#include "functions/function_decl.h"
+
+namespace calctrail {
+
+const std::vector<std::string>& generalCautions() {
+  static const std::vector<std::string> c = {
+      "Friction values vary widely: size torque and motor with the high value and test self-locking "
+      "and back-driving with the low one.",
+      "Self-locking is no brake: vibration, shock and lubrication can back-drive a screw that is "
+      "self-locking on paper. Provide a brake or lock where a load is held.",
+      "Long screws in compression buckle: check the column with its real end conditions and length.",
+      "These results are a design aid. They are to be reviewed by a qualified engineer under the "
+      "codes, standards and local rules that apply to the machine, above all where a load is lifted "
+      "or clamped over people.",
+  };
+  return c;
+}
+
+namespace {
+
+void collectCalls(const Expr& e, std::vector<const FunctionDecl*>* out) {
+  if (e.kind == ExprKind::Call && !findMathFunction(e.text)) {
+    const FunctionDecl* f = findFunction(e.text);
+    if (f && std::find(out->begin(), out->end(), f) == out->end()) out->push_back(f);
+  }
+  for (const auto& a : e.args) collectCalls(*a, out);
+}
+
+std::string substitute(const Expr& e, const Calculation& calc, const std::vector<std::string>& given,
+                       int digits) {
+  return renderExpr(
+      e,
+      [&](const Expr& name) {
+        const int j = calc.sheet.find(name.text);
+        const QuantityState& s = calc.quantities[j];
+        // A given value appears as written ("950 kg", "0.35"), unrounded.
+        std::string v = !given[j].empty() ? given[j] : formatQuantity(s.si, s.display, digits);
+        return s.si < 0 || s.display.fromSI(s.si) < 0 ? "(" + v + ")" : v;
+      },
+      true);
+}
+
+}  // namespace
+
+Trail buildTrail(const Calculation& calc, int digits) {
+  const Sheet& sheet = calc.sheet;
+  Trail t;
+  t.digits = digits;
+  t.path = calc.path;
+  t.sha256 = calc.sha256;
+  t.title = sheet.meta.get("title");
+  for (const std::string& key : Metadata::keys()) {
+    if (key == "title") continue;
+    const std::string v = sheet.meta.get(key);
+    if (!v.empty()) t.meta.emplace_back(key, v);
+  }
+  std::vector<const FunctionDecl*> used;
+  for (size_t i = 0; i < sheet.quantities.size(); ++i) {
+    const Quantity& q = sheet.quantities[i];
+    const QuantityState& s = calc.quantities[i];
+    TrailStep step;
+    step.index = static_cast<int>(i);
+    step.name = q.name;
+    step.description = q.description;
+    step.section = q.section;
+    step.input = s.input;
+    step.overridden = q.overridden;
+    step.formula = renderExpr(*q.expr);
+    step.pretty = renderExpr(*q.expr, nullptr, true);
+    if (s.ok) {
+      step.substituted.clear();  // filled below, once every given value is known
+      step.result = formatQuantity(s.si, s.display, digits);
+      step.value = formatNumber(s.display.fromSI(s.si), digits);
+    }
+    {
+      const Expr* x = q.expr.get();
+      while (x->kind == ExprKind::Group) x = x->args[0].get();
+      const bool literal = x->kind == ExprKind::Number;
+      const bool same_unit = x->unit ? (s.display.text == x->unit->text && !s.declared) ||
+                                           (q.display && q.display->text == x->unit->text)
+                                     : s.display.text == "1" || s.display.text.empty();
+      if (s.ok && literal && same_unit) {
+        step.given = x->unit ? joinNumberUnit(x->text, x->unit->pretty()) : x->text;
+      }
+    }
+    step.unit = s.display.text;
+    step.unit_pretty = s.display.pretty();
+    step.dimension = s.dim.name();
+    std::vector<const FunctionDecl*> calls;
+    collectCalls(*q.expr, &calls);
+    for (const FunctionDecl* f : calls) {
+      TrailCall c;
+      c.name = f->name;
+      c.signature = f->name + "(";
+      for (size_t k = 0; k < f->args.size(); ++k) c.signature += (k ? ", " : "") + f->args[k].name;
+      c.signature += ")";
+      c.formula = f->formula;
+      c.source = f->source;
+      c.caution = f->caution;
+      step.calls.push_back(std::move(c));
+      if (std::find(used.begin(), used.end(), f) == used.end()) used.push_back(f);
+    }
+    t.steps.push_back(std::move(step));
+  }
+  std::vector<std::string> given;
+  for (const TrailStep& s : t.steps) given.push_back(s.given);
+  for (TrailStep& s : t.steps)
+    if (calc.quantities[s.index].ok) s.substituted = substitute(*sheet.quantities[s.index].expr, calc, given, digits);
+  for (size_t k = 0; k < sheet.checks.size(); ++k) {
+    const Check& c = sheet.checks[k];
+    const CheckState& s = calc.checks[k];
+    TrailCheck tc;
+    tc.index = static_cast<int>(k);
+    tc.name = c.name;
+    tc.description = c.description;
+    tc.section = c.section;
+    tc.op = comparisonText(c.op);
+    tc.condition = renderExpr(*c.lhs) + " " + tc.op + " " + renderExpr(*c.rhs);
+    if (s.ok) {
+      tc.lhs = formatQuantity(s.lhs, s.display, digits);
+      tc.rhs = formatQuantity(s.rhs, s.display, digits);
+    }
+    tc.passed = s.ok && s.passed;
+    (tc.passed ? t.passed : t.failed)++;
+    t.checks.push_back(std::move(tc));
+  }
+  std::string note;
+  auto flushNote = [&] {
+    if (note.empty()) return;
+    t.blocks.push_back({TrailBlock::Note, note, 0});
+    note.clear();
+  };
+  for (const Statement& st : sheet.statements) {
+    if (st.kind == Statement::Note) {
+      note += (note.empty() ? "" : " ") + st.text;
+      continue;
+    }
+    if (st.kind == Statement::Blank || st.kind == Statement::Comment || st.kind == Statement::Meta) {
+      if (st.kind == Statement::Blank) flushNote();
+      continue;
+    }
+    flushNote();
+    if (st.kind == Statement::Section) t.blocks.push_back({TrailBlock::Section, st.text, 0});
+    if (st.kind == Statement::Define) t.blocks.push_back({TrailBlock::Step, "", st.index});
+    if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
+  }
+  flushNote();
+  for (const Diagnostic& d : calc.diags.list())
+    if (d.severity == Severity::Warning) t.warnings.push_back(d.headline());
+  t.cautions = generalCautions();
+  for (const FunctionDecl* f : used)
+    if (!f->caution.empty() && std::find(t.cautions.begin(), t.cautions.end(), f->caution) == t.cautions.end())
+      t.cautions.push_back(f->caution);
+  return t;
+}
+
+}  // namespace calctrail

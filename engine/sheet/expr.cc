@@ -1,0 +1,76 @@
+#include "engine/sheet/expr.h"
+
+namespace calctrail {
+
+void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
+  if (e.kind == ExprKind::Name) fn(e);
+  for (const ExprPtr& a : e.args) forEachName(*a, fn);
+}
+
+namespace {
+void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::string* out) {
+  auto binary = [&](const char* op) {
+    render(*e.args[0], value_of, pretty, out);
+    *out += op;
+    render(*e.args[1], value_of, pretty, out);
+  };
+  switch (e.kind) {
+    case ExprKind::Number:
+      *out += e.text;
+      if (!e.unit_written.empty()) {
+        // "95 %", "20 kN", "9.81 [m/s^2]": one space between number and unit.
+        *out += ' ';
+        *out += e.unit_written;
+      }
+      break;
+    case ExprKind::Pi:
+      *out += pretty ? "\u03C0" : "pi";
+      break;
+    case ExprKind::Name:
+      *out += value_of ? value_of(e) : e.text;
+      break;
+    case ExprKind::Call:
+      *out += e.text;
+      *out += '(';
+      for (size_t i = 0; i < e.args.size(); ++i) {
+        if (i) *out += ", ";
+        render(*e.args[i], value_of, pretty, out);
+      }
+      *out += ')';
+      break;
+    case ExprKind::Negate:
+      *out += '-';
+      render(*e.args[0], value_of, pretty, out);
+      break;
+    case ExprKind::Add: binary(" + "); break;
+    case ExprKind::Subtract: binary(" - "); break;
+    case ExprKind::Multiply: binary(pretty ? " \u00B7 " : " * "); break;
+    case ExprKind::Divide: binary(" / "); break;
+    case ExprKind::Power:
+      if (value_of && e.args[0]->kind == ExprKind::Name) {
+        // (33.00 mm)^2, not 33.00 mm^2: the power applies to the value with its unit.
+        const std::string base = value_of(*e.args[0]);
+        const bool wrap = base.find(' ') != std::string::npos && base[0] != '(';
+        *out += wrap ? "(" + base + ")" : base;
+        *out += '^';
+        render(*e.args[1], value_of, pretty, out);
+        break;
+      }
+      binary("^");
+      break;
+    case ExprKind::Group:
+      *out += '(';
+      render(*e.args[0], value_of, pretty, out);
+      *out += ')';
+      break;
+  }
+}
+}  // namespace
+
+std::string renderExpr(const Expr& e, const NameRenderer& value_of, bool pretty) {
+  std::string out;
+  render(e, value_of, pretty, &out);
+  return out;
+}
+
+}  // namespace calctrail

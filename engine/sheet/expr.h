@@ -1,0 +1,56 @@
+// The expression tree of a formula, as written. It stays the source of truth
+// for units, dimension checks and rendering; muparser only does arithmetic.
+#pragma once
+
+#include <cstdint>
+#include <functional>
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "engine/units/unit.h"
+
+namespace calctrail {
+
+enum class ExprKind : uint8_t {
+  Number,    // 20, 0.5, 1e-3, with an optional unit: 20 kN, 9.81 [m/s^2]
+  Pi,        // the constant pi
+  Name,      // a quantity
+  Call,      // f(a, b)
+  Negate,    // -a
+  Add,
+  Subtract,
+  Multiply,
+  Divide,
+  Power,     // a^b
+  Group,     // (a): kept so the trail shows the author's parentheses
+};
+
+struct Expr {
+  ExprKind kind = ExprKind::Number;
+  uint32_t begin = 0, end = 0;  // byte offsets of the whole node in its file
+  // Number: the literal as written ("0.25") and its value in that unit.
+  // Name, Call: the name.
+  std::string text;
+  double number = 0.0;
+  // Number with a unit: the unit as written ("kN", "[m/s^2]") and resolved.
+  std::string unit_written;
+  std::unique_ptr<Unit> unit;
+  std::vector<std::unique_ptr<Expr>> args;  // operands or call arguments
+  Dimension dim;  // filled in by the dimension check
+
+  double siValue() const { return unit ? unit->toSI(number) : number; }
+};
+using ExprPtr = std::unique_ptr<Expr>;
+
+// Calls fn on every Name node, in source order.
+void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn);
+
+// The formula in canonical spelling: "F * dm / 2 * (l + pi * f * dm)". When
+// `value_of` is given, every name is replaced by what it returns (the
+// substituted line of the trail).
+// `pretty` writes products with the SI Brochure's dot (F · dm) and pi as π.
+using NameRenderer = std::function<std::string(const Expr& name_node)>;
+std::string renderExpr(const Expr& e, const NameRenderer& value_of = nullptr, bool pretty = false);
+
+}  // namespace calctrail

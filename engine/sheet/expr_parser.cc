@@ -1,0 +1,476 @@
+#include "engine/sheet/expr_parser.h"
+
+#include <cctype>
+#include <cerrno>
+#include <cmath>
+#include <cstdlib>
+
+#include "engine/units/unit_parser.h"
+#include "engine/units/unit_table.h"
+#include "engine/util/utf8.h"
+
+namespace calctrail {
+
+namespace {
+bool isDigit(char c) { return c >= '0' && c <= '9'; }
+bool isAsciiLetter(char c) { return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'); }
+}  // namespace
+
+ExprPtr makeBinary(ExprKind kind, ExprPtr lhs, ExprPtr rhs) {
+  auto e = std::make_unique<Expr>();
+  e->kind = kind;
+  e->begin = lhs->begin;
+  e->end = rhs->end;
+  e->args.push_back(std::move(lhs));
+  e->args.push_back(std::move(rhs));
+  return e;
+}
+
+ExprParser::ExprParser(const SourceFile& file, uint32_t begin, uint32_t end, Diagnostics* diags)
+    : file_(file), src_(file.bytes()), pos_(begin), end_(end), diags_(diags) {}
+
+void ExprParser::skipSpace() {
+  while (pos_ < end_ && (src_[pos_] == ' ' || src_[pos_] == '\t')) ++pos_;
+}
+
+bool ExprParser::atEnd() {
+  skipSpace();
+  return pos_ >= end_;
+}
+
+char ExprParser::peek() { return atEnd() ? '\0' : src_[pos_]; }
+
+void ExprParser::fail(uint32_t begin, uint32_t end, const std::string& message) {
+  if (failed_) return;
+  failed_ = true;
+  diags_->error(file_, begin, end, message);
+}
+
+bool ExprParser::isNameStart(uint32_t at) const {
+  if (at >= end_) return false;
+  if (isAsciiLetter(src_[at])) return true;
+  if (static_cast<unsigned char>(src_[at]) < 0x80) return false;
+  size_t n;
+  return isGreekLetter(decodeUtf8(src_.substr(0, end_), at, &n));
+}
+
+uint32_t ExprParser::scanName(uint32_t at) const {
+  while (at < end_) {
+    const char c = src_[at];
+    if (isAsciiLetter(c) || isDigit(c) || c == '_') {
+      ++at;
+      continue;
+    }
+    if (static_cast<unsigned char>(c) >= 0x80) {
+      size_t n;
+      if (isGreekLetter(decodeUtf8(src_.substr(0, end_), at, &n))) {
+        at += static_cast<uint32_t>(n);
+        continue;
+      }
+    }
+    break;
+  }
+  return at;
+}
+
+void ExprParser::failUnexpected() {
+  skipSpace();
+  if (pos_ >= end_) {
+    fail(end_ > 0 ? end_ - 1 : 0, end_, "the formula ends too early: a value is missing");
+    return;
+  }
+  const char c = src_[pos_];
+  if (static_cast<unsigned char>(c) >= 0x80) {
+    size_t n;
+    const char32_t cp = decodeUtf8(src_.substr(0, end_), pos_, &n);
+    std::string msg = "unexpected character " + encodeUtf8(cp) + " (" + describeCodePoint(cp) + ")";
+    if (const char a = asciiLookAlike(cp)) msg += std::string("; it looks like `") + a + "` but is not ASCII: type `" + a + "`";
+    fail(pos_, pos_ + static_cast<uint32_t>(n), msg);
+    return;
+  }
+  if (c == '*' && pos_ + 1 < end_ && src_[pos_ + 1] == '*') {
+    fail(pos_, pos_ + 2, "`**` is not an operator here; write `^` for a power");
+    return;
+  }
+  if (c == '=') {
+    fail(pos_, pos_ + 1, "unexpected `=` in a formula (one definition per line; a check compares with <, <=, > or >=)");
+    return;
+  }
+  fail(pos_, pos_ + 1, std::string("unexpected `") + c + "`");
+}
+
+ExprPtr ExprParser::parseWhole() {
+  ExprPtr e = parseSum();
+  if (!e || failed_) return nullptr;
+  if (!atEnd()) {
+    if (peek() == ')') {
+      fail(pos_, pos_ + 1, "unmatched `)`");
+    } else if (isNameStart(pos_) || isDigit(peek()) || peek() == '(') {
+      fail(pos_, pos_ + 1, "expected an operator (+ - * / ^) before this; a product needs `*`");
+    } else {
+      failUnexpected();
+    }
+    return nullptr;
+  }
+  return e;
+}
+
+bool ExprParser::comparisonAhead(Comparison* op, uint32_t* length) {
+  skipSpace();
+  if (pos_ >= end_) return false;
+  std::string_view rest = src_.substr(pos_, end_ - pos_);
+  if (rest.rfind("<=", 0) == 0) { *op = Comparison::LessEqual; *length = 2; return true; }
+  if (rest.rfind(">=", 0) == 0) { *op = Comparison::GreaterEqual; *length = 2; return true; }
+  if (rest.rfind("\u2264", 0) == 0) { *op = Comparison::LessEqual; *length = 3; return true; }
+  if (rest.rfind("\u2265", 0) == 0) { *op = Comparison::GreaterEqual; *length = 3; return true; }
+  if (rest[0] == '<') { *op = Comparison::Less; *length = 1; return true; }
+  if (rest[0] == '>') { *op = Comparison::Greater; *length = 1; return true; }
+  return false;
+}
+
+bool ExprParser::parseCondition(ExprPtr* lhs, Comparison* op, uint32_t* op_begin, ExprPtr* rhs) {
+  *lhs = parseSum();
+  if (!*lhs || failed_) return false;
+  uint32_t length = 0;
+  if (!comparisonAhead(op, &length)) {
+    if (pos_ < end_ && src_[pos_] == '=') {
+      fail(pos_, pos_ + 1, "a check compares with <, <=, > or >=; `=` is not a comparison (exact equality of computed values is never safe to test)");
+    } else if (atEnd()) {
+      fail((*lhs)->begin, (*lhs)->end, "a check needs a comparison: EXPR <, <=, > or >= EXPR");
+    } else {
+      failUnexpected();
+    }
+    return false;
+  }
+  *op_begin = pos_;
+  pos_ += length;
+  *rhs = parseSum();
+  if (!*rhs || failed_) return false;
+  Comparison again;
+  if (comparisonAhead(&again, &length)) {
+    fail(pos_, pos_ + length, "one comparison per check; write two checks for a range");
+    return false;
+  }
+  if (!atEnd()) {
+    failUnexpected();
+    return false;
+  }
+  return true;
+}
+
+ExprPtr ExprParser::parseSum() {
+  ExprPtr lhs = parseProduct();
+  while (lhs && !failed_) {
+    const char c = peek();
+    if (c != '+' && c != '-') break;
+    ++pos_;
+    if (++operations_ > kMaxOperations) {
+      fail(pos_ - 1, pos_, "the formula is too long (more than 4096 operations); split it into named steps");
+      return nullptr;
+    }
+    ExprPtr rhs = parseProduct();
+    if (!rhs) return nullptr;
+    lhs = makeBinary(c == '+' ? ExprKind::Add : ExprKind::Subtract, std::move(lhs), std::move(rhs));
+  }
+  return failed_ ? nullptr : std::move(lhs);
+}
+
+ExprPtr ExprParser::parseProduct() {
+  ExprPtr lhs = parseUnary();
+  while (lhs && !failed_) {
+    skipSpace();
+    if (pos_ >= end_) break;
+    ExprKind kind;
+    uint32_t length = 1;
+    std::string_view rest = src_.substr(pos_, end_ - pos_);
+    if (rest[0] == '*') {
+      if (rest.size() > 1 && rest[1] == '*') {
+        failUnexpected();
+        return nullptr;
+      }
+      kind = ExprKind::Multiply;
+    } else if (rest[0] == '/') {
+      kind = ExprKind::Divide;
+    } else if (rest.rfind("\u00B7", 0) == 0 || rest.rfind("\u00D7", 0) == 0 || rest.rfind("\u22C5", 0) == 0) {
+      kind = ExprKind::Multiply;  // the product signs of engineering documents
+      length = rest[0] == '\xE2' ? 3 : 2;
+    } else {
+      break;
+    }
+    pos_ += length;
+    if (++operations_ > kMaxOperations) {
+      fail(pos_ - length, pos_, "the formula is too long (more than 4096 operations); split it into named steps");
+      return nullptr;
+    }
+    ExprPtr rhs = parseUnary();
+    if (!rhs) return nullptr;
+    lhs = makeBinary(kind, std::move(lhs), std::move(rhs));
+  }
+  return failed_ ? nullptr : std::move(lhs);
+}
+
+ExprPtr ExprParser::parseUnary() {
+  skipSpace();
+  if (pos_ < end_ && (src_[pos_] == '-' || src_[pos_] == '+')) {
+    const uint32_t begin = pos_;
+    const bool minus = src_[pos_] == '-';
+    ++pos_;
+    if (++depth_ > kMaxDepth) {
+      fail(begin, begin + 1, "the formula nests too deeply (more than 128 levels)");
+      return nullptr;
+    }
+    ExprPtr operand = parseUnary();
+    --depth_;
+    if (!operand) return nullptr;
+    if (!minus) return operand;
+    if (operand->kind == ExprKind::Number && operand->unit && operand->unit->hasOffset()) {
+      // -40 degC is a temperature below zero, not the negative of 40 degC.
+      operand->number = -operand->number;
+      operand->text = "-" + operand->text;
+      operand->begin = begin;
+      return operand;
+    }
+    auto e = std::make_unique<Expr>();
+    e->kind = ExprKind::Negate;
+    e->begin = begin;
+    e->end = operand->end;
+    e->args.push_back(std::move(operand));
+    return e;
+  }
+  return parsePower();
+}
+
+ExprPtr ExprParser::parsePower() {
+  ExprPtr base = parsePrimary();
+  if (!base || failed_) return nullptr;
+  skipSpace();
+  if (pos_ < end_ && src_[pos_] == '^') {
+    const uint32_t at = pos_++;
+    if (++depth_ > kMaxDepth) {
+      fail(at, at + 1, "the formula nests too deeply (more than 128 levels)");
+      return nullptr;
+    }
+    ExprPtr exponent = parseUnary();  // right-associative: a^b^c = a^(b^c); 2^-1 allowed
+    --depth_;
+    if (!exponent) return nullptr;
+    return makeBinary(ExprKind::Power, std::move(base), std::move(exponent));
+  }
+  if (src_.substr(pos_, 2) == "\u00B2" || src_.substr(pos_, 2) == "\u00B3") {
+    // x² and x³ as typed in documents.
+    auto two = std::make_unique<Expr>();
+    two->kind = ExprKind::Number;
+    two->begin = pos_;
+    two->end = pos_ + 2;
+    two->number = src_[pos_ + 1] == '\xB2' ? 2 : 3;
+    two->text = src_[pos_ + 1] == '\xB2' ? "2" : "3";
+    pos_ += 2;
+    return makeBinary(ExprKind::Power, std::move(base), std::move(two));
+  }
+  return base;
+}
+
+ExprPtr ExprParser::parsePrimary() {
+  skipSpace();
+  if (pos_ >= end_) {
+    failUnexpected();
+    return nullptr;
+  }
+  const char c = src_[pos_];
+  if (isDigit(c) || (c == '.' && pos_ + 1 < end_ && isDigit(src_[pos_ + 1]))) return parseNumber();
+  if (c == '(') {
+    const uint32_t begin = pos_++;
+    if (++depth_ > kMaxDepth) {
+      fail(begin, begin + 1, "the formula nests too deeply (more than 128 levels)");
+      return nullptr;
+    }
+    ExprPtr inner = parseSum();
+    --depth_;
+    if (!inner) return nullptr;
+    if (peek() != ')') {
+      if (atEnd()) fail(begin, begin + 1, "this `(` is never closed");
+      else failUnexpected();
+      return nullptr;
+    }
+    ++pos_;
+    auto e = std::make_unique<Expr>();
+    e->kind = ExprKind::Group;
+    e->begin = begin;
+    e->end = pos_;
+    e->args.push_back(std::move(inner));
+    return e;
+  }
+  if (isNameStart(pos_)) return parseNameOrCall();
+  if (c == '[') {
+    fail(pos_, pos_ + 1, "a unit in brackets must follow a number, as in `9.81 [m/s^2]`");
+    return nullptr;
+  }
+  failUnexpected();
+  return nullptr;
+}
+
+ExprPtr ExprParser::parseNumber() {
+  const uint32_t begin = pos_;
+  uint32_t p = pos_;
+  while (p < end_ && isDigit(src_[p])) ++p;
+  if (p < end_ && src_[p] == '.') {
+    ++p;
+    while (p < end_ && isDigit(src_[p])) ++p;
+  }
+  if (p < end_ && (src_[p] == 'e' || src_[p] == 'E')) {
+    uint32_t q = p + 1;
+    if (q < end_ && (src_[q] == '+' || src_[q] == '-')) ++q;
+    if (q < end_ && isDigit(src_[q])) {
+      while (q < end_ && isDigit(src_[q])) ++q;
+      p = q;
+    }
+  }
+  auto e = std::make_unique<Expr>();
+  e->kind = ExprKind::Number;
+  e->begin = begin;
+  e->text.assign(src_.substr(begin, p - begin));
+  errno = 0;
+  e->number = std::strtod(e->text.c_str(), nullptr);
+  if (errno == ERANGE || !std::isfinite(e->number)) {
+    fail(begin, p, "the number " + e->text + " is out of range");
+    return nullptr;
+  }
+  pos_ = p;
+  e->end = p;
+  if (p < end_ && (src_[p] == '.' || isDigit(src_[p]))) {
+    fail(begin, p + 1, "malformed number");
+    return nullptr;
+  }
+  if (!parseUnitAfterNumber(e.get())) return nullptr;
+  return e;
+}
+
+// After a number: nothing, a bracketed unit `[m/s^2]`, `%`, or ONE unit name.
+bool ExprParser::parseUnitAfterNumber(Expr* number) {
+  skipSpace();
+  if (pos_ >= end_) return true;
+  const uint32_t begin = pos_;
+  std::string_view unit_text;
+  uint32_t unit_begin = begin;
+  if (src_[pos_] == '[') {
+    const size_t close = src_.substr(0, end_).find(']', pos_);
+    if (close == std::string_view::npos) {
+      fail(begin, begin + 1, "this `[` is never closed: a unit in brackets ends with `]`");
+      return false;
+    }
+    unit_begin = pos_ + 1;
+    unit_text = src_.substr(unit_begin, close - unit_begin);
+    pos_ = static_cast<uint32_t>(close) + 1;
+  } else if (src_[pos_] == '%') {
+    unit_text = src_.substr(pos_, 1);
+    ++pos_;
+  } else {
+    // A unit name: letters, including the micro sign and other non-ASCII
+    // letters (so a look-alike gets the unit parser's clear message).
+    uint32_t p = pos_;
+    while (p < end_) {
+      const char c = src_[p];
+      if (isAsciiLetter(c) || c == '_') {
+        ++p;
+        continue;
+      }
+      if (static_cast<unsigned char>(c) >= 0x80) {
+        size_t n;
+        const char32_t cp = decodeUtf8(src_.substr(0, end_), p, &n);
+        if (cp == 0xB2 || cp == 0xB3 || cp == 0xB7 || cp == 0xD7 || cp == 0x22C5 ||
+            cp == 0x2264 || cp == 0x2265 || cp == 0xA0 || cp == 0x2009 || cp == 0x202F)
+          break;
+        p += static_cast<uint32_t>(n);
+        continue;
+      }
+      break;
+    }
+    if (p == pos_) return true;  // no unit
+    unit_text = src_.substr(pos_, p - pos_);
+    if (p < end_ && src_[p] == '(') {
+      fail(begin, p + 1, "a number cannot be followed by a call; write `" + number->text + "*" +
+                             std::string(unit_text) + "(...)`");
+      return false;
+    }
+    pos_ = p;
+    // `3 mm^2` reads two ways: 3 [mm^2] or (3 [mm])^2.
+    std::string_view after = src_.substr(pos_, end_ - pos_);
+    if (!after.empty() && (after[0] == '^' || after.rfind("\u00B2", 0) == 0 || after.rfind("\u00B3", 0) == 0)) {
+      uint32_t q = pos_ + (after[0] == '^' ? 1 : 2);
+      std::string power = after[0] == '^' ? "" : (after[1] == '\xB2' ? "2" : "3");
+      if (after[0] == '^') {
+        while (q < end_ && (isDigit(src_[q]) || src_[q] == '-' || src_[q] == '.')) power += src_[q++];
+      }
+      const std::string u(unit_text);
+      fail(begin, q, "`" + number->text + " " + u + (after[0] == '^' ? "^" + power : std::string(after.substr(0, 2))) +
+                         "` can be read two ways: write `" + number->text + " [" + u + "^" + power +
+                         "]` for a value in " + u + "^" + power + ", or `(" + number->text + " " + u + ")^" +
+                         power + "` for the power of " + number->text + " " + u);
+      return false;
+    }
+  }
+  number->unit_written.assign(src_.substr(begin, pos_ - begin));
+  Unit unit;
+  UnitError err;
+  if (!parseUnit(unit_text, &unit, &err)) {
+    const uint32_t at = unit_begin + static_cast<uint32_t>(std::min(err.offset, unit_text.size()));
+    std::string msg = err.message;
+    if (src_[begin] != '[' && src_[begin] != '%' && isAsciiLetter(src_[begin])) {
+      msg += "; a quantity after a number needs `*`, as in `" + number->text + "*" + std::string(unit_text) + "`";
+    }
+    fail(at, std::max<uint32_t>(at + 1, src_[begin] == '[' ? pos_ - 1 : pos_), msg);
+    return false;
+  }
+  number->unit = std::make_unique<Unit>(std::move(unit));
+  number->end = pos_;
+  return true;
+}
+
+ExprPtr ExprParser::parseNameOrCall() {
+  const uint32_t begin = pos_;
+  const uint32_t name_end = scanName(pos_);
+  auto e = std::make_unique<Expr>();
+  e->begin = begin;
+  e->text.assign(src_.substr(begin, name_end - begin));
+  pos_ = name_end;
+  if (e->text == "pi" && !(pos_ < end_ && src_[pos_] == '(')) {
+    e->kind = ExprKind::Pi;
+    e->end = pos_;
+    return e;
+  }
+  uint32_t p = pos_;
+  while (p < end_ && (src_[p] == ' ' || src_[p] == '\t')) ++p;
+  if (p < end_ && src_[p] == '(') {
+    e->kind = ExprKind::Call;
+    pos_ = p + 1;
+    if (++depth_ > kMaxDepth) {
+      fail(begin, pos_, "the formula nests too deeply (more than 128 levels)");
+      return nullptr;
+    }
+    if (peek() != ')') {
+      for (;;) {
+        ExprPtr arg = parseSum();
+        if (!arg) return nullptr;
+        e->args.push_back(std::move(arg));
+        if (peek() == ',') {
+          ++pos_;
+          continue;
+        }
+        break;
+      }
+    }
+    --depth_;
+    if (peek() != ')') {
+      if (atEnd()) fail(p, p + 1, "this `(` of the call to `" + e->text + "` is never closed");
+      else failUnexpected();
+      return nullptr;
+    }
+    ++pos_;
+    e->end = pos_;
+    return e;
+  }
+  e->kind = ExprKind::Name;
+  e->end = pos_;
+  return e;
+}
+
+}  // namespace calctrail

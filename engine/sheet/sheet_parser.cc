@@ -1,0 +1,310 @@
+#include "engine/sheet/sheet_parser.h"
+
+#include <algorithm>
+
+#include "engine/sheet/expr_parser.h"
+#include "engine/units/unit_parser.h"
+#include "engine/util/edit_distance.h"
+#include "engine/util/utf8.h"
+
+namespace calctrail {
+
+const std::vector<std::string>& Metadata::keys() {
+  static const std::vector<std::string> k = {"title", "project", "calc", "revision",
+                                             "prepared", "checked", "date"};
+  return k;
+}
+
+std::string Metadata::get(const std::string& key) const {
+  auto it = values.find(key);
+  return it == values.end() ? std::string() : it->second;
+}
+
+const char* comparisonText(Comparison c) {
+  switch (c) {
+    case Comparison::Less: return "<";
+    case Comparison::LessEqual: return "<=";
+    case Comparison::Greater: return ">";
+    case Comparison::GreaterEqual: return ">=";
+  }
+  return "?";
+}
+
+namespace {
+
+bool isSpace(char c) { return c == ' ' || c == '\t'; }
+bool isAsciiLetter(char c) { return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'); }
+bool isNameChar(char c) { return isAsciiLetter(c) || (c >= '0' && c <= '9') || c == '_'; }
+
+std::string trim(std::string_view s) {
+  size_t b = 0, e = s.size();
+  while (b < e && isSpace(s[b])) ++b;
+  while (e > b && isSpace(s[e - 1])) --e;
+  return std::string(s.substr(b, e - b));
+}
+
+class LineParser {
+ public:
+  LineParser(Sheet* sheet, Diagnostics* diags) : sheet_(sheet), file_(*sheet->file), diags_(diags) {}
+
+  void parseLine(int line) {
+    Statement st;
+    st.line = line;
+    st.kind = parseStatement(line, &st) ? st.kind : Statement::Invalid;
+    sheet_->statements.push_back(std::move(st));
+  }
+
+ private:
+  // Name at `at`: ASCII letter or Greek letter first, then letters, digits, `_`.
+  uint32_t scanName(uint32_t at, uint32_t end) const {
+    const std::string& s = file_.bytes();
+    uint32_t p = at;
+    while (p < end) {
+      if (isNameChar(s[p]) && (p > at || isAsciiLetter(s[p]))) {
+        ++p;
+        continue;
+      }
+      if (static_cast<unsigned char>(s[p]) >= 0x80) {
+        size_t n;
+        if (isGreekLetter(decodeUtf8(std::string_view(s).substr(0, end), p, &n))) {
+          p += static_cast<uint32_t>(n);
+          continue;
+        }
+      }
+      break;
+    }
+    return p;
+  }
+
+  uint32_t skipSpace(uint32_t p, uint32_t end) const {
+    while (p < end && isSpace(file_.bytes()[p])) ++p;
+    return p;
+  }
+
+  bool parseStatement(int line, Statement* st) {
+    const std::string& s = file_.bytes();
+    const std::string_view text = file_.lineText(line);
+    uint32_t begin = file_.lineStart(line);
+    const uint32_t end = begin + static_cast<uint32_t>(text.size());
+    const size_t bad = findInvalidUtf8(text);
+    if (bad != std::string_view::npos) {
+      char hex[8];
+      std::snprintf(hex, sizeof hex, "0x%02X", static_cast<unsigned char>(text[bad]));
+      diags_->error(file_, begin + static_cast<uint32_t>(bad), begin + static_cast<uint32_t>(bad) + 1,
+                    std::string("byte ") + hex + " is not UTF-8; save the worksheet as UTF-8");
+      return false;
+    }
+    if (line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) begin += 3;  // byte-order mark
+    uint32_t p = skipSpace(begin, end);
+    if (p == end) {
+      st->kind = Statement::Blank;
+      return true;
+    }
+    if (s[p] == '#') {
+      st->kind = Statement::Comment;
+      st->text = trim(std::string_view(s).substr(p + 1, end - p - 1));
+      return true;
+    }
+    const uint32_t word_end = scanName(p, end);
+    if (word_end == p) {
+      reportBadStart(p, end);
+      return false;
+    }
+    const std::string word = s.substr(p, word_end - p);
+    const uint32_t next = skipSpace(word_end, end);
+    const char nc = next < end ? s[next] : '\0';
+    const bool definition_follows = nc == '=' || nc == '[';
+    if (word == "check" && !definition_follows && nc != ':') return parseCheck(st, line, next, end);
+    if ((word == "section" || word == "note") && !definition_follows && nc != ':') {
+      st->kind = word == "section" ? Statement::Section : Statement::Note;
+      st->text = trim(std::string_view(s).substr(next, end - next));
+      if (st->kind == Statement::Section) {
+        if (st->text.empty()) {
+          diags_->error(file_, p, word_end, "a section needs a title: `section Loads and speeds`");
+          return false;
+        }
+        section_ = st->text;
+      }
+      return true;
+    }
+    if (nc == ':') return parseMeta(st, word, p, word_end, next, end);
+    if (definition_follows) return parseDefinition(st, line, word, p, word_end, next, end);
+    if (next == end) {
+      diags_->error(file_, p, word_end, "`" + word + "` alone is not a statement; define a quantity with `" + word + " = ...`");
+    } else {
+      diags_->error(file_, next, next + 1, "expected `=` after the name `" + word + "` (or `[unit] =`)");
+    }
+    return false;
+  }
+
+  void reportBadStart(uint32_t p, uint32_t end) {
+    const std::string& s = file_.bytes();
+    if (static_cast<unsigned char>(s[p]) >= 0x80) {
+      size_t n;
+      const char32_t cp = decodeUtf8(std::string_view(s).substr(0, end), p, &n);
+      std::string msg = "a line starts with a name, `check`, `section`, `note`, a metadata key or `#`; found " +
+                        encodeUtf8(cp) + " (" + describeCodePoint(cp) + ")";
+      if (const char a = asciiLookAlike(cp)) msg += std::string(", which looks like `") + a + "` but is not ASCII";
+      diags_->error(file_, p, p + static_cast<uint32_t>(n), msg);
+      return;
+    }
+    diags_->error(file_, p, p + 1,
+                  "a line starts with a name, `check`, `section`, `note`, a metadata key or `#`; found `" +
+                      std::string(1, s[p]) + "`");
+  }
+
+  // Splits off the description: the text after the first `#`.
+  uint32_t splitDescription(uint32_t from, uint32_t end, std::string* description) const {
+    const std::string& s = file_.bytes();
+    const size_t hash = std::string_view(s).substr(0, end).find('#', from);
+    if (hash == std::string::npos) return end;
+    *description = trim(std::string_view(s).substr(hash + 1, end - hash - 1));
+    return static_cast<uint32_t>(hash);
+  }
+
+  bool parseMeta(Statement* st, const std::string& key, uint32_t p, uint32_t word_end, uint32_t colon,
+                 uint32_t end) {
+    const auto& keys = Metadata::keys();
+    if (std::find(keys.begin(), keys.end(), key) == keys.end()) {
+      std::string msg = "`" + key + ":` is not a metadata key";
+      auto near = nearestWords(key, keys);
+      if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
+      else msg += " (the keys are title, project, calc, revision, prepared, checked, date); a quantity is defined with `=`";
+      diags_->error(file_, p, word_end, msg);
+      return false;
+    }
+    if (sheet_->meta.values.count(key)) {
+      diags_->error(file_, p, word_end, "`" + key + ":` is given twice");
+      return false;
+    }
+    st->kind = Statement::Meta;
+    st->key = key;
+    st->text = trim(std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1));
+    sheet_->meta.values[key] = st->text;
+    return true;
+  }
+
+  bool parseDefinition(Statement* st, int line, const std::string& name, uint32_t p, uint32_t word_end,
+                       uint32_t next, uint32_t end) {
+    const std::string& s = file_.bytes();
+    Quantity q;
+    q.name = name;
+    q.name_begin = p;
+    q.name_end = word_end;
+    q.line = line;
+    q.section = section_;
+    const uint32_t body_end = splitDescription(next, end, &q.description);
+    uint32_t at = next;
+    if (s[at] == '[') {
+      const size_t close = std::string_view(s).substr(0, body_end).find(']', at);
+      if (close == std::string::npos) {
+        diags_->error(file_, at, at + 1, "this `[` is never closed: the display unit ends with `]`");
+        return false;
+      }
+      q.unit_begin = at + 1;
+      q.unit_end = static_cast<uint32_t>(close);
+      q.unit_written = s.substr(q.unit_begin, q.unit_end - q.unit_begin);
+      Unit unit;
+      UnitError err;
+      if (!parseUnit(q.unit_written, &unit, &err)) {
+        const uint32_t e = q.unit_begin + static_cast<uint32_t>(std::min(err.offset, q.unit_written.size()));
+        diags_->error(file_, e, std::max(e + 1, q.unit_end), err.message);
+        return false;
+      }
+      q.display = std::move(unit);
+      at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
+      if (at >= body_end || s[at] != '=') {
+        diags_->error(file_, at < body_end ? at : q.unit_end, (at < body_end ? at : q.unit_end) + 1,
+                      "expected `=` after the display unit [" + q.unit_written + "]");
+        return false;
+      }
+    }
+    const uint32_t expr_begin = at + 1;
+    if (skipSpace(expr_begin, body_end) == body_end) {
+      diags_->error(file_, at, at + 1, "`" + name + " =` needs a formula or a value after `=`");
+      return false;
+    }
+    if (name == "pi") {
+      diags_->error(file_, p, word_end, "`pi` is the constant 3.14159...; choose another name");
+      return false;
+    }
+    ExprParser parser(file_, expr_begin, body_end, diags_);
+    q.expr = parser.parseWhole();
+    if (!q.expr) return false;
+    auto existing = sheet_->index.find(name);
+    if (existing != sheet_->index.end()) {
+      diags_->error(file_, p, word_end,
+                    "`" + name + "` is defined twice; the first definition is on line " +
+                        std::to_string(sheet_->quantities[existing->second].line));
+      return false;
+    }
+    st->kind = Statement::Define;
+    st->index = static_cast<int>(sheet_->quantities.size());
+    sheet_->index.emplace(name, st->index);
+    sheet_->quantities.push_back(std::move(q));
+    return true;
+  }
+
+  bool parseCheck(Statement* st, int line, uint32_t p, uint32_t end) {
+    const std::string& s = file_.bytes();
+    Check c;
+    c.line = line;
+    c.section = section_;
+    const uint32_t name_end = scanName(p, end);
+    if (name_end == p) {
+      diags_->error(file_, p, p + 1, "a check needs a name: `check self_locking: T_lower > 0 [N*m]`");
+      return false;
+    }
+    c.name = s.substr(p, name_end - p);
+    c.name_begin = p;
+    c.name_end = name_end;
+    const uint32_t colon = skipSpace(name_end, end);
+    if (colon >= end || s[colon] != ':') {
+      diags_->error(file_, colon < end ? colon : name_end, (colon < end ? colon : name_end) + 1,
+                    "expected `:` after the check name `" + c.name + "`");
+      return false;
+    }
+    const uint32_t body_end = splitDescription(colon + 1, end, &c.description);
+    if (skipSpace(colon + 1, body_end) == body_end) {
+      diags_->error(file_, colon, colon + 1, "the check `" + c.name + "` needs a condition after `:`");
+      return false;
+    }
+    ExprParser parser(file_, colon + 1, body_end, diags_);
+    if (!parser.parseCondition(&c.lhs, &c.op, &c.op_begin, &c.rhs)) return false;
+    for (const Check& other : sheet_->checks) {
+      if (other.name == c.name) {
+        diags_->error(file_, p, name_end,
+                      "the check `" + c.name + "` is defined twice; the first is on line " +
+                          std::to_string(other.line));
+        return false;
+      }
+    }
+    st->kind = Statement::CheckStmt;
+    st->index = static_cast<int>(sheet_->checks.size());
+    sheet_->checks.push_back(std::move(c));
+    return true;
+  }
+
+  Sheet* sheet_;
+  const SourceFile& file_;
+  Diagnostics* diags_;
+  std::string section_;
+};
+
+}  // namespace
+
+Sheet parseSheet(std::shared_ptr<SourceFile> file, Diagnostics* diags) {
+  Sheet sheet;
+  sheet.file = std::move(file);
+  const SourceFile& f = *sheet.file;
+  if (f.bytes().empty() || f.bytes().find_first_not_of(" \t\r\n") == std::string::npos) {
+    diags->error(f.path(), "the worksheet is empty: nothing to calculate");
+    return sheet;
+  }
+  LineParser parser(&sheet, diags);
+  const int lines = f.lineCount();
+  for (int line = 1; line <= lines; ++line) parser.parseLine(line);
+  return sheet;
+}
+
+}  // namespace calctrail

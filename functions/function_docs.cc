@@ -1,0 +1,267 @@
+#include "functions/function_docs.h"
+
+#include <algorithm>
+#include <cctype>
+#include <cstdio>
+#include <string>
+
+#include "functions/function_library.h"
+
+namespace calctrail {
+
+namespace {
+
+std::string signature(const FunctionDecl& d) {
+  std::string s = d.name + "(";
+  for (std::size_t k = 0; k < d.args.size(); ++k) {
+    if (k) s += ", ";
+    s += d.args[k].name;
+  }
+  return s + ")";
+}
+
+// A lead or pitch is carried as length per angle by the engine.
+Dimension effective(const Dimension& dim, bool per_revolution) {
+  return per_revolution ? dim / Dimension::of(Base::Angle) : dim;
+}
+
+// The coherent SI unit of what eval() sees: "m/rev" for a lead.
+std::string siUnit(const Dimension& dim, bool per_revolution) {
+  return per_revolution ? dim.siSymbol() + "/rev" : dim.siSymbol();
+}
+
+std::string dimName(const Dimension& dim, bool per_revolution) {
+  const Dimension e = effective(dim, per_revolution);
+  return e.name().empty() ? e.siSymbol() : e.name();
+}
+
+// "force (N)", "length per revolution (mm/rev)": words and the usual unit.
+std::string dimText(const Dimension& dim, bool per_revolution) {
+  return effective(dim, per_revolution).describe();
+}
+
+std::string pad(std::string s, std::size_t width) {
+  if (s.size() < width) s.append(width - s.size(), ' ');
+  return s;
+}
+
+const char* kIntro =
+    "Every function is declared once, with its arguments and their dimensions, its result, its formula, its "
+    "validity limits and its published source; this listing is generated from those declarations.\n"
+    "\n"
+    "Conventions:\n"
+    "- Arguments are quantities with units; the engine converts them to SI before a function sees them.\n"
+    "- A lead or a pitch (marked \"per revolution\") accepts a plain length, read as per revolution, or a "
+    "length per angle such as [mm/rev]. A function that returns a lead or a pitch returns it per revolution, so "
+    "that a speed in rpm times the lead gives a linear speed without a lost 2*pi.\n"
+    "- Angles are in radians inside (write 14.5 deg); rotational speeds are angle per time (write 1450 rpm).\n"
+    "- In the formulas, a lead or pitch is the length advanced in one revolution and a rotational speed n counts "
+    "revolutions per unit time: n*l is a linear speed and 2*pi*n*T a power, as an engineer reads them.\n"
+    "- Every function checks its inputs: outside its validity limits it is an error that names the limit and "
+    "the offending value, never a silent NaN or infinity.\n"
+    "- Results are a design aid: friction values vary (take the worst case each way), self-locking is no brake, "
+    "long screws buckle; the calculation is to be reviewed under the applicable codes and standards by a "
+    "qualified engineer.\n";
+
+void appendDetail(std::string& out, const FunctionDecl& d) {
+  out += signature(d) + " -> " + dimText(d.result, d.result_per_revolution) + ", shown in " + d.result_unit + "\n";
+  out += "  " + d.summary + "\n";
+  if (d.args.empty()) {
+    out += "  Arguments: none\n";
+  } else {
+    out += "  Arguments:\n";
+    std::size_t name_w = 0, dim_w = 0;
+    for (const FunctionArg& a : d.args) {
+      name_w = std::max(name_w, a.name.size());
+      dim_w = std::max(dim_w, dimText(a.dim, a.per_revolution).size());
+    }
+    for (const FunctionArg& a : d.args)
+      out += "    " + pad(a.name, name_w) + "  " + pad(dimText(a.dim, a.per_revolution), dim_w) + "  " +
+             a.description + "\n";
+  }
+  out += std::string(d.formula_is_expression ? "  Formula: " : "  Method:  ") + d.formula + "\n";
+  out += "  Limits:  " + d.limits + "\n";
+  out += "  Source:  " + d.source + "\n";
+  if (!d.caution.empty()) out += "  Caution: " + d.caution + "\n";
+}
+
+void jsonString(std::string& out, std::string_view s) {
+  out += '"';
+  for (const char c : s) {
+    const unsigned char u = static_cast<unsigned char>(c);
+    switch (c) {
+      case '"': out += "\\\""; break;
+      case '\\': out += "\\\\"; break;
+      case '\n': out += "\\n"; break;
+      case '\t': out += "\\t"; break;
+      case '\r': out += "\\r"; break;
+      default:
+        if (u < 0x20) {
+          char buf[8];
+          std::snprintf(buf, sizeof buf, "\\u%04x", u);
+          out += buf;
+        } else {
+          out += c;
+        }
+    }
+  }
+  out += '"';
+}
+
+void jsonField(std::string& out, const char* key, std::string_view value, bool comma = true) {
+  jsonString(out, key);
+  out += ": ";
+  jsonString(out, value);
+  if (comma) out += ", ";
+}
+
+void jsonBool(std::string& out, const char* key, bool value, bool comma = true) {
+  jsonString(out, key);
+  out += value ? ": true" : ": false";
+  if (comma) out += ", ";
+}
+
+void appendJson(std::string& out, const FunctionDecl& d) {
+  const FunctionGroup* g = groupOf(d);
+  out += "{";
+  jsonField(out, "name", d.name);
+  jsonField(out, "group", g ? g->title : "");
+  jsonField(out, "signature", signature(d));
+  jsonField(out, "summary", d.summary);
+  out += "\"args\": [";
+  for (std::size_t k = 0; k < d.args.size(); ++k) {
+    const FunctionArg& a = d.args[k];
+    if (k) out += ", ";
+    out += "{";
+    jsonField(out, "name", a.name);
+    jsonField(out, "dimension", a.dim.siSymbol());
+    jsonField(out, "dimension_name", dimName(a.dim, a.per_revolution));
+    jsonField(out, "unit", siUnit(a.dim, a.per_revolution));
+    jsonBool(out, "per_revolution", a.per_revolution);
+    jsonField(out, "description", a.description, false);
+    out += "}";
+  }
+  out += "], \"result\": {";
+  jsonField(out, "dimension", d.result.siSymbol());
+  jsonField(out, "dimension_name", dimName(d.result, d.result_per_revolution));
+  jsonField(out, "unit", d.result_unit);
+  jsonField(out, "si_unit", siUnit(d.result, d.result_per_revolution));
+  jsonBool(out, "per_revolution", d.result_per_revolution, false);
+  out += "}, ";
+  jsonField(out, "formula", d.formula);
+  jsonBool(out, "formula_is_expression", d.formula_is_expression);
+  jsonField(out, "limits", d.limits);
+  jsonField(out, "source", d.source);
+  jsonField(out, "caution", d.caution, false);
+  out += "}";
+}
+
+// GitHub-style heading anchor: lower case, spaces to '-', punctuation dropped.
+std::string anchor(const std::string& title) {
+  std::string a;
+  for (const char c : title) {
+    const unsigned char u = static_cast<unsigned char>(c);
+    if (std::isalnum(u) || c == '-' || c == '_')
+      a += static_cast<char>(std::tolower(u));
+    else if (c == ' ')
+      a += '-';
+  }
+  return a;
+}
+
+std::string cell(const std::string& s) {
+  std::string out;
+  for (const char c : s) {
+    if (c == '|') out += "\\|";
+    else out += c;
+  }
+  return out;
+}
+
+}  // namespace
+
+std::string functionsText(std::string_view name) {
+  std::string out;
+  if (!name.empty()) {
+    const FunctionDecl* d = findFunction(name);
+    if (!d) return "";
+    appendDetail(out, *d);
+    return out;
+  }
+  const std::vector<FunctionDecl>& all = functionLibrary();
+  std::size_t sig_w = 0;
+  for (const FunctionDecl& d : all) sig_w = std::max(sig_w, signature(d).size());
+  out += "Drive functions (" + std::to_string(all.size()) + "); `calctrail functions NAME` shows one in detail.\n";
+  for (const FunctionGroup& g : functionGroups()) {
+    out += "\n" + g.title + "\n";
+    for (std::size_t k = g.first; k < g.first + g.count; ++k)
+      out += "  " + pad(signature(all[k]), sig_w) + "  " + all[k].summary + "\n";
+  }
+  return out;
+}
+
+std::string functionsJson(std::string_view name) {
+  std::string out = "[";
+  if (!name.empty()) {
+    const FunctionDecl* d = findFunction(name);
+    if (!d) return "";
+    appendJson(out, *d);
+  } else {
+    bool first = true;
+    for (const FunctionDecl& d : functionLibrary()) {
+      out += first ? "\n  " : ",\n  ";
+      first = false;
+      appendJson(out, d);
+    }
+    out += "\n";
+  }
+  return out + "]\n";
+}
+
+std::string functionsMarkdown() {
+  const std::vector<FunctionDecl>& all = functionLibrary();
+  std::string out;
+  out += "# Drive functions\n\n";
+  out += "<!-- Generated from the declarations in functions/: do not edit by hand.\n"
+         "     Regenerate with: build/calctrail functions --format md > docs/functions.md -->\n\n";
+  out += kIntro;
+  out += "\nThe check of each function against a published value is listed in [verification.md](verification.md).\n";
+  out += "\n## Contents\n\n";
+  for (const FunctionGroup& g : functionGroups()) {
+    out += "- [" + g.title + "](#" + anchor(g.title) + "): ";
+    for (std::size_t k = g.first; k < g.first + g.count; ++k) {
+      if (k > g.first) out += ", ";
+      out += "[`" + all[k].name + "`](#" + anchor(all[k].name) + ")";
+    }
+    out += "\n";
+  }
+  for (const FunctionGroup& g : functionGroups()) {
+    out += "\n## " + g.title + "\n\n" + g.intro + "\n";
+    for (std::size_t k = g.first; k < g.first + g.count; ++k) {
+      const FunctionDecl& d = all[k];
+      out += "\n### " + d.name + "\n\n";
+      out += "`" + signature(d) + "` -> " + dimText(d.result, d.result_per_revolution) + ", shown in `" +
+             d.result_unit + "`\n\n";
+      out += d.summary + ".\n\n";
+      if (d.args.empty()) {
+        out += "No arguments.\n\n";
+      } else {
+        out += "| Argument | Dimension (usual unit) | SI value passed | Description |\n|---|---|---|---|\n";
+        for (const FunctionArg& a : d.args)
+          out += "| `" + a.name + "` | " + dimText(a.dim, a.per_revolution) + " | " +
+                 siUnit(a.dim, a.per_revolution) + " | " + cell(a.description) + " |\n";
+        out += "\n";
+      }
+      if (d.formula_is_expression)
+        out += "Formula: `" + d.formula + "`\n\n";
+      else
+        out += "Method: " + d.formula + ".\n\n";
+      out += "Limits: " + d.limits + ".\n\n";
+      out += "Source: " + d.source + ".\n";
+      if (!d.caution.empty()) out += "\n> Caution: " + d.caution + "\n";
+    }
+  }
+  return out;
+}
+
+}  // namespace calctrail

@@ -1,0 +1,56 @@
+#include "functions/function_library.h"
+
+#include <functional>
+
+namespace calctrail {
+
+namespace {
+
+struct Library {
+  std::vector<FunctionDecl> decls;
+  std::vector<FunctionGroup> groups;
+};
+
+const Library& library() {
+  static const Library lib = [] {
+    Library l;
+    using Adder = fn::GroupText (*)(std::vector<FunctionDecl>&);
+    const Adder adders[] = {fn::addThreads, fn::addPowerScrews, fn::addCollars, fn::addStresses,
+                            fn::addColumns, fn::addBallScrews,  fn::addGears,   fn::addMotors};
+    for (Adder add : adders) {
+      FunctionGroup g;
+      g.first = l.decls.size();
+      const fn::GroupText text = add(l.decls);
+      g.title = text.title;
+      g.intro = text.intro;
+      g.count = l.decls.size() - g.first;
+      l.groups.push_back(std::move(g));
+    }
+    return l;
+  }();
+  return lib;
+}
+
+}  // namespace
+
+const std::vector<FunctionDecl>& functionLibrary() { return library().decls; }
+
+const std::vector<FunctionGroup>& functionGroups() { return library().groups; }
+
+const FunctionDecl* findFunction(std::string_view name) {
+  for (const FunctionDecl& d : functionLibrary())
+    if (d.name == name) return &d;
+  return nullptr;
+}
+
+const FunctionGroup* groupOf(const FunctionDecl& decl) {
+  const std::vector<FunctionDecl>& all = functionLibrary();
+  const std::less<const FunctionDecl*> before;  // total order, unlike a raw <
+  if (all.empty() || before(&decl, &all.front()) || before(&all.back(), &decl)) return nullptr;
+  const std::size_t index = static_cast<std::size_t>(&decl - &all.front());
+  for (const FunctionGroup& g : functionGroups())
+    if (index >= g.first && index < g.first + g.count) return &g;
+  return nullptr;
+}
+
+}  // namespace calctrail

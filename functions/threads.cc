@@ -1,0 +1,412 @@
+// Thread forms and standard series: Acme (ASME B1.5), metric trapezoidal
+// (ISO 2904 / DIN 103) and square threads. The worksheet language has numbers
+// only, so each form has its own functions (acme_..., trap_..., square_...)
+// rather than a form code.
+#include <cmath>
+#include <string>
+#include <vector>
+
+#include "functions/dims.h"
+#include "functions/function_library.h"
+#include "functions/validity.h"
+
+namespace calctrail::fn {
+
+namespace {
+
+constexpr double kPi = 3.14159265358979323846;
+constexpr double kInch = 0.0254;  // exact (NIST SP 811)
+constexpr double kMm = 1e-3;
+// A size matches a table row within 1 um: far below the smallest gap between
+// rows (1/16 in, 1 mm) and far above the rounding of any unit conversion.
+constexpr double kMatch = 1e-6;
+
+// ASME B1.5 general-purpose Acme series: nominal major diameter and threads
+// per inch, the preferred combinations (from memory of the standard's table;
+// the same rows are reprinted in Machinery's Handbook).
+struct AcmeRow {
+  double d_in;
+  double tpi;
+  const char* label;
+};
+const AcmeRow kAcme[] = {
+    {0.25, 16, "1/4"},      {0.3125, 14, "5/16"},  {0.375, 12, "3/8"},   {0.4375, 12, "7/16"},
+    {0.5, 10, "1/2"},       {0.625, 8, "5/8"},     {0.75, 6, "3/4"},     {0.875, 6, "7/8"},
+    {1.0, 5, "1"},          {1.125, 5, "1-1/8"},   {1.25, 5, "1-1/4"},   {1.375, 4, "1-3/8"},
+    {1.5, 4, "1-1/2"},      {1.75, 4, "1-3/4"},    {2.0, 4, "2"},        {2.25, 3, "2-1/4"},
+    {2.5, 3, "2-1/2"},      {2.75, 3, "2-3/4"},    {3.0, 2, "3"},        {3.5, 2, "3-1/2"},
+    {4.0, 2, "4"},          {4.5, 2, "4-1/2"},     {5.0, 2, "5"},
+};
+
+// ISO 2904 / DIN 103-1 metric trapezoidal series: nominal diameter and its
+// pitches (fine, preferred, coarse), in mm; 0 where the standard lists fewer
+// (from memory of the standard's table of diameter-pitch combinations).
+struct TrapRow {
+  double d_mm;
+  double fine, preferred, coarse;
+};
+const TrapRow kTrap[] = {
+    {8, 0, 1.5, 0},     {9, 1.5, 2, 0},     {10, 1.5, 2, 0},    {11, 2, 3, 0},
+    {12, 2, 3, 0},      {14, 2, 3, 0},      {16, 2, 4, 0},      {18, 2, 4, 0},
+    {20, 2, 4, 0},      {22, 3, 5, 8},      {24, 3, 5, 8},      {26, 3, 5, 8},
+    {28, 3, 5, 8},      {30, 3, 6, 10},     {32, 3, 6, 10},     {34, 3, 6, 10},
+    {36, 3, 6, 10},     {38, 3, 7, 10},     {40, 3, 7, 10},     {42, 3, 7, 10},
+    {44, 3, 7, 12},     {46, 3, 8, 12},     {48, 3, 8, 12},     {50, 3, 8, 12},
+    {52, 3, 8, 12},     {55, 3, 9, 14},     {60, 3, 9, 14},     {65, 4, 10, 16},
+    {70, 4, 10, 16},    {75, 4, 10, 16},    {80, 4, 10, 16},    {85, 4, 12, 18},
+    {90, 4, 12, 18},    {95, 4, 12, 18},    {100, 4, 12, 20},   {110, 4, 12, 20},
+    {120, 6, 14, 22},   {130, 6, 14, 22},   {140, 6, 14, 24},   {150, 6, 16, 24},
+    {160, 6, 16, 28},   {170, 6, 16, 28},   {180, 8, 18, 28},   {190, 8, 18, 32},
+    {200, 8, 18, 32},   {210, 8, 20, 36},   {220, 8, 20, 36},   {230, 8, 20, 36},
+    {240, 8, 22, 36},   {250, 12, 22, 40},  {260, 12, 22, 40},  {270, 12, 24, 40},
+    {280, 12, 24, 40},  {290, 12, 24, 44},  {300, 12, 24, 44},
+};
+
+// ISO 2904 pitches and the root clearance ac of the external thread:
+// 0.15 mm for 1.5 mm, 0.25 mm for 2..5 mm, 0.5 mm for 6..12 mm, 1 mm for
+// 14..44 mm (from memory of the standard).
+const double kTrapPitches[] = {1.5, 2, 3, 4, 5, 6, 7, 8, 9, 10, 12,
+                               14, 16, 18, 20, 22, 24, 28, 32, 36, 40, 44};
+
+double trapClearanceMm(double p_mm) {
+  if (p_mm < 1.75) return 0.15;
+  if (p_mm < 5.5) return 0.25;
+  if (p_mm < 13.0) return 0.5;
+  return 1.0;
+}
+
+std::string inches(double m) { return num(m / kInch) + " in"; }
+
+// "1-1/4 in and 1-3/8 in", or the one end of the series.
+template <typename Row, typename Size, typename Label>
+std::string nearest(const Row* rows, std::size_t n, double d, Size size, Label label) {
+  if (d < size(rows[0])) return "the smallest is " + label(rows[0]);
+  if (d > size(rows[n - 1])) return "the largest is " + label(rows[n - 1]);
+  for (std::size_t k = 1; k < n; ++k)
+    if (d < size(rows[k])) return "nearest standard sizes: " + label(rows[k - 1]) + " and " + label(rows[k]);
+  return "";
+}
+
+const AcmeRow& acmeRow(const double* a) {
+  const double d = positive(a, 0, "nominal diameter d", Show::Length);
+  for (const AcmeRow& r : kAcme)
+    if (std::fabs(d - r.d_in * kInch) <= kMatch) return r;
+  const auto size = [](const AcmeRow& r) { return r.d_in * kInch; };
+  const auto label = [](const AcmeRow& r) { return std::string(r.label) + " in"; };
+  fail(0, "nominal diameter d = " + inches(d) + " (" + show(d, Show::Length) +
+              ") is not a size of the ASME B1.5 general-purpose Acme series; " +
+              nearest(kAcme, std::size(kAcme), d, size, label));
+}
+
+const TrapRow& trapRow(const double* a) {
+  const double d = positive(a, 0, "nominal diameter d", Show::Length);
+  for (const TrapRow& r : kTrap)
+    if (std::fabs(d - r.d_mm * kMm) <= kMatch) return r;
+  const auto size = [](const TrapRow& r) { return r.d_mm * kMm; };
+  const auto label = [](const TrapRow& r) { return num(r.d_mm) + " mm"; };
+  fail(0, "nominal diameter d = " + show(d, Show::Length) +
+              " is not a size of the ISO 2904 trapezoidal series; " +
+              nearest(kTrap, std::size(kTrap), d, size, label));
+}
+
+// The pitch of a trapezoidal thread, checked against the ISO 2904 pitches
+// (the root clearance is defined for those only); returns it in mm.
+double trapPitchMm(const double* a) {
+  const double p = positive(a, 1, "pitch p", Show::Lead);
+  for (double s : kTrapPitches)
+    if (std::fabs(p - s * kMm) <= kMatch) return s;
+  const auto size = [](const double& s) { return s * kMm; };
+  const auto label = [](const double& s) { return num(s) + " mm"; };
+  std::string near = nearest(kTrapPitches, std::size(kTrapPitches), p, size, label);
+  const std::string prefix = "nearest standard sizes: ";
+  if (near.compare(0, prefix.size(), prefix) == 0) near = "nearest standard pitches: " + near.substr(prefix.size());
+  fail(1, "pitch p = " + show(p, Show::Lead) + " is not an ISO 2904 trapezoidal pitch; " + near);
+}
+
+// Major diameter and pitch of a thread whose basic depth is p/2 (square,
+// Acme, trapezoidal): the minor diameter d - p must stay positive.
+void majorAndPitch(const double* a, const char* form) {
+  const double d = positive(a, 0, "major diameter d", Show::Length);
+  const double p = positive(a, 1, "pitch p", Show::Lead);
+  if (!(p < d))
+    fail(1, std::string("pitch p = ") + show(p, Show::Lead) + " must be smaller than the major diameter d = " +
+                show(d, Show::Length) + " of a " + form + " thread");
+}
+
+double acmeTpi(const double* a) { return acmeRow(a).tpi / kInch; }
+double acmePitch(const double* a) { return kInch / acmeRow(a).tpi; }
+double acmePitchDia(const double* a) {
+  majorAndPitch(a, "Acme");
+  return result(a[0] - a[1] / 2);
+}
+double acmeMinorDia(const double* a) {
+  majorAndPitch(a, "Acme");
+  return result(a[0] - a[1]);
+}
+double acmeFlankAngle(const double*) { return 14.5 * kPi / 180.0; }
+
+double trapPitch(const double* a) { return trapRow(a).preferred * kMm; }
+double trapPitchDia(const double* a) {
+  majorAndPitch(a, "trapezoidal");
+  trapPitchMm(a);
+  return result(a[0] - a[1] / 2);
+}
+double trapMinorDia(const double* a) {
+  majorAndPitch(a, "trapezoidal");
+  const double p_mm = trapPitchMm(a);
+  const double d3 = a[0] - a[1] - 2.0 * trapClearanceMm(p_mm) * kMm;
+  if (!(d3 > 0))
+    fail(0, "major diameter d = " + show(a[0], Show::Length) + " leaves no minor diameter for pitch p = " +
+                show(a[1], Show::Lead) + " (d3 = " + show(d3, Show::Length) + ")");
+  return result(d3);
+}
+double trapFlankAngle(const double*) { return 15.0 * kPi / 180.0; }
+
+double squarePitchDia(const double* a) {
+  majorAndPitch(a, "square");
+  return result(a[0] - a[1] / 2);
+}
+double squareMinorDia(const double* a) {
+  majorAndPitch(a, "square");
+  return result(a[0] - a[1]);
+}
+double squareFlankAngle(const double*) { return 0.0; }
+
+double threadLead(const double* a) {
+  const double p = positive(a, 0, "pitch p", Show::Lead);
+  const double n = count(a, 1, "number of starts");
+  return result(n * p);
+}
+
+std::string acmeSeriesText() {
+  std::string s;
+  for (const AcmeRow& r : kAcme) {
+    if (!s.empty()) s += ", ";
+    s += std::string(r.label) + " (" + num(r.tpi) + ")";
+  }
+  return s;
+}
+
+std::string trapSeriesText() {
+  std::string s;
+  for (const TrapRow& r : kTrap) {
+    if (!s.empty()) s += ", ";
+    s += "Tr " + num(r.d_mm) + "x" + num(r.preferred);
+  }
+  return s;
+}
+
+FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
+  FunctionArg x;
+  x.name = name;
+  x.dim = dim;
+  x.description = description;
+  x.per_revolution = per_rev;
+  return x;
+}
+
+const char* kAcmeSource =
+    "ASME B1.5 (Acme screw threads), general-purpose series and basic dimensions; "
+    "reprinted in Machinery's Handbook (from memory)";
+const char* kTrapSource =
+    "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions "
+    "(from memory)";
+const char* kSquareSource =
+    "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
+    "Mechanical Engineering Design, Fig. 8-3) and Machinery's Handbook: depth p/2; "
+    "no current standard series";
+
+}  // namespace
+
+GroupText addThreads(std::vector<FunctionDecl>& out) {
+  using namespace dims;
+  const FunctionArg major = arg("d", length(), "nominal (major) diameter of the thread");
+  const FunctionArg pitch = arg("p", length(), "pitch (axial distance between adjacent threads)", true);
+
+  {
+    FunctionDecl d;
+    d.name = "acme_tpi";
+    d.summary = "Threads per inch of a general-purpose Acme size (ASME B1.5 series)";
+    d.args = {major};
+    d.result = perLength();
+    d.result_unit = "1/in";
+    d.formula = "table lookup, ASME B1.5 general-purpose series, nominal size in inches (threads per inch): " + acmeSeriesText();
+    d.formula_is_expression = false;
+    d.limits = "d must be a size of the series (within 1 um); any other size is an error naming the nearest sizes";
+    d.source = kAcmeSource;
+    d.eval = acmeTpi;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "acme_pitch";
+    d.summary = "Pitch of a general-purpose Acme size: 1 in divided by its threads per inch (ASME B1.5)";
+    d.args = {major};
+    d.result = length();
+    d.result_per_revolution = true;
+    d.result_unit = "in";
+    d.formula = "table lookup, ASME B1.5 general-purpose series: p = 1 in / (threads per inch of size d); see acme_tpi";
+    d.formula_is_expression = false;
+    d.limits = "d must be a size of the series (within 1 um); any other size is an error naming the nearest sizes";
+    d.source = kAcmeSource;
+    d.eval = acmePitch;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "acme_pitch_dia";
+    d.summary = "Basic pitch (mean) diameter of an Acme thread: major diameter less half the pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - p/2";
+    d.limits = "d > 0, 0 < p < d; any diameter-pitch combination (specials are made): "
+               "use acme_pitch for the standard one";
+    d.source = kAcmeSource;
+    d.eval = acmePitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "acme_minor_dia";
+    d.summary = "Basic minor diameter of an Acme thread: major diameter less the pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - p";
+    d.limits = "d > 0, 0 < p < d. Basic size: the minor diameter of a class 2G external thread is "
+               "smaller by its allowance (ASME B1.5 tables), so take the table value where the stress margin is small";
+    d.source = kAcmeSource;
+    d.eval = acmeMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "acme_flank_angle";
+    d.summary = "Flank angle (half the 29 deg included angle) of an Acme thread: 14.5 deg";
+    d.result = angle();
+    d.result_unit = "deg";
+    d.formula = "14.5*pi/180";
+    d.limits = "none (a constant of the form)";
+    d.source = kAcmeSource;
+    d.eval = acmeFlankAngle;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_pitch";
+    d.summary = "Preferred pitch of a metric trapezoidal size (ISO 2904 / DIN 103 series)";
+    d.args = {major};
+    d.result = length();
+    d.result_per_revolution = true;
+    d.result_unit = "mm";
+    d.formula = "table lookup, ISO 2904 series (preferred combinations): " + trapSeriesText();
+    d.formula_is_expression = false;
+    d.limits = "d must be a diameter of the series, 8 to 300 mm (within 1 um); any other size is an error naming "
+               "the nearest sizes. The finer and coarser pitches of the series are accepted by trap_pitch_dia "
+               "and trap_minor_dia";
+    d.source = kTrapSource;
+    d.eval = trapPitch;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_pitch_dia";
+    d.summary = "Basic pitch diameter d2 of a metric trapezoidal thread: major diameter less half the pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "d - p/2";
+    d.limits = "d > 0, 0 < p < d; p must be an ISO 2904 pitch (1.5 to 44 mm); the diameter is not checked "
+               "against the series (specials are made)";
+    d.source = kTrapSource;
+    d.eval = trapPitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_minor_dia";
+    d.summary = "Minor diameter d3 of the external (screw) metric trapezoidal thread, root clearance included";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "d3 = d - p - 2*ac, with the root clearance ac = 0.15 mm for p = 1.5 mm, 0.25 mm for p = 2 to 5 mm, "
+                "0.5 mm for p = 6 to 12 mm, 1 mm for p = 14 to 44 mm";
+    d.formula_is_expression = false;
+    d.limits = "d > 0, 0 < p < d, d3 > 0; p must be an ISO 2904 pitch (1.5 to 44 mm) because ac depends on it";
+    d.source = kTrapSource;
+    d.eval = trapMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_flank_angle";
+    d.summary = "Flank angle (half the 30 deg included angle) of a metric trapezoidal thread: 15 deg";
+    d.result = angle();
+    d.result_unit = "deg";
+    d.formula = "15*pi/180";
+    d.limits = "none (a constant of the form)";
+    d.source = kTrapSource;
+    d.eval = trapFlankAngle;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "square_pitch_dia";
+    d.summary = "Pitch (mean) diameter of a square thread: major diameter less half the pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "d - p/2";
+    d.limits = "d > 0, 0 < p < d";
+    d.source = kSquareSource;
+    d.eval = squarePitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "square_minor_dia";
+    d.summary = "Minor diameter of a square thread: major diameter less the pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "d - p";
+    d.limits = "d > 0, 0 < p < d";
+    d.source = kSquareSource;
+    d.eval = squareMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "square_flank_angle";
+    d.summary = "Flank angle of a square thread: 0";
+    d.result = angle();
+    d.result_unit = "deg";
+    d.formula = "0";
+    d.limits = "none (a constant of the form)";
+    d.source = kSquareSource;
+    d.eval = squareFlankAngle;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "thread_lead";
+    d.summary = "Lead of a thread: axial advance per revolution, the pitch times the number of starts";
+    d.args = {pitch, arg("starts", none(), "number of starts (1 single, 2 double, ...)")};
+    d.result = length();
+    d.result_per_revolution = true;
+    d.result_unit = "mm";
+    d.formula = "starts*p";
+    d.limits = "p > 0; starts a whole number >= 1";
+    d.source = "Definition of lead, as in Shigley's Mechanical Engineering Design (Sec. 8-1), ASME B1.5 and ISO 2904";
+    d.eval = threadLead;
+    out.push_back(std::move(d));
+  }
+  return {"Threads",
+          "Standard series and basic dimensions of the thread forms used on power screws. Each form has its own "
+          "functions (acme_..., trap_..., square_...), since a worksheet passes numbers only. The flank angle is "
+          "half the included angle, measured in the axial plane, as the torque functions take it. A size that is "
+          "not in a series is an error that names the nearest standard sizes."};
+}
+
+}  // namespace calctrail::fn

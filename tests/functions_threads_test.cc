@@ -1,0 +1,194 @@
+// Thread series and basic dimensions against ASME B1.5 and ISO 2904 / DIN 103
+// table rows (from memory), and against the geometry of the basic profile.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <string>
+#include <vector>
+
+#include "functions/function_decl.h"
+
+namespace {
+
+using calctrail::DomainError;
+using calctrail::FunctionDecl;
+using calctrail::findFunction;
+
+constexpr double kPi = 3.14159265358979323846;
+constexpr double mm = 1e-3;
+constexpr double in = 0.0254;  // exact (NIST SP 811)
+constexpr double deg = kPi / 180;
+constexpr double arcmin = deg / 60;
+
+double call(const char* name, std::vector<double> args) {
+  const FunctionDecl* d = findFunction(name);
+  REQUIRE(d != nullptr);
+  REQUIRE(args.size() == d->args.size());
+  return d->eval(args.data());
+}
+
+std::string errorOf(const char* name, std::vector<double> args) {
+  try {
+    call(name, args);
+  } catch (const DomainError& e) {
+    return e.what();
+  }
+  return "(no error)";
+}
+
+}  // namespace
+
+TEST_CASE("acme_tpi: ASME B1.5 general-purpose series, every row (from memory)", "[functions][threads]") {
+  // Nominal size in inches and threads per inch, as the standard's table lists them.
+  const struct {
+    double d, tpi;
+  } rows[] = {{0.25, 16},  {0.3125, 14}, {0.375, 12}, {0.4375, 12}, {0.5, 10}, {0.625, 8},  {0.75, 6},  {0.875, 6},
+              {1.0, 5},    {1.125, 5},   {1.25, 5},   {1.375, 4},   {1.5, 4},  {1.75, 4},   {2.0, 4},   {2.25, 3},
+              {2.5, 3},    {2.75, 3},    {3.0, 2},    {3.5, 2},     {4.0, 2},  {4.5, 2},    {5.0, 2}};
+  for (const auto& r : rows) {
+    INFO("size " << r.d << " in");
+    CHECK(call("acme_tpi", {r.d * in}) == Approx(r.tpi / in).epsilon(1e-12));
+  }
+}
+
+TEST_CASE("acme_tpi: a size given in mm finds the same row (unit-system swap)", "[functions][threads]") {
+  CHECK(call("acme_tpi", {25.4 * mm}) == Approx(call("acme_tpi", {1.0 * in})));
+  CHECK(call("acme_tpi", {38.1 * mm}) == Approx(4 / in));  // 1-1/2 in
+}
+
+TEST_CASE("acme_tpi: a size outside the series names the nearest sizes", "[functions][threads][limits]") {
+  const std::string msg = errorOf("acme_tpi", {1.3 * in});
+  CHECK_THAT(msg, Catch::Contains("not a size of the ASME B1.5"));
+  CHECK_THAT(msg, Catch::Contains("1-1/4 in and 1-3/8 in"));
+  CHECK_THAT(errorOf("acme_tpi", {0.2 * in}), Catch::Contains("the smallest is 1/4 in"));
+  CHECK_THAT(errorOf("acme_tpi", {6 * in}), Catch::Contains("the largest is 5 in"));
+  CHECK_THAT(errorOf("acme_tpi", {-1 * in}), Catch::Contains("must be > 0"));
+  try {
+    call("acme_tpi", {1.3 * in});
+  } catch (const DomainError& e) {
+    CHECK(e.arg() == 0);
+  }
+}
+
+TEST_CASE("acme_pitch: ASME B1.5 1-5 and 2-1/2-3 rows (from memory)", "[functions][threads]") {
+  CHECK(call("acme_pitch", {1.0 * in}) == Approx(0.2 * in));
+  CHECK(call("acme_pitch", {2.5 * in}) == Approx(in / 3));
+  // Independent: pitch times threads per inch is one inch for every size.
+  for (double d : {0.25, 0.625, 1.375, 3.0, 5.0})
+    CHECK(call("acme_pitch", {d * in}) * call("acme_tpi", {d * in}) == Approx(1.0));
+}
+
+TEST_CASE("acme_pitch_dia: ASME B1.5 basic pitch diameter, 1-5 and 2-4 (from memory)", "[functions][threads]") {
+  CHECK(call("acme_pitch_dia", {1.0 * in, 0.2 * in}) == Approx(0.9 * in));
+  CHECK(call("acme_pitch_dia", {2.0 * in, 0.25 * in}) == Approx(1.875 * in));
+}
+
+TEST_CASE("acme_pitch_dia with lead_angle: ASME B1.5 lead angles 1/4-16 5 deg 12 min, 1-5 4 deg 3 min (from memory)",
+          "[functions][threads]") {
+  // The standard tabulates the lead angle of single-start threads at the basic pitch diameter.
+  const double p1 = call("acme_pitch", {0.25 * in});
+  const double lam1 = call("lead_angle", {call("acme_pitch_dia", {0.25 * in, p1}), p1});
+  CHECK(std::fabs(lam1 - (5 * deg + 12 * arcmin)) < 0.5 * arcmin);
+  const double p2 = call("acme_pitch", {1.0 * in});
+  const double lam2 = call("lead_angle", {call("acme_pitch_dia", {1.0 * in, p2}), p2});
+  CHECK(std::fabs(lam2 - (4 * deg + 3 * arcmin)) < 0.5 * arcmin);
+}
+
+TEST_CASE("acme_minor_dia: ASME B1.5 basic minor diameter, 1-5 (from memory)", "[functions][threads]") {
+  CHECK(call("acme_minor_dia", {1.0 * in, 0.2 * in}) == Approx(0.8 * in));
+  // Independent: the basic profile is symmetric about the pitch line (depth p/2 each side).
+  const double d = 1.75 * in, p = 0.25 * in;
+  CHECK(call("acme_minor_dia", {d, p}) == Approx(2 * call("acme_pitch_dia", {d, p}) - d));
+}
+
+TEST_CASE("acme_minor_dia: a pitch not below the diameter is an error", "[functions][threads][limits]") {
+  CHECK_THAT(errorOf("acme_minor_dia", {0.25 * in, 0.3 * in}), Catch::Contains("must be smaller than the major diameter"));
+}
+
+TEST_CASE("acme_flank_angle: ASME B1.5 29 deg included angle", "[functions][threads]") {
+  CHECK(call("acme_flank_angle", {}) == Approx(14.5 * deg));
+  CHECK(2 * call("acme_flank_angle", {}) == Approx(29 * deg));  // independent: twice the flank angle
+}
+
+TEST_CASE("trap_pitch: ISO 2904 / DIN 103 preferred pitches, Tr 10x2, 20x4, 40x7, 100x12, 300x24 (from memory)",
+          "[functions][threads]") {
+  CHECK(call("trap_pitch", {10 * mm}) == Approx(2 * mm));
+  CHECK(call("trap_pitch", {20 * mm}) == Approx(4 * mm));
+  CHECK(call("trap_pitch", {40 * mm}) == Approx(7 * mm));
+  CHECK(call("trap_pitch", {100 * mm}) == Approx(12 * mm));
+  CHECK(call("trap_pitch", {300 * mm}) == Approx(24 * mm));
+  // Unit-system swap: a diameter written in inches that is exactly 25.4 mm is no series size.
+  CHECK_THAT(errorOf("trap_pitch", {1 * in}), Catch::Contains("24 mm and 26 mm"));
+}
+
+TEST_CASE("trap_pitch: a diameter outside the series names the nearest sizes", "[functions][threads][limits]") {
+  const std::string msg = errorOf("trap_pitch", {33 * mm});
+  CHECK_THAT(msg, Catch::Contains("not a size of the ISO 2904"));
+  CHECK_THAT(msg, Catch::Contains("32 mm and 34 mm"));
+  CHECK_THAT(errorOf("trap_pitch", {6 * mm}), Catch::Contains("the smallest is 8 mm"));
+  CHECK_THAT(errorOf("trap_pitch", {320 * mm}), Catch::Contains("the largest is 300 mm"));
+}
+
+TEST_CASE("trap_pitch_dia: DIN 103 basic pitch diameters, Tr 20x4 18.000 and Tr 40x7 36.500 (from memory)",
+          "[functions][threads]") {
+  CHECK(call("trap_pitch_dia", {20 * mm, 4 * mm}) == Approx(18.0 * mm));
+  CHECK(call("trap_pitch_dia", {40 * mm, 7 * mm}) == Approx(36.5 * mm));
+  // A finer pitch of the series is accepted: Tr 20x2.
+  CHECK(call("trap_pitch_dia", {20 * mm, 2 * mm}) == Approx(19.0 * mm));
+}
+
+TEST_CASE("trap_minor_dia: DIN 103 screw minor diameters d3, Tr 8x1.5, 10x2, 20x4, 40x7, 100x12 (from memory)",
+          "[functions][threads]") {
+  CHECK(call("trap_minor_dia", {8 * mm, 1.5 * mm}) == Approx(6.2 * mm));
+  CHECK(call("trap_minor_dia", {10 * mm, 2 * mm}) == Approx(7.5 * mm));
+  CHECK(call("trap_minor_dia", {20 * mm, 4 * mm}) == Approx(15.5 * mm));
+  CHECK(call("trap_minor_dia", {40 * mm, 7 * mm}) == Approx(32.0 * mm));
+  CHECK(call("trap_minor_dia", {100 * mm, 12 * mm}) == Approx(87.0 * mm));
+  CHECK(call("trap_minor_dia", {120 * mm, 14 * mm}) == Approx(104.0 * mm));
+}
+
+TEST_CASE("trap_minor_dia: below the basic minor diameter by twice the root clearance", "[functions][threads]") {
+  // Independent: the root clearance ac is the only difference from the basic profile (d - p).
+  CHECK(call("trap_minor_dia", {32 * mm, 6 * mm}) == Approx(32 * mm - 6 * mm - 2 * 0.5 * mm));
+  CHECK(call("trap_minor_dia", {32 * mm, 6 * mm}) < 2 * call("trap_pitch_dia", {32 * mm, 6 * mm}) - 32 * mm);
+}
+
+TEST_CASE("trap_minor_dia: a pitch that is not an ISO 2904 pitch names the nearest pitches",
+          "[functions][threads][limits]") {
+  const std::string msg = errorOf("trap_minor_dia", {20 * mm, 4.5 * mm});
+  CHECK_THAT(msg, Catch::Contains("not an ISO 2904 trapezoidal pitch"));
+  CHECK_THAT(msg, Catch::Contains("nearest standard pitches: 4 mm and 5 mm"));
+  CHECK_THAT(errorOf("trap_pitch_dia", {20 * mm, 4.5 * mm}), Catch::Contains("4 mm and 5 mm"));
+}
+
+TEST_CASE("trap_flank_angle: ISO 2904 30 deg included angle", "[functions][threads]") {
+  CHECK(call("trap_flank_angle", {}) == Approx(15 * deg));
+  CHECK(2 * call("trap_flank_angle", {}) == Approx(30 * deg));
+}
+
+TEST_CASE("square_pitch_dia and square_minor_dia: Shigley's Example 8-1, 32 mm x 4 mm (from memory)",
+          "[functions][threads]") {
+  // The worked example takes dm = 32 - 4/2 = 30 mm and dr = 32 - 4 = 28 mm.
+  CHECK(call("square_pitch_dia", {32 * mm, 4 * mm}) == Approx(30 * mm));
+  CHECK(call("square_minor_dia", {32 * mm, 4 * mm}) == Approx(28 * mm));
+  // Independent: square and Acme basic profiles share the depth p/2.
+  CHECK(call("square_minor_dia", {50 * mm, 8 * mm}) == Approx(call("acme_minor_dia", {50 * mm, 8 * mm})));
+}
+
+TEST_CASE("square_flank_angle: zero, so the torque formula reduces to the square-thread one (Shigley Ex. 8-1)",
+          "[functions][threads]") {
+  CHECK(call("square_flank_angle", {}) == 0.0);
+  const double alpha = call("square_flank_angle", {});
+  CHECK(call("torque_raise", {6400, 30 * mm, 8 * mm, 0.08, alpha}) == Approx(15.94).margin(0.005));
+}
+
+TEST_CASE("thread_lead: Shigley's Example 8-1, double thread of 4 mm pitch has an 8 mm lead (from memory)",
+          "[functions][threads]") {
+  CHECK(call("thread_lead", {4 * mm, 2}) == Approx(8 * mm));
+  CHECK(call("thread_lead", {0.2 * in, 1}) == Approx(0.2 * in));  // independent: single start, lead = pitch
+}
+
+TEST_CASE("thread_lead: starts must be a whole number", "[functions][threads][limits]") {
+  CHECK_THAT(errorOf("thread_lead", {4 * mm, 1.5}), Catch::Contains("number of starts = 1.5 must be a whole number"));
+  CHECK_THAT(errorOf("thread_lead", {4 * mm, 0}), Catch::Contains("must be > 0"));
+}
