@@ -2,6 +2,8 @@
 
 #include <algorithm>
 
+#include "engine/util/utf8.h"
+
 namespace calctrail {
 
 namespace {
@@ -48,6 +50,8 @@ void Diagnostics::addAt(Severity s, const SourceFile& file, uint32_t begin, uint
   std::string_view text = file.lineText(pos.line);
   // Show tabs as single spaces so the caret stays under the right character.
   d.source_line.assign(text.begin(), text.end());
+  // Bytes that are not UTF-8 are shown as '?', so the message itself stays valid text.
+  for (size_t bad; (bad = findInvalidUtf8(d.source_line)) != std::string::npos;) d.source_line[bad] = '?';
   std::replace(d.source_line.begin(), d.source_line.end(), '\t', ' ');
   d.caret_column = pos.column;
   const uint32_t line_end = file.lineStart(pos.line) + static_cast<uint32_t>(text.size());

@@ -376,9 +376,10 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
       if (static_cast<unsigned char>(c) >= 0x80) {
         size_t n;
         const char32_t cp = decodeUtf8(src_.substr(0, end_), p, &n);
-        if (cp == 0xB2 || cp == 0xB3 || cp == 0xB7 || cp == 0xD7 || cp == 0x22C5 ||
-            cp == 0x2264 || cp == 0x2265 || cp == 0xA0 || cp == 0x2009 || cp == 0x202F)
-          break;
+        const char look = asciiLookAlike(cp);
+        if (cp == 0xB2 || cp == 0xB3 || cp == 0xB7 || cp == 0xD7 || cp == 0x22C5 || cp == 0x2264 ||
+            cp == 0x2265 || (look && !isAsciiLetter(look)))
+          break;  // an operator or a look-alike of one (U+2212 MINUS SIGN): not part of a unit
         p += static_cast<uint32_t>(n);
         continue;
       }
@@ -415,7 +416,8 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
     const uint32_t at = unit_begin + static_cast<uint32_t>(std::min(err.offset, unit_text.size()));
     std::string msg = err.message;
     if (src_[begin] != '[' && src_[begin] != '%' && isAsciiLetter(src_[begin])) {
-      msg += "; a quantity after a number needs `*`, as in `" + number->text + "*" + std::string(unit_text) + "`";
+      msg += " (to multiply by a quantity named `" + std::string(unit_text) + "`, write `" + number->text + "*" +
+             std::string(unit_text) + "`)";
     }
     fail(at, std::max<uint32_t>(at + 1, src_[begin] == '[' ? pos_ - 1 : pos_), msg);
     return false;

@@ -77,6 +77,11 @@ bool isUnicodeNameChar(char32_t cp) {
          cp == 0x0394;
 }
 
+// No-break spaces come with text pasted from typeset documents.
+bool isSpaceChar(char32_t cp) {
+  return cp == ' ' || cp == '\t' || cp == 0x00A0 || cp == 0x202F;
+}
+
 bool isProductSign(char32_t cp) { return cp == 0x00B7 || cp == 0x22C5; }
 
 // Hyphen, minus sign, hyphen-minus look-alikes and the en dash.
@@ -178,21 +183,15 @@ class Parser {
 
   CodePoint at(size_t i) const { return i < end_ ? decode(s_, i) : CodePoint{}; }
 
-  bool isSpace(size_t i) const {
-    const CodePoint c = at(i);
-    // No-break spaces come with text pasted from typeset documents.
-    return c.cp == ' ' || c.cp == '\t' || c.cp == 0x00A0 || c.cp == 0x202F;
-  }
+  bool isSpace(size_t i) const { return isSpaceChar(at(i).cp); }
 
   void trim() {
     while (begin_ < end_ && isSpace(begin_)) begin_ += at(begin_).len;
     while (end_ > begin_) {
-      size_t k = end_ - 1;
+      size_t k = end_ - 1;  // back to the first byte of the last character
       while (k > begin_ && (static_cast<unsigned char>(s_[k]) & 0xC0) == 0x80) --k;
       const CodePoint c = decode(s_, k);
-      if (k + c.len != end_ || !(c.cp == ' ' || c.cp == '\t' || c.cp == 0x00A0 ||
-                                 c.cp == 0x202F))
-        break;
+      if (k + c.len != end_ || !isSpaceChar(c.cp)) break;
       end_ = k;
     }
   }
@@ -285,7 +284,8 @@ class Parser {
                               : "`*`";
       return fail(i, "a dash is not a product in a unit; write " + fix);
     }
-    if (c.cp == 0x00D7) return fail(i, "`\u00D7` is not a product sign here; write `*` or `\u00B7`");
+    if (c.cp == 0x00D7)
+      return fail(i, "`\u00D7` is not a product sign here; write `*` or `\u00B7`");
     if (c.cp == '^') return fail(i, "a unit takes one power; use parentheses, as in `(m^2)^3`");
     if (isNameStart(i)) {
       size_t k = i;

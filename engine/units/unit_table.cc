@@ -190,7 +190,9 @@ const std::vector<std::string>& suggestible() {
     for (const UnitDef& d : unitTable()) {
       v.push_back(d.name);
       for (const std::string& a : d.aliases)
-        if (std::all_of(a.begin(), a.end(), [](char c) { return static_cast<unsigned char>(c) < 0x80; })) v.push_back(a);
+        if (std::all_of(a.begin(), a.end(),
+                        [](char c) { return static_cast<unsigned char>(c) < 0x80; }))
+          v.push_back(a);
     }
     return v;
   }();

@@ -49,6 +49,8 @@ std::vector<std::string> nearestWords(std::string_view word,
     int d;
     if (lower(c) == lw) {
       d = 0;  // only the case differs: the likeliest slip
+    } else if (word.size() < 2) {
+      continue;  // one letter is one edit from every other: no guess is useful
     } else {
       d = editDistance(word, c, limit);
       if (d > limit) continue;

@@ -1,0 +1,787 @@
+// calculation_perftest: a benchmark program, not a test. It generates
+// worksheets of 1k, 10k and 100k lines in three shapes (a long chain, a wide
+// fan-in, a realistic mix of screw calculations), times every stage of the
+// pipeline and the whole of it, and prints the figures with the peak memory
+// and the 100k/10k ratio of end-to-end time (flagged above 12: cost must grow
+// linearly). docs/performance.md explains the figures and records them.
+//
+//   calculation_perftest                  all shapes, 1k 10k 100k, then the muparser note
+//   calculation_perftest --sizes 1000,10000 --shapes chain,mix
+//   calculation_perftest --dump mix 1000  print a generated worksheet and stop
+//
+// Each case runs in a child process (fork) so that its peak RSS is its own.
+// Exit status: 0; 1 when a ratio is above 12; 2 when a generated worksheet
+// does not calculate cleanly (a bug in the generator or the engine).
+#include <muParser.h>
+#include <sys/resource.h>
+#include <sys/wait.h>
+#include <unistd.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <cstring>
+#include <functional>
+#include <set>
+#include <string>
+#include <vector>
+
+#include "engine/calculation.h"
+#include "engine/eval/dimension_check.h"
+#include "engine/eval/evaluator.h"
+#include "engine/eval/program.h"
+#include "engine/graph/dependency_graph.h"
+#include "engine/report/text_renderer.h"
+#include "engine/report/trail.h"
+#include "engine/sheet/sheet_parser.h"
+#include "engine/units/unit.h"
+#include "engine/util/sha256.h"
+#include "functions/function_decl.h"
+
+using namespace calctrail;
+
+namespace {
+
+// ---------------------------------------------------------------------------
+// Worksheet generators. Each returns exactly `lines` lines of text.
+
+std::string lineCount(std::string text, int lines) {
+  int have = static_cast<int>(std::count(text.begin(), text.end(), '\n'));
+  for (int i = have; i < lines; ++i) text += "# padding to the line count of the benchmark\n";
+  return text;
+}
+
+// (a) A long chain: every quantity uses the one before it. A cycle of seven
+// steps mixes lengths, an area and its square root, an angle and its cosine,
+// a torque and back to a length; the map contracts, so values stay bounded.
+std::string chainSheet(int lines) {
+  std::string s = "title: Benchmark: a long chain\nsection Chain\n";
+  int body = lines - 3;  // title, section, check
+  std::string prev = "x0";
+  s += "x0 = 1.5 mm  # start of the chain\n";
+  char buf[200];
+  for (int i = 1; i < body; ++i) {
+    const std::string name = "x" + std::to_string(i);
+    const char* p = prev.c_str();
+    switch (i % 7) {
+      case 1: std::snprintf(buf, sizeof buf, "%s [mm] = %s * 0.5 + 1 mm  # halve and shift\n", name.c_str(), p); break;
+      case 2: std::snprintf(buf, sizeof buf, "%s [mm^2] = %s^2 / 4 + 3 [mm^2]  # an area\n", name.c_str(), p); break;
+      case 3: std::snprintf(buf, sizeof buf, "%s [mm] = sqrt(%s) + 0.25 mm  # side of the square\n", name.c_str(), p); break;
+      case 4: std::snprintf(buf, sizeof buf, "%s [deg] = %s / (10 mm) * 30 deg  # an angle\n", name.c_str(), p); break;
+      case 5: std::snprintf(buf, sizeof buf, "%s [mm] = 2 mm * cos(%s) + 1 mm  # a projection\n", name.c_str(), p); break;
+      case 6: std::snprintf(buf, sizeof buf, "%s [N*m] = %s * 2.5 kN  # a torque\n", name.c_str(), p); break;
+      default: std::snprintf(buf, sizeof buf, "%s [mm] = %s / (1 kN) + 0.5 mm  # back to a length\n", name.c_str(), p); break;
+    }
+    s += buf;
+    prev = name;
+  }
+  s += "check chain_end: " + prev + " > 0 [" + (std::string(((body - 1) % 7 == 2) ? "mm^2" : ((body - 1) % 7 == 4) ? "deg" : ((body - 1) % 7 == 6) ? "N*m" : "mm")) +
+       "]  # the chain reaches its end\n";
+  return lineCount(s, lines);
+}
+
+// (b) A wide fan-in: many inputs a_i = i kN, summed in groups of at most 50
+// terms, the group sums summed again, up to one total, with a final check.
+int fanInLines(int inputs) {
+  int total = 3 + inputs;  // title, section, check
+  for (int level = inputs; level > 1;) {
+    level = (level + 49) / 50;
+    total += level;
+  }
+  return total + (inputs > 1 ? 0 : 1);
+}
+
+std::string fanInSheet(int lines) {
+  int inputs = lines;
+  while (inputs > 1 && fanInLines(inputs) > lines) --inputs;
+  std::string s = "title: Benchmark: a wide fan-in\nsection Loads\n";
+  std::vector<std::string> level;
+  for (int i = 1; i <= inputs; ++i) {
+    level.push_back("a" + std::to_string(i));
+    s += level.back() + " = " + std::to_string(i) + " kN  # load " + std::to_string(i) + "\n";
+  }
+  int depth = 0;
+  while (level.size() > 1 || depth == 0) {
+    ++depth;
+    std::vector<std::string> next;
+    for (size_t g = 0; g < level.size(); g += 50) {
+      next.push_back("s" + std::to_string(depth) + "_" + std::to_string(g / 50));
+      s += next.back() + " [kN] = ";
+      for (size_t k = g; k < std::min(level.size(), g + 50); ++k) s += (k > g ? " + " : "") + level[k];
+      s += "  # group sum\n";
+    }
+    level = std::move(next);
+  }
+  const double sum = 0.5 * inputs * (inputs + 1.0);  // kN, exact in a double
+  char buf[160];
+  std::snprintf(buf, sizeof buf, "check total: %s <= %.17g kN  # the sum of 1..%d kN\n", level[0].c_str(),
+                sum * (1 + 1e-12), inputs);
+  s += buf;
+  return lineCount(s, lines);
+}
+
+// (c) A realistic mix: copies of the two demo worksheets (worksheets/*.calc as
+// of the benchmark's writing, plus a library call), each copy's quantities and
+// checks renamed with a suffix _k, so 100k lines look like many screw
+// calculations.
+const char* const kGateTemplate = R"(section Loads on the gate
+note The leaf slides in guides. Water pressure on the closed gate presses it onto its
+note side seals, and the seal friction adds to the weight when the gate is raised
+note against the full head. The high friction value is used for the lifting load.
+
+m_leaf = 950 kg                                  # mass of the steel leaf and stem
+g_n = 9.80665 [m/s^2]                            # standard gravity (exact, CGPM 1901)
+W_leaf [kN] = m_leaf * g_n                       # weight of the leaf
+b_gate = 1.6 m                                   # clear width of the opening
+h_gate = 1.2 m                                   # height of the leaf
+H_up = 2.4 m                                     # upstream water depth over the sill
+rho_w = 1000 [kg/m^3]                            # density of fresh water
+F_water [kN] = rho_w * g_n * b_gate * h_gate * (H_up - h_gate / 2)  # resultant water thrust on the closed leaf
+mu_seal = 0.35                                   # rubber seal on stainless steel, wet (common practice 0.3 to 0.5)
+F_seal [kN] = mu_seal * F_water                  # seal friction against lifting
+F [kN] = W_leaf + F_seal                         # axial load on the screw while raising
+
+section Screw and nut
+note A single-start metric trapezoidal screw Tr 40x7 in steel, nut in bronze. Mean and
+note minor diameters are the basic ones of the thread profile (d - p/2 and d - p).
+
+d = 40 mm                                        # major diameter
+p = 7 mm                                         # pitch
+starts = 1                                       # number of thread starts
+l = starts * p                                   # lead: axial advance per turn
+d_m [mm] = d - p / 2                             # mean (pitch) diameter
+d_r [mm] = d - p                                 # minor (root) diameter
+alpha = 15 deg                                   # flank half-angle of the 30 deg trapezoidal form
+f_high = 0.15                                    # steel on bronze, poorly lubricated: for torque and motor
+f_low = 0.08                                     # steel on bronze, well lubricated: for self-locking
+
+T_raise [N*m] = F * d_m / 2 * (l + pi * f_high * d_m / cos(alpha)) / (pi * d_m - f_high * l / cos(alpha))  # torque to raise the load, thread only
+T_lower [N*m] = F * d_m / 2 * (pi * f_low * d_m / cos(alpha) - l) / (pi * d_m + f_low * l / cos(alpha))   # torque to lower at low friction; positive means self-locking
+eta_screw [%] = F * l / (2 * pi * T_raise)       # efficiency of the thread while raising
+LIBRARY_LINE
+section Thrust bearing
+note The stem is carried in a rolling thrust bearing on the hoist frame.
+
+mu_bearing = 0.005                               # rolling thrust bearing, referred to its mean diameter (common practice)
+d_bearing = 60 mm                                # mean diameter of the bearing
+T_bearing [N*m] = F * mu_bearing * d_bearing / 2 # bearing friction torque
+T_screw [N*m] = T_raise + T_bearing              # torque at the screw while raising
+
+section Stresses in the screw body
+sigma_axial [MPa] = 4 * F / (pi * d_r^2)         # axial stress at the root diameter
+tau_torsion [MPa] = 16 * T_raise / (pi * d_r^3)  # torsional shear at the root diameter
+sigma_vm [MPa] = sqrt(sigma_axial^2 + 3 * tau_torsion^2)  # von Mises equivalent stress
+S_y = 275 MPa                                    # yield strength, structural steel S275
+n_yield = S_y / sigma_vm                         # safety factor against yield
+
+section Drive
+note A worm reducer drives the screw nut; the motor runs at its rated speed.
+
+n_motor = 1400 rpm                               # four-pole motor at rated load
+i_gear = 30                                      # worm reducer ratio
+eta_gear = 0.55                                  # worm reducer efficiency, single start (catalogue value)
+n_screw [rpm] = n_motor / i_gear                 # screw speed
+v_gate [mm/min] = n_screw * l / (1 rev)          # lifting speed: turns per minute times lead per turn
+stroke = 1.25 m                                  # travel from closed to fully open
+t_open [min] = stroke / v_gate                   # time to open
+P_screw [W] = T_screw * n_screw                  # power at the screw
+P_motor [kW] = P_screw / eta_gear                # power the motor must give
+P_rated = 1.1 kW                                 # rated power of the chosen motor
+
+check self_locking: T_lower > 0 [N*m]            # the gate holds without the brake at low friction
+check stress: n_yield >= 2.5                     # common practice margin for a lifting screw
+check motor_power: P_motor <= P_rated            # motor not overloaded when raising
+check opening_time: t_open <= 12 min             # operating rule of the scheme
+)";
+
+const char* const kJackTemplate = R"(section Load
+W_machine = 12000 lbf                            # weight of the machine on its base
+n_jacks = 4                                      # jacks under the base, one per corner
+k_share = 1.3                                    # uneven share of the heaviest corner (judgment)
+F [lbf] = W_machine / n_jacks * k_share          # axial load on the heaviest jack
+
+section Screw
+note Acme general purpose thread, 1 inch diameter, 5 threads per inch, single start.
+
+d = 1 in                                         # major diameter
+tpi = 5                                          # threads per inch
+p [in] = 1 in / tpi                              # pitch
+l [in] = p                                       # lead of a single-start thread
+d_m [in] = d - p / 2                             # mean diameter
+d_r [in] = d - p                                 # minor diameter
+alpha = 14.5 deg                                 # flank half-angle of the 29 deg Acme form
+f = 0.15                                         # steel on steel, oiled (high value for torque)
+f_low = 0.10                                     # low value for self-locking
+T_thread [lbf*in] = F * d_m / 2 * (l + pi * f * d_m / cos(alpha)) / (pi * d_m - f * l / cos(alpha))  # torque to raise, thread only
+T_lower [lbf*in] = F * d_m / 2 * (pi * f_low * d_m / cos(alpha) - l) / (pi * d_m + f_low * l / cos(alpha))  # torque to lower at low friction
+
+section Collar
+note The jack head turns on a plain hardened steel thrust washer.
+
+f_c = 0.12                                       # hardened steel washer on steel, oiled
+d_c = 1.75 in                                    # mean diameter of the collar
+T_collar [lbf*in] = F * f_c * d_c / 2            # collar friction torque
+T_total [lbf*in] = T_thread + T_collar           # torque on the wrench when raising
+eta [%] = F * l / (2 * pi * T_total)             # overall efficiency
+
+section Operator effort
+L_wrench = 15 in                                 # effective wrench length
+P_hand [lbf] = T_total / L_wrench                # force at the hand
+P_allow = 60 lbf                                 # design limit for a one-hand pull (judgment)
+
+section Stresses
+A_r [in^2] = pi * d_r^2 / 4                      # root area
+sigma_c [psi] = F / A_r                          # compressive stress at the root
+S_y = 36 ksi                                     # yield strength, A36 steel
+n_s = S_y / sigma_c                              # safety factor against yield in compression
+n_engaged = 5                                    # threads engaged in the nut
+p_bearing [psi] = F / (pi * d_m * n_engaged * p / 2)  # bearing pressure on the thread flanks
+p_allow = 2500 psi                               # steel on steel, low speed (handbook range, from memory)
+
+check self_locking: T_lower > 0 [lbf*in]         # holds the load without a lock
+check hand_effort: P_hand <= P_allow             # one person can turn it
+check yield: n_s >= 3                            # margin against yield
+check bearing: p_bearing <= p_allow              # thread flank pressure
+)";
+
+bool isNameStart(char c) { return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'); }
+bool isNameChar(char c) { return isNameStart(c) || (c >= '0' && c <= '9') || c == '_'; }
+
+// The template split in lines, with the names it defines (quantities, checks).
+struct Template {
+  std::vector<std::string> lines;
+  std::set<std::string> names;
+};
+
+Template makeTemplate(std::string text) {
+  // The library call shows the drive library in the mix, when it has the function.
+  const FunctionDecl* f = findFunction("torque_raise");
+  const std::string lib = f && f->args.size() == 5
+      ? "T_raise_lib [N*m] = torque_raise(F, d_m, l, f_high, alpha)  # the same torque from the drive library\n"
+        "check same_torque: T_raise_lib <= T_raise * 1.000001  # library and formula agree\n"
+      : "";
+  const size_t at = text.find("LIBRARY_LINE\n");
+  if (at != std::string::npos) text.replace(at, 13, lib);
+  Template t;
+  size_t b = 0;
+  while (b < text.size()) {
+    size_t e = text.find('\n', b);
+    if (e == std::string::npos) e = text.size();
+    t.lines.push_back(text.substr(b, e - b));
+    b = e + 1;
+  }
+  for (const std::string& line : t.lines) {
+    size_t p = line.rfind("check ", 0) == 0 ? 6 : 0;
+    if (line.empty() || !isNameStart(line[0]) || line.rfind("section ", 0) == 0 || line.rfind("note ", 0) == 0)
+      continue;
+    size_t q = p;
+    while (q < line.size() && isNameChar(line[q])) ++q;
+    t.names.insert(line.substr(p, q - p));
+  }
+  return t;
+}
+
+// A copy of one template line with every name it defines suffixed: names in
+// the formula part only (not in the description, not inside [unit] brackets,
+// never a unit after a number, since no unit of the templates is one of their
+// names).
+std::string renamed(const std::string& line, const Template& t, const std::string& suffix) {
+  if (line.empty() || line[0] == '#' || line.rfind("section ", 0) == 0 || line.rfind("note ", 0) == 0) return line;
+  std::string out;
+  size_t i = 0;
+  int brackets = 0;
+  while (i < line.size()) {
+    const char c = line[i];
+    if (c == '#') {
+      out += line.substr(i);
+      break;
+    }
+    if (c == '[') ++brackets;
+    if (c == ']') --brackets;
+    if ((c >= '0' && c <= '9') || c == '.') {  // a number, exponent included
+      while (i < line.size() && (isNameChar(line[i]) || line[i] == '.')) out += line[i++];
+      continue;
+    }
+    if (isNameStart(c)) {
+      size_t j = i;
+      while (j < line.size() && isNameChar(line[j])) ++j;
+      const std::string word = line.substr(i, j - i);
+      out += word;
+      if (brackets == 0 && t.names.count(word)) out += suffix;
+      i = j;
+      continue;
+    }
+    out += c;
+    ++i;
+  }
+  return out;
+}
+
+std::string mixSheet(int lines) {
+  static const Template gate = makeTemplate(kGateTemplate);
+  static const Template jack = makeTemplate(kJackTemplate);
+  std::string s = "title: Benchmark: many screw calculations\nproject: calctrail benchmark\n\n";
+  int have = 3;
+  for (int k = 0;; ++k) {
+    const Template& t = k % 2 == 0 ? gate : jack;
+    if (have + static_cast<int>(t.lines.size()) + 1 > lines) break;
+    const std::string suffix = "_" + std::to_string(k);
+    for (const std::string& line : t.lines) s += renamed(line, t, suffix) + "\n";
+    s += "\n";
+    have += static_cast<int>(t.lines.size()) + 1;
+  }
+  return lineCount(s, lines);
+}
+
+std::string makeSheet(const std::string& shape, int lines) {
+  if (shape == "chain") return chainSheet(lines);
+  if (shape == "fanin") return fanInSheet(lines);
+  return mixSheet(lines);
+}
+
+// ---------------------------------------------------------------------------
+// Timing.
+
+using Clock = std::chrono::steady_clock;
+
+double msSince(Clock::time_point t0) {
+  return std::chrono::duration<double, std::milli>(Clock::now() - t0).count();
+}
+
+double peakRssMb() {
+  rusage ru{};
+  getrusage(RUSAGE_SELF, &ru);
+  return static_cast<double>(ru.ru_maxrss) / 1024.0;  // Linux: kilobytes
+}
+
+double currentRssMb() {
+  FILE* f = std::fopen("/proc/self/statm", "r");
+  if (!f) return 0;
+  long pages = 0, resident = 0;
+  const int got = std::fscanf(f, "%ld %ld", &pages, &resident);
+  std::fclose(f);
+  return got == 2 ? static_cast<double>(resident) * static_cast<double>(sysconf(_SC_PAGESIZE)) / (1024.0 * 1024.0)
+                  : 0;
+}
+
+// What a child sends back to the parent: plain numbers through a pipe.
+struct CaseResult {
+  int lines = 0;
+  int quantities = 0;
+  int checks = 0;
+  int checks_passed = 0;
+  int errors = 0;          // diagnostics of severity error (must be 0)
+  int mismatches = 0;      // staged values that differ from Calculation's (must be 0)
+  int reps = 0;
+  double text_mb = 0, trail_mb = 0;
+  double parse = 1e300, resolve = 1e300, check = 1e300, compile = 1e300, evaluate = 1e300;
+  double trail = 1e300, calc = 1e300, e2e = 1e300;
+  double rss_start_mb = 0, rss_peak_mb = 0;
+  char first_error[400] = {0};
+};
+
+const Unit* writtenUnit(const Expr& e) {
+  const Expr* x = &e;
+  while (x->kind == ExprKind::Negate || x->kind == ExprKind::Group) x = x->args[0].get();
+  return x->kind == ExprKind::Number ? x->unit.get() : nullptr;
+}
+
+bool hasCall(const Expr& e) {
+  if (e.kind == ExprKind::Call) return true;
+  for (const auto& a : e.args)
+    if (hasCall(*a)) return true;
+  return false;
+}
+
+// The stages of Calculation::run (engine/calculation.cc), reproduced with the
+// public pieces so that each can be timed on its own. Overrides are left out
+// (the benchmark sets none). Returns the values, for comparison.
+std::vector<double> stagedRun(const std::string& text, CaseResult* r) {
+  auto t = Clock::now();
+  auto file = std::make_shared<SourceFile>("bench.calc", text);
+  Diagnostics diags;
+  Sheet sheet = parseSheet(file, &diags);
+  r->parse = std::min(r->parse, msSince(t));
+  const int n = static_cast<int>(sheet.quantities.size());
+
+  // Name resolution and the dependency graph, then the evaluation order.
+  t = Clock::now();
+  DependencyGraph graph(n);
+  std::vector<char> input(n, 0);
+  int unknown = 0;
+  for (int i = 0; i < n; ++i) {
+    bool any_name = false;
+    forEachName(*sheet.quantities[i].expr, [&](const Expr& e) {
+      any_name = true;
+      const int j = sheet.find(e.text);
+      if (j < 0) ++unknown;
+      else graph.addUse(i, j);
+    });
+    input[i] = !any_name && !hasCall(*sheet.quantities[i].expr);
+  }
+  for (const Check& c : sheet.checks)
+    for (const Expr* side : {c.lhs.get(), c.rhs.get()})
+      forEachName(*side, [&](const Expr& e) { unknown += sheet.find(e.text) < 0; });
+  std::vector<std::vector<int>> cycles;
+  const std::vector<int> order = graph.order(&cycles);
+  r->resolve = std::min(r->resolve, msSince(t));
+
+  // Dimension check of every formula in order, display units, then the checks.
+  t = Clock::now();
+  std::vector<Dimension> dims(n);
+  std::vector<char> known(n, 0), broken(n, 0);
+  std::vector<Unit> display(n);
+  for (int i = 0; i < n; ++i)
+    forEachName(*sheet.quantities[i].expr, [&](const Expr& e) { broken[i] |= sheet.find(e.text) < 0; });
+  for (int i : order) {
+    Quantity& q = sheet.quantities[i];
+    if (broken[i]) continue;
+    DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
+    if (!checker.check(*q.expr)) continue;
+    Dimension d = q.expr->dim;
+    if (workOrPower(d)) d = d.withoutAngle();
+    dims[i] = d;
+    known[i] = 1;
+    if (q.display) {
+      display[i] = *q.display;
+      if (fitUnit(d, q.display->dim) == UnitFit::Incompatible) known[i] = 0;
+    } else {
+      const Unit* w = writtenUnit(*q.expr);
+      display[i] = w ? *w : preferredUnit(d);
+      (void)strayAngleWarning(q.name, d);
+    }
+  }
+  for (Check& c : sheet.checks) {
+    DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
+    if (!checker.check(*c.lhs) || !checker.check(*c.rhs)) continue;
+    bool incompatible;
+    (void)compareForSum(c.lhs->dim, c.rhs->dim, &incompatible);
+  }
+  r->check = std::min(r->check, msSince(t));
+
+  // Compile every formula and both sides of every check to muparser text.
+  t = Clock::now();
+  std::vector<Program> programs(n);
+  for (int i : order)
+    if (known[i]) programs[i] = compileProgram(*sheet.quantities[i].expr, sheet);
+  std::vector<Program> check_programs;
+  check_programs.reserve(2 * sheet.checks.size());
+  for (const Check& c : sheet.checks) {
+    check_programs.push_back(compileProgram(*c.lhs, sheet));
+    check_programs.push_back(compileProgram(*c.rhs, sheet));
+  }
+  r->compile = std::min(r->compile, msSince(t));
+
+  // Evaluate in order with one muparser instance, then the checks.
+  t = Clock::now();
+  std::vector<double> values(n, NAN);
+  std::vector<char> ok(n, 0);
+  {
+    Evaluator evaluator;
+    for (int i : order) {
+      if (!known[i]) continue;
+      bool inputs_ok = true;
+      for (int j : graph.uses(i)) inputs_ok &= ok[j] != 0;
+      if (!inputs_ok) continue;
+      double v = NAN;
+      try {
+        v = evaluator.run(programs[i], values);
+      } catch (const std::exception&) {
+        v = NAN;
+      }
+      if (!std::isfinite(v)) continue;
+      values[i] = v;
+      ok[i] = 1;
+    }
+  }
+  {
+    Evaluator evaluator;
+    volatile double sink = 0;
+    for (const Program& p : check_programs) sink = sink + evaluator.run(p, values);
+  }
+  r->evaluate = std::min(r->evaluate, msSince(t));
+  (void)unknown;
+  return values;
+}
+
+int g_reps = 0;  // --reps: a fixed number of runs per case (0: best of 3, one slow run at 100k)
+
+void runCase(const std::string& shape, int lines, CaseResult* r) {
+  r->rss_start_mb = currentRssMb();
+  const std::string text = makeSheet(shape, lines);
+  r->lines = lines;
+  r->text_mb = static_cast<double>(text.size()) / (1024.0 * 1024.0);
+
+  // End to end first, so that the peak RSS is that of the real pipeline
+  // (worksheet text included): calculate, build the trail, render it as text.
+  std::vector<double> reference;
+  for (int rep = 0;; ++rep) {
+    std::string bytes = text;  // fromText takes the bytes; copy outside the clock
+    auto t0 = Clock::now();
+    std::unique_ptr<Calculation> calc = Calculation::fromText("bench.calc", std::move(bytes));
+    const double calc_ms = msSince(t0);
+    auto t1 = Clock::now();
+    Trail trail = buildTrail(*calc, 4);
+    std::string out = renderText(trail);
+    const double trail_ms = msSince(t1);
+    const double e2e_ms = msSince(t0);
+    r->calc = std::min(r->calc, calc_ms);
+    r->trail = std::min(r->trail, trail_ms);
+    r->e2e = std::min(r->e2e, e2e_ms);
+    if (rep == 0) {
+      r->rss_peak_mb = peakRssMb();
+      r->trail_mb = static_cast<double>(out.size()) / (1024.0 * 1024.0);
+      r->quantities = static_cast<int>(calc->quantities.size());
+      r->checks = static_cast<int>(calc->checks.size());
+      r->checks_passed = static_cast<int>(calc->checks.size()) - calc->failedChecks();
+      r->errors = calc->diags.errorCount();
+      for (const Diagnostic& d : calc->diags.list()) {
+        if (d.severity != Severity::Error) continue;
+        std::snprintf(r->first_error, sizeof r->first_error, "%s", d.headline().c_str());
+        break;
+      }
+      for (const QuantityState& q : calc->quantities) reference.push_back(q.ok ? q.si : NAN);
+    }
+    // Best of 3 below 100k lines; at 100k, one run when it is slow (> 1 s).
+    r->reps = rep + 1;
+    if (g_reps > 0 ? rep + 1 >= g_reps : rep + 1 >= 3 || (lines >= 100000 && e2e_ms > 1000)) break;
+  }
+  for (int rep = 0; rep < r->reps; ++rep) {
+    const std::vector<double> values = stagedRun(text, r);
+    if (rep == 0) {
+      for (size_t i = 0; i < values.size() && i < reference.size(); ++i) {
+        const bool same = (std::isnan(values[i]) && std::isnan(reference[i])) || values[i] == reference[i];
+        r->mismatches += !same;
+      }
+      if (values.size() != reference.size()) ++r->mismatches;
+    }
+  }
+}
+
+bool forkCase(const std::string& shape, int lines, CaseResult* out) {
+  int fds[2];
+  if (pipe(fds) != 0) return false;
+  std::fflush(stdout);
+  std::fflush(stderr);
+  const pid_t pid = fork();
+  if (pid < 0) return false;
+  if (pid == 0) {
+    close(fds[0]);
+    CaseResult r;
+    runCase(shape, lines, &r);
+    const char* p = reinterpret_cast<const char*>(&r);
+    size_t left = sizeof r;
+    while (left > 0) {
+      const ssize_t w = write(fds[1], p, left);
+      if (w <= 0) _exit(3);
+      p += w;
+      left -= static_cast<size_t>(w);
+    }
+    _exit(0);
+  }
+  close(fds[1]);
+  char* p = reinterpret_cast<char*>(out);
+  size_t got = 0;
+  while (got < sizeof *out) {
+    const ssize_t n = read(fds[0], p + got, sizeof *out - got);
+    if (n <= 0) break;
+    got += static_cast<size_t>(n);
+  }
+  close(fds[0]);
+  int status = 0;
+  waitpid(pid, &status, 0);
+  return got == sizeof *out && WIFEXITED(status) && WEXITSTATUS(status) == 0;
+}
+
+// ---------------------------------------------------------------------------
+// The design note: one muparser instance whose expression is set per formula
+// (what Evaluator does) against one mu::Parser object per formula, kept for
+// re-evaluation. Both on the real programs of a 10k-line chain.
+
+double callLib(void* decl, const double* args, int) { return static_cast<const FunctionDecl*>(decl)->eval(args); }
+
+struct ParserNote {
+  int formulas = 0;
+  double one_instance_us = 0;    // per formula: ClearVar, DefineVar, SetExpr, Eval
+  double per_formula_us = 0;     // per formula: new parser with the library, DefineVar, SetExpr, Eval
+  double per_formula_kb = 0;     // resident memory per parser kept
+  double bare_us = 0, bare_kb = 0;  // the same without the library functions defined
+};
+
+void runParserNote(ParserNote* note) {
+  const std::string text = chainSheet(10000);
+  Diagnostics diags;
+  Sheet sheet = parseSheet(std::make_shared<SourceFile>("note.calc", text), &diags);
+  const int n = static_cast<int>(sheet.quantities.size());
+  std::vector<Dimension> dims(n);
+  std::vector<char> known(n, 1);
+  std::vector<Program> programs(n);
+  for (int i = 0; i < n; ++i) {  // a chain: document order is dependency order
+    DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
+    checker.check(*sheet.quantities[i].expr);
+    dims[i] = sheet.quantities[i].expr->dim;
+    programs[i] = compileProgram(*sheet.quantities[i].expr, sheet);
+  }
+  std::vector<double> values(n, 1.0);
+  note->formulas = n;
+  {
+    Evaluator evaluator;
+    auto t = Clock::now();
+    for (int i = 0; i < n; ++i) values[i] = evaluator.run(programs[i], values);
+    note->one_instance_us = msSince(t) * 1000.0 / n;
+  }
+  for (int with_library = 1; with_library >= 0; --with_library) {
+    std::vector<std::unique_ptr<mu::Parser>> parsers;
+    parsers.reserve(n);
+    std::vector<double> slots(4 * static_cast<size_t>(n), 0.0);
+    const double rss0 = currentRssMb();
+    auto t = Clock::now();
+    for (int i = 0; i < n; ++i) {
+      auto p = std::make_unique<mu::Parser>();
+      if (with_library)
+        for (const FunctionDecl& f : functionLibrary())
+          p->DefineFunUserData(f.name, callLib, const_cast<FunctionDecl*>(&f), false);
+      for (size_t k = 0; k < programs[i].inputs.size() && k < 4; ++k) {
+        slots[4 * static_cast<size_t>(i) + k] = values[programs[i].inputs[k]];
+        p->DefineVar("v" + std::to_string(k), &slots[4 * static_cast<size_t>(i) + k]);
+      }
+      p->SetExpr(programs[i].text);
+      values[i] = p->Eval();
+      parsers.push_back(std::move(p));
+    }
+    const double us = msSince(t) * 1000.0 / n;
+    const double kb = (currentRssMb() - rss0) * 1024.0 / n;
+    if (with_library) note->per_formula_us = us, note->per_formula_kb = kb;
+    else note->bare_us = us, note->bare_kb = kb;
+  }
+}
+
+bool forkNote(ParserNote* out) {
+  int fds[2];
+  if (pipe(fds) != 0) return false;
+  std::fflush(stdout);
+  const pid_t pid = fork();
+  if (pid < 0) return false;
+  if (pid == 0) {
+    close(fds[0]);
+    ParserNote note;
+    runParserNote(&note);
+    _exit(write(fds[1], &note, sizeof note) == static_cast<ssize_t>(sizeof note) ? 0 : 3);
+  }
+  close(fds[1]);
+  const ssize_t got = read(fds[0], out, sizeof *out);
+  close(fds[0]);
+  int status = 0;
+  waitpid(pid, &status, 0);
+  return got == static_cast<ssize_t>(sizeof *out) && WIFEXITED(status) && WEXITSTATUS(status) == 0;
+}
+
+std::vector<std::string> splitList(const std::string& s) {
+  std::vector<std::string> out;
+  size_t b = 0;
+  while (b <= s.size()) {
+    size_t e = s.find(',', b);
+    if (e == std::string::npos) e = s.size();
+    if (e > b) out.push_back(s.substr(b, e - b));
+    b = e + 1;
+  }
+  return out;
+}
+
+int usage() {
+  std::fprintf(stderr,
+               "usage: calculation_perftest [--shapes chain,fanin,mix] [--sizes 1000,10000,100000] [--reps N] [--no-note]\n"
+               "       calculation_perftest --dump chain|fanin|mix LINES\n");
+  return 2;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  std::vector<std::string> shapes = {"chain", "fanin", "mix"};
+  std::vector<int> sizes = {1000, 10000, 100000};
+  bool note = true;
+  for (int i = 1; i < argc; ++i) {
+    const std::string a = argv[i];
+    if (a == "--dump" && i + 2 < argc) {
+      const std::string shape = argv[i + 1];
+      if (shape != "chain" && shape != "fanin" && shape != "mix") return usage();
+      std::fputs(makeSheet(shape, std::atoi(argv[i + 2])).c_str(), stdout);
+      return 0;
+    } else if (a == "--shapes" && i + 1 < argc) {
+      shapes = splitList(argv[++i]);
+      for (const std::string& s : shapes)
+        if (s != "chain" && s != "fanin" && s != "mix") return usage();
+    } else if (a == "--sizes" && i + 1 < argc) {
+      sizes.clear();
+      for (const std::string& s : splitList(argv[++i])) sizes.push_back(std::max(10, std::atoi(s.c_str())));
+    } else if (a == "--reps" && i + 1 < argc) {
+      g_reps = std::max(1, std::atoi(argv[++i]));
+    } else if (a == "--no-note") {
+      note = false;
+    } else {
+      return usage();
+    }
+  }
+
+  std::printf("calctrail benchmark: stage times in ms (best of 3; one run at 100k lines when it takes over 1 s),\n"
+              "peak RSS of a child process per case (baseline at fork about %.1f MB)\n\n",
+              currentRssMb());
+  std::printf("%-6s %7s %7s %7s %8s %8s %8s %8s %8s %8s %8s %8s %7s %7s\n", "shape", "lines", "quant", "parse",
+              "res+ord", "check", "compile", "evaluate", "trail", "calc", "e2e", "us/line", "RSS MB", "text MB");
+  int status = 0;
+  struct Row { std::string shape; int lines; double e2e; };
+  std::vector<Row> rows;
+  for (const std::string& shape : shapes) {
+    for (int lines : sizes) {
+      CaseResult r;
+      if (!forkCase(shape, lines, &r)) {
+        std::printf("%-6s %7d  (the child process failed)\n", shape.c_str(), lines);
+        status = 2;
+        continue;
+      }
+      std::printf("%-6s %7d %7d %7.1f %8.1f %8.1f %8.1f %8.1f %8.1f %8.1f %8.1f %8.2f %7.1f %7.1f%s\n", shape.c_str(),
+                  r.lines, r.quantities, r.parse, r.resolve, r.check, r.compile, r.evaluate, r.trail, r.calc, r.e2e,
+                  r.e2e * 1000.0 / r.lines, r.rss_peak_mb, r.text_mb, r.reps == 1 ? "  (1 run)" : "");
+      if (r.errors || r.mismatches || r.checks_passed != r.checks) {
+        std::printf("       ^ %d errors, %d staged values differ, %d of %d checks pass%s%s\n", r.errors, r.mismatches,
+                    r.checks_passed, r.checks, r.first_error[0] ? ": " : "", r.first_error);
+        status = 2;
+      }
+      rows.push_back({shape, lines, r.e2e});
+    }
+  }
+  std::printf("\ncolumns: quant = quantities; res+ord = name resolution, dependency graph and order;\n"
+              "calc = Calculation::fromText (SHA-256, parse, every stage); trail = buildTrail + renderText;\n"
+              "e2e = calc + trail; the stage columns come from a separate staged run of the same text.\n");
+
+  std::printf("\nlinearity: end-to-end time at 100k lines / at 10k lines (must be <= 12)\n");
+  for (const std::string& shape : shapes) {
+    double t10 = 0, t100 = 0;
+    for (const Row& row : rows) {
+      if (row.shape != shape) continue;
+      if (row.lines == 10000) t10 = row.e2e;
+      if (row.lines == 100000) t100 = row.e2e;
+    }
+    if (t10 <= 0 || t100 <= 0) continue;
+    const double ratio = t100 / t10;
+    std::printf("  %-6s %6.2f%s\n", shape.c_str(), ratio, ratio > 12 ? "  ** NOT LINEAR: above 12 **" : "  ok");
+    if (ratio > 12 && status == 0) status = 1;
+  }
+
+  if (note) {
+    ParserNote pn;
+    if (forkNote(&pn)) {
+      std::printf("\nmuparser, on the %d formulas of a 10k-line chain:\n"
+                  "  one instance, expression set per formula (Evaluator): %6.2f us per formula, no memory kept\n"
+                  "  one mu::Parser per formula, library functions defined: %6.2f us and %6.1f KB per formula\n"
+                  "  one mu::Parser per formula, bare:                      %6.2f us and %6.1f KB per formula\n",
+                  pn.formulas, pn.one_instance_us, pn.per_formula_us, pn.per_formula_kb, pn.bare_us, pn.bare_kb);
+    } else {
+      std::printf("\nmuparser note: the child process failed\n");
+    }
+  }
+  return status;
+}

@@ -1,0 +1,431 @@
+// The library as a whole: every declaration complete, every formula string in
+// terms of its own arguments AND agreeing with eval() (a tiny evaluator below
+// reads the formulas), every input checked (NaN, inf and out-of-range values
+// give DomainError, never a NaN result), and every function listed in
+// docs/verification.md with tests that exist.
+#include <catch2/catch.hpp>
+
+#include <cctype>
+#include <cmath>
+#include <fstream>
+#include <map>
+#include <random>
+#include <set>
+#include <sstream>
+#include <string>
+#include <vector>
+
+#include "functions/function_decl.h"
+#include "functions/function_library.h"
+
+namespace {
+
+using calctrail::Base;
+using calctrail::Dimension;
+using calctrail::DomainError;
+using calctrail::FunctionDecl;
+using calctrail::functionLibrary;
+
+constexpr double kPi = 3.14159265358979323846;
+
+const std::set<std::string> kMathFunctions = {"sqrt", "sin",  "cos", "tan", "asin",  "acos", "atan",
+                                              "atan2", "exp", "ln",  "log10", "abs", "min",  "max"};
+
+bool isIdentifier(const std::string& s) {
+  if (s.empty() || !std::isalpha(static_cast<unsigned char>(s[0]))) return false;
+  for (char c : s)
+    if (!std::isalnum(static_cast<unsigned char>(c)) && c != '_') return false;
+  return true;
+}
+
+bool isSnakeCase(const std::string& s) {
+  if (s.empty() || !std::islower(static_cast<unsigned char>(s[0]))) return false;
+  for (char c : s)
+    if (!std::islower(static_cast<unsigned char>(c)) && !std::isdigit(static_cast<unsigned char>(c)) && c != '_')
+      return false;
+  return true;
+}
+
+bool isPrintableAscii(const std::string& s) {
+  for (char c : s) {
+    const unsigned char u = static_cast<unsigned char>(c);
+    if (u < 0x20 || u > 0x7e) return false;
+  }
+  return true;
+}
+
+// Identifiers in a formula string, with whether each is followed by '('.
+struct Token {
+  std::string name;
+  bool call;
+};
+std::vector<Token> identifiers(const std::string& formula) {
+  std::vector<Token> out;
+  for (std::size_t k = 0; k < formula.size();) {
+    const unsigned char c = static_cast<unsigned char>(formula[k]);
+    if (std::isdigit(c) || c == '.') {  // a number, exponent included
+      while (k < formula.size() && (std::isdigit(static_cast<unsigned char>(formula[k])) || formula[k] == '.')) ++k;
+      if (k < formula.size() && (formula[k] == 'e' || formula[k] == 'E')) ++k;
+      continue;
+    }
+    if (std::isalpha(c) || c == '_') {
+      std::size_t j = k;
+      while (j < formula.size() && (std::isalnum(static_cast<unsigned char>(formula[j])) || formula[j] == '_')) ++j;
+      std::size_t after = j;
+      while (after < formula.size() && formula[after] == ' ') ++after;
+      out.push_back({formula.substr(k, j - k), after < formula.size() && formula[after] == '('});
+      k = j;
+      continue;
+    }
+    ++k;
+  }
+  return out;
+}
+
+// A small evaluator of the worksheet expression syntax the formula strings use.
+class Formula {
+ public:
+  Formula(const std::string& text, const std::map<std::string, double>& vars) : s_(text), vars_(vars) {}
+  double value() {
+    const double v = sum();
+    skip();
+    if (k_ != s_.size()) throw std::runtime_error("trailing text at " + std::to_string(k_) + " in " + s_);
+    return v;
+  }
+
+ private:
+  void skip() {
+    while (k_ < s_.size() && s_[k_] == ' ') ++k_;
+  }
+  bool eat(char c) {
+    skip();
+    if (k_ < s_.size() && s_[k_] == c) {
+      ++k_;
+      return true;
+    }
+    return false;
+  }
+  double sum() {
+    double v = product();
+    for (;;) {
+      if (eat('+')) v += product();
+      else if (eat('-')) v -= product();
+      else return v;
+    }
+  }
+  double product() {
+    double v = unary();
+    for (;;) {
+      if (eat('*')) v *= unary();
+      else if (eat('/')) v /= unary();
+      else return v;
+    }
+  }
+  double unary() {
+    if (eat('-')) return -unary();
+    if (eat('+')) return unary();
+    return power();
+  }
+  double power() {
+    const double base = primary();
+    if (eat('^')) return std::pow(base, unary());  // right-associative, binds tighter than unary minus on the left
+    return base;
+  }
+  double primary() {
+    skip();
+    if (eat('(')) {
+      const double v = sum();
+      if (!eat(')')) throw std::runtime_error("missing ) in " + s_);
+      return v;
+    }
+    if (k_ < s_.size() && (std::isdigit(static_cast<unsigned char>(s_[k_])) || s_[k_] == '.')) {
+      std::size_t used = 0;
+      const double v = std::stod(s_.substr(k_), &used);
+      k_ += used;
+      return v;
+    }
+    std::size_t j = k_;
+    while (j < s_.size() && (std::isalnum(static_cast<unsigned char>(s_[j])) || s_[j] == '_')) ++j;
+    if (j == k_) throw std::runtime_error("unexpected character at " + std::to_string(k_) + " in " + s_);
+    const std::string name = s_.substr(k_, j - k_);
+    k_ = j;
+    if (eat('(')) {
+      std::vector<double> a{sum()};
+      while (eat(',')) a.push_back(sum());
+      if (!eat(')')) throw std::runtime_error("missing ) after arguments in " + s_);
+      return call(name, a);
+    }
+    if (name == "pi") return kPi;
+    const auto it = vars_.find(name);
+    if (it == vars_.end()) throw std::runtime_error("unknown name " + name + " in " + s_);
+    return it->second;
+  }
+  static double call(const std::string& f, const std::vector<double>& a) {
+    if (a.size() == 1) {
+      const double x = a[0];
+      if (f == "sqrt") return std::sqrt(x);
+      if (f == "sin") return std::sin(x);
+      if (f == "cos") return std::cos(x);
+      if (f == "tan") return std::tan(x);
+      if (f == "asin") return std::asin(x);
+      if (f == "acos") return std::acos(x);
+      if (f == "atan") return std::atan(x);
+      if (f == "exp") return std::exp(x);
+      if (f == "ln") return std::log(x);
+      if (f == "log10") return std::log10(x);
+      if (f == "abs") return std::fabs(x);
+    }
+    if (a.size() == 2) {
+      if (f == "atan2") return std::atan2(a[0], a[1]);
+      if (f == "min") return std::min(a[0], a[1]);
+      if (f == "max") return std::max(a[0], a[1]);
+    }
+    throw std::runtime_error("unknown function " + f);
+  }
+  std::string s_;
+  const std::map<std::string, double>& vars_;
+  std::size_t k_ = 0;
+};
+
+const Dimension kRotSpeed = Dimension::exponents(0, 0, -1, 0, 0, 0, 0, 1);
+
+// A random SI value of a plausible size for an argument, by its dimension.
+double plausible(const calctrail::FunctionArg& a, std::mt19937& rng) {
+  std::uniform_real_distribution<double> u(0, 1);
+  const auto logUniform = [&](double lo, double hi) { return lo * std::pow(hi / lo, u(rng)); };
+  const Dimension& d = a.dim;
+  if (a.per_revolution) return logUniform(1e-3, 2e-2);
+  if (d == Dimension::exponents(1, 0, 0)) return logUniform(5e-3, 3.0);
+  if (d == Dimension::exponents(1, 1, -2)) return logUniform(100, 1e5);
+  if (d == Dimension::exponents(2, 1, -2)) return logUniform(0.1, 1e3);
+  if (d == Dimension::exponents(-1, 1, -2)) return logUniform(1e6, 3e11);
+  if (d == Dimension::exponents(-3, 1, 0)) return logUniform(1e3, 1e4);
+  if (d == Dimension::exponents(2, 1, -3)) return logUniform(10, 1e5);
+  if (d == Dimension::of(Base::Angle)) return u(rng) * 0.75;
+  if (d == kRotSpeed) return logUniform(1, 300);
+  if (d.dimensionless()) return u(rng) < 0.4 ? std::floor(1 + 3 * u(rng)) : logUniform(1e-3, 1.0);
+  return logUniform(1e-3, 1e3);
+}
+
+// Arguments within the function's limits, found by random search; false when none was found.
+bool validSample(const FunctionDecl& d, std::mt19937& rng, std::vector<double>& args, int tries = 20000) {
+  args.assign(d.args.size(), 0.0);
+  for (int t = 0; t < tries; ++t) {
+    for (std::size_t k = 0; k < d.args.size(); ++k) args[k] = plausible(d.args[k], rng);
+    try {
+      d.eval(args.data());
+      return true;
+    } catch (const DomainError&) {
+    }
+  }
+  return false;
+}
+
+std::string readFile(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream ss;
+  ss << in.rdbuf();
+  return ss.str();
+}
+
+}  // namespace
+
+TEST_CASE("library: every declaration is complete", "[functions][library]") {
+  std::set<std::string> names;
+  for (const FunctionDecl& d : functionLibrary()) {
+    INFO("function " << d.name);
+    CHECK(isSnakeCase(d.name));
+    CHECK(names.insert(d.name).second);  // unique
+    CHECK(kMathFunctions.count(d.name) == 0);
+    CHECK(d.name != "pi");
+    CHECK(!d.summary.empty());
+    CHECK(!d.source.empty());
+    CHECK(!d.limits.empty());
+    CHECK(!d.formula.empty());
+    CHECK(!d.result_unit.empty());
+    CHECK(d.eval != nullptr);
+    for (const std::string* s : {&d.name, &d.summary, &d.formula, &d.limits, &d.source, &d.caution, &d.result_unit})
+      CHECK(isPrintableAscii(*s));
+    std::set<std::string> arg_names;
+    for (const calctrail::FunctionArg& a : d.args) {
+      INFO("argument " << a.name);
+      CHECK(isIdentifier(a.name));
+      CHECK(a.name != "pi");
+      CHECK(kMathFunctions.count(a.name) == 0);
+      CHECK(arg_names.insert(a.name).second);  // unique within the function
+      CHECK(!a.description.empty());
+      CHECK(isPrintableAscii(a.description));
+      if (a.per_revolution) CHECK(a.dim == Dimension::exponents(1, 0, 0));  // leads and pitches only
+    }
+    if (d.result_per_revolution) CHECK(d.result == Dimension::exponents(1, 0, 0));
+  }
+  CHECK(functionLibrary().size() >= 60);
+}
+
+TEST_CASE("library: results that feed a safety decision carry a caution", "[functions][library]") {
+  for (const char* name : {"torque_raise", "torque_lower", "torque_lower_with_collar", "self_locking_margin",
+                           "screw_backdrive_efficiency", "backdrive_force", "body_torsion_stress",
+                           "body_axial_stress", "thread_root_bending", "thread_root_shear", "von_mises_thread_root",
+                           "thread_bearing_pressure", "nut_pv", "euler_load", "johnson_load", "buckling_load",
+                           "buckling_safety", "ball_screw_backdrive_torque", "ball_screw_life", "critical_speed",
+                           "worm_backdrive_efficiency"}) {
+    const FunctionDecl* d = calctrail::findFunction(name);
+    INFO(name);
+    REQUIRE(d != nullptr);
+    CHECK(!d->caution.empty());
+  }
+}
+
+TEST_CASE("library: groups cover the library in order, and lookup works", "[functions][library]") {
+  std::size_t next = 0;
+  for (const calctrail::FunctionGroup& g : calctrail::functionGroups()) {
+    INFO("group " << g.title);
+    CHECK(g.first == next);
+    CHECK(g.count > 0);
+    CHECK(!g.intro.empty());
+    next += g.count;
+  }
+  CHECK(next == functionLibrary().size());
+  CHECK(calctrail::findFunction("torque_raise") == &functionLibrary()[calctrail::functionGroups()[1].first + 1]);
+  CHECK(calctrail::findFunction("no_such_function") == nullptr);
+  CHECK(calctrail::groupOf(*calctrail::findFunction("acme_tpi"))->title == "Threads");
+}
+
+TEST_CASE("library: formula strings mention only their declared arguments", "[functions][library]") {
+  for (const FunctionDecl& d : functionLibrary()) {
+    if (!d.formula_is_expression) continue;
+    INFO("function " << d.name << ": " << d.formula);
+    std::set<std::string> declared;
+    for (const calctrail::FunctionArg& a : d.args) declared.insert(a.name);
+    for (const Token& t : identifiers(d.formula)) {
+      INFO("identifier " << t.name);
+      if (t.call)
+        CHECK(kMathFunctions.count(t.name) == 1);  // no sec, no library functions inside a formula
+      else
+        CHECK((t.name == "pi" || declared.count(t.name) == 1));
+    }
+    for (char c : d.formula) {
+      const bool allowed =
+          std::string("+-*/^(),. _").find(c) != std::string::npos || std::isalnum(static_cast<unsigned char>(c));
+      CHECK(allowed);
+    }
+  }
+}
+
+TEST_CASE("library: formula strings agree with eval() on random valid inputs", "[functions][library]") {
+  // Convention of the formula strings: a rotational speed counts revolutions per unit time, so
+  // an argument of that dimension enters as n/(2*pi), and a result in rev or rpm comes out in revolutions.
+  std::mt19937 rng(20240611);
+  for (const FunctionDecl& d : functionLibrary()) {
+    if (!d.formula_is_expression) continue;
+    INFO("function " << d.name << ": " << d.formula);
+    int agreed = 0;
+    for (int sample = 0; sample < 20; ++sample) {
+      std::vector<double> args;
+      REQUIRE(validSample(d, rng, args));
+      std::map<std::string, double> vars;
+      for (std::size_t k = 0; k < d.args.size(); ++k)
+        vars[d.args[k].name] = d.args[k].dim == kRotSpeed ? args[k] / (2 * kPi) : args[k];
+      double from_formula = Formula(d.formula, vars).value();
+      if (d.result_unit == "rev" || d.result_unit == "rpm") from_formula *= 2 * kPi;
+      const double from_eval = d.eval(args.data());
+      INFO("formula " << from_formula << " eval " << from_eval);
+      CHECK(std::fabs(from_formula - from_eval) <= 1e-9 * std::max(std::fabs(from_eval), std::fabs(from_formula)) + 1e-9);
+      ++agreed;
+      if (d.args.empty()) break;
+    }
+    CHECK(agreed > 0);
+  }
+}
+
+TEST_CASE("library: NaN and infinite inputs are DomainErrors naming the argument", "[functions][library][limits]") {
+  std::mt19937 rng(7);
+  for (const FunctionDecl& d : functionLibrary()) {
+    if (d.args.empty()) continue;
+    INFO("function " << d.name);
+    std::vector<double> args;
+    REQUIRE(validSample(d, rng, args));
+    for (std::size_t k = 0; k < d.args.size(); ++k) {
+      for (double bad : {std::nan(""), HUGE_VAL, -HUGE_VAL}) {
+        std::vector<double> a = args;
+        a[k] = bad;
+        INFO("argument " << d.args[k].name << " = " << bad);
+        try {
+          const double v = d.eval(a.data());
+          FAIL("returned " << v);
+        } catch (const DomainError& e) {
+          CHECK(e.arg() == static_cast<int>(k));
+        }
+      }
+    }
+  }
+}
+
+TEST_CASE("library: eval never returns NaN or inf, only values or DomainErrors", "[functions][library][limits]") {
+  // Random inputs of every sign and size, zeros and extremes included.
+  std::mt19937 rng(42);
+  const double specials[] = {0.0, -0.0, 1.0, -1.0, 1e-300, -1e-300, 1e300, -1e300, 0.5, 2.0, 1e-3, 7.0};
+  std::uniform_int_distribution<int> pick(0, static_cast<int>(std::size(specials)) - 1);
+  std::uniform_real_distribution<double> u(0, 1);
+  for (const FunctionDecl& d : functionLibrary()) {
+    INFO("function " << d.name);
+    int errors = 0, values = 0;
+    for (int t = 0; t < 3000; ++t) {
+      std::vector<double> a(d.args.size());
+      for (std::size_t k = 0; k < a.size(); ++k) {
+        const double r = u(rng);
+        if (r < 0.3) a[k] = specials[pick(rng)];
+        else if (r < 0.4) a[k] = -plausible(d.args[k], rng);
+        else a[k] = plausible(d.args[k], rng);
+      }
+      try {
+        const double v = d.eval(a.data());
+        CHECK(std::isfinite(v));
+        ++values;
+      } catch (const DomainError& e) {
+        CHECK(e.arg() >= -1);
+        CHECK(e.arg() < static_cast<int>(d.args.size()));
+        CHECK(std::string(e.what()).size() > 10);
+        ++errors;
+      }
+      if (d.args.empty()) break;
+    }
+    CHECK(values + errors > 0);
+  }
+}
+
+TEST_CASE("library: docs/verification.md lists every function with tests that exist", "[functions][library][docs]") {
+  const std::string text = readFile(std::string(CALCTRAIL_SOURCE_DIR) + "/docs/verification.md");
+  REQUIRE(!text.empty());
+  std::set<std::string> tests;
+  for (const Catch::TestCase& tc : Catch::getRegistryHub().getTestCaseRegistry().getAllTests()) tests.insert(tc.name);
+  // Rows: | `function` | published check | `test name` | tolerance | independent check |
+  std::map<std::string, std::string> rows;
+  std::istringstream lines(text);
+  for (std::string line; std::getline(lines, line);) {
+    if (line.rfind("| `", 0) != 0) continue;
+    const std::size_t end = line.find('`', 3);
+    rows[line.substr(3, end - 3)] = line;
+  }
+  for (const FunctionDecl& d : functionLibrary()) {
+    INFO("function " << d.name);
+    REQUIRE(rows.count(d.name) == 1);
+    const std::string& row = rows[d.name];
+    // Every test name quoted in the row, after the first cell, is a registered test case.
+    std::size_t cell3 = row.find('|', 1);
+    cell3 = row.find('|', cell3 + 1);
+    std::size_t k = row.find('`', cell3);
+    int cited = 0;
+    while (k != std::string::npos) {
+      const std::size_t e = row.find('`', k + 1);
+      const std::string name = row.substr(k + 1, e - k - 1);
+      const std::size_t next_cell = row.find('|', cell3 + 1);
+      if (k > next_cell) break;
+      INFO("test " << name);
+      CHECK(tests.count(name) == 1);
+      ++cited;
+      k = row.find('`', e + 1);
+    }
+    CHECK(cited > 0);
+  }
+}

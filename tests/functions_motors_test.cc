@@ -1,0 +1,101 @@
+// Motor torque, power, nut speed, travel time and the standard motor series:
+// the handbook power formulas (hp = T*n/5252 in lbf*ft and rpm, kW = T*n/9550
+// in N*m and rpm), energy balance, and rows of the IEC output series.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <string>
+#include <vector>
+
+#include "functions/function_decl.h"
+
+namespace {
+
+using calctrail::DomainError;
+using calctrail::FunctionDecl;
+using calctrail::findFunction;
+
+constexpr double kPi = 3.14159265358979323846;
+constexpr double mm = 1e-3;
+constexpr double rpm = 2 * kPi / 60;
+constexpr double kW = 1e3;
+constexpr double lbf = 0.45359237 * 9.80665;  // exact (NIST SP 811)
+constexpr double ft = 0.3048;
+constexpr double hp = 550 * ft * lbf;
+
+double call(const char* name, std::vector<double> args) {
+  const FunctionDecl* d = findFunction(name);
+  REQUIRE(d != nullptr);
+  REQUIRE(args.size() == d->args.size());
+  return d->eval(args.data());
+}
+
+std::string errorOf(const char* name, std::vector<double> args) {
+  try {
+    call(name, args);
+  } catch (const DomainError& e) {
+    return e.what();
+  }
+  return "(no error)";
+}
+
+}  // namespace
+
+TEST_CASE("motor_power: Machinery's Handbook hp = T*n/5252, 100 lbf*ft at 1750 rpm is 33.32 hp (from memory)",
+          "[functions][motors]") {
+  CHECK(call("motor_power", {100 * lbf * ft, 1, 1750 * rpm, 1, 1}) / hp == Approx(100 * 1750 / 5252.0).epsilon(1e-4));
+  // kW = T*n/9550 with T in N*m and n in rpm (common published form).
+  CHECK(call("motor_power", {100, 1, 1450 * rpm, 1, 1}) / kW == Approx(100 * 1450 / 9550.0).epsilon(1e-3));
+}
+
+TEST_CASE("motor_torque: energy balance, motor power is motor torque times motor speed", "[functions][motors]") {
+  const double T_screw = 26.18, n = 1450 * rpm, i = 20, eta = 0.7;
+  CHECK(call("motor_power", {T_screw, 2, n, i, eta}) == Approx(call("motor_torque", {T_screw, 2, i, eta}) * n));
+  // Independent: screw power plus losses equals motor power.
+  const double screw_power = 2 * T_screw * n / i;
+  CHECK(call("motor_torque", {T_screw, 2, i, eta}) * n * eta == Approx(screw_power));
+  // Published form: T_motor = n_screws*T_screw/(i*eta) (product brief, Shigley Sec. 8-2 / Ch. 13).
+  CHECK(call("motor_torque", {26.18, 4, 20, 0.7}) == Approx(4 * 26.18 / (20 * 0.7)));
+}
+
+TEST_CASE("nut_speed: 1500 rpm on a 5 mm lead is 7.5 m/min (definition of lead)", "[functions][motors]") {
+  CHECK(call("nut_speed", {1500 * rpm, 1, 5 * mm}) == Approx(7.5 / 60));
+  // Independent: through a reduction, the screw turns at n/i.
+  CHECK(call("nut_speed", {1500 * rpm, 10, 5 * mm}) ==
+        Approx(call("nut_speed", {call("output_speed", {1500 * rpm, 10}), 1, 5 * mm})));
+  // Unit-system swap: a lead of 0.2 in at 1200 rpm is 240 in/min.
+  CHECK(call("nut_speed", {1200 * rpm, 1, 0.2 * 0.0254}) == Approx(240 * 0.0254 / 60));
+}
+
+TEST_CASE("travel_time: stroke over nut speed", "[functions][motors]") {
+  CHECK(call("travel_time", {500 * mm, 1500 * rpm, 10, 5 * mm}) == Approx(40.0));  // 0.5 m at 12.5 mm/s
+  CHECK(call("travel_time", {500 * mm, 1500 * rpm, 10, 5 * mm}) ==
+        Approx(500 * mm / call("nut_speed", {1500 * rpm, 10, 5 * mm})));
+  CHECK_THAT(errorOf("travel_time", {500 * mm, 0, 10, 5 * mm}), Catch::Contains("must be > 0 to travel"));
+}
+
+TEST_CASE("standard_motor_power: IEC 60072-1 rated outputs 0.06 ... 200 kW (common practice, from memory)",
+          "[functions][motors]") {
+  CHECK(call("standard_motor_power", {1.2 * kW}) == Approx(1.5 * kW));
+  CHECK(call("standard_motor_power", {5.5 * kW}) == Approx(5.5 * kW));  // an exact rating is kept
+  CHECK(call("standard_motor_power", {0.01 * kW}) == Approx(0.06 * kW));
+  CHECK(call("standard_motor_power", {16 * kW}) == Approx(18.5 * kW));
+  CHECK(call("standard_motor_power", {170 * kW}) == Approx(200 * kW));
+  // Independent: never below the requirement, and idempotent.
+  for (double p = 0.05; p < 200; p *= 1.37) {
+    const double rated = call("standard_motor_power", {p * kW});
+    CHECK(rated >= p * kW);
+    CHECK(call("standard_motor_power", {rated}) == rated);
+  }
+}
+
+TEST_CASE("standard_motor_power: above the table is an error", "[functions][motors][limits]") {
+  CHECK_THAT(errorOf("standard_motor_power", {250 * kW}), Catch::Contains("above 200 kW"));
+  CHECK_THAT(errorOf("standard_motor_power", {0}), Catch::Contains("must be > 0"));
+}
+
+TEST_CASE("motors: counts and efficiencies out of range", "[functions][motors][limits]") {
+  CHECK_THAT(errorOf("motor_torque", {10, 2.5, 10, 0.8}), Catch::Contains("number of screws = 2.5 must be a whole number"));
+  CHECK_THAT(errorOf("motor_torque", {-10, 2, 10, 0.8}), Catch::Contains("must be >= 0"));
+  CHECK_THAT(errorOf("motor_power", {10, 2, 1450 * rpm, 10, 1.5}), Catch::Contains("drive efficiency eta = 1.5 must be <= 1"));
+}

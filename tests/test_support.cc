@@ -1,0 +1,73 @@
+#include "tests/test_support.h"
+
+#include <catch2/catch.hpp>
+
+#include <cstdio>
+#include <cstdlib>
+#include <fstream>
+#include <sstream>
+#include <sys/wait.h>
+#include <unistd.h>
+
+namespace calctrail::test {
+
+std::unique_ptr<Calculation> calc(const std::string& text, const std::vector<std::string>& sets) {
+  CalcOptions o;
+  o.sets = sets;
+  return Calculation::fromText("sheet.calc", text, o);
+}
+
+std::string diagnostics(const Calculation& c) {
+  std::string out;
+  for (const Diagnostic& d : c.diags.list()) out += d.headline() + "\n";
+  return out;
+}
+
+double si(const Calculation& c, const std::string& name) {
+  const int i = c.sheet.find(name);
+  INFO("quantity " << name << "\n" << diagnostics(c));
+  REQUIRE(i >= 0);
+  REQUIRE(c.quantities[i].ok);
+  return c.quantities[i].si;
+}
+
+std::string repoPath(const std::string& relative) { return std::string(CALCTRAIL_SOURCE_DIR) + "/" + relative; }
+
+std::string readFile(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream ss;
+  ss << in.rdbuf();
+  return ss.str();
+}
+
+void writeFile(const std::string& path, const std::string& text) {
+  std::ofstream out(path, std::ios::binary);
+  out << text;
+}
+
+std::string tempDir() {
+  const char* base = std::getenv("TMPDIR");
+  std::string pattern = std::string(base && *base ? base : "/tmp") + "/calctrail-test-XXXXXX";
+  std::vector<char> buf(pattern.begin(), pattern.end());
+  buf.push_back('\0');
+  REQUIRE(mkdtemp(buf.data()) != nullptr);
+  return buf.data();
+}
+
+Run runCli(const std::string& args) {
+  const std::string dir = tempDir();
+  const std::string out = dir + "/stdout", err = dir + "/stderr";
+  const std::string cmd = "cd '" + std::string(CALCTRAIL_SOURCE_DIR) + "' && '" + CALCTRAIL_BINARY + "' " + args +
+                          " >'" + out + "' 2>'" + err + "' </dev/null";
+  const int raw = std::system(cmd.c_str());
+  Run r;
+  r.status = WIFEXITED(raw) ? WEXITSTATUS(raw) : -1;
+  r.out = readFile(out);
+  r.err = readFile(err);
+  std::remove(out.c_str());
+  std::remove(err.c_str());
+  rmdir(dir.c_str());
+  return r;
+}
+
+}  // namespace calctrail::test
