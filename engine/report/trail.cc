@@ -46,6 +46,19 @@ std::string substitute(const Expr& e, const Calculation& calc, const std::vector
       true);
 }
 
+// A side of a check written as one literal in the unit it is shown in
+// ("2.5", "0 [N*m]") appears as written; anything else as its rounded value.
+std::string literalOrValue(const Expr& side, double si, const Unit& unit, int digits) {
+  const Expr* x = &side;
+  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  if (x->kind == ExprKind::Number) {
+    const std::string written = x->unit ? x->unit->text : "1";
+    if (written == unit.text || (!x->unit && unit.text.empty()))
+      return x->unit ? joinNumberUnit(x->text, unit.pretty()) : x->text;
+  }
+  return formatQuantity(si, unit, digits);
+}
+
 }  // namespace
 
 Trail buildTrail(const Calculation& calc, int digits) {
@@ -123,8 +136,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     tc.op = comparisonText(c.op);
     tc.condition = renderExpr(*c.lhs) + " " + tc.op + " " + renderExpr(*c.rhs);
     if (s.ok) {
-      tc.lhs = formatQuantity(s.lhs, s.display, digits);
-      tc.rhs = formatQuantity(s.rhs, s.display, digits);
+      tc.lhs = literalOrValue(*c.lhs, s.lhs, s.display, digits);
+      tc.rhs = literalOrValue(*c.rhs, s.rhs, s.display, digits);
     }
     tc.passed = s.ok && s.passed;
     (tc.passed ? t.passed : t.failed)++;
