@@ -231,12 +231,20 @@ void Calculation::checkDimensions() {
         continue;
       }
       if (fit == UnitFit::AngleWarning) {
-        std::string w = strayAngleWarning(q.name, s.dim);
-        if (w.empty()) {
-          w = "`" + q.name + "` is " + s.dim.describe() + " but shown in [" + q.unit_written +
-              "], " + q.display->dim.describe() + ": the radian counts as 1, check that no 2*pi is missing";
-        }
-        diags.warning(*sheet.file, q.unit_begin, q.unit_end, w);
+        // Showing the value would put a number off by 2*pi on the page
+        // (a lead per revolution shown in plain mm, rpm*lead in m/s): refuse,
+        // and say how to write it.
+        std::string msg = "`" + q.name + "` is declared in [" + q.unit_written + "], " +
+                          q.display->dim.describe() + ", but its formula gives " + s.dim.describe() +
+                          ": they differ by an angle, so the number shown would be off by 2*pi";
+        const std::string why = strayAngleWarning(q.name, s.dim);
+        if (!why.empty()) msg += "; " + why.substr(why.find("): ") + 3);
+        else if (s.dim.exponent(Base::Angle) < 0) msg += "; declare it per revolution, as in [mm/rev], or write `1 [rev]` where a plain 2*pi stands";
+        else msg += "; declare the unit with its angle, as in [rpm] or [rad/s]";
+        diags.error(*sheet.file, q.unit_begin, q.unit_end, msg);
+        known[i] = 0;
+        s.has_dim = false;
+        continue;
       }
     } else {
       const Unit* written = writtenUnit(*q.expr);

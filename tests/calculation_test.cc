@@ -99,9 +99,16 @@ TEST_CASE("rpm times a plain length is loud, with the fix", "[calc][units][angle
   CHECK(diagnostics(*c) ==
         "sheet.calc:3:1: warning: `v` is a rotational speed times a plain length (m*rad/s): if the length is a lead, "
         "this is 2*pi too large; write the lead per revolution, as in `5 [mm/rev]` or `0.2 [in/rev]`\n");
-  auto d = calc("n = 1450 rpm\nlead = 5 mm\nv [m/s] = n * lead\n");
-  REQUIRE_FALSE(d->hasErrors());
-  CHECK(diagnostics(*d).find("warning: `v` is a rotational speed times a plain length") != std::string::npos);
+  // Declared in a unit without the angle, the number itself would be wrong: an error with the fix.
+  CHECK(diagnostics(*calc("n = 1450 rpm\nlead = 5 mm\nv [m/s] = n * lead\n")) ==
+        "sheet.calc:3:4: error: `v` is declared in [m/s], speed (m/s), but its formula gives m*rad/s (no common name): "
+        "they differ by an angle, so the number shown would be off by 2*pi; if the length is a lead, this is 2*pi too large; "
+        "write the lead per revolution, as in `5 [mm/rev]` or `0.2 [in/rev]`\n");
+  CHECK(diagnostics(*calc("F = 1 kN\nl = 5 [mm/rev]\nT = 2 [N*m]\neta [%] = F * l / (2 * pi * T)\n")).find(
+            "error: `eta` is declared in [%]") != std::string::npos);
+  auto ok = calc("F = 1 kN\nl = 5 [mm/rev]\nT = 2 [N*m]\neta [%] = F * l * 1 [rev] / (2 * pi * T)\n");
+  REQUIRE_FALSE(ok->hasErrors());
+  CHECK(si(*ok, "eta") == Approx(1000 * 0.005 / (2 * M_PI * 2)).epsilon(1e-15));
 }
 
 TEST_CASE("a display unit converts the result and asserts its dimension", "[calc][units]") {

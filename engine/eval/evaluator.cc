@@ -16,6 +16,7 @@ double callLibrary(void* decl, const double* args, int /*n*/) {
 
 Evaluator::Evaluator() : parser_(std::make_unique<mu::Parser>()) {
   for (const FunctionDecl& f : functionLibrary()) {
+    if (f.args.empty()) continue;  // constants are folded in by compileProgram
     // Not optimisable: a library function must run (and may refuse) at
     // evaluation time, never while muparser folds constants.
     parser_->DefineFunUserData(f.name, callLibrary, const_cast<FunctionDecl*>(&f), false);

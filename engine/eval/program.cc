@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "engine/eval/math_functions.h"
+#include "engine/eval/tree_eval.h"
 #include "functions/function_decl.h"
 
 namespace calctrail {
@@ -49,6 +50,14 @@ struct Compiler {
       case ExprKind::Call: {
         const MathFunction* m = findMathFunction(e.text);
         const FunctionDecl* f = m ? nullptr : findFunction(e.text);
+        if (f && f->args.empty()) {
+          // A constant of the library (a flank angle): muparser callbacks need an argument.
+          const double v = resultFromLibrary(f->eval(nullptr), f->result_per_revolution);
+          if (v < 0) *out += '(';
+          appendNumber(v, out);
+          if (v < 0) *out += ')';
+          return;
+        }
         const bool result_per_rev = f && f->result_per_revolution;
         if (result_per_rev) *out += '(';
         *out += m ? m->muparser_name : f->name.c_str();

@@ -107,7 +107,17 @@ std::string renderText(const Trail& t) {
       if (s.substituted != s.pretty && s.substituted != s.result) out += indent + "= " + s.substituted + "\n";
       out += indent + "= " + s.result + "\n";
       for (const TrailCall& c : s.calls) {
-        out += "      where " + c.signature + " = " + c.formula + "\n";
+        // The function is audited like a formula: its own formula, the
+        // values of this call substituted, the result, and its source.
+        out += "      where " + c.signature + "\n";
+        const std::string eq = "          = ";
+        out += c.formula_is_expression ? eq + c.pretty + "\n" : wrap(c.formula, "          ");
+        if (c.formula_is_expression && !c.substituted.empty() && c.substituted != c.pretty) {
+          out += eq + c.substituted + "\n";
+        } else if (!c.formula_is_expression && !c.arguments.empty()) {
+          out += "          with " + c.arguments + "\n";
+        }
+        if (!c.result.empty()) out += eq + c.result + "\n";
         out += wrap("source: " + c.source, "        ");
       }
     }

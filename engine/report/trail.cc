@@ -2,8 +2,15 @@
 
 #include <algorithm>
 
+#include <cmath>
+#include <map>
+#include <memory>
+
 #include "engine/eval/math_functions.h"
+#include "engine/eval/tree_eval.h"
 #include "engine/report/number_format.h"
+#include "engine/sheet/expr_parser.h"
+#include "engine/units/unit_parser.h"
 #include "functions/function_decl.h"
 
 namespace calctrail {
@@ -24,12 +31,91 @@ const std::vector<std::string>& generalCautions() {
 
 namespace {
 
-void collectCalls(const Expr& e, std::vector<const FunctionDecl*>* out) {
-  if (e.kind == ExprKind::Call && !findMathFunction(e.text)) {
-    const FunctionDecl* f = findFunction(e.text);
-    if (f && std::find(out->begin(), out->end(), f) == out->end()) out->push_back(f);
-  }
+// Every call of a library function in a formula, in source order.
+void collectCalls(const Expr& e, std::vector<const Expr*>* out) {
+  if (e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text)) out->push_back(&e);
   for (const auto& a : e.args) collectCalls(*a, out);
+}
+
+// A library function's own formula, parsed once, so the trail can show it
+// with the call's values substituted.
+const Expr* parsedFormula(const FunctionDecl& f) {
+  static std::map<std::string, std::pair<std::shared_ptr<SourceFile>, ExprPtr>> cache;
+  auto it = cache.find(f.name);
+  if (it == cache.end()) {
+    auto file = std::make_shared<SourceFile>("function " + f.name, f.formula);
+    Diagnostics ignored;
+    ExprPtr e;
+    if (f.formula_is_expression) e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
+    it = cache.emplace(f.name, std::make_pair(file, std::move(e))).first;
+  }
+  return it->second.second.get();
+}
+
+// The unit an argument is shown in: its quantity's, its literal's, or the
+// preferred one for the function's argument dimension.
+Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& calc) {
+  const Expr* x = &arg;
+  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  if (x->kind == ExprKind::Name) {
+    const QuantityState& q = calc.quantities[calc.sheet.find(x->text)];
+    if (q.display.dim == decl.dim) return q.display;
+  }
+  if (x->kind == ExprKind::Number && x->unit && x->unit->dim == decl.dim) return *x->unit;
+  return preferredUnit(decl.dim);
+}
+
+TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector<std::string>& given,
+                    int digits) {
+  const FunctionDecl& f = *findFunction(call.text);
+  TrailCall c;
+  c.name = f.name;
+  c.signature = f.name + "(";
+  for (size_t k = 0; k < f.args.size(); ++k) c.signature += (k ? ", " : "") + f.args[k].name;
+  c.signature += ")";
+  c.formula = f.formula;
+  c.formula_is_expression = f.formula_is_expression;
+  c.source = f.source;
+  c.caution = f.caution;
+  auto value_of = [&](const Expr& e) {
+    const int j = calc.sheet.find(e.text);
+    return j >= 0 && calc.quantities[j].ok ? calc.quantities[j].si : NAN;
+  };
+  std::map<std::string, std::string> shown;
+  for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
+    EvalFault fault;
+    double v = evalTree(*call.args[k], value_of, &fault);
+    if (fault.node) return c;
+    v = argumentToLibrary(v, f.args[k].per_revolution, call.args[k]->dim);  // what the function sees
+    const Unit unit = argumentUnit(*call.args[k], f.args[k], calc);
+    std::string text = formatQuantity(v, unit, digits);
+    // Given values and literals appear as written, as in the step itself.
+    const Expr* x = call.args[k].get();
+    while (x->kind == ExprKind::Group) x = x->args[0].get();
+    if (x->kind == ExprKind::Name) {
+      const int j = calc.sheet.find(x->text);
+      if (!given[j].empty() && calc.quantities[j].display.text == unit.text) text = given[j];
+    } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
+      text = x->unit ? joinNumberUnit(x->text, unit.pretty()) : x->text;
+    }
+    shown[f.args[k].name] = v < 0 ? "(" + text + ")" : text;
+    c.arguments += (k ? ", " : "") + f.args[k].name + " = " + text;
+  }
+  if (const Expr* formula = parsedFormula(f)) {
+    c.pretty = renderExpr(*formula, nullptr, true);
+    c.substituted = renderExpr(
+        *formula, [&](const Expr& name) { return shown.count(name.text) ? shown[name.text] : name.text; }, true);
+  }
+  EvalFault fault;
+  const double r = evalTree(call, value_of, &fault);
+  if (!fault.node) {
+    Unit unit;
+    UnitError err;
+    if (f.result_unit.empty() || !parseUnit(f.result_unit, &unit, &err) || unit.dim != f.result)
+      unit = preferredUnit(f.result);
+    c.result = formatQuantity(f.result_per_revolution ? r * 2 * M_PI : r, unit, digits);
+  }
+  return c;
 }
 
 std::string substitute(const Expr& e, const Calculation& calc, const std::vector<std::string>& given,
@@ -105,26 +191,24 @@ Trail buildTrail(const Calculation& calc, int digits) {
     step.unit = s.display.text;
     step.unit_pretty = s.display.pretty();
     step.dimension = s.dim.name();
-    std::vector<const FunctionDecl*> calls;
+    std::vector<const Expr*> calls;
     collectCalls(*q.expr, &calls);
-    for (const FunctionDecl* f : calls) {
-      TrailCall c;
-      c.name = f->name;
-      c.signature = f->name + "(";
-      for (size_t k = 0; k < f->args.size(); ++k) c.signature += (k ? ", " : "") + f->args[k].name;
-      c.signature += ")";
-      c.formula = f->formula;
-      c.source = f->source;
-      c.caution = f->caution;
-      step.calls.push_back(std::move(c));
+    for (const Expr* call : calls) {
+      const FunctionDecl* f = findFunction(call->text);
       if (std::find(used.begin(), used.end(), f) == used.end()) used.push_back(f);
     }
     t.steps.push_back(std::move(step));
   }
   std::vector<std::string> given;
   for (const TrailStep& s : t.steps) given.push_back(s.given);
-  for (TrailStep& s : t.steps)
-    if (calc.quantities[s.index].ok) s.substituted = substitute(*sheet.quantities[s.index].expr, calc, given, digits);
+  for (TrailStep& s : t.steps) {
+    if (!calc.quantities[s.index].ok) continue;
+    const Expr& expr = *sheet.quantities[s.index].expr;
+    s.substituted = substitute(expr, calc, given, digits);
+    std::vector<const Expr*> calls;
+    collectCalls(expr, &calls);
+    for (const Expr* call : calls) s.calls.push_back(auditCall(*call, calc, given, digits));
+  }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
     const CheckState& s = calc.checks[k];

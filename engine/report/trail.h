@@ -10,10 +10,15 @@
 
 namespace calctrail {
 
-struct TrailCall {        // a library function used in a formula
+struct TrailCall {        // one call of a library function in a formula
   std::string name;
   std::string signature;  // "torque_raise(F, dm, l, f, alpha)"
   std::string formula;    // the function's own formula (or its method in words)
+  bool formula_is_expression = true;
+  std::string pretty;     // the formula with the product dot: "F · dm / 2 ..."
+  std::string arguments;  // "F = 21.18 kN, dm = 36.50 mm, ..."
+  std::string substituted;  // the function's formula with the call's values
+  std::string result;     // "84.42 N·m"
   std::string source;
   std::string caution;
 };
