@@ -101,6 +101,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.formula = "F*l/(2*pi*eta)";
     d.limits = "F > 0, l > 0, 0 < eta <= 1. Preload and seal drag torque come on top";
     d.source = kTorqueSource;
+    d.example = {6400, 0.008, 0.9};
     d.eval = driveTorque;
     out.push_back(std::move(d));
   }
@@ -116,6 +117,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.source = kTorqueSource;
     d.caution = "A ball screw is not self-locking: a held load needs a brake sized for this torque, with the "
                 "high efficiency value.";
+    d.example = {6400, 0.008, 0.8};
     d.eval = backdriveTorque;
     out.push_back(std::move(d));
   }
@@ -134,6 +136,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.source = kLifeSource;
     d.caution = "L10 is a statistical life: one screw in ten fails sooner; shock loads, misalignment and poor "
                 "lubrication shorten it.";
+    d.example = {30000, 3000};
     d.eval = life;
     out.push_back(std::move(d));
   }
@@ -165,6 +168,10 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.limits = "loads, speeds and time fractions >= 0, with at least one step that turns (n*q > 0). "
                "The mean speed of the cycle is the sum of n*q over the sum of q";
     d.source = kLifeSource;
+    if (steps == 2)
+      d.example = {4000, 100 * 2 * kPi / 60, 0.25, 1000, 300 * 2 * kPi / 60, 0.75};
+    else
+      d.example = {2000, 50 * 2 * kPi / 60, 0.2, 3000, 100 * 2 * kPi / 60, 0.5, 1000, 1000 * 2 * kPi / 60, 0.3};
     d.eval = steps == 2 ? cubicMean2 : cubicMean3;
     out.push_back(std::move(d));
   }
@@ -187,6 +194,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
                "makers' catalogues print it with a factor 0.8 (from memory)";
     d.caution = "A screw run near its critical speed whips: keep the working speed at most about 80 % of it, "
                 "with the longest unsupported length of the stroke.";
+    d.example = {0.028, 1.5, 3.927, 206e9, 7850};
     d.eval = criticalSpeed;
     out.push_back(std::move(d));
   }

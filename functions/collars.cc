@@ -91,6 +91,7 @@ GroupText addCollars(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, 0 <= fc <= 1, dc > 0";
     d.source = kCollarSource;
     d.caution = kCollarCaution;
+    d.example = {6400, 0.08, 0.040};
     d.eval = collarTorque;
     out.push_back(std::move(d));
   }
@@ -105,6 +106,7 @@ GroupText addCollars(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, 0 <= fc <= 1, Do > Di >= 0";
     d.source = kCollarSource;
     d.caution = kCollarCaution;
+    d.example = {10000, 0.1, 0.060, 0.030};
     d.eval = uniformPressure;
     out.push_back(std::move(d));
   }
@@ -119,6 +121,7 @@ GroupText addCollars(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, 0 <= fc <= 1, Do > Di >= 0";
     d.source = kCollarSource;
     d.caution = kCollarCaution;
+    d.example = {10000, 0.1, 0.060, 0.030};
     d.eval = uniformWear;
     out.push_back(std::move(d));
   }
@@ -136,6 +139,7 @@ GroupText addCollars(std::vector<FunctionDecl>& out) {
     d.source = "Rolling bearing makers' catalogues: friction torque = mu*F*d/2 with a constant coefficient per "
                "bearing type, common practice (from memory: thrust ball 0.0013, spherical roller thrust 0.0018, "
                "cylindrical roller thrust 0.005)";
+    d.example = {10000, 0.0013, 0.040};
     d.eval = thrustBearing;
     out.push_back(std::move(d));
   }

@@ -132,6 +132,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.limits = "L > 0, dr > 0";
     d.source = kSource;
     d.caution = kCaution;
+    d.example = {1.5, 0.0375};
     d.eval = slenderness;
     out.push_back(std::move(d));
   }
@@ -146,6 +147,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.limits = cl + "; E > 0, 0 < Sy < E";
     d.source = kSource;
     d.caution = kCaution;
+    d.example = {1, 207e9, 500e6};
     d.eval = transitionSlenderness;
     out.push_back(std::move(d));
   }
@@ -161,6 +163,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
                "below it Euler overestimates the load (use buckling_load, which chooses)";
     d.source = kSource;
     d.caution = std::string(kCaution) + " Below the transition slenderness Euler's load is unsafe.";
+    d.example = {0.0375, 1.5, 1, 207e9};
     d.eval = eulerLoad;
     out.push_back(std::move(d));
   }
@@ -176,6 +179,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
                "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error";
     d.source = kSource;
     d.caution = kCaution;
+    d.example = {0.0375, 0.5, 1, 207e9, 500e6};
     d.eval = johnsonLoad;
     out.push_back(std::move(d));
   }
@@ -191,6 +195,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.limits = "dr > 0, L > 0, " + cl + ", E > 0, 0 < Sy < E";
     d.source = kSource;
     d.caution = kCaution;
+    d.example = {0.0375, 1.5, 1, 207e9, 500e6};
     d.eval = bucklingLoad;
     out.push_back(std::move(d));
   }
@@ -206,6 +211,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dr > 0, L > 0, " + cl + ", E > 0, 0 < Sy < E";
     d.source = kSource;
     d.caution = kCaution;
+    d.example = {22000, 0.0375, 1.5, 1, 207e9, 500e6};
     d.eval = bucklingSafety;
     out.push_back(std::move(d));
   }

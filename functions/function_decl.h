@@ -52,6 +52,10 @@ struct FunctionDecl {
   std::string limits;   // validity limits in words, as checked by eval()
   std::string source;   // published source: standard, handbook, textbook method
   std::string caution;  // for results that feed a safety decision; "" otherwise
+  // One call inside the validity limits, in the SI values eval() receives:
+  // the formula test evaluates the declared formula there and compares it
+  // with eval(). Empty: the test samples values by dimension.
+  std::vector<double> example;
   // SI values in (per-revolution args in metres per revolution), SI value out.
   // Throws DomainError outside the validity limits. Never returns NaN or inf.
   double (*eval)(const double* args) = nullptr;

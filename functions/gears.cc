@@ -104,6 +104,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "i1*i2";
     d.limits = "i1 > 0, i2 > 0 (a ratio below 1 steps the speed up)";
     d.source = kTrainSource;
+    d.example = {5.5, 5.5};
     d.eval = overallRatio2;
     out.push_back(std::move(d));
   }
@@ -118,6 +119,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "i1*i2*i3";
     d.limits = "i1, i2, i3 > 0";
     d.source = kTrainSource;
+    d.example = {5.5, 1, 5.5};
     d.eval = overallRatio3;
     out.push_back(std::move(d));
   }
@@ -131,6 +133,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "eta1*eta2";
     d.limits = "0 < eta1, eta2 <= 1";
     d.source = kTrainSource;
+    d.example = {0.97, 0.95};
     d.eval = overallEff2;
     out.push_back(std::move(d));
   }
@@ -145,6 +148,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "eta1*eta2*eta3";
     d.limits = "0 < eta1, eta2, eta3 <= 1";
     d.source = kTrainSource;
+    d.example = {0.97, 0.95, 0.9};
     d.eval = overallEff3;
     out.push_back(std::move(d));
   }
@@ -159,6 +163,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "T_in*i*eta";
     d.limits = "T_in >= 0, i > 0, 0 < eta <= 1";
     d.source = kTrainSource;
+    d.example = {20, 25, 0.8};
     d.eval = outputTorque;
     out.push_back(std::move(d));
   }
@@ -172,6 +177,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "n_in/i";
     d.limits = "n_in >= 0, i > 0";
     d.source = kTrainSource;
+    d.example = {1450 * 2 * kPi / 60, 25};
     d.eval = outputSpeed;
     out.push_back(std::move(d));
   }
@@ -185,6 +191,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.formula = "P_out/eta";
     d.limits = "P_out >= 0, 0 < eta <= 1";
     d.source = kTrainSource;
+    d.example = {1000, 0.8};
     d.eval = inputPower;
     out.push_back(std::move(d));
   }
@@ -199,6 +206,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.limits = "0 < lambda < 90 deg, 0 <= phi_n <= 45 deg, 0 <= f <= 1; f*tan(lambda) < cos(phi_n), else the "
                "worm cannot drive (lead angle beyond the friction limit)";
     d.source = kWormSource;
+    d.example = {10 * kPi / 180, 20 * kPi / 180, 0.05};
     d.eval = wormEfficiency;
     out.push_back(std::move(d));
   }
@@ -215,6 +223,7 @@ GroupText addGears(std::vector<FunctionDecl>& out) {
     d.source = kWormSource;
     d.caution = "A self-locking worm is no brake: vibration, running friction and wear can let it back-drive; "
                 "provide a brake where a load is held.";
+    d.example = {10 * kPi / 180, 20 * kPi / 180, 0.05};
     d.eval = wormBackdriveEfficiency;
     out.push_back(std::move(d));
   }

@@ -110,6 +110,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
                "screws a whole number >= 1, i > 0, 0 < eta <= 1";
     d.source = kDriveSource;
     d.caution = "Size the motor for starting friction and for the worst load case, not the running average.";
+    d.example = {26.18, 2, 20, 0.7};
     d.eval = motorTorque;
     out.push_back(std::move(d));
   }
@@ -123,6 +124,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.formula = "2*pi*n_motor*screws*T_screw/(i*eta)";
     d.limits = "T_screw >= 0, screws a whole number >= 1, n_motor >= 0, i > 0, 0 < eta <= 1";
     d.source = kDriveSource;
+    d.example = {26.18, 2, 1450 * 2 * kPi / 60, 20, 0.7};
     d.eval = motorPower;
     out.push_back(std::move(d));
   }
@@ -136,6 +138,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.formula = "n_motor*l/i";
     d.limits = "n_motor >= 0, i > 0, l > 0";
     d.source = "Kinematics of the screw: axial advance of one lead per revolution (definition of lead)";
+    d.example = {1450 * 2 * kPi / 60, 20, 0.008};
     d.eval = nutSpeed;
     out.push_back(std::move(d));
   }
@@ -149,6 +152,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.formula = "s*i/(n_motor*l)";
     d.limits = "s >= 0, n_motor > 0, i > 0, l > 0";
     d.source = "Kinematics of the screw: axial advance of one lead per revolution (definition of lead)";
+    d.example = {0.5, 1450 * 2 * kPi / 60, 20, 0.008};
     d.eval = travelTime;
     out.push_back(std::move(d));
   }
@@ -164,6 +168,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.limits = "0 < P <= 200 kW; above it the table ends and this is an error";
     d.source = "IEC 60072-1 rated outputs as assigned to IEC frame sizes 56 to 315 and followed by the motor "
                "makers' ranges; common practice, from memory (intermediate outputs of the standard omitted)";
+    d.example = {1200};
     d.eval = standardMotorPower;
     out.push_back(std::move(d));
   }

@@ -177,6 +177,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.formula = "atan(l/(pi*dm))";
     d.limits = "dm > 0, l > 0";
     d.source = kSource;
+    d.example = {0.030, 0.008};
     d.eval = leadAngle;
     out.push_back(std::move(d));
   }
@@ -191,6 +192,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = kRaiseLimits;
     d.source = kSource;
     d.caution = kFrictionCaution;
+    d.example = {6400, 0.030, 0.008, 0.08, 14.5 * kPi / 180};
     d.eval = torqueRaise;
     out.push_back(std::move(d));
   }
@@ -205,6 +207,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = std::string(kThreadLimits) + "; a negative result is the torque needed to hold the load";
     d.source = kSource;
     d.caution = std::string(kLockCaution) + " " + kFrictionCaution;
+    d.example = {6400, 0.030, 0.008, 0.08, 14.5 * kPi / 180};
     d.eval = torqueLower;
     out.push_back(std::move(d));
   }
@@ -219,6 +222,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = std::string(kRaiseLimits) + "; 0 <= fc <= 1, dc > 0";
     d.source = kSource;
     d.caution = kFrictionCaution;
+    d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};
     d.eval = torqueRaiseWithCollar;
     out.push_back(std::move(d));
   }
@@ -234,6 +238,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
                "hold the load";
     d.source = kSource;
     d.caution = std::string(kLockCaution) + " " + kFrictionCaution;
+    d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};
     d.eval = torqueLowerWithCollar;
     out.push_back(std::move(d));
   }
@@ -247,6 +252,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.formula = "l*(pi*dm - f*l/cos(alpha)) / (pi*dm*(l + pi*f*dm/cos(alpha)))";
     d.limits = "dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg; pi*dm - f*l/cos(alpha) > 0";
     d.source = kSource;
+    d.example = {0.030, 0.008, 0.08, 0};
     d.eval = screwEfficiency;
     out.push_back(std::move(d));
   }
@@ -261,6 +267,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = "dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg, 0 <= fc <= 1, dc > 0; "
                "pi*dm - f*l/cos(alpha) > 0";
     d.source = kSource;
+    d.example = {0.030, 0.008, 0.08, 0, 0.08, 0.040};
     d.eval = screwEfficiencyWithCollar;
     out.push_back(std::move(d));
   }
@@ -276,6 +283,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = "dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg. Check it with the LOW friction value";
     d.source = kSource;
     d.caution = kLockCaution;
+    d.example = {0.030, 0.008, 0.08, 0};
     d.eval = selfLockingMargin;
     out.push_back(std::move(d));
   }
@@ -290,6 +298,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = "dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg; the result may be negative (self-locking)";
     d.source = kSource;
     d.caution = kLockCaution;
+    d.example = {0.030, 0.008, 0.08, 0};
     d.eval = screwBackdriveEfficiency;
     out.push_back(std::move(d));
   }
@@ -306,6 +315,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
                "(l - pi*f*dm/cos(alpha) > 0): a self-locking thread is an error. Use the LOW friction value";
     d.source = kSource;
     d.caution = kLockCaution;
+    d.example = {0.4656, 0.030, 0.008, 0.08, 0};
     d.eval = backdriveForce;
     out.push_back(std::move(d));
   }
@@ -322,6 +332,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
                "friction table of Shigley's Mechanical Engineering Design (Sec. 8-2) shows (from memory)";
     d.caution = "Use the starting value for the breakaway torque of a motor and the running value, at its low end, "
                 "for self-locking.";
+    d.example = {0.06};
     d.eval = startingFriction;
     out.push_back(std::move(d));
   }

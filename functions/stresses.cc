@@ -144,6 +144,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "T >= 0, dr > 0";
     d.source = kSource;
     d.caution = kStressCaution;
+    d.example = {26.18, 0.028};
     d.eval = bodyTorsion;
     out.push_back(std::move(d));
   }
@@ -158,6 +159,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dr > 0. A long screw in compression may buckle first: see the column functions";
     d.source = kSource;
     d.caution = kStressCaution;
+    d.example = {6400, 0.028};
     d.eval = bodyAxial;
     out.push_back(std::move(d));
   }
@@ -172,6 +174,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dm > 0, p > 0, nt > 0 (pass share*F and nt = 1 for the most loaded thread)";
     d.source = kSource;
     d.caution = kNutCaution;
+    d.example = {0.38 * 6400, 0.030, 0.004, 1};
     d.eval = bearingPressure;
     out.push_back(std::move(d));
   }
@@ -186,6 +189,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dr > 0, p > 0, 0 < share <= 1";
     d.source = kSource;
     d.caution = kStressCaution;
+    d.example = {6400, 0.028, 0.004, 0.38};
     d.eval = rootBending;
     out.push_back(std::move(d));
   }
@@ -200,6 +204,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dr > 0, p > 0, 0 < share <= 1";
     d.source = kSource;
     d.caution = kStressCaution;
+    d.example = {6400, 0.028, 0.004, 0.38};
     d.eval = rootShear;
     out.push_back(std::move(d));
   }
@@ -215,6 +220,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.source = "Distortion-energy (von Mises) theory, as in Shigley's Mechanical Engineering Design, Ch. 5 "
                "(from memory)";
     d.caution = kStressCaution;
+    d.example = {10.39e6, 6.07e6};
     d.eval = vonMises;
     out.push_back(std::move(d));
   }
@@ -233,6 +239,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
                "against axial compression";
     d.source = kSource;
     d.caution = kStressCaution;
+    d.example = {41.5e6, 10.39e6, 6.07e6};
     d.eval = vonMisesRoot;
     out.push_back(std::move(d));
   }
@@ -247,6 +254,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dm > 0, p > 0, p_allow > 0";
     d.source = kSource;
     d.caution = kNutCaution;
+    d.example = {6400, 0.030, 0.004, 10e6};
     d.eval = nutThreads;
     out.push_back(std::move(d));
   }
@@ -262,6 +270,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "F > 0, dm > 0, p_allow > 0";
     d.source = kSource;
     d.caution = kNutCaution;
+    d.example = {6400, 0.030, 10e6};
     d.eval = nutLength;
     out.push_back(std::move(d));
   }
@@ -276,6 +285,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.limits = "dm > 0, l > 0, n >= 0 (n read in revolutions per unit time, as n*l is the axial speed)";
     d.source = "Kinematics of the helix, as for the sliding velocity of a worm, pi*d*n/cos(lambda), in the "
                "worm gearing chapters of Shigley's Mechanical Engineering Design (from memory)";
+    d.example = {0.030, 0.008, 60 * 2 * kPi / 60};
     d.eval = slidingSpeed;
     out.push_back(std::move(d));
   }
@@ -292,6 +302,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.source = "Common practice of nut makers and handbooks: wear of a sliding nut judged by pV; bearing pressure "
                "and sliding speed as in Shigley's Mechanical Engineering Design, Sec. 8-2 (from memory)";
     d.caution = kNutCaution;
+    d.example = {6400, 0.030, 0.004, 6, 0.008, 100 * 2 * kPi / 60};
     d.eval = nutPv;
     out.push_back(std::move(d));
   }

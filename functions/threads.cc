@@ -234,6 +234,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula_is_expression = false;
     d.limits = "d must be a size of the series (within 1 um); any other size is an error naming the nearest sizes";
     d.source = kAcmeSource;
+    d.example = {kInch};
     d.eval = acmeTpi;
     out.push_back(std::move(d));
   }
@@ -249,6 +250,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula_is_expression = false;
     d.limits = "d must be a size of the series (within 1 um); any other size is an error naming the nearest sizes";
     d.source = kAcmeSource;
+    d.example = {kInch};
     d.eval = acmePitch;
     out.push_back(std::move(d));
   }
@@ -263,6 +265,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.limits = "d > 0, 0 < p < d; any diameter-pitch combination (specials are made): "
                "use acme_pitch for the standard one";
     d.source = kAcmeSource;
+    d.example = {kInch, 0.2 * kInch};
     d.eval = acmePitchDia;
     out.push_back(std::move(d));
   }
@@ -277,6 +280,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.limits = "d > 0, 0 < p < d. Basic size: the minor diameter of a class 2G external thread is "
                "smaller by its allowance (ASME B1.5 tables), so take the table value where the stress margin is small";
     d.source = kAcmeSource;
+    d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMinorDia;
     out.push_back(std::move(d));
   }
@@ -306,6 +310,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                "the nearest sizes. The finer and coarser pitches of the series are accepted by trap_pitch_dia "
                "and trap_minor_dia";
     d.source = kTrapSource;
+    d.example = {0.020};
     d.eval = trapPitch;
     out.push_back(std::move(d));
   }
@@ -320,6 +325,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.limits = "d > 0, 0 < p < d; p must be an ISO 2904 pitch (1.5 to 44 mm); the diameter is not checked "
                "against the series (specials are made)";
     d.source = kTrapSource;
+    d.example = {0.020, 0.004};
     d.eval = trapPitchDia;
     out.push_back(std::move(d));
   }
@@ -335,6 +341,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula_is_expression = false;
     d.limits = "d > 0, 0 < p < d, d3 > 0; p must be an ISO 2904 pitch (1.5 to 44 mm) because ac depends on it";
     d.source = kTrapSource;
+    d.example = {0.020, 0.004};
     d.eval = trapMinorDia;
     out.push_back(std::move(d));
   }
@@ -360,6 +367,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "d - p/2";
     d.limits = "d > 0, 0 < p < d";
     d.source = kSquareSource;
+    d.example = {0.032, 0.004};
     d.eval = squarePitchDia;
     out.push_back(std::move(d));
   }
@@ -373,6 +381,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "d - p";
     d.limits = "d > 0, 0 < p < d";
     d.source = kSquareSource;
+    d.example = {0.032, 0.004};
     d.eval = squareMinorDia;
     out.push_back(std::move(d));
   }
@@ -399,6 +408,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "starts*p";
     d.limits = "p > 0; starts a whole number >= 1";
     d.source = "Definition of lead, as in Shigley's Mechanical Engineering Design (Sec. 8-1), ASME B1.5 and ISO 2904";
+    d.example = {0.004, 2};
     d.eval = threadLead;
     out.push_back(std::move(d));
   }

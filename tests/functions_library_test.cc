@@ -1,6 +1,6 @@
 // The library as a whole: every declaration complete, every formula string in
-// terms of its own arguments AND agreeing with eval() (a tiny evaluator below
-// reads the formulas), every input checked (NaN, inf and out-of-range values
+// terms of its own arguments AND agreeing with eval() at the declared example
+// and at random valid inputs (a tiny evaluator below reads the formulas), every input checked (NaN, inf and out-of-range values
 // give DomainError, never a NaN result), and every function listed in
 // docs/verification.md with tests that exist.
 #include <catch2/catch.hpp>
@@ -258,6 +258,13 @@ TEST_CASE("library: every declaration is complete", "[functions][library]") {
       if (a.per_revolution) CHECK(a.dim == Dimension::exponents(1, 0, 0));  // leads and pitches only
     }
     if (d.result_per_revolution) CHECK(d.result == Dimension::exponents(1, 0, 0));
+    // An example call inside the limits, for every function that takes arguments.
+    CHECK(d.example.size() == d.args.size());
+    if (d.example.size() == d.args.size()) {
+      double v = 0;
+      CHECK_NOTHROW(v = d.eval(d.example.data()));
+      CHECK(std::isfinite(v));
+    }
   }
   CHECK(functionLibrary().size() >= 60);
 }
@@ -321,8 +328,8 @@ TEST_CASE("library: formula strings agree with eval() on random valid inputs", "
     INFO("function " << d.name << ": " << d.formula);
     int agreed = 0;
     for (int sample = 0; sample < 20; ++sample) {
-      std::vector<double> args;
-      REQUIRE(validSample(d, rng, args));
+      std::vector<double> args = d.example;  // the declared example first, then random valid inputs
+      if (sample > 0) REQUIRE(validSample(d, rng, args));
       std::map<std::string, double> vars;
       for (std::size_t k = 0; k < d.args.size(); ++k)
         vars[d.args[k].name] = d.args[k].dim == kRotSpeed ? args[k] / (2 * kPi) : args[k];
@@ -343,8 +350,8 @@ TEST_CASE("library: NaN and infinite inputs are DomainErrors naming the argument
   for (const FunctionDecl& d : functionLibrary()) {
     if (d.args.empty()) continue;
     INFO("function " << d.name);
-    std::vector<double> args;
-    REQUIRE(validSample(d, rng, args));
+    std::vector<double> args = d.example;
+    if (args.size() != d.args.size()) REQUIRE(validSample(d, rng, args));
     for (std::size_t k = 0; k < d.args.size(); ++k) {
       for (double bad : {std::nan(""), HUGE_VAL, -HUGE_VAL}) {
         std::vector<double> a = args;
