@@ -130,7 +130,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
               arg("Fm", force(), "cubic-mean axial load of the duty cycle (cubic_mean_load_2, _3)")};
     d.result = angle();
     d.result_unit = "rev";
-    d.formula = "(Ca/Fm)^3 * 10^6";
+    d.formula = "(Ca/Fm)^3 * 10^6 * 2*pi";
     d.limits = "Ca > 0, Fm > 0. Life in revolutions; divide by the mean speed for a time. The peak load must also "
                "stay below the static rating C0a";
     d.source = kLifeSource;
@@ -186,7 +186,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
               arg("E", stress(), "modulus of elasticity"), arg("rho", density(), "density of the screw material")};
     d.result = rotSpeed();
     d.result_unit = "rpm";
-    d.formula = "fixity^2*dr/(8*pi*L^2) * sqrt(E/rho)";
+    d.formula = "fixity^2*dr/(4*L^2) * sqrt(E/rho)";
     d.limits = "dr > 0, L > 0, 0 < fixity <= 4.730, E > 0, rho > 0. The theoretical speed: run below it with a "
                "margin (80 % is common practice)";
     d.source = "First natural frequency of a uniform Euler-Bernoulli beam, omega = fixity^2/L^2*sqrt(E*I/(rho*A)) "
@@ -201,8 +201,8 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
   return {"Ball screws",
           "Rolling-element screws: high efficiency (about 0.9, common practice), so never self-locking. Life "
           "follows ISO 3408-5: L10 = (Ca/Fm)^3 million revolutions, with Fm the cubic mean of the duty cycle "
-          "weighted by revolutions (speed times time fraction). In the formulas, n counts revolutions per unit "
-          "time."};
+          "weighted by revolutions (speed times time fraction). A life in revolutions is an angle (10^6 rev = "
+          "2*pi*10^6 rad): divided by a speed it gives a time."};
 }
 
 }  // namespace calctrail::fn

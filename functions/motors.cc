@@ -121,7 +121,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {T_screw, screws, n_motor, i, eta};
     d.result = power();
     d.result_unit = "kW";
-    d.formula = "2*pi*n_motor*screws*T_screw/(i*eta)";
+    d.formula = "n_motor*screws*T_screw/(i*eta)";
     d.limits = "T_screw >= 0, screws a whole number >= 1, n_motor >= 0, i > 0, 0 < eta <= 1";
     d.source = kDriveSource;
     d.example = {26.18, 2, 1450 * 2 * kPi / 60, 20, 0.7};
@@ -135,7 +135,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {n_motor, i, l};
     d.result = speed();
     d.result_unit = "mm/s";
-    d.formula = "n_motor*l/i";
+    d.formula = "n_motor*l/(2*pi*i)";
     d.limits = "n_motor >= 0, i > 0, l > 0";
     d.source = "Kinematics of the screw: axial advance of one lead per revolution (definition of lead)";
     d.example = {1450 * 2 * kPi / 60, 20, 0.008};
@@ -149,7 +149,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {arg("s", length(), "stroke (travel of the nut)"), n_motor, i, l};
     d.result = time();
     d.result_unit = "s";
-    d.formula = "s*i/(n_motor*l)";
+    d.formula = "2*pi*s*i/(n_motor*l)";
     d.limits = "s >= 0, n_motor > 0, i > 0, l > 0";
     d.source = "Kinematics of the screw: axial advance of one lead per revolution (definition of lead)";
     d.example = {0.5, 1450 * 2 * kPi / 60, 20, 0.008};
@@ -174,8 +174,8 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
   }
   return {"Motors",
           "The motor turns all screws through the reduction: its torque is the screws' torque over ratio times "
-          "efficiency, its power that torque times its angular speed. In the formulas a speed n counts "
-          "revolutions per unit time (so n*l is the nut speed, 2*pi*n*T the power)."};
+          "efficiency, its power that torque times its angular speed. The nut advances one lead per revolution: "
+          "n*l/(2*pi) with n in rad/s, which is simply rpm times mm/rev in the units of the trade."};
 }
 
 }  // namespace calctrail::fn

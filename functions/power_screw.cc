@@ -206,7 +206,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.formula = lower;
     d.limits = std::string(kThreadLimits) + "; a negative result is the torque needed to hold the load";
     d.source = kSource;
-    d.caution = std::string(kLockCaution) + " " + kFrictionCaution;
+    d.caution = kLockCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 14.5 * kPi / 180};
     d.eval = torqueLower;
     out.push_back(std::move(d));
@@ -237,7 +237,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.limits = std::string(kThreadLimits) + "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
                "hold the load";
     d.source = kSource;
-    d.caution = std::string(kLockCaution) + " " + kFrictionCaution;
+    d.caution = kLockCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};
     d.eval = torqueLowerWithCollar;
     out.push_back(std::move(d));

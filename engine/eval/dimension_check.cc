@@ -240,8 +240,13 @@ bool DimensionChecker::checkCall(Expr& e) {
                       arg.description + ") must be " + words(arg.dim);
     if (arg.per_revolution) msg += " or a length per revolution";
     msg += ", not " + words(got);
-    if (got.sameIgnoringAngle(arg.dim))
-      msg += "; a speed is rotational (rpm, [rev/s]) and a frequency in Hz is not: the two differ by 2*pi";
+    if (got.sameIgnoringAngle(arg.dim)) {
+      if (arg.dim.withoutAngle() == Dimension::of(Base::Time, -1))
+        msg += "; a speed is rotational (rpm, [rev/s]) and a frequency in Hz is not: the two differ by 2*pi";
+      else
+        msg += "; the two differ only by an angle: a number of turns is an angle, divide it by `1 [rev]` "
+               "(and write a lead per revolution as [mm/rev])";
+    }
     return fail(*e.args[i], msg);
   }
   e.dim = f->result_per_revolution ? f->result / kAngle : f->result;

@@ -10,10 +10,16 @@ std::string renderJson(const Calculation& calc, const Trail& t) {
   w.key("schema").value(kJsonSchemaVersion);
   w.key("file").value(t.path);
   w.key("sha256").value(t.sha256);
+  w.key("generator").value(std::string("calctrail ") + CALCTRAIL_VERSION);
+  w.key("digits").value(t.digits);
   w.key("title").value(t.title);
   w.key("metadata").beginObject();
   for (const auto& [k, v] : t.meta) w.key(k).value(v);
   w.endObject();
+  w.key("inputs").beginArray();
+  for (const TrailStep& s : t.steps)
+    if (s.input) w.value(s.name);
+  w.endArray();
   w.key("quantities").beginArray();
   for (const TrailStep& s : t.steps) {
     const QuantityState& q = calc.quantities[s.index];
@@ -34,12 +40,23 @@ std::string renderJson(const Calculation& calc, const Trail& t) {
     w.key("unit_declared").value(q.declared);
     w.key("overridden").value(s.overridden);
     w.key("line").value(src.line);
+    // Where the value comes from: given in the worksheet, set on the command
+    // line, calculated, or calculated with the cited library methods.
+    std::string source = s.overridden ? "set on the command line" : s.input ? "given" : "calculated";
+    for (const TrailCall& c : s.calls) source += "; " + c.name + ": " + c.source;
+    w.key("source").value(source);
     w.key("functions").beginArray();
     for (const TrailCall& c : s.calls) {
       w.beginObject();
       w.key("name").value(c.name);
+      w.key("call").value(c.signature);
       w.key("formula").value(c.formula);
+      w.key("formula_is_expression").value(c.formula_is_expression);
+      w.key("arguments").value(c.arguments);
+      w.key("substituted").value(c.substituted);
+      w.key("result").value(c.result);
       w.key("source").value(c.source);
+      w.key("caution").value(c.caution);
       w.endObject();
     }
     w.endArray();
@@ -57,9 +74,12 @@ std::string renderJson(const Calculation& calc, const Trail& t) {
     w.key("lhs").value(s.display.fromSI(s.lhs));
     w.key("rhs").value(s.display.fromSI(s.rhs));
     w.key("unit").value(s.display.text);
+    w.key("lhs_text").value(c.lhs);
+    w.key("rhs_text").value(c.rhs);
     w.key("lhs_si").value(s.lhs);
     w.key("rhs_si").value(s.rhs);
     w.key("description").value(c.description);
+    w.key("section").value(c.section);
     w.key("line").value(calc.sheet.checks[c.index].line);
     w.endObject();
   }

@@ -1,0 +1,118 @@
+// The report's JSON against its documented schema (docs/trail.schema.json),
+// for every demo worksheet. The validator below covers the keywords that
+// schema uses: type, const, enum, required, properties,
+// additionalProperties (false), items, minLength and pattern.
+#include <catch2/catch.hpp>
+
+#include <regex>
+
+#include "tests/json_reader.h"
+#include "tests/test_support.h"
+
+using namespace calctrail::test;
+
+namespace {
+
+bool hasType(const Json& v, const std::string& type) {
+  if (type == "object") return v.type == Json::Object;
+  if (type == "array") return v.type == Json::Array;
+  if (type == "string") return v.type == Json::String;
+  if (type == "boolean") return v.type == Json::Bool;
+  if (type == "number") return v.type == Json::Number;
+  if (type == "integer") return v.type == Json::Number && v.number == static_cast<double>(static_cast<long long>(v.number));
+  if (type == "null") return v.type == Json::Null;
+  return false;
+}
+
+bool equal(const Json& a, const Json& b) {
+  if (a.type != b.type) return false;
+  switch (a.type) {
+    case Json::Null: return true;
+    case Json::Bool: return a.boolean == b.boolean;
+    case Json::Number: return a.number == b.number;
+    case Json::String: return a.string == b.string;
+    default: return false;  // the schema compares scalars only
+  }
+}
+
+void validate(const Json& schema, const Json& v, const std::string& path, std::vector<std::string>* errors) {
+  static const std::vector<std::string> known = {"$schema", "$id", "title", "type", "const", "enum", "required",
+                                                 "properties", "additionalProperties", "items", "minLength", "pattern"};
+  for (const auto& [key, value] : schema.object) {
+    (void)value;
+    if (std::find(known.begin(), known.end(), key) == known.end())
+      errors->push_back(path + ": the schema uses `" + key + "`, which this validator does not know");
+  }
+  if (schema.has("type") && !hasType(v, schema["type"].string)) {
+    errors->push_back(path + ": expected " + schema["type"].string);
+    return;
+  }
+  if (schema.has("const") && !equal(schema["const"], v)) errors->push_back(path + ": not the constant");
+  if (schema.has("enum")) {
+    bool any = false;
+    for (const Json& e : schema["enum"].array) any |= equal(e, v);
+    if (!any) errors->push_back(path + ": not one of the enumerated values");
+  }
+  if (v.type == Json::String) {
+    if (schema.has("minLength") && v.string.size() < static_cast<size_t>(schema["minLength"].number))
+      errors->push_back(path + ": too short");
+    if (schema.has("pattern") && !std::regex_search(v.string, std::regex(schema["pattern"].string)))
+      errors->push_back(path + ": does not match " + schema["pattern"].string + ": " + v.string);
+  }
+  if (v.type == Json::Object) {
+    if (schema.has("required"))
+      for (const Json& r : schema["required"].array)
+        if (!v.has(r.string)) errors->push_back(path + ": missing `" + r.string + "`");
+    for (const auto& [key, value] : v.object) {
+      if (schema.has("properties") && schema["properties"].has(key)) {
+        validate(schema["properties"][key], value, path + "." + key, errors);
+      } else if (schema.has("additionalProperties") && !schema["additionalProperties"].boolean) {
+        errors->push_back(path + ": `" + key + "` is not in the schema");
+      }
+    }
+  }
+  if (v.type == Json::Array && schema.has("items"))
+    for (size_t i = 0; i < v.array.size(); ++i)
+      validate(schema["items"], v.array[i], path + "[" + std::to_string(i) + "]", errors);
+}
+
+Json load(const std::string& text) {
+  Json j;
+  std::string error;
+  INFO(error);
+  REQUIRE(parseJson(text, &j, &error));
+  return j;
+}
+
+}  // namespace
+
+TEST_CASE("the JSON of every demo worksheet follows docs/trail.schema.json", "[json][schema]") {
+  const Json schema = load(readFile(repoPath("docs/trail.schema.json")));
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+    const std::string path = std::string("worksheets/") + sheet + ".calc";
+    Run r = runCli("report " + path + " --format json");
+    INFO(path << "\n" << r.err);
+    REQUIRE(r.status == 0);
+    const Json out = load(r.out);
+    std::vector<std::string> errors;
+    validate(schema, out, "$", &errors);
+    std::string all;
+    for (const auto& e : errors) all += e + "\n";
+    INFO(all);
+    CHECK(errors.empty());
+    CHECK(out["quantities"].array.size() > 10);
+  }
+}
+
+TEST_CASE("the schema validator itself rejects what it should", "[json][schema]") {
+  const Json schema = load(R"({"type":"object","additionalProperties":false,"required":["a"],
+    "properties":{"a":{"type":"integer"},"b":{"enum":["x","y"]},"c":{"type":"string","pattern":"^[0-9a-f]{4}$"}}})");
+  std::vector<std::string> errors;
+  validate(schema, load(R"({"a":1,"b":"x","c":"00ff"})"), "$", &errors);
+  CHECK(errors.empty());
+  validate(schema, load(R"({"a":1.5,"b":"z","c":"zz","d":0})"), "$", &errors);
+  CHECK(errors.size() == 4);
+  errors.clear();
+  validate(schema, load(R"({"b":"x"})"), "$", &errors);
+  CHECK(errors == std::vector<std::string>{"$: missing `a`"});
+}
