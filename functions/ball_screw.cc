@@ -130,7 +130,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
               arg("Fm", force(), "cubic-mean axial load of the duty cycle (cubic_mean_load_2, _3)")};
     d.result = angle();
     d.result_unit = "rev";
-    d.formula = "(Ca/Fm)^3 * 10^6 * 2*pi";
+    d.formula = "(Ca/Fm)^3 * 1e6 [rev]";
     d.limits = "Ca > 0, Fm > 0. Life in revolutions; divide by the mean speed for a time. The peak load must also "
                "stay below the static rating C0a";
     d.source = kLifeSource;
@@ -201,8 +201,8 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
   return {"Ball screws",
           "Rolling-element screws: high efficiency (about 0.9, common practice), so never self-locking. Life "
           "follows ISO 3408-5: L10 = (Ca/Fm)^3 million revolutions, with Fm the cubic mean of the duty cycle "
-          "weighted by revolutions (speed times time fraction). A life in revolutions is an angle (10^6 rev = "
-          "2*pi*10^6 rad): divided by a speed it gives a time."};
+          "weighted by revolutions (speed times time fraction). A life in revolutions is an angle (1e6 [rev]): "
+          "divided by a speed in rpm it gives a time."};
 }
 
 }  // namespace calctrail::fn

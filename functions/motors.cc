@@ -135,7 +135,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {n_motor, i, l};
     d.result = speed();
     d.result_unit = "mm/s";
-    d.formula = "n_motor*l/(2*pi*i)";
+    d.formula = "n_motor*l/(i*1 [rev])";
     d.limits = "n_motor >= 0, i > 0, l > 0";
     d.source = "Kinematics of the screw: axial advance of one lead per revolution (definition of lead)";
     d.example = {1450 * 2 * kPi / 60, 20, 0.008};
@@ -149,7 +149,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {arg("s", length(), "stroke (travel of the nut)"), n_motor, i, l};
     d.result = time();
     d.result_unit = "s";
-    d.formula = "2*pi*s*i/(n_motor*l)";
+    d.formula = "s*i*1 [rev]/(n_motor*l)";
     d.limits = "s >= 0, n_motor > 0, i > 0, l > 0";
     d.source = "Kinematics of the screw: axial advance of one lead per revolution (definition of lead)";
     d.example = {0.5, 1450 * 2 * kPi / 60, 20, 0.008};
@@ -175,7 +175,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
   return {"Motors",
           "The motor turns all screws through the reduction: its torque is the screws' torque over ratio times "
           "efficiency, its power that torque times its angular speed. The nut advances one lead per revolution: "
-          "n*l/(2*pi) with n in rad/s, which is simply rpm times mm/rev in the units of the trade."};
+          "n*l/(1 rev): rpm times mm per revolution in the units of the trade."};
 }
 
 }  // namespace calctrail::fn

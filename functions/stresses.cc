@@ -281,7 +281,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.args = {dm, l, n};
     d.result = speed();
     d.result_unit = "m/s";
-    d.formula = "n/(2*pi)*sqrt((pi*dm)^2 + l^2)";
+    d.formula = "n*sqrt((pi*dm)^2 + l^2)/(1 [rev])";
     d.limits = "dm > 0, l > 0, n >= 0";
     d.source = "Kinematics of the helix, as for the sliding velocity of a worm, pi*d*n/cos(lambda), in the "
                "worm gearing chapters of Shigley's Mechanical Engineering Design (from memory)";
@@ -297,7 +297,7 @@ GroupText addStresses(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, p, nt, l, n};
     d.result = pressureSpeed();
     d.result_unit = "MPa*m/s";
-    d.formula = "F/(pi*dm*nt*p/2) * n/(2*pi)*sqrt((pi*dm)^2 + l^2)";
+    d.formula = "F/(pi*dm*nt*p/2) * n*sqrt((pi*dm)^2 + l^2)/(1 [rev])";
     d.limits = "F > 0, dm > 0, p > 0, nt > 0, l > 0, n >= 0";
     d.source = "Common practice of nut makers and handbooks: wear of a sliding nut judged by pV; bearing pressure "
                "and sliding speed as in Shigley's Mechanical Engineering Design, Sec. 8-2 (from memory)";

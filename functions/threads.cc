@@ -244,7 +244,6 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.summary = "Pitch of a general-purpose Acme size: 1 in divided by its threads per inch (ASME B1.5)";
     d.args = {major};
     d.result = length();
-    d.result_per_revolution = true;
     d.result_unit = "in";
     d.formula = "table lookup, ASME B1.5 general-purpose series: p = 1 in / (threads per inch of size d); see acme_tpi";
     d.formula_is_expression = false;
@@ -302,7 +301,6 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.summary = "Preferred pitch of a metric trapezoidal size (ISO 2904 / DIN 103 series)";
     d.args = {major};
     d.result = length();
-    d.result_per_revolution = true;
     d.result_unit = "mm";
     d.formula = "table lookup, ISO 2904 series (preferred combinations): " + trapSeriesText();
     d.formula_is_expression = false;

@@ -25,9 +25,7 @@ Shown unitOf(Show how) {
     case Show::Angle: return {kPi / 180.0, " deg"};
     case Show::Speed: return {2.0 * kPi / 60.0, " rpm"};
     case Show::Power: return {1e3, " kW"};
-    case Show::Time: return {1.0, " s"};
     case Show::Density: return {1.0, " kg/m^3"};
-    case Show::LinearSpeed: return {1e-3, " mm/s"};
   }
   return {1.0, ""};
 }

@@ -10,7 +10,7 @@
 namespace calctrail::fn {
 
 // How a value is shown in a message.
-enum class Show { Plain, Force, Length, Lead, Torque, Stress, Modulus, Angle, Speed, Power, Time, Density, LinearSpeed };
+enum class Show { Plain, Force, Length, Lead, Torque, Stress, Modulus, Angle, Speed, Power, Density };
 
 // "6400 N", "33.02 mm", "14.5 deg", "1450 rpm": four significant digits.
 std::string show(double si, Show how);

@@ -1,6 +1,6 @@
 // The library as a whole: every declaration complete, every formula string in
 // terms of its own arguments AND agreeing with eval() at the declared example
-// and at random valid inputs (a tiny evaluator below reads the formulas), every input checked (NaN, inf and out-of-range values
+// and at random valid inputs (read by the engine's own parser and interpreter), every input checked (NaN, inf and out-of-range values
 // give DomainError, never a NaN result), and every function listed in
 // docs/verification.md with tests that exist.
 #include <catch2/catch.hpp>
@@ -15,6 +15,12 @@
 #include <string>
 #include <vector>
 
+#include <functional>
+#include <memory>
+
+#include "engine/eval/math_functions.h"
+#include "engine/eval/tree_eval.h"
+#include "engine/sheet/expr_parser.h"
 #include "functions/function_decl.h"
 #include "functions/function_library.h"
 
@@ -55,137 +61,29 @@ bool isPrintableAscii(const std::string& s) {
 }
 
 // Identifiers in a formula string, with whether each is followed by '('.
-struct Token {
-  std::string name;
-  bool call;
+// The declared formula, parsed by the engine's own expression parser: the
+// same parser and interpreter the trail uses to show it, units in brackets
+// (`1 [rev]`) included.
+struct ParsedFormula {
+  std::unique_ptr<calctrail::SourceFile> file;
+  calctrail::ExprPtr expr;
 };
-std::vector<Token> identifiers(const std::string& formula) {
-  std::vector<Token> out;
-  for (std::size_t k = 0; k < formula.size();) {
-    const unsigned char c = static_cast<unsigned char>(formula[k]);
-    if (std::isdigit(c) || c == '.') {  // a number, exponent included
-      while (k < formula.size() && (std::isdigit(static_cast<unsigned char>(formula[k])) || formula[k] == '.')) ++k;
-      if (k < formula.size() && (formula[k] == 'e' || formula[k] == 'E')) ++k;
-      continue;
-    }
-    if (std::isalpha(c) || c == '_') {
-      std::size_t j = k;
-      while (j < formula.size() && (std::isalnum(static_cast<unsigned char>(formula[j])) || formula[j] == '_')) ++j;
-      std::size_t after = j;
-      while (after < formula.size() && formula[after] == ' ') ++after;
-      out.push_back({formula.substr(k, j - k), after < formula.size() && formula[after] == '('});
-      k = j;
-      continue;
-    }
-    ++k;
-  }
-  return out;
+ParsedFormula parseFormula(const FunctionDecl& d) {
+  ParsedFormula f;
+  f.file = std::make_unique<calctrail::SourceFile>("function " + d.name, d.formula);
+  calctrail::Diagnostics diags;
+  f.expr = calctrail::ExprParser(*f.file, 0, static_cast<uint32_t>(d.formula.size()), &diags).parseWhole();
+  return f;
 }
 
-// A small evaluator of the worksheet expression syntax the formula strings use.
-class Formula {
- public:
-  Formula(const std::string& text, const std::map<std::string, double>& vars) : s_(text), vars_(vars) {}
-  double value() {
-    const double v = sum();
-    skip();
-    if (k_ != s_.size()) throw std::runtime_error("trailing text at " + std::to_string(k_) + " in " + s_);
-    return v;
-  }
-
- private:
-  void skip() {
-    while (k_ < s_.size() && s_[k_] == ' ') ++k_;
-  }
-  bool eat(char c) {
-    skip();
-    if (k_ < s_.size() && s_[k_] == c) {
-      ++k_;
-      return true;
-    }
-    return false;
-  }
-  double sum() {
-    double v = product();
-    for (;;) {
-      if (eat('+')) v += product();
-      else if (eat('-')) v -= product();
-      else return v;
-    }
-  }
-  double product() {
-    double v = unary();
-    for (;;) {
-      if (eat('*')) v *= unary();
-      else if (eat('/')) v /= unary();
-      else return v;
-    }
-  }
-  double unary() {
-    if (eat('-')) return -unary();
-    if (eat('+')) return unary();
-    return power();
-  }
-  double power() {
-    const double base = primary();
-    if (eat('^')) return std::pow(base, unary());  // right-associative, binds tighter than unary minus on the left
-    return base;
-  }
-  double primary() {
-    skip();
-    if (eat('(')) {
-      const double v = sum();
-      if (!eat(')')) throw std::runtime_error("missing ) in " + s_);
-      return v;
-    }
-    if (k_ < s_.size() && (std::isdigit(static_cast<unsigned char>(s_[k_])) || s_[k_] == '.')) {
-      std::size_t used = 0;
-      const double v = std::stod(s_.substr(k_), &used);
-      k_ += used;
-      return v;
-    }
-    std::size_t j = k_;
-    while (j < s_.size() && (std::isalnum(static_cast<unsigned char>(s_[j])) || s_[j] == '_')) ++j;
-    if (j == k_) throw std::runtime_error("unexpected character at " + std::to_string(k_) + " in " + s_);
-    const std::string name = s_.substr(k_, j - k_);
-    k_ = j;
-    if (eat('(')) {
-      std::vector<double> a{sum()};
-      while (eat(',')) a.push_back(sum());
-      if (!eat(')')) throw std::runtime_error("missing ) after arguments in " + s_);
-      return call(name, a);
-    }
-    if (name == "pi") return kPi;
-    const auto it = vars_.find(name);
-    if (it == vars_.end()) throw std::runtime_error("unknown name " + name + " in " + s_);
-    return it->second;
-  }
-  static double call(const std::string& f, const std::vector<double>& a) {
-    if (a.size() == 1) {
-      const double x = a[0];
-      if (f == "sqrt") return std::sqrt(x);
-      if (f == "sin") return std::sin(x);
-      if (f == "cos") return std::cos(x);
-      if (f == "tan") return std::tan(x);
-      if (f == "asin") return std::asin(x);
-      if (f == "acos") return std::acos(x);
-      if (f == "atan") return std::atan(x);
-      if (f == "exp") return std::exp(x);
-      if (f == "ln") return std::log(x);
-      if (f == "log10") return std::log10(x);
-      if (f == "abs") return std::fabs(x);
-    }
-    if (a.size() == 2) {
-      if (f == "atan2") return std::atan2(a[0], a[1]);
-      if (f == "min") return std::min(a[0], a[1]);
-      if (f == "max") return std::max(a[0], a[1]);
-    }
-    throw std::runtime_error("unknown function " + f);
-  }
-  std::string s_;
-  const std::map<std::string, double>& vars_;
-  std::size_t k_ = 0;
-};
+double evalFormula(const calctrail::Expr& e, const std::map<std::string, double>& vars) {
+  calctrail::EvalFault fault;
+  const double v = calctrail::evalTree(
+      e, [&](const calctrail::Expr& n) { return vars.count(n.text) ? vars.at(n.text) : NAN; }, &fault);
+  INFO(fault.message);
+  CHECK(fault.node == nullptr);
+  return v;
+}
 
 const Dimension kRotSpeed = Dimension::exponents(0, 0, -1, 0, 0, 0, 0, 1);
 
@@ -302,29 +200,35 @@ TEST_CASE("library: formula strings mention only their declared arguments", "[fu
   for (const FunctionDecl& d : functionLibrary()) {
     if (!d.formula_is_expression) continue;
     INFO("function " << d.name << ": " << d.formula);
+    ParsedFormula f = parseFormula(d);
+    REQUIRE(f.expr);
     std::set<std::string> declared;
     for (const calctrail::FunctionArg& a : d.args) declared.insert(a.name);
-    for (const Token& t : identifiers(d.formula)) {
-      INFO("identifier " << t.name);
-      if (t.call)
-        CHECK(kMathFunctions.count(t.name) == 1);  // no sec, no library functions inside a formula
-      else
-        CHECK((t.name == "pi" || declared.count(t.name) == 1));
-    }
-    for (char c : d.formula) {
-      const bool allowed =
-          std::string("+-*/^(),. _").find(c) != std::string::npos || std::isalnum(static_cast<unsigned char>(c));
-      CHECK(allowed);
-    }
+    calctrail::forEachName(*f.expr, [&](const calctrail::Expr& n) {
+      INFO("name " << n.text);
+      CHECK(declared.count(n.text) == 1);
+    });
+    // Calls inside a formula are math functions only: no sec, no library functions.
+    std::function<void(const calctrail::Expr&)> calls = [&](const calctrail::Expr& e) {
+      if (e.kind == calctrail::ExprKind::Call) {
+        INFO("call " << e.text);
+        CHECK(calctrail::findMathFunction(e.text) != nullptr);
+      }
+      for (const auto& a : e.args) calls(*a);
+    };
+    calls(*f.expr);
   }
 }
 
-TEST_CASE("library: formula strings agree with eval() on random valid inputs", "[functions][library]") {
-  // The formula strings are written in the values eval() receives: SI with rad = 1, a lead per revolution.
+TEST_CASE("library: formula strings agree with eval() on random valid inputs", "[functions][library][formulas]") {
+  // The formula strings are written in the values eval() receives: SI with rad = 1, a lead per revolution;
+  // a revolution written `1 [rev]` is 2*pi, as the engine reads it.
   std::mt19937 rng(20240611);
   for (const FunctionDecl& d : functionLibrary()) {
     if (!d.formula_is_expression) continue;
     INFO("function " << d.name << ": " << d.formula);
+    ParsedFormula f = parseFormula(d);
+    REQUIRE(f.expr);
     int agreed = 0;
     for (int sample = 0; sample < 20; ++sample) {
       std::vector<double> args = d.example;  // the declared example first, then random valid inputs
@@ -332,7 +236,7 @@ TEST_CASE("library: formula strings agree with eval() on random valid inputs", "
       std::map<std::string, double> vars;
       for (std::size_t k = 0; k < d.args.size(); ++k)
         vars[d.args[k].name] = args[k];
-      const double from_formula = Formula(d.formula, vars).value();
+      const double from_formula = evalFormula(*f.expr, vars);
       const double from_eval = d.eval(args.data());
       INFO("formula " << from_formula << " eval " << from_eval);
       CHECK(std::fabs(from_formula - from_eval) <= 1e-9 * std::max(std::fabs(from_eval), std::fabs(from_formula)) + 1e-9);

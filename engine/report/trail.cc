@@ -5,6 +5,7 @@
 #include <cmath>
 #include <map>
 #include <memory>
+#include <optional>
 
 #include "engine/eval/math_functions.h"
 #include "engine/eval/tree_eval.h"
@@ -52,21 +53,37 @@ const Expr* parsedFormula(const FunctionDecl& f) {
   return it->second.second.get();
 }
 
+// `u` itself when it has dimension `want`; for a unit per revolution
+// ("in/rev") where a plain length is wanted, the same unit without "/rev";
+// otherwise nothing.
+std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
+  if (u.dim == want) return u;
+  const std::string suffix = "/rev";
+  if (u.dim == want / Dimension::of(Base::Angle) && u.text.size() > suffix.size() &&
+      u.text.compare(u.text.size() - suffix.size(), suffix.size(), suffix) == 0) {
+    Unit plain;
+    UnitError err;
+    if (parseUnit(u.text.substr(0, u.text.size() - suffix.size()), &plain, &err) && plain.dim == want) return plain;
+  }
+  return std::nullopt;
+}
+
 // The unit an argument is shown in: its quantity's, its literal's, or the
 // preferred one for the function's argument dimension.
 Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& calc) {
   const Expr* x = &arg;
   while (x->kind == ExprKind::Group) x = x->args[0].get();
   if (x->kind == ExprKind::Name) {
-    const QuantityState& q = calc.quantities[calc.sheet.find(x->text)];
-    if (q.display.dim == decl.dim) return q.display;
+    if (auto u = unitFor(calc.quantities[calc.sheet.find(x->text)].display, decl.dim)) return *u;
   }
-  if (x->kind == ExprKind::Number && x->unit && x->unit->dim == decl.dim) return *x->unit;
+  if (x->kind == ExprKind::Number && x->unit) {
+    if (auto u = unitFor(*x->unit, decl.dim)) return *u;
+  }
   return preferredUnit(decl.dim);
 }
 
 TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector<std::string>& given,
-                    int digits) {
+                    const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
   c.name = f.name;
@@ -77,6 +94,7 @@ TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector
   c.formula_is_expression = f.formula_is_expression;
   c.source = f.source;
   c.caution = f.caution;
+  c.formula_expr = parsedFormula(f);
   auto value_of = [&](const Expr& e) {
     const int j = calc.sheet.find(e.text);
     return j >= 0 && calc.quantities[j].ok ? calc.quantities[j].si : NAN;
@@ -109,9 +127,11 @@ TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector
   EvalFault fault;
   const double r = evalTree(call, value_of, &fault);
   if (!fault.node) {
+    // In the step's own unit where it fits (lbf*in in a US sheet), else the function's.
     Unit unit;
     UnitError err;
-    if (f.result_unit.empty() || !parseUnit(f.result_unit, &unit, &err) || unit.dim != f.result)
+    if (auto u = unitFor(step_unit, f.result)) unit = *u;
+    else if (f.result_unit.empty() || !parseUnit(f.result_unit, &unit, &err) || unit.dim != f.result)
       unit = preferredUnit(f.result);
     c.result = formatQuantity(f.result_per_revolution ? r * 2 * M_PI : r, unit, digits);
   }
@@ -172,6 +192,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     step.overridden = q.overridden;
     step.formula = renderExpr(*q.expr);
     step.pretty = renderExpr(*q.expr, nullptr, true);
+    step.expr = q.expr.get();
     if (s.ok) {
       step.substituted.clear();  // filled below, once every given value is known
       step.result = formatQuantity(s.si, s.display, digits);
@@ -207,7 +228,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     s.substituted = substitute(expr, calc, given, digits);
     std::vector<const Expr*> calls;
     collectCalls(expr, &calls);
-    for (const Expr* call : calls) s.calls.push_back(auditCall(*call, calc, given, digits));
+    for (const Expr* call : calls)
+      s.calls.push_back(auditCall(*call, calc, given, calc.quantities[s.index].display, digits));
   }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
@@ -219,6 +241,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     tc.section = c.section;
     tc.op = comparisonText(c.op);
     tc.condition = renderExpr(*c.lhs) + " " + tc.op + " " + renderExpr(*c.rhs);
+    tc.lhs_expr = c.lhs.get();
+    tc.rhs_expr = c.rhs.get();
     if (s.ok) {
       tc.lhs = literalOrValue(*c.lhs, s.lhs, s.display, digits);
       tc.rhs = literalOrValue(*c.rhs, s.rhs, s.display, digits);

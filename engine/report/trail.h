@@ -21,6 +21,9 @@ struct TrailCall {        // one call of a library function in a formula
   std::string result;     // "84.42 N·m"
   std::string source;
   std::string caution;
+  // The function's formula as a tree (for typesetting), nullptr when the
+  // formula is a method in words. Parsed once; lives as long as the program.
+  const Expr* formula_expr = nullptr;
 };
 
 struct TrailStep {        // one quantity
@@ -42,6 +45,9 @@ struct TrailStep {        // one quantity
   std::string unit_pretty;  // "N·m"
   std::string dimension;    // "torque or energy"
   std::vector<TrailCall> calls;
+  // The formula as a tree, for typeset formats (MathML). Owned by the
+  // Calculation the trail was built from: valid while that lives.
+  const Expr* expr = nullptr;
 };
 
 struct TrailCheck {
@@ -53,6 +59,9 @@ struct TrailCheck {
   std::string op;           // ">"
   std::string lhs, rhs;     // "3.126 N·m", "0 N·m"
   bool passed = false;
+  // Both sides as trees, for typeset formats; owned by the Calculation.
+  const Expr* lhs_expr = nullptr;
+  const Expr* rhs_expr = nullptr;
 };
 
 struct TrailBlock {       // document order: headings, narrative, steps, checks
