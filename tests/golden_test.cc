@@ -28,3 +28,7 @@ TEST_CASE("golden: canal gate hoist, text trail", "[golden]") {
 TEST_CASE("golden: leveling jack, text trail", "[golden]") {
   compareGolden("report worksheets/leveling-jack.calc", "leveling-jack.txt");
 }
+
+TEST_CASE("golden: twin-screw lift table, text trail", "[golden]") {
+  compareGolden("report worksheets/twin-screw-lift.calc", "twin-screw-lift.txt");
+}

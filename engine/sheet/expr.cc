@@ -17,7 +17,12 @@ void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::strin
   switch (e.kind) {
     case ExprKind::Number:
       *out += e.text;
-      if (!e.unit_written.empty()) {
+      if (pretty && e.unit) {
+        // For people: "1 rev", "9.81 m/s²", "15°" (no space before the degree sign).
+        const std::string u = e.unit->pretty();
+        if (u != "\u00B0") *out += ' ';
+        *out += u;
+      } else if (!e.unit_written.empty()) {
         // "95 %", "20 kN", "9.81 [m/s^2]": one space between number and unit.
         *out += ' ';
         *out += e.unit_written;
