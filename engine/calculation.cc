@@ -313,6 +313,21 @@ std::string valueList(const Expr& at, const Sheet& sheet, const std::vector<Quan
 }
 }  // namespace
 
+// A formula gave NaN or inf (or a library function refused): run the tree
+// interpreter to find the operation at fault, and report it with the values
+// of the quantities it reads.
+void Calculation::explainFailure(const Expr& expr, const SourceFile& file, const std::vector<double>& values,
+                                 const std::string& prefix, const std::string& internal) {
+  EvalFault fault;
+  evalTree(expr, [&](const Expr& e) { return values[sheet.find(e.text)]; }, &fault);
+  const Expr& at = fault.node ? *fault.node : expr;
+  std::string msg = prefix + (fault.node ? fault.message
+                                         : internal.empty() ? "the value is not a finite number" : internal);
+  const std::string inputs = valueList(at, sheet, quantities);
+  if (!inputs.empty()) msg += " (with " + inputs + ")";
+  diags.error(file, at.begin, at.end, msg);
+}
+
 void Calculation::evaluate() {
   Evaluator evaluator;
   std::vector<double> values(sheet.quantities.size(), NAN);
@@ -333,14 +348,7 @@ void Calculation::evaluate() {
       internal = e.what();
     }
     if (!std::isfinite(v)) {
-      EvalFault fault;
-      evalTree(*q.expr, [&](const Expr& e) { return values[sheet.find(e.text)]; }, &fault);
-      const Expr& at = fault.node ? *fault.node : *q.expr;
-      std::string msg = "`" + q.name + "` cannot be calculated: " +
-                        (fault.node ? fault.message : internal.empty() ? "the value is not a finite number" : internal);
-      const std::string inputs = valueList(at, sheet, quantities);
-      if (!inputs.empty()) msg += " (with " + inputs + ")";
-      diags.error(fileOf(q), at.begin, at.end, msg);
+      explainFailure(*q.expr, fileOf(q), values, "`" + q.name + "` cannot be calculated: ", internal);
       continue;
     }
     s.si = v;
@@ -368,14 +376,7 @@ void Calculation::evaluateChecks() {
         v = NAN;
       }
       if (!std::isfinite(v)) {
-        EvalFault fault;
-        evalTree(*exprs[j], [&](const Expr& e) { return values[sheet.find(e.text)]; }, &fault);
-        const Expr& at = fault.node ? *fault.node : *exprs[j];
-        std::string msg = "the check `" + c.name + "` cannot be evaluated: " +
-                          (fault.node ? fault.message : "the value is not a finite number");
-        const std::string inputs = valueList(at, sheet, quantities);
-        if (!inputs.empty()) msg += " (with " + inputs + ")";
-        diags.error(*sheet.file, at.begin, at.end, msg);
+        explainFailure(*exprs[j], *sheet.file, values, "the check `" + c.name + "` cannot be evaluated: ", "");
         ok = false;
       }
       side[j] = v;

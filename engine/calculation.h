@@ -66,6 +66,8 @@ class Calculation {
   void checkChecks();
   void evaluate();
   void evaluateChecks();
+  void explainFailure(const Expr& expr, const SourceFile& file, const std::vector<double>& values,
+                      const std::string& prefix, const std::string& internal);
   const SourceFile& fileOf(const Quantity& q) const;
 };
 
