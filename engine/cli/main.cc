@@ -28,8 +28,9 @@ int main(int argc, char** argv) {
   CLI::App* report_cmd = app.add_subcommand(
       "report", "Recalculate a worksheet and print its calculation trail (exit 0 even when a check fails)");
   report_cmd->add_option("FILE", report.file, "The worksheet (.calc)")->required();
-  report_cmd->add_option("--format,-f", report.format, "Output format")
-      ->check(CLI::IsMember({"text", "json"}))
+  report_cmd->add_option("--format,-f", report.format,
+                         "Output format: text (terminal, git), md (pull requests), html (print to PDF), json (tools)")
+      ->check(CLI::IsMember({"text", "md", "html", "json"}))
       ->default_str("text");
   report_cmd->add_option("-o,--output", report.output, "Write the trail to this file instead of standard output");
   report_cmd->add_option("--set", report.sets,
@@ -62,6 +63,53 @@ int main(int argc, char** argv) {
       ->check(CLI::IsMember({"text", "md"}))
       ->default_str("text");
 
+  DiffArgs diff;
+  CLI::App* diff_cmd = app.add_subcommand(
+      "diff", "Compare two revisions of a worksheet: flipped checks, changed inputs and formulas, moved results");
+  diff_cmd->add_option("OLD", diff.old_side, "The earlier side: a file, or REV:PATH from git (HEAD~1:gate.calc)")
+      ->required();
+  diff_cmd->add_option("NEW", diff.new_side, "The later side: a file, or REV:PATH from git")->required();
+  diff_cmd->add_option("--format,-f", diff.format, "Output format (md for a pull-request comment)")
+      ->check(CLI::IsMember({"text", "md", "json"}))
+      ->default_str("text");
+  diff_cmd->add_option("--rtol", diff.rtol, "Relative change below which a result has not moved")
+      ->check(CLI::NonNegativeNumber)
+      ->default_str("1e-9");
+  diff_cmd->add_option("--digits", diff.digits, "Significant digits of the rounded values (1 to 15)")
+      ->check(CLI::Range(1, 15))
+      ->default_str("4");
+  diff_cmd->footer(
+      "\nExit status: 0 no number moved; 1 a check flipped, a value moved beyond --rtol, or a quantity or\n"
+      "check came or went; 2 a side cannot be read or has errors.\n"
+      "Examples:\n"
+      "  calctrail diff HEAD~1:worksheets/gate.calc worksheets/gate.calc\n"
+      "  calctrail diff main:gate.calc gate.calc --format md > review.md");
+
+  FmtArgs fmt_args;
+  CLI::App* fmt_cmd = app.add_subcommand(
+      "fmt", "Lay out worksheets canonically (spacing, alignment, unit spelling), keeping every comment and meaning");
+  fmt_cmd->add_option("FILE", fmt_args.files, "Worksheets (.calc); - reads standard input")->required();
+  CLI::Option* fmt_check = fmt_cmd->add_flag("--check", fmt_args.check,
+                                             "Change nothing; exit 1 when a file is not in canonical layout");
+  fmt_cmd->add_flag("--write,-w", fmt_args.write, "Rewrite the files in place (atomically; never a file with errors)")
+      ->excludes(fmt_check);
+  fmt_cmd->footer(
+      "\nWithout --check or --write, prints the formatted worksheet (one file).\n"
+      "Exit status: 0 done (or all canonical); 1 --check found a file to reformat; 2 a file has errors.");
+
+  std::string textconv_file;
+  int textconv_digits = 6;
+  CLI::App* textconv_cmd = app.add_subcommand(
+      "textconv", "Print a worksheet with its recalculated results, for git's diff driver (see docs/review.md)");
+  textconv_cmd->add_option("FILE", textconv_file, "The worksheet (.calc)")->required();
+  textconv_cmd->add_option("--digits", textconv_digits, "Significant digits of the results (1 to 15)")
+      ->check(CLI::Range(1, 15))
+      ->default_str("6");
+  textconv_cmd->footer(
+      "\nSet up once per repository:\n"
+      "  git config diff.calctrail.textconv \"calctrail textconv\"\n"
+      "  echo '*.calc diff=calctrail' >> .gitattributes");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -80,6 +128,9 @@ int main(int argc, char** argv) {
     if (check_cmd->parsed()) return runCheck(check);
     if (fn_cmd->parsed()) return runFunctions(fn_name, fn_format);
     if (units_cmd->parsed()) return runUnits(units_format);
+    if (diff_cmd->parsed()) return runDiff(diff);
+    if (fmt_cmd->parsed()) return runFmt(fmt_args);
+    if (textconv_cmd->parsed()) return runTextconv(textconv_file, textconv_digits);
   } catch (const std::exception& e) {
     std::cerr << "calctrail: internal error: " << e.what() << "\n";
     return kExitError;

@@ -3,7 +3,9 @@
 
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
+#include "engine/report/html_renderer.h"
 #include "engine/report/json_renderer.h"
+#include "engine/report/markdown_renderer.h"
 #include "engine/report/text_renderer.h"
 #include "engine/report/trail.h"
 
@@ -20,7 +22,10 @@ int runReport(const ReportArgs& args) {
     return kExitError;
   }
   const Trail trail = buildTrail(*calc, args.digits);
-  const std::string text = args.format == "json" ? renderJson(*calc, trail) : renderText(trail);
+  const std::string text = args.format == "json"   ? renderJson(*calc, trail)
+                           : args.format == "md"   ? renderMarkdown(trail)
+                           : args.format == "html" ? renderHtml(trail)
+                                                   : renderText(trail);
   if (args.output.empty() || args.output == "-") {
     std::fwrite(text.data(), 1, text.size(), stdout);
     std::fflush(stdout);

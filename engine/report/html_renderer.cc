@@ -1,0 +1,462 @@
+#include "engine/report/html_renderer.h"
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <string_view>
+#include <vector>
+
+#include "engine/report/mathml.h"
+#include "engine/report/power_of_ten.h"
+#include "engine/report/xml_escape.h"
+
+namespace calctrail {
+
+namespace {
+
+// Sober print styling: black on white, serif system fonts, no colour that
+// carries meaning. Page headers use CSS @page margin boxes (Chromium 131 and
+// later); the @page rules that carry the worksheet's own text follow in
+// pageRules().
+constexpr std::string_view kStyle = R"css(
+:root { color: #000; background: #fff; }
+body { font-family: "Liberation Serif", "Times New Roman", Times, "DejaVu Serif", serif; font-size: 10pt;
+  line-height: 1.3; max-width: 180mm; margin: 8mm auto; padding: 0 6mm; }
+math { font-family: "STIX Two Math", "Cambria Math", "Latin Modern Math", "DejaVu Math TeX Gyre", math; }
+code { font-family: "DejaVu Sans Mono", "Liberation Mono", monospace; font-size: 0.85em; }
+h1 { font-size: 1.55em; margin: 0 0 0.4em; }
+h2 { font-size: 1.2em; margin: 1.4em 0 0.5em; padding-bottom: 0.15em; border-bottom: 1pt solid #000; }
+h3 { font-size: 1.05em; margin: 1.2em 0 0.4em; }
+h2, h3 { break-after: avoid; }
+table { border-collapse: collapse; width: 100%; }
+th, td { text-align: left; vertical-align: baseline; padding: 0.2em 0.5em 0.2em 0; }
+thead th { font-size: 0.9em; border-bottom: 0.75pt solid #000; }
+tbody tr { break-inside: avoid; }
+tbody td { border-bottom: 0.25pt solid #999; }
+tr.group th { padding-top: 0.6em; font-style: italic; font-weight: normal; border-bottom: 0.25pt solid #999; }
+td.value { white-space: nowrap; }
+table.meta { width: auto; margin-bottom: 0.8em; }
+table.meta th { font-weight: normal; padding-right: 1.5em; }
+table.meta td { border: none; }
+code.hash { word-break: break-all; }
+.verdict { border: 1pt solid #000; padding: 0.5em 0.8em 0.7em; margin: 1em 0 1.2em; break-inside: avoid; }
+.verdict h2 { margin-top: 0.2em; border: none; }
+.verdict.has-fail { border-width: 2.5pt; }
+.verdict-line { font-size: 1.15em; font-weight: bold; margin: 0 0 0.6em; }
+.fail-mark { font-weight: bold; border: 1.5pt solid #000; padding: 0 0.25em; }
+tr.fail td { font-weight: bold; }
+.note { margin: 0.4em 0 0.6em; }
+.step { margin: 0.6em 0 0.7em 0.8em; break-inside: avoid; }
+.step-head { margin: 0 0 0.2em; }
+.step-head .desc { margin-left: 0.5em; }
+.eq { display: grid; grid-template-columns: max-content max-content minmax(0, 1fr); column-gap: 0.4em;
+  align-items: baseline; margin-left: 1.2em; }
+.eq .lhs { grid-column: 1; }
+.eq .rel { grid-column: 2; }
+.eq .rhs { grid-column: 3; min-width: 0; overflow-wrap: anywhere; }
+.eq math[display="block"] { display: inline math; math-style: normal; margin: 0.15em 0; }
+.eq mfrac > * { math-style: normal; }
+.broken .cont { padding-left: 1.5em; }
+.result { font-weight: bold; }
+.call { margin: 0.4em 0 0.2em 2.4em; padding-left: 0.7em; border-left: 0.75pt solid #000; font-size: 0.92em; }
+.call p { margin: 0.15em 0; }
+.call .eq { margin-left: 0.4em; }
+.source { font-style: italic; }
+.cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.4em; margin-top: 1.4em; break-inside: avoid; }
+.cautions h2 { border: none; margin-top: 0.5em; }
+.cautions li, .warnings li { margin-bottom: 0.3em; }
+.signoff { break-inside: avoid; margin-top: 1.6em; }
+table.signatures th, table.signatures td { border: 0.75pt solid #000; padding: 0.35em 0.5em; }
+table.signatures tbody td, table.signatures tbody th { height: 2.6em; vertical-align: top; }
+table.signatures td.sign { width: 38%; }
+.end { margin-top: 1.2em; text-align: center; font-style: italic; }
+@media print {
+  body { max-width: none; margin: 0; padding: 0; }
+  * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+}
+@page { margin: 20mm 16mm 18mm 16mm; }
+)css";
+
+// Room for a formula beside its symbol at full size, in em (the text width
+// of A4 with the page margins, less the step indents).
+constexpr double kFormulaRoomEm = 38.0;
+
+size_t codepointAt(const std::string& s, size_t i, char32_t* cp) {
+  const auto b = static_cast<unsigned char>(s[i]);
+  size_t n = b < 0x80 ? 1 : b < 0xE0 ? 2 : b < 0xF0 ? 3 : 4;
+  n = std::min(n, s.size() - i);
+  char32_t c = n == 1 ? b : b & (0x7F >> n);
+  for (size_t k = 1; k < n; ++k) c = (c << 6) | (static_cast<unsigned char>(s[i + k]) & 0x3F);
+  *cp = c;
+  return n;
+}
+
+bool superscriptDigit(char32_t c) { return c == 0x2070 || c == 0xB9 || c == 0xB2 || c == 0xB3 || (c >= 0x2074 && c <= 0x2079); }
+bool numberEnd(char32_t c) { return (c >= '0' && c <= '9') || superscriptDigit(c); }
+bool unitStart(char32_t c) {
+  return (c < 0x80 && std::isalpha(static_cast<int>(c))) || c == 0xB0 || c == '%' || c == 0xB5 || c == 0x3BC ||
+         c == 0x3A9 || c == 0xD7;
+}
+
+// A value or substituted line for people, as HTML: "1.5e9" as 1.5 × 10⁹,
+// "^2" as ², the minus sign, and no line break between a number and its unit.
+std::string human(const std::string& raw) {
+  static const char* const sup[] = {"\u2070", "\u00B9", "\u00B2", "\u00B3", "\u2074",
+                                    "\u2075", "\u2076", "\u2077", "\u2078", "\u2079"};
+  const std::string s = timesTenPowers(raw);
+  std::string out;
+  char32_t prev = 0;
+  for (size_t i = 0; i < s.size();) {
+    char32_t c;
+    const size_t n = codepointAt(s, i, &c);
+    const bool next_digit = i + 1 < s.size() && std::isdigit(static_cast<unsigned char>(s[i + 1]));
+    if (c == '^') {
+      // An integer power as a superscript: (33.00 mm)^2 -> (33.00 mm)².
+      size_t j = i + 1;
+      const bool neg = j < s.size() && s[j] == '-';
+      if (neg) ++j;
+      size_t k = j;
+      while (k < s.size() && std::isdigit(static_cast<unsigned char>(s[k]))) ++k;
+      if (k > j && (k == s.size() || !(std::isalnum(static_cast<unsigned char>(s[k])) || s[k] == '.'))) {
+        if (neg) out += "\u207B";
+        for (size_t d = j; d < k; ++d) out += sup[s[d] - '0'];
+        prev = 0x2070;
+        i = k;
+        continue;
+      }
+    }
+    if (c == '-' && (prev == ' ' || prev == '(' || prev == 0 || next_digit)) {
+      out += "\u2212";  // a minus sign, not a hyphen
+    } else if (c == ' ') {
+      char32_t next = 0;
+      if (i + 1 < s.size()) codepointAt(s, i + 1, &next);
+      const bool bind = (numberEnd(prev) && unitStart(next)) || prev == 0xD7;
+      out += bind ? "&nbsp;" : " ";
+    } else {
+      out += escapeXml(s.substr(i, n));
+    }
+    prev = c;
+    i += n;
+  }
+  return out;
+}
+
+std::string esc(const std::string& s) { return escapeXml(s); }
+
+// A CSS string literal; "<" is escaped so that no text can close the <style>.
+std::string cssString(const std::string& s) {
+  std::string out = "\"";
+  for (char c : s) {
+    if (c == '"' || c == '\\') out += '\\', out += c;
+    else if (c == '<') out += "\\3C ";
+    else if (c == '\n' || c == '\r') out += ' ';
+    else out += c;
+  }
+  return out + "\"";
+}
+
+std::string meta(const Trail& t, const std::string& key) {
+  for (const auto& [k, v] : t.meta)
+    if (k == key) return v;
+  return "";
+}
+
+std::string title(const Trail& t) { return t.title.empty() ? "Calculation trail" : t.title; }
+
+// The running header and footer of every printed page.
+std::string pageRules(const Trail& t) {
+  std::string ident;
+  if (!meta(t, "calc").empty()) ident += "calc " + meta(t, "calc") + " \u00B7 ";
+  if (!meta(t, "revision").empty()) ident += "revision " + meta(t, "revision") + " \u00B7 ";
+  const std::string font = "font-family: \"Liberation Serif\", \"Times New Roman\", serif; ";
+  const std::string box = font + "font-size: 8.5pt; ", small = font + "font-size: 7pt; ";
+  std::string out = "@page {\n";
+  out += "  @top-left { content: " + cssString(title(t)) + "; " + box + "vertical-align: bottom; padding-bottom: 4mm; }\n";
+  out += "  @top-right { content: " + cssString(ident + "page ") + " counter(page) \" of \" counter(pages); " + box +
+         "vertical-align: bottom; padding-bottom: 4mm; white-space: nowrap; }\n";
+  out += "  @bottom-left { content: " + cssString(t.path + " \u00B7 SHA-256 " + t.sha256) + "; " + small +
+         "vertical-align: top; padding-top: 4mm; }\n";
+  out += "}\n";
+  return out;
+}
+
+std::string inlineMath(const std::string& elements) { return "<math>" + elements + "</math>"; }
+
+// One line of typeset formula, shrunk when it would not fit `room` em.
+std::string mathLine(const std::string& elements, double need, double room) {
+  std::string style;
+  if (need > room) {
+    const int percent = std::max(1, static_cast<int>(std::floor(100.0 * room / need)));
+    style = " style=\"font-size: " + std::to_string(percent) + "%\"";
+  }
+  return "<math display=\"block\"" + style + ">" + elements + "</math>";
+}
+
+// A formula beside its symbol. MathML does not break lines, so a long
+// formula is broken here between its top-level terms (before a sign where
+// possible, else before a product dot), each continuation starting with its
+// operator; a piece that alone is too wide is shrunk. Nothing is cut off.
+std::string displayMath(const Expr& e, double symbol_em) {
+  // However long the symbol, a formula keeps a readable room.
+  const double room = std::max(12.0, kFormulaRoomEm - symbol_em);
+  const double need = mathmlWidth(e);
+  const std::vector<InfixPiece> pieces = infixPieces(e);
+  if (need <= room || pieces.size() < 2) return mathLine(mathmlExpr(e), need, room);
+  constexpr double kIndent = 1.5;  // continuation lines, in em
+  std::vector<double> widths;
+  for (const InfixPiece& p : pieces) widths.push_back(mathmlWidth(*p.expr) + (p.op.empty() ? 0.0 : 1.1));
+  std::vector<std::pair<size_t, size_t>> lines;  // [first, last) pieces
+  size_t first = 0;
+  double width = 0;
+  for (size_t i = 0; i < pieces.size(); ++i) {
+    const double line_room = room - (lines.empty() ? 0.0 : kIndent);
+    if (i > first && width + widths[i] > line_room) {
+      size_t cut = i;
+      for (size_t k = i + 1; k > first + 1; --k)
+        if (pieces[k - 1].op != "\u00B7") {
+          cut = k - 1;
+          break;
+        }
+      lines.emplace_back(first, cut);
+      first = cut;
+      width = 0;
+      for (size_t k = first; k < i; ++k) width += widths[k];
+    }
+    width += widths[i];
+  }
+  lines.emplace_back(first, pieces.size());
+  std::string out = "<div class=\"broken\">";
+  for (size_t l = 0; l < lines.size(); ++l) {
+    std::string elements;
+    double w = 0;
+    for (size_t k = lines[l].first; k < lines[l].second; ++k) {
+      if (!pieces[k].op.empty()) elements += "<mo>" + pieces[k].op + "</mo>";
+      elements += mathmlExpr(*pieces[k].expr);
+      w += widths[k];
+    }
+    out += std::string("<div") + (l ? " class=\"cont\"" : "") + ">" +
+           mathLine(elements, w, room - (l ? kIndent : 0.0)) + "</div>";
+  }
+  return out + "</div>";
+}
+
+const char* relationEntity(const std::string& op) {
+  if (op == "<") return "&lt;";
+  if (op == "<=") return "\u2264";
+  if (op == ">") return "&gt;";
+  if (op == ">=") return "\u2265";
+  return "?";
+}
+
+std::string conditionMath(const TrailCheck& c) {
+  if (!c.lhs_expr || !c.rhs_expr) return "<code>" + esc(c.condition) + "</code>";
+  return inlineMath("<mrow>" + mathmlExpr(*c.lhs_expr) + "<mo>" + relationEntity(c.op) + "</mo>" +
+                    mathmlExpr(*c.rhs_expr) + "</mrow>");
+}
+
+std::string checkValues(const TrailCheck& c) {
+  return human(c.lhs) + " " + relationEntity(c.op) + " " + human(c.rhs);
+}
+
+std::string header(const Trail& t) {
+  std::string out = "<header class=\"title-block\">\n<h1>" + esc(title(t)) + "</h1>\n<table class=\"meta\">\n";
+  for (const auto& [key, value] : t.meta) out += "<tr><th>" + esc(key) + "</th><td>" + esc(value) + "</td></tr>\n";
+  out += "<tr><th>file</th><td><code>" + esc(t.path) + "</code></td></tr>\n";
+  out += "<tr><th>SHA-256</th><td><code class=\"hash\">" + esc(t.sha256) + "</code></td></tr>\n";
+  out += "</table>\n</header>\n";
+  return out;
+}
+
+// The verdict and every check, first: a failed check must be impossible to
+// miss, so it is marked in words and weight, never by colour alone.
+std::string checksSummary(const Trail& t) {
+  std::string out = std::string("<section class=\"verdict ") + (t.failed ? "has-fail" : "all-pass") + "\">\n";
+  out += "<h2>Design checks</h2>\n";
+  if (t.checks.empty()) {
+    out += "<p class=\"verdict-line\">This worksheet has no design checks.</p>\n</section>\n";
+    return out;
+  }
+  if (t.failed == 0) {
+    out += "<p class=\"verdict-line\">All " + std::to_string(t.passed) + " checks pass.</p>\n";
+  } else {
+    out += "<p class=\"verdict-line\"><span class=\"fail-mark\">FAIL</span> " + std::to_string(t.failed) + " of " +
+           std::to_string(t.checks.size()) + " checks fail:";
+    for (const TrailCheck& c : t.checks)
+      if (!c.passed) out += " <code>" + esc(c.name) + "</code>";
+    out += "</p>\n";
+  }
+  out += "<table class=\"checks\">\n<thead><tr><th>State</th><th>Check</th><th>Condition</th><th>Values</th>"
+         "<th>Note</th></tr></thead>\n<tbody>\n";
+  for (const TrailCheck& c : t.checks) {
+    out += std::string("<tr class=\"") + (c.passed ? "pass" : "fail") + "\">";
+    out += c.passed ? "<td>pass</td>" : "<td><span class=\"fail-mark\">FAIL</span></td>";
+    out += "<td><code>" + esc(c.name) + "</code></td><td>" + conditionMath(c) + "</td><td>" + checkValues(c) +
+           "</td><td>" + esc(c.description) + "</td></tr>\n";
+  }
+  out += "</tbody>\n</table>\n</section>\n";
+  return out;
+}
+
+// Inputs or results: symbol, name, value, notes, grouped under sections.
+std::string quantityTable(const Trail& t, bool inputs) {
+  std::string out = "<table class=\"quantities\">\n<thead><tr><th>Symbol</th><th>Name</th><th>";
+  out += inputs ? "Value</th><th>Notes" : "Result</th><th>Description";
+  out += "</th></tr></thead>\n<tbody>\n";
+  std::string section = "\x01";
+  for (const TrailStep& s : t.steps) {
+    if (s.input != inputs) continue;
+    if (s.section != section) {
+      section = s.section;
+      if (!section.empty()) out += "<tr class=\"group\"><th colspan=\"4\">" + esc(section) + "</th></tr>\n";
+    }
+    std::string notes = esc(s.description);
+    if (inputs && s.given.empty() && s.formula != s.result)
+      notes = "= <code>" + esc(s.formula) + "</code>" + (notes.empty() ? "" : "; " + notes);
+    if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("<em>(set on the command line)</em>");
+    const std::string& value = inputs && !s.given.empty() ? s.given : s.result;
+    out += "<tr><td>" + inlineMath(mathmlName(s.name)) + "</td><td><code>" + esc(s.name) +
+           "</code></td><td class=\"value\">" + human(value) + "</td><td>" + notes + "</td></tr>\n";
+  }
+  out += "</tbody>\n</table>\n";
+  return out;
+}
+
+// symbol = formula / = substituted / = result, the equals signs aligned.
+std::string equation(const std::string& lhs, const std::string& formula, const std::string& substituted,
+                     const std::string& result) {
+  std::string out = "<div class=\"eq\">\n";
+  out += "<div class=\"lhs\">" + lhs + "</div><div class=\"rel\">=</div><div class=\"rhs\">" + formula + "</div>\n";
+  if (!substituted.empty())
+    out += "<div class=\"rel\">=</div><div class=\"rhs subst\">" + substituted + "</div>\n";
+  if (!result.empty()) out += "<div class=\"rel\">=</div><div class=\"rhs result\">" + result + "</div>\n";
+  out += "</div>\n";
+  return out;
+}
+
+std::string callAudit(const TrailCall& c) {
+  std::string out = "<div class=\"call\">\n<p>where <code>" + esc(c.signature) + "</code></p>\n";
+  if (c.formula_is_expression) {
+    const std::string formula = c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
+                                               : esc(c.pretty);
+    const std::string subst = !c.substituted.empty() && c.substituted != c.pretty ? human(c.substituted) : "";
+    out += equation("<code>" + esc(c.name) + "</code>", formula, subst, human(c.result));
+  } else {
+    out += "<p>" + esc(c.formula) + "</p>\n";
+    if (!c.arguments.empty()) out += "<p>with " + human(c.arguments) + "</p>\n";
+    if (!c.result.empty()) out += "<p>= " + human(c.result) + "</p>\n";
+  }
+  out += "<p class=\"source\">Source: " + esc(c.source) + "</p>\n</div>\n";
+  return out;
+}
+
+std::string step(const TrailStep& s) {
+  std::string out = "<div class=\"step\" id=\"q-" + esc(s.name) + "\">\n<p class=\"step-head\"><code>" + esc(s.name) +
+                    "</code>";
+  if (!s.description.empty()) out += "<span class=\"desc\">" + esc(s.description) + "</span>";
+  if (s.overridden) out += " <em>(set on the command line)</em>";
+  out += "</p>\n";
+  const double symbol_em = mathmlNameWidth(s.name) + 2;
+  const std::string formula = s.expr ? displayMath(*s.expr, symbol_em) : esc(s.pretty);
+  const std::string subst = s.substituted != s.pretty && s.substituted != s.result ? human(s.substituted) : "";
+  out += equation(inlineMath(mathmlName(s.name)), formula, subst, human(s.result));
+  for (const TrailCall& c : s.calls) out += callAudit(c);
+  out += "</div>\n";
+  return out;
+}
+
+std::string calculation(const Trail& t) {
+  std::string out = "<section class=\"calculation\">\n<h2>Calculation</h2>\n";
+  for (const TrailBlock& b : t.blocks) {
+    if (b.kind == TrailBlock::Section) out += "<h3>" + esc(b.text) + "</h3>\n";
+    else if (b.kind == TrailBlock::Note) out += "<p class=\"note\">" + esc(b.text) + "</p>\n";
+    else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) out += step(t.steps[b.index]);
+  }
+  out += "</section>\n";
+  return out;
+}
+
+// Every library function the formulas call, once, with its published source.
+std::string sources(const Trail& t) {
+  std::string out = "<section class=\"sources\">\n<h2>Sources</h2>\n";
+  std::vector<std::string> seen;
+  std::string rows;
+  for (const TrailStep& s : t.steps) {
+    for (const TrailCall& c : s.calls) {
+      if (std::find(seen.begin(), seen.end(), c.name) != seen.end()) continue;
+      seen.push_back(c.name);
+      std::string used;
+      for (const TrailStep& u : t.steps)
+        for (const TrailCall& uc : u.calls)
+          if (uc.name == c.name && used.find("<code>" + esc(u.name) + "</code>") == std::string::npos)
+            used += (used.empty() ? "" : ", ") + ("<code>" + esc(u.name) + "</code>");
+      rows += "<tr><td><code>" + esc(c.signature) + "</code></td><td>" + used + "</td><td>" + esc(c.source) +
+              "</td></tr>\n";
+    }
+  }
+  if (seen.empty()) {
+    out += "<p>No library function is called: every formula above is written out in the worksheet itself.</p>\n";
+  } else {
+    out += "<table class=\"functions\">\n<thead><tr><th>Library function</th><th>Used for</th><th>Source</th></tr>"
+           "</thead>\n<tbody>\n" + rows + "</tbody>\n</table>\n";
+  }
+  out += "</section>\n";
+  return out;
+}
+
+// The block a checker signs: the signature covers these worksheet bytes.
+std::string signOff(const Trail& t) {
+  auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : esc(v); };
+  std::string out = "<section class=\"signoff\">\n<h2>Sign-off</h2>\n<table class=\"meta\">\n";
+  out += "<tr><th>calc</th><td>" + given(meta(t, "calc")) + "</td></tr>\n";
+  out += "<tr><th>revision</th><td>" + given(meta(t, "revision")) + "</td></tr>\n";
+  out += "<tr><th>worksheet</th><td><code>" + esc(t.path) + "</code></td></tr>\n";
+  out += "<tr><th>SHA-256</th><td><code class=\"hash\">" + esc(t.sha256) + "</code></td></tr>\n</table>\n";
+  out += "<p>The signatures below cover the worksheet with this SHA-256 only. Any change to it, however small, "
+         "changes the SHA-256 and needs a new sign-off.</p>\n";
+  out += "<table class=\"signatures\">\n<thead><tr><th></th><th>Name</th><th>Signature</th><th>Date</th></tr>"
+         "</thead>\n<tbody>\n";
+  out += "<tr><th>Prepared</th><td>" + esc(meta(t, "prepared")) + "</td><td class=\"sign\"></td><td>" +
+         esc(meta(t, "date")) + "</td></tr>\n";
+  out += "<tr><th>Checked</th><td>" + esc(meta(t, "checked")) + "</td><td class=\"sign\"></td><td></td></tr>\n";
+  out += "</tbody>\n</table>\n";
+  std::string end = "End of calculation";
+  if (!meta(t, "calc").empty()) end += " " + meta(t, "calc");
+  if (!meta(t, "revision").empty()) end += ", revision " + meta(t, "revision");
+  out += "<p class=\"end\">" + esc(end) + ".</p>\n</section>\n";
+  return out;
+}
+
+}  // namespace
+
+std::string renderHtml(const Trail& t) {
+  std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
+  out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
+  out += "<meta name=\"generator\" content=\"calctrail\">\n";
+  std::string doc_title = title(t);
+  if (!meta(t, "calc").empty()) doc_title = meta(t, "calc") + " " + doc_title;
+  out += "<title>" + esc(doc_title) + "</title>\n<style>";
+  out += kStyle;
+  out += pageRules(t);
+  out += "</style>\n</head>\n<body>\n";
+  out += header(t);
+  out += checksSummary(t);
+  out += "<section class=\"inputs\">\n<h2>Inputs</h2>\n" + quantityTable(t, true) + "</section>\n";
+  out += calculation(t);
+  bool any_result = false;
+  for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
+  if (any_result) out += "<section class=\"results\">\n<h2>Results</h2>\n" + quantityTable(t, false) + "</section>\n";
+  if (!t.warnings.empty()) {
+    out += "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n";
+    for (const std::string& w : t.warnings) out += "<li><code>" + esc(w) + "</code></li>\n";
+    out += "</ul>\n</section>\n";
+  }
+  out += "<section class=\"cautions\">\n<h2>Cautions</h2>\n<ul>\n";
+  for (const std::string& c : t.cautions) out += "<li>" + esc(c) + "</li>\n";
+  out += "</ul>\n</section>\n";
+  out += sources(t);
+  out += signOff(t);
+  out += "</body>\n</html>\n";
+  return out;
+}
+
+}  // namespace calctrail

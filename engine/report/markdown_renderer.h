@@ -1,0 +1,14 @@
+// The calculation trail as Markdown (CommonMark with GitHub tables), for
+// pasting into a pull request or a wiki: the text trail's content in its
+// order, with headings, tables, and formulas in code spans. docs/reports.md.
+#pragma once
+
+#include <string>
+
+#include "engine/report/trail.h"
+
+namespace calctrail {
+
+std::string renderMarkdown(const Trail& trail);
+
+}  // namespace calctrail

@@ -1,0 +1,308 @@
+// Markdown and HTML trails: the golden file of every demo (read by a person,
+// compared byte for byte; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read
+// the diff), plus the rules those formats keep: escaping, MathML typesetting,
+// engineering exponents, the checks summary first and the sign-off last.
+#include <catch2/catch.hpp>
+
+#include <cstdlib>
+
+#include "engine/report/html_renderer.h"
+#include "engine/report/markdown_renderer.h"
+#include "engine/report/mathml.h"
+#include "engine/report/power_of_ten.h"
+#include "engine/report/trail.h"
+#include "engine/report/xml_escape.h"
+#include "engine/sheet/expr_parser.h"
+#include "tests/test_support.h"
+
+using namespace calctrail;
+using namespace calctrail::test;
+
+namespace {
+
+// The demo calculated under the path the CLI is given ("worksheets/NAME.calc"),
+// so that no machine path reaches a golden file.
+std::unique_ptr<Calculation> demo(const std::string& name) {
+  const std::string display = "worksheets/" + name + ".calc";
+  auto c = Calculation::fromText(display, readFile(repoPath(display)));
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  return c;
+}
+
+void compareGolden(const std::string& actual, const std::string& golden) {
+  const std::string path = repoPath("tests/golden/" + golden);
+  if (std::getenv("CALCTRAIL_UPDATE_GOLDEN")) writeFile(path, actual);
+  const std::string expected = readFile(path);
+  INFO("golden file tests/golden/" << golden << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
+  CHECK(actual == expected);
+}
+
+size_t count(const std::string& s, const std::string& part) {
+  size_t n = 0;
+  for (size_t at = s.find(part); at != std::string::npos; at = s.find(part, at + part.size())) ++n;
+  return n;
+}
+
+// A formula of its own, parsed as the worksheet parser would.
+struct Parsed {
+  std::unique_ptr<Calculation> calc;
+  const Expr* expr = nullptr;
+};
+Parsed formula(const std::string& sheet, const std::string& name) {
+  Parsed p;
+  p.calc = calc(sheet);
+  INFO(diagnostics(*p.calc));
+  const int i = p.calc->sheet.find(name);
+  REQUIRE(i >= 0);
+  p.expr = p.calc->sheet.quantities[i].expr.get();
+  return p;
+}
+
+}  // namespace
+
+TEST_CASE("golden: canal gate hoist, Markdown and HTML trails", "[report][golden]") {
+  auto c = demo("canal-gate-hoist");
+  const Trail t = buildTrail(*c, 4);
+  compareGolden(renderMarkdown(t), "canal-gate-hoist.md");
+  compareGolden(renderHtml(t), "canal-gate-hoist.html");
+}
+
+TEST_CASE("golden: leveling jack, Markdown and HTML trails", "[report][golden]") {
+  auto c = demo("leveling-jack");
+  const Trail t = buildTrail(*c, 4);
+  compareGolden(renderMarkdown(t), "leveling-jack.md");
+  compareGolden(renderHtml(t), "leveling-jack.html");
+}
+
+TEST_CASE("golden: twin-screw lift, Markdown and HTML trails", "[report][golden]") {
+  auto c = demo("twin-screw-lift");
+  const Trail t = buildTrail(*c, 4);
+  compareGolden(renderMarkdown(t), "twin-screw-lift.md");
+  compareGolden(renderHtml(t), "twin-screw-lift.html");
+}
+
+TEST_CASE("golden files carry no machine path", "[report]") {
+  for (const char* f : {"canal-gate-hoist.md", "canal-gate-hoist.html", "leveling-jack.md", "leveling-jack.html",
+                        "twin-screw-lift.md", "twin-screw-lift.html"}) {
+    const std::string text = readFile(repoPath(std::string("tests/golden/") + f));
+    INFO(f);
+    REQUIRE_FALSE(text.empty());
+    CHECK(text.find("/tmp") == std::string::npos);
+    CHECK(text.find("/work") == std::string::npos);
+    CHECK(text.find("/home") == std::string::npos);
+  }
+}
+
+TEST_CASE("every human format carries the SHA-256, the cautions and the verdict", "[report]") {
+  auto c = demo("leveling-jack");
+  const Trail t = buildTrail(*c, 4);
+  REQUIRE(t.failed == 1);  // the demo shows a failed check on purpose
+  const std::string counts = "1 of " + std::to_string(t.checks.size());
+  for (const std::string& out : {renderMarkdown(t), renderHtml(t)}) {
+    CHECK(out.find(t.sha256) != std::string::npos);
+    for (const std::string& caution : t.cautions) CHECK(out.find(caution) != std::string::npos);
+    CHECK(out.find(counts) != std::string::npos);
+  }
+  const std::string md = renderMarkdown(t);
+  CHECK(md.find("| **FAIL** | **`bearing`** |") != std::string::npos);
+  CHECK(md.find("**Checks: " + counts + " FAIL:** `bearing`") < md.find("## Inputs"));
+}
+
+TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "[report]") {
+  auto c = demo("leveling-jack");
+  const Trail t = buildTrail(*c, 4);
+  const std::string html = renderHtml(t);
+  const size_t checks = html.find("<section class=\"verdict has-fail\">");
+  REQUIRE(checks != std::string::npos);
+  CHECK(checks < html.find("<h2>Inputs</h2>"));
+  CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Cautions</h2>"));
+  CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Sources</h2>"));
+  // The failed check is marked in words, not only by style.
+  CHECK(html.find("<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
+        std::string::npos);
+  CHECK(count(html, "<td>pass</td>") == static_cast<size_t>(t.passed));
+  for (const char* banned : {"<script", "http://", "https://", "@import", "url(", "<link", "<img", "<iframe"})
+    CHECK(html.find(banned) == std::string::npos);
+  // Page headers: margin boxes with title, calc number, revision, page n of N.
+  CHECK(html.find("@top-left { content: \"Machine leveling jack: Acme screw turned by hand\"") != std::string::npos);
+  const std::string calc_no = c->sheet.meta.get("calc"), revision = c->sheet.meta.get("revision");
+  REQUIRE_FALSE(calc_no.empty());
+  REQUIRE_FALSE(revision.empty());
+  CHECK(html.find("content: \"calc " + calc_no + " \u00B7 revision " + revision +
+                  " \u00B7 page \" counter(page) \" of \" counter(pages)") != std::string::npos);
+  // Sign-off from the metadata; `checked:` is empty, so its name cell is blank to fill in.
+  CHECK(html.find("<tr><th>Prepared</th><td>" + c->sheet.meta.get("prepared") + "</td><td class=\"sign\"></td><td>" +
+                  c->sheet.meta.get("date") + "</td></tr>") != std::string::npos);
+  CHECK(html.find("<tr><th>Checked</th><td></td><td class=\"sign\"></td><td></td></tr>") != std::string::npos);
+}
+
+TEST_CASE("HTML: worksheet text is escaped everywhere", "[report]") {
+  const std::string sheet =
+      "title: Gate <b>&</b> \"hoist\" </style><script>alert(1)</script>\n"
+      "calc: A&B \\ \"1\"\n"
+      "revision: <r>\n"
+      "section Loads <i>\n"
+      "note Watch <this> & that.\n"
+      "F = 2 kN  # weight <kg> & \"more\"\n"
+      "G [kN] = F * 2  # doubled <x>\n"
+      "check c_1: G < 1 kN  # must <fail> & show\n";
+  auto c = calc(sheet);
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  const std::string html = renderHtml(t);
+  CHECK(html.find("<script") == std::string::npos);
+  CHECK(html.find("<b>") == std::string::npos);
+  CHECK(html.find("<i>") == std::string::npos);
+  CHECK(html.find("<this>") == std::string::npos);
+  CHECK(html.find("<fail>") == std::string::npos);
+  CHECK(html.find("Gate &lt;b&gt;&amp;&lt;/b&gt; &quot;hoist&quot;") != std::string::npos);
+  CHECK(html.find("weight &lt;kg&gt; &amp; &quot;more&quot;") != std::string::npos);
+  // Only the stylesheet's own </style> closes it: the title in the @page
+  // rules cannot end the style element early.
+  CHECK(count(html, "</style>") == 1);
+  CHECK(html.find("content: \"Gate \\3C b>&\\3C /b> \\\"hoist\\\" \\3C /style>\\3C script>alert(1)\\3C /script>\"") !=
+        std::string::npos);
+  CHECK(html.find("calc A&B \\\\ \\\"1\\\" \u00B7 revision \\3C r> \u00B7 page ") != std::string::npos);
+  // The check's relation in MathML is an entity, not a tag opener.
+  CHECK(html.find("<mo>&lt;</mo>") != std::string::npos);
+
+  const std::string md = renderMarkdown(t);
+  CHECK(md.find("# Gate \\<b\\>&\\</b\\> \"hoist\" \\</style\\>\\<script\\>alert(1)\\</script\\>") !=
+        std::string::npos);
+  CHECK(md.find("weight \\<kg\\> & \"more\"") != std::string::npos);
+  CHECK(md.find("| **FAIL** | **`c_1`** | `G < 1 kN` |") != std::string::npos);
+}
+
+TEST_CASE("escapeXml", "[report]") {
+  CHECK(escapeXml("a<b>&\"c\"'d'") == "a&lt;b&gt;&amp;&quot;c&quot;&#39;d&#39;");
+  CHECK(escapeXml("N\u00B7m \u03C3") == "N\u00B7m \u03C3");
+}
+
+TEST_CASE("engineering exponents shown as powers of ten", "[report]") {
+  CHECK(timesTenPowers("1.500e9 W") == "1.500 \u00D7 10\u2079 W");
+  CHECK(timesTenPowers("250.0e-9 m") == "250.0 \u00D7 10\u207B\u2079 m");
+  CHECK(timesTenPowers("12.00e12") == "12.00 \u00D7 10\u00B9\u00B2");
+  CHECK(timesTenPowers("1e-03 + 2E6") == "1 \u00D7 10\u207B\u00B3 + 2 \u00D7 10\u2076");
+  CHECK(timesTenPowers("(4.2e-6 m)^2") == "(4.2 \u00D7 10\u207B\u2076 m)^2");
+  // Names and words are left alone.
+  CHECK(timesTenPowers("x1e3 + d_2e4 + 3 each + 7 elements") == "x1e3 + d_2e4 + 3 each + 7 elements");
+  CHECK(timesTenPowers("15.94 N\u00B7m") == "15.94 N\u00B7m");
+}
+
+TEST_CASE("MathML: names, Greek letters, subscripts", "[report]") {
+  CHECK(mathmlName("F") == "<mi>F</mi>");
+  CHECK(mathmlName("d_m") == "<msub><mi>d</mi><mi mathvariant=\"normal\">m</mi></msub>");
+  CHECK(mathmlName("T_raise") == "<msub><mi>T</mi><mi>raise</mi></msub>");
+  CHECK(mathmlName("alpha") == "<mi>\u03B1</mi>");
+  CHECK(mathmlName("eta_gear") == "<msub><mi>\u03B7</mi><mi>gear</mi></msub>");
+  CHECK(mathmlName("sigma_vm") == "<msub><mi>\u03C3</mi><mi>vm</mi></msub>");
+  CHECK(mathmlName("Delta_x") == "<msub><mi>\u0394</mi><mi mathvariant=\"normal\">x</mi></msub>");
+  CHECK(mathmlName("F1") == "<msub><mi>F</mi><mn>1</mn></msub>");
+  CHECK(mathmlName("T_max_2") ==
+        "<msub><mi>T</mi><mrow><mi>max</mi><mo separator=\"true\">,</mo><mn>2</mn></mrow></msub>");
+  CHECK(mathmlName("f_mu") == "<msub><mi>f</mi><mi>\u03BC</mi></msub>");
+  CHECK(mathmlName("stroke") == "<mi>stroke</mi>");
+  CHECK(mathmlName("etamax") == "<mi>etamax</mi>");
+}
+
+TEST_CASE("MathML: fractions, powers, roots, units, pi, products", "[report]") {
+  auto p = formula(
+      "d_r = 30 mm\nF = 2 kN\nT = 1 [N*m]\nx [MPa] = sqrt((4 * F / (pi * d_r^2))^2 + 3 * (16 * T / (pi * d_r^3))^2)\n",
+      "x");
+  const std::string m = mathmlExpr(*p.expr);
+  CHECK(m.rfind("<msqrt>", 0) == 0);
+  // 4·F over π·d_r²: a fraction, the parentheses dropped under the bar.
+  CHECK(m.find("<mfrac><mrow><mn>4</mn><mo>\u00B7</mo><mi>F</mi></mrow>"
+               "<mrow><mi mathvariant=\"normal\">\u03C0</mi><mo>\u00B7</mo>"
+               "<msubsup><mi>d</mi><mi mathvariant=\"normal\">r</mi><mn>2</mn></msubsup></mrow></mfrac>") !=
+        std::string::npos);
+  // A squared group keeps its parentheses.
+  CHECK(m.find("<msup><mrow><mo>(</mo><mfrac>") != std::string::npos);
+
+  auto q = formula("g = 9.81 [m/s^2]\nh = 1e-3 m\na = 14.5 deg\ny = g * h * cos(a) * 95 % - -h\n", "y");
+  const std::string n = mathmlExpr(*q.expr);
+  CHECK(n.find("<mi>cos</mi><mo>&#x2061;</mo>") != std::string::npos);
+  CHECK(n.find("<mrow><mn>95</mn><mspace width=\"0.22em\"/><mi mathvariant=\"normal\">%</mi></mrow>") !=
+        std::string::npos);
+  CHECK(n.find("<mo>\u2212</mo><mrow><mo>\u2212</mo><mi>h</mi></mrow>") != std::string::npos);
+  auto g = formula("g = 9.81 [m/s^2]\n", "g");
+  CHECK(mathmlExpr(*g.expr) == "<mrow><mn>9.81</mn><mspace width=\"0.22em\"/><mi>m/s\u00B2</mi></mrow>");
+  auto h = formula("h = 1e-3 m\n", "h");
+  CHECK(mathmlExpr(*h.expr) ==
+        "<mrow><mn>1</mn><mo>\u00D7</mo><msup><mn>10</mn><mrow><mo>\u2212</mo><mn>3</mn></mrow></msup>"
+        "<mspace width=\"0.22em\"/><mi mathvariant=\"normal\">m</mi></mrow>");
+  auto a = formula("a = 14.5 deg\n", "a");
+  CHECK(mathmlExpr(*a.expr) == "<mrow><mn>14.5</mn><mi mathvariant=\"normal\">\u00B0</mi></mrow>");
+}
+
+TEST_CASE("HTML: long formulas break between terms or shrink, never overflow", "[report]") {
+  std::string sum = "a_1", product = "a_1";
+  for (int i = 0; i < 24; ++i) sum += " + a_1 * 2", product += " * (a_1 / a_1 + 2)";
+  auto c = calc("a_1 = 1 m\nlong_sum [m] = " + sum + "\nlong_product [m] = " + product +
+                "\none_fraction = (" + sum + ") / a_1\nshort [m] = a_1 * 2\n");
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  const std::string html = renderHtml(buildTrail(*c, 4));
+  auto stepOf = [&](const std::string& name, const std::string& next) {
+    const size_t at = html.find("id=\"q-" + name + "\"");
+    const size_t end = html.find("id=\"q-" + next + "\"");
+    REQUIRE(at != std::string::npos);
+    REQUIRE(end != std::string::npos);
+    return html.substr(at, end - at);
+  };
+  // A long sum: several lines, each continuation starting with its sign, at full size.
+  const std::string sum_step = stepOf("long_sum", "long_product");
+  CHECK(sum_step.find("<div class=\"broken\"><div><math display=\"block\">") != std::string::npos);
+  CHECK(count(sum_step, "<div class=\"cont\"><math display=\"block\"><mo>+</mo>") >= 2);
+  CHECK(sum_step.find("font-size") == std::string::npos);
+  // A long product breaks before a product dot, at full size.
+  const std::string product_step = stepOf("long_product", "one_fraction");
+  CHECK(count(product_step, "<div class=\"cont\"><math display=\"block\"><mo>\u00B7</mo>") >= 2);
+  CHECK(product_step.find("font-size") == std::string::npos);
+  // One fraction too wide for the page cannot break: it is shrunk.
+  const std::string fraction_step = stepOf("one_fraction", "short");
+  CHECK(fraction_step.find("<math display=\"block\" style=\"font-size: ") != std::string::npos);
+  CHECK(html.substr(html.find("id=\"q-short\"")).find("<math display=\"block\">") != std::string::npos);
+}
+
+TEST_CASE("HTML and Markdown: values for people", "[report]") {
+  auto c = calc("P = 1.5e9 W\nd = 2e-7 m\nA [m^2] = d^2\nT = -3 [N*m]\ncheck t: T < 0 [N*m]\n");
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  const std::string html = renderHtml(t);
+  CHECK(html.find("1.5&nbsp;\u00D7&nbsp;10\u2079&nbsp;W") != std::string::npos);
+  CHECK(html.find("40.00&nbsp;\u00D7&nbsp;10\u207B\u00B9\u2075&nbsp;m\u00B2") != std::string::npos);
+  CHECK(html.find("(2&nbsp;\u00D7&nbsp;10\u207B\u2077&nbsp;m)\u00B2") != std::string::npos);
+  CHECK(html.find("\u22123.000&nbsp;N\u00B7m &lt; 0&nbsp;N\u00B7m") != std::string::npos);
+  const std::string md = renderMarkdown(t);
+  CHECK(md.find("| `P` | 1.5 \u00D7 10\u2079 W |") != std::string::npos);
+  CHECK(md.find("`= (2 \u00D7 10\u207B\u2077 m)^2`") != std::string::npos);
+}
+
+TEST_CASE("HTML and Markdown: library calls are audited with their sources", "[report]") {
+  auto c = calc(
+      "F = 20 kN\nd_m = 36.5 mm\nl = 7 mm\nf = 0.15\nalpha = 15 deg\n"
+      "T [N*m] = torque_raise(F, d_m, l, f, alpha)  # raise\n"
+      "U [N*m] = torque_raise(F, d_m, l, f, alpha) * 2\n");
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  const std::string src = t.steps[5].calls.at(0).source;
+  REQUIRE_FALSE(src.empty());
+  const std::string html = renderHtml(t);
+  CHECK(html.find("<p>where <code>torque_raise(F, dm, l, f, alpha)</code></p>") != std::string::npos);
+  CHECK(html.find("<p class=\"source\">Source: " + escapeXml(src) + "</p>") != std::string::npos);
+  // The function's own formula typeset from its tree.
+  CHECK(html.find("<div class=\"lhs\"><code>torque_raise</code></div>") != std::string::npos);
+  CHECK(count(html, "<mi>dm</mi>") > 2);
+  // Sources: the function once, with both quantities that use it.
+  CHECK(html.find("<tr><td><code>torque_raise(F, dm, l, f, alpha)</code></td><td><code>T</code>, <code>U</code></td>") !=
+        std::string::npos);
+  CHECK(html.find("No library function is called") == std::string::npos);
+  const std::string md = renderMarkdown(t);
+  CHECK(md.find("> where `torque_raise(F, dm, l, f, alpha)`") != std::string::npos);
+  CHECK(md.find("> source: ") != std::string::npos);
+}
