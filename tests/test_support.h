@@ -24,6 +24,8 @@ struct Run {
 };
 // Runs the built calctrail with `args` (a shell-quoted string) in the repository root.
 Run runCli(const std::string& args);
+// The same, in the directory `dir` (a temporary git repository, say).
+Run runCliIn(const std::string& dir, const std::string& args);
 
 std::string repoPath(const std::string& relative);
 std::string readFile(const std::string& path);

@@ -1,0 +1,51 @@
+#include <cstdio>
+#include <iostream>
+#include <memory>
+
+#include "engine/calculation.h"
+#include "engine/cli/commands.h"
+#include "engine/review/diff_render.h"
+#include "engine/review/git_source.h"
+#include "engine/review/sheet_diff.h"
+
+namespace calctrail {
+
+namespace {
+// A side that cannot be read becomes a calculation holding that one error,
+// named as the user wrote the side, so both kinds of failure print alike.
+std::unique_ptr<Calculation> loadSide(const std::string& spec) {
+  std::string bytes, error;
+  if (!readSide(spec, &bytes, &error)) {
+    auto calc = std::make_unique<Calculation>();
+    calc->path = spec;
+    calc->diags.error(spec, error);
+    return calc;
+  }
+  return Calculation::fromText(spec, std::move(bytes));
+}
+}  // namespace
+
+int runDiff(const DiffArgs& args) {
+  std::unique_ptr<Calculation> sides[2] = {loadSide(args.old_side), loadSide(args.new_side)};
+  int errors = 0;
+  for (const auto& calc : sides) {
+    if (!calc->hasErrors()) continue;
+    for (const Diagnostic& d : calc->diags.list())
+      if (d.severity == Severity::Error) std::cerr << d.render();
+    errors += calc->diags.errorCount();
+  }
+  if (errors) {
+    std::cerr << errors << " error" << (errors == 1 ? "" : "s") << "; no comparison made\n";
+    return kExitError;
+  }
+  const SheetDiff d = diffCalculations(sides[0].get(), sides[1].get(), args.rtol);
+  std::string text;
+  if (args.format == "json") text = renderDiffJson(d);
+  else if (args.format == "md") text = renderDiffMarkdown(d, args.digits);
+  else text = renderDiffText(d, args.digits);
+  std::fwrite(text.data(), 1, text.size(), stdout);
+  std::fflush(stdout);
+  return d.somethingMoved() ? kExitCheckFailed : kExitOk;
+}
+
+}  // namespace calctrail

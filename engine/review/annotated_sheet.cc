@@ -1,0 +1,80 @@
+#include "engine/review/annotated_sheet.h"
+
+#include <map>
+
+#include "engine/report/number_format.h"
+
+namespace calctrail {
+
+namespace {
+
+const char* severityWord(Severity s) { return s == Severity::Error ? "error" : "warning"; }
+
+// "1.10000 kW" -> "1.1 kW": trailing zeros would only add noise to the diff.
+std::string result(double si, const Unit& unit, int digits) {
+  std::string number = formatNumber(unit.fromSI(si), digits);
+  const size_t exp = number.find('e');
+  std::string mantissa = number.substr(0, exp), tail = exp == std::string::npos ? "" : number.substr(exp);
+  if (mantissa.find('.') != std::string::npos) {
+    while (mantissa.back() == '0') mantissa.pop_back();
+    if (mantissa.back() == '.') mantissa.pop_back();
+  }
+  return joinNumberUnit(mantissa + tail, unit.pretty());
+}
+
+std::string checkSummary(const Calculation& calc) {
+  if (calc.hasErrors()) {
+    const int n = calc.diags.errorCount();
+    return std::to_string(n) + (n == 1 ? " error" : " errors") + ", nothing calculated";
+  }
+  const size_t total = calc.checks.size();
+  if (total == 0) return "no checks";
+  std::string failed;
+  for (size_t k = 0; k < total; ++k)
+    if (!calc.checks[k].passed) failed += (failed.empty() ? "" : ", ") + calc.sheet.checks[k].name;
+  const int n_failed = calc.failedChecks();
+  std::string out = std::to_string(total) + (total == 1 ? " check, " : " checks, ");
+  if (n_failed == 0) return out + "all PASS";
+  return out + std::to_string(static_cast<int>(total) - n_failed) + " PASS, " + std::to_string(n_failed) +
+         " FAIL (" + failed + ")";
+}
+
+}  // namespace
+
+std::string annotatedSheet(const Calculation& calc, int digits) {
+  const std::string mark = std::string(kAnnotationMark) + " ";
+  // Diagnostics of the worksheet itself, by line; the rest go to the top.
+  std::multimap<int, const Diagnostic*> by_line;
+  std::string out = mark + "calctrail: " + checkSummary(calc) + "\n";
+  for (const Diagnostic& d : calc.diags.list()) {
+    if (d.line > 0 && d.path == calc.path) by_line.emplace(d.line, &d);
+    else out += mark + severityWord(d.severity) + ": " + d.message + "\n";
+  }
+  if (!calc.sheet.file) return out;
+  const SourceFile& file = *calc.sheet.file;
+  const bool calculated = !calc.hasErrors();
+  for (const Statement& st : calc.sheet.statements) {
+    std::string_view text = file.lineText(st.line);
+    if (st.line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) text.remove_prefix(3);
+    out.append(text.data(), text.size());
+    out += "\n";
+    if (calculated && st.kind == Statement::Define) {
+      const QuantityState& s = calc.quantities[st.index];
+      if (!s.input && s.ok)
+        out += mark + calc.sheet.quantities[st.index].name + " = " + result(s.si, s.display, digits) + "\n";
+    }
+    if (calculated && st.kind == Statement::CheckStmt) {
+      const CheckState& s = calc.checks[st.index];
+      const Check& c = calc.sheet.checks[st.index];
+      out += mark + "check " + c.name + ": " + (s.passed ? "PASS  " : "FAIL  ") +
+             result(s.lhs, s.display, digits) + " " + comparisonText(c.op) + " " + result(s.rhs, s.display, digits) +
+             "\n";
+    }
+    auto [b, e] = by_line.equal_range(st.line);
+    for (auto it = b; it != e; ++it)
+      out += mark + severityWord(it->second->severity) + ": " + it->second->message + "\n";
+  }
+  return out;
+}
+
+}  // namespace calctrail

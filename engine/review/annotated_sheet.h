@@ -1,0 +1,20 @@
+// The text that `git diff` compares for a worksheet (`calctrail textconv`):
+// the worksheet's own lines, each calculated quantity followed by its result
+// and each check by its state, all recalculated. A changed input then shows
+// in the diff together with every result it moved and every check it
+// flipped, each beside the line that defines it. Added lines start with "#>".
+#pragma once
+
+#include <string>
+
+#include "engine/calculation.h"
+
+namespace calctrail {
+
+constexpr const char* kAnnotationMark = "#>";
+
+// `digits` significant digits for the results. A worksheet with errors gets
+// its errors beside the lines they point at, and no results.
+std::string annotatedSheet(const Calculation& calc, int digits);
+
+}  // namespace calctrail

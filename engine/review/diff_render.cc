@@ -1,0 +1,387 @@
+#include "engine/review/diff_render.h"
+
+#include <algorithm>
+#include <cmath>
+#include <utility>
+#include <vector>
+
+#include "engine/report/number_format.h"
+#include "engine/util/json_writer.h"
+
+namespace calctrail {
+
+namespace {
+
+int width(const std::string& s) {
+  int n = 0;
+  for (char c : s)
+    if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;
+  return n;
+}
+
+std::string pad(const std::string& s, int w) {
+  return s + std::string(static_cast<size_t>(std::max(0, w - width(s))), ' ');
+}
+
+std::string plural(size_t n, const char* one, const char* many) {
+  return std::to_string(n) + " " + (n == 1 ? one : many);
+}
+
+// Two values in one unit, rounded; widened until they differ when they do.
+std::pair<std::string, std::string> valuePair(double was, double now, const Unit& unit, int digits) {
+  std::string a = formatQuantity(was, unit, digits), b = formatQuantity(now, unit, digits);
+  for (int k = digits + 1; a == b && was != now && k <= 17; ++k) {
+    a = formatQuantity(was, unit, k);
+    b = formatQuantity(now, unit, k);
+  }
+  return {a, b};
+}
+
+std::pair<std::string, std::string> valuePair(const ValueChange& v, int digits) {
+  if (!v.same_dimension) return {formatQuantity(v.old_si, v.old_unit, digits), formatQuantity(v.new_si, v.unit, digits)};
+  return valuePair(v.old_si, v.new_si, v.unit, digits);
+}
+
+std::string checkValues(const std::string& op, double lhs, double rhs, const Unit& unit, int digits) {
+  return formatQuantity(lhs, unit, digits) + " " + op + " " + formatQuantity(rhs, unit, digits);
+}
+
+std::string summaryLine(const SheetDiff& d) {
+  std::vector<std::string> parts;
+  auto add = [&](size_t n, const char* one, const char* many) {
+    if (n) parts.push_back(plural(n, one, many));
+  };
+  add(d.flipped.size(), "check flipped", "checks flipped");
+  add(d.inputs.size(), "input changed", "inputs changed");
+  add(d.formulas.size(), "formula changed", "formulas changed");
+  add(d.moved.size(), "result moved", "results moved");
+  add(d.added.size(), "quantity added", "quantities added");
+  add(d.removed.size(), "quantity removed", "quantities removed");
+  add(d.checks_added.size(), "check added", "checks added");
+  add(d.checks_removed.size(), "check removed", "checks removed");
+  add(d.new_warnings.size(), "new warning", "new warnings");
+  add(d.meta.size(), "metadata change", "metadata changes");
+  if (parts.empty()) return "";
+  std::string out;
+  for (size_t i = 0; i < parts.size(); ++i) out += (i ? ", " : "") + parts[i];
+  return out;
+}
+
+std::string rtolText(double rtol) { return formatExact(rtol); }
+
+const char* state(bool passed) { return passed ? "PASS" : "FAIL"; }
+
+// Rows of cells, each column padded to its widest cell.
+std::string table(const std::vector<std::vector<std::string>>& rows, const std::string& indent) {
+  std::vector<int> widths;
+  for (const auto& r : rows)
+    for (size_t c = 0; c < r.size(); ++c) {
+      if (widths.size() <= c) widths.push_back(0);
+      widths[c] = std::max(widths[c], width(r[c]));
+    }
+  std::string out;
+  for (const auto& r : rows) {
+    std::string line = indent;
+    for (size_t c = 0; c < r.size(); ++c) line += c + 1 < r.size() ? pad(r[c], widths[c]) + "  " : r[c];
+    while (!line.empty() && line.back() == ' ') line.pop_back();
+    out += line + "\n";
+  }
+  return out;
+}
+
+std::string mdCell(const std::string& s) {
+  std::string out;
+  for (char c : s) {
+    if (c == '|') out += "\\|";
+    else if (c == '\n') out += ' ';
+    else out += c;
+  }
+  return out;
+}
+
+std::string mdCode(const std::string& s) { return "`" + mdCell(s) + "`"; }
+
+}  // namespace
+
+std::string formatRelativeChange(double relative) {
+  if (std::isnan(relative)) return "dimension changed";
+  if (std::isinf(relative)) return "from zero";
+  if (relative == 0) return "same value";
+  return (relative > 0 ? "+" : "-") + formatNumber(std::fabs(relative) * 100, 3) + " %";
+}
+
+std::string renderDiffText(const SheetDiff& d, int digits) {
+  std::string out = "calctrail diff: " + d.old_name + " -> " + d.new_name + "\n";
+  const std::string summary = summaryLine(d);
+  if (summary.empty()) {
+    out += "No change in inputs, formulas, results or checks (rtol " + rtolText(d.rtol) + ").\n";
+    return out;
+  }
+  out += summary + ".\n";
+
+  for (const CheckFlip& f : d.flipped) {
+    const CheckEntry& c = f.now;
+    out += "\n!! CHECK FLIPPED  " + c.name + ": " + state(!c.passed) + " -> " + state(c.passed) + "\n";
+    out += "   " + c.condition + ": " + checkValues(c.op, c.lhs, c.rhs, c.unit, digits) +
+           (c.passed ? " holds" : " is false") + " (was " + checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits) +
+           ")\n";
+    if (!c.description.empty()) out += "   " + c.description + "\n";
+  }
+
+  if (!d.inputs.empty()) {
+    out += "\nInputs changed:\n";
+    std::vector<std::vector<std::string>> rows;
+    for (const ValueChange& v : d.inputs) {
+      auto [a, b] = valuePair(v, digits);
+      rows.push_back({v.name, a, "->", b, formatRelativeChange(v.relative)});
+    }
+    out += table(rows, "  ");
+  }
+
+  if (!d.formulas.empty()) {
+    out += "\nFormulas changed:\n";
+    for (const FormulaChange& f : d.formulas) {
+      out += "  " + std::string(f.is_check ? "check " : "") + f.name + "\n";
+      out += "    was  " + f.old_text + "\n";
+      out += "    now  " + f.new_text + "\n";
+    }
+  }
+
+  if (!d.moved.empty()) {
+    out += "\nResults moved beyond rtol " + rtolText(d.rtol) + ", largest change first:\n";
+    std::vector<std::vector<std::string>> rows;
+    for (const ValueChange& v : d.moved) {
+      auto [a, b] = valuePair(v, digits);
+      rows.push_back({v.name, a, "->", b, formatRelativeChange(v.relative)});
+    }
+    out += table(rows, "  ");
+  }
+
+  if (!d.added.empty() || !d.removed.empty()) {
+    std::vector<std::vector<std::string>> rows;
+    for (const QuantityEntry& q : d.added) rows.push_back({"added", q.formula, "= " + formatQuantity(q.si, q.unit, digits)});
+    for (const QuantityEntry& q : d.removed)
+      rows.push_back({"removed", q.formula, "was " + formatQuantity(q.si, q.unit, digits)});
+    out += "\nQuantities added and removed:\n" + table(rows, "  ");
+  }
+
+  if (!d.checks_added.empty() || !d.checks_removed.empty()) {
+    std::vector<std::vector<std::string>> rows;
+    for (const CheckEntry& c : d.checks_added)
+      rows.push_back({"added", state(c.passed), c.name + ": " + c.condition,
+                      checkValues(c.op, c.lhs, c.rhs, c.unit, digits)});
+    for (const CheckEntry& c : d.checks_removed)
+      rows.push_back({"removed", std::string("was ") + state(c.passed), c.name + ": " + c.condition,
+                      checkValues(c.op, c.lhs, c.rhs, c.unit, digits)});
+    out += "\nChecks added and removed:\n" + table(rows, "  ");
+  }
+
+  if (!d.new_warnings.empty()) {
+    out += "\nNew warnings:\n";
+    for (const std::string& w : d.new_warnings) out += "  " + w + "\n";
+  }
+
+  if (!d.meta.empty()) {
+    out += "\nMetadata changed:\n";
+    std::vector<std::vector<std::string>> rows;
+    for (const MetaChange& m : d.meta)
+      rows.push_back({m.key + ":", m.old_value.empty() ? "(none)" : m.old_value, "->",
+                      m.new_value.empty() ? "(none)" : m.new_value});
+    out += table(rows, "  ");
+  }
+  return out;
+}
+
+std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
+  std::string out = "### calctrail diff: " + mdCode(d.old_name) + " \u2192 " + mdCode(d.new_name) + "\n\n";
+  const std::string summary = summaryLine(d);
+  if (summary.empty()) {
+    out += "No change in inputs, formulas, results or checks (rtol " + rtolText(d.rtol) + ").\n";
+    return out;
+  }
+  for (const CheckFlip& f : d.flipped) {
+    out += "> **Check flipped: " + mdCode(f.now.name) + " " + state(!f.now.passed) + " \u2192 " + state(f.now.passed) +
+           "**";
+    if (!f.now.description.empty()) out += " (" + mdCell(f.now.description) + ")";
+    out += "\n";
+  }
+  if (!d.flipped.empty()) out += "\n";
+  out += summary + " (rtol " + rtolText(d.rtol) + ").\n";
+
+  if (!d.flipped.empty()) {
+    out += "\n#### Checks flipped\n\n| Check | Condition | Was | Now |\n|---|---|---|---|\n";
+    for (const CheckFlip& f : d.flipped) {
+      const CheckEntry& c = f.now;
+      out += "| " + mdCode(c.name) + " | " + mdCode(c.condition) + " | " + state(!c.passed) + ": " +
+             mdCell(checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits)) + " | **" + state(c.passed) +
+             "**: " + mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)) + " |\n";
+    }
+  }
+
+  auto valueTable = [&](const char* title, const char* what, const std::vector<ValueChange>& list) {
+    if (list.empty()) return;
+    out += std::string("\n#### ") + title + "\n\n| " + what + " | Old | New | Change |\n|---|--:|--:|--:|\n";
+    for (const ValueChange& v : list) {
+      auto [a, b] = valuePair(v, digits);
+      out += "| " + mdCode(v.name) + " | " + mdCell(a) + " | " + mdCell(b) + " | " + formatRelativeChange(v.relative) +
+             " |\n";
+    }
+  };
+  valueTable("Inputs changed", "Input", d.inputs);
+
+  if (!d.formulas.empty()) {
+    out += "\n#### Formulas changed\n\n| Name | Old | New |\n|---|---|---|\n";
+    for (const FormulaChange& f : d.formulas)
+      out += "| " + mdCode(std::string(f.is_check ? "check " : "") + f.name) + " | " + mdCode(f.old_text) + " | " +
+             mdCode(f.new_text) + " |\n";
+  }
+
+  valueTable(("Results moved (beyond rtol " + rtolText(d.rtol) + ", largest change first)").c_str(), "Result",
+             d.moved);
+
+  if (!d.added.empty() || !d.removed.empty()) {
+    out += "\n#### Quantities added and removed\n\n| | Definition | Value |\n|---|---|--:|\n";
+    for (const QuantityEntry& q : d.added)
+      out += "| added | " + mdCode(q.formula) + " | " + mdCell(formatQuantity(q.si, q.unit, digits)) + " |\n";
+    for (const QuantityEntry& q : d.removed)
+      out += "| removed | " + mdCode(q.formula) + " | was " + mdCell(formatQuantity(q.si, q.unit, digits)) + " |\n";
+  }
+
+  if (!d.checks_added.empty() || !d.checks_removed.empty()) {
+    out += "\n#### Checks added and removed\n\n| | Check | Condition | State |\n|---|---|---|---|\n";
+    for (const CheckEntry& c : d.checks_added)
+      out += "| added | " + mdCode(c.name) + " | " + mdCode(c.condition) + " | " + state(c.passed) + ": " +
+             mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)) + " |\n";
+    for (const CheckEntry& c : d.checks_removed)
+      out += "| removed | " + mdCode(c.name) + " | " + mdCode(c.condition) + " | was " + state(c.passed) + " |\n";
+  }
+
+  if (!d.new_warnings.empty()) {
+    out += "\n#### New warnings\n\n";
+    for (const std::string& w : d.new_warnings) out += "- " + mdCode(w) + "\n";
+  }
+
+  if (!d.meta.empty()) {
+    out += "\n#### Metadata changed\n\n| Key | Old | New |\n|---|---|---|\n";
+    for (const MetaChange& m : d.meta)
+      out += "| " + m.key + " | " + mdCell(m.old_value) + " | " + mdCell(m.new_value) + " |\n";
+  }
+  return out;
+}
+
+namespace {
+
+void writeValueChange(JsonWriter& w, const ValueChange& v) {
+  w.beginObject();
+  w.key("name").value(v.name);
+  w.key("old_formula").value(v.old_formula);
+  w.key("new_formula").value(v.new_formula);
+  w.key("unit").value(v.unit.text);
+  w.key("old_value").value(v.same_dimension ? v.unit.fromSI(v.old_si) : v.old_unit.fromSI(v.old_si));
+  w.key("new_value").value(v.unit.fromSI(v.new_si));
+  if (!v.same_dimension) w.key("old_unit").value(v.old_unit.text);
+  w.key("old_si").value(v.old_si);
+  w.key("new_si").value(v.new_si);
+  w.key("relative_change").value(v.relative);  // null from zero or across dimensions
+  w.key("change").value(formatRelativeChange(v.relative));
+  w.key("moved").value(v.moved);
+  w.key("description").value(v.description);
+  w.endObject();
+}
+
+void writeCheck(JsonWriter& w, const CheckEntry& c) {
+  w.key("name").value(c.name);
+  w.key("condition").value(c.condition);
+  w.key("description").value(c.description);
+  w.key("passed").value(c.passed);
+  w.key("unit").value(c.unit.text);
+  w.key("lhs").value(c.unit.fromSI(c.lhs));
+  w.key("rhs").value(c.unit.fromSI(c.rhs));
+}
+
+void writeQuantity(JsonWriter& w, const QuantityEntry& q) {
+  w.beginObject();
+  w.key("name").value(q.name);
+  w.key("formula").value(q.formula);
+  w.key("value").value(q.unit.fromSI(q.si));
+  w.key("unit").value(q.unit.text);
+  w.key("si").value(q.si);
+  w.key("input").value(q.input);
+  w.key("description").value(q.description);
+  w.endObject();
+}
+
+}  // namespace
+
+std::string renderDiffJson(const SheetDiff& d) {
+  JsonWriter w;
+  w.beginObject();
+  w.key("schema").value(kDiffJsonSchema);
+  w.key("old").value(d.old_name);
+  w.key("new").value(d.new_name);
+  w.key("rtol").value(d.rtol);
+  w.key("moved").value(d.somethingMoved());
+  w.key("checks_flipped").beginArray();
+  for (const CheckFlip& f : d.flipped) {
+    w.beginObject();
+    writeCheck(w, f.now);
+    w.key("was_passed").value(!f.now.passed);
+    w.key("old_unit").value(f.old_unit.text);
+    w.key("old_lhs").value(f.old_unit.fromSI(f.old_lhs));
+    w.key("old_rhs").value(f.old_unit.fromSI(f.old_rhs));
+    w.endObject();
+  }
+  w.endArray();
+  w.key("inputs_changed").beginArray();
+  for (const ValueChange& v : d.inputs) writeValueChange(w, v);
+  w.endArray();
+  w.key("formulas_changed").beginArray();
+  for (const FormulaChange& f : d.formulas) {
+    w.beginObject();
+    w.key("name").value(f.name);
+    w.key("check").value(f.is_check);
+    w.key("old").value(f.old_text);
+    w.key("new").value(f.new_text);
+    w.endObject();
+  }
+  w.endArray();
+  w.key("results_moved").beginArray();
+  for (const ValueChange& v : d.moved) writeValueChange(w, v);
+  w.endArray();
+  w.key("quantities_added").beginArray();
+  for (const QuantityEntry& q : d.added) writeQuantity(w, q);
+  w.endArray();
+  w.key("quantities_removed").beginArray();
+  for (const QuantityEntry& q : d.removed) writeQuantity(w, q);
+  w.endArray();
+  w.key("checks_added").beginArray();
+  for (const CheckEntry& c : d.checks_added) {
+    w.beginObject();
+    writeCheck(w, c);
+    w.endObject();
+  }
+  w.endArray();
+  w.key("checks_removed").beginArray();
+  for (const CheckEntry& c : d.checks_removed) {
+    w.beginObject();
+    writeCheck(w, c);
+    w.endObject();
+  }
+  w.endArray();
+  w.key("new_warnings").beginArray();
+  for (const std::string& s : d.new_warnings) w.value(s);
+  w.endArray();
+  w.key("metadata_changed").beginArray();
+  for (const MetaChange& m : d.meta) {
+    w.beginObject();
+    w.key("key").value(m.key);
+    w.key("old").value(m.old_value);
+    w.key("new").value(m.new_value);
+    w.endObject();
+  }
+  w.endArray();
+  w.endObject();
+  return w.str();
+}
+
+}  // namespace calctrail

@@ -1,0 +1,183 @@
+#include "engine/review/sheet_diff.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <map>
+
+#include "engine/review/sheet_format.h"
+
+namespace calctrail {
+
+namespace {
+
+void canonicalizeSheet(Sheet* sheet) {
+  for (Quantity& q : sheet->quantities) canonicalizeUnits(q.expr.get());
+  for (Check& c : sheet->checks) {
+    canonicalizeUnits(c.lhs.get());
+    canonicalizeUnits(c.rhs.get());
+  }
+}
+
+QuantityEntry entryOf(const Calculation& calc, int i) {
+  const Quantity& q = calc.sheet.quantities[i];
+  const QuantityState& s = calc.quantities[i];
+  QuantityEntry e;
+  e.name = q.name;
+  e.formula = canonicalDefinition(q);
+  e.description = q.description;
+  e.si = s.si;
+  e.unit = s.display;
+  e.input = s.input;
+  return e;
+}
+
+CheckEntry checkEntryOf(const Calculation& calc, int k) {
+  const Check& c = calc.sheet.checks[k];
+  const CheckState& s = calc.checks[k];
+  CheckEntry e;
+  e.name = c.name;
+  e.condition = renderExpr(*c.lhs) + " " + comparisonText(c.op) + " " + renderExpr(*c.rhs);
+  e.description = c.description;
+  e.op = comparisonText(c.op);
+  e.passed = s.passed;
+  e.lhs = s.lhs;
+  e.rhs = s.rhs;
+  e.unit = s.display;
+  return e;
+}
+
+int findCheck(const Sheet& sheet, const std::string& name) {
+  for (size_t k = 0; k < sheet.checks.size(); ++k)
+    if (sheet.checks[k].name == name) return static_cast<int>(k);
+  return -1;
+}
+
+// Largest change first; a change of dimension or from zero counts as the largest.
+double sortKey(const ValueChange& v) {
+  return std::isnan(v.relative) ? std::numeric_limits<double>::infinity() : std::fabs(v.relative);
+}
+
+}  // namespace
+
+double relativeChange(double was, double now) {
+  if (was == now) return 0.0;
+  if (was == 0.0) return now > 0 ? std::numeric_limits<double>::infinity() : -std::numeric_limits<double>::infinity();
+  return (now - was) / std::fabs(was);
+}
+
+bool movedBeyond(double was, double now, double rtol) {
+  if (was == now) return false;
+  // Relative to the larger magnitude, so the test reads the same both ways.
+  return std::fabs(now - was) > rtol * std::max(std::fabs(was), std::fabs(now));
+}
+
+bool SheetDiff::somethingMoved() const {
+  const bool input_moved = std::any_of(inputs.begin(), inputs.end(), [](const ValueChange& v) { return v.moved; });
+  return !flipped.empty() || input_moved || !moved.empty() || !added.empty() || !removed.empty() ||
+         !checks_added.empty() || !checks_removed.empty();
+}
+
+bool SheetDiff::empty() const {
+  return flipped.empty() && inputs.empty() && formulas.empty() && moved.empty() && added.empty() &&
+         removed.empty() && checks_added.empty() && checks_removed.empty() && new_warnings.empty() && meta.empty();
+}
+
+SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double rtol) {
+  canonicalizeSheet(&old_calc->sheet);
+  canonicalizeSheet(&new_calc->sheet);
+  const Calculation& o = *old_calc;
+  const Calculation& n = *new_calc;
+  SheetDiff d;
+  d.old_name = o.path;
+  d.new_name = n.path;
+  d.rtol = rtol;
+
+  for (const std::string& key : Metadata::keys()) {
+    const std::string was = o.sheet.meta.get(key), now = n.sheet.meta.get(key);
+    if (was != now) d.meta.push_back({key, was, now});
+  }
+
+  for (size_t i = 0; i < n.sheet.quantities.size(); ++i) {
+    const Quantity& q = n.sheet.quantities[i];
+    const QuantityState& s = n.quantities[i];
+    const int j = o.sheet.find(q.name);
+    if (j < 0) {
+      d.added.push_back(entryOf(n, static_cast<int>(i)));
+      continue;
+    }
+    const Quantity& oq = o.sheet.quantities[j];
+    const QuantityState& os = o.quantities[j];
+    ValueChange v;
+    v.name = q.name;
+    v.description = q.description;
+    v.old_si = os.si;
+    v.new_si = s.si;
+    v.unit = s.display;
+    v.old_unit = os.display;
+    v.same_dimension = os.dim == s.dim;
+    v.relative = v.same_dimension ? relativeChange(os.si, s.si) : std::numeric_limits<double>::quiet_NaN();
+    v.moved = !v.same_dimension || movedBeyond(os.si, s.si, rtol);
+    v.old_formula = canonicalDefinition(oq);
+    v.new_formula = canonicalDefinition(q);
+    // A given value that stays given is an input change; any other new text
+    // (a step rewritten, a step become a given value or the reverse) is a
+    // formula change.
+    if (v.old_formula != v.new_formula && !(s.input && os.input))
+      d.formulas.push_back({q.name, false, v.old_formula, v.new_formula});
+    if (s.input) {
+      // A respelling that gives the same value in the same unit is no change.
+      const bool value_changed = !v.same_dimension || os.si != s.si || os.display.text != s.display.text;
+      if (value_changed || !os.input) d.inputs.push_back(v);
+      continue;
+    }
+    if (v.moved) d.moved.push_back(v);
+  }
+  for (size_t j = 0; j < o.sheet.quantities.size(); ++j)
+    if (n.sheet.find(o.sheet.quantities[j].name) < 0) d.removed.push_back(entryOf(o, static_cast<int>(j)));
+
+  for (size_t k = 0; k < n.sheet.checks.size(); ++k) {
+    const Check& c = n.sheet.checks[k];
+    const int ok = findCheck(o.sheet, c.name);
+    if (ok < 0) {
+      d.checks_added.push_back(checkEntryOf(n, static_cast<int>(k)));
+      continue;
+    }
+    const std::string was = canonicalCondition(o.sheet.checks[ok]);
+    const std::string now = canonicalCondition(c);
+    if (was != now) d.formulas.push_back({c.name, true, was, now});
+    if (o.checks[ok].passed != n.checks[k].passed) {
+      CheckFlip f;
+      f.now = checkEntryOf(n, static_cast<int>(k));
+      f.old_lhs = o.checks[ok].lhs;
+      f.old_rhs = o.checks[ok].rhs;
+      f.old_unit = o.checks[ok].display;
+      d.flipped.push_back(f);
+    }
+  }
+  for (size_t k = 0; k < o.sheet.checks.size(); ++k)
+    if (findCheck(n.sheet, o.sheet.checks[k].name) < 0) d.checks_removed.push_back(checkEntryOf(o, static_cast<int>(k)));
+
+  // Warnings are matched by message: their line numbers shift with any edit above them.
+  std::map<std::string, int> old_warnings;
+  for (const Diagnostic& w : o.diags.list())
+    if (w.severity == Severity::Warning) ++old_warnings[w.message];
+  for (const Diagnostic& w : n.diags.list()) {
+    if (w.severity != Severity::Warning) continue;
+    auto it = old_warnings.find(w.message);
+    if (it != old_warnings.end() && it->second > 0) {
+      --it->second;
+      continue;
+    }
+    d.new_warnings.push_back(w.headline());
+  }
+
+  std::stable_sort(d.moved.begin(), d.moved.end(), [](const ValueChange& a, const ValueChange& b) {
+    const double ka = sortKey(a), kb = sortKey(b);
+    if (ka != kb) return ka > kb;
+    return a.name < b.name;
+  });
+  return d;
+}
+
+}  // namespace calctrail

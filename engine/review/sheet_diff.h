@@ -1,0 +1,90 @@
+// What changed between two revisions of a worksheet, in the terms a checker
+// reviews: checks that flipped, inputs, formulas, results that moved, names
+// added and removed, new warnings. Both calculations must be free of errors.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "engine/calculation.h"
+#include "engine/units/unit.h"
+
+namespace calctrail {
+
+struct ValueChange {
+  std::string name;
+  std::string description;    // the new side's
+  double old_si = 0.0, new_si = 0.0;
+  Unit unit;                  // the new side's display unit: both values are shown in it
+  Unit old_unit;              // the old side's, needed only when the dimension changed
+  bool same_dimension = true;
+  // (new - old) / |old|: +inf or -inf from zero; NaN when the dimension changed.
+  double relative = 0.0;
+  bool moved = false;         // beyond the relative tolerance
+  std::string old_formula, new_formula;  // canonical "NAME [UNIT] = EXPR"
+};
+
+struct FormulaChange {
+  std::string name;
+  bool is_check = false;
+  std::string old_text, new_text;  // canonical definitions or conditions
+};
+
+struct QuantityEntry {
+  std::string name;
+  std::string formula;  // canonical definition
+  std::string description;
+  double si = 0.0;
+  Unit unit;
+  bool input = false;
+};
+
+struct CheckEntry {
+  std::string name;
+  std::string condition;  // canonical "LHS OP RHS"
+  std::string description;
+  std::string op;
+  bool passed = false;
+  double lhs = 0.0, rhs = 0.0;  // SI
+  Unit unit;
+};
+
+struct CheckFlip {
+  CheckEntry now;       // the new side: condition, values, state
+  double old_lhs = 0.0, old_rhs = 0.0;
+  Unit old_unit;
+};
+
+struct MetaChange {
+  std::string key, old_value, new_value;
+};
+
+struct SheetDiff {
+  std::string old_name, new_name;
+  double rtol = 0.0;
+  std::vector<CheckFlip> flipped;         // new side's document order
+  std::vector<ValueChange> inputs;        // given values whose text or value changed
+  std::vector<FormulaChange> formulas;    // definitions and checks rewritten (not a given value re-given)
+  std::vector<ValueChange> moved;         // results beyond rtol, largest relative change first
+  std::vector<QuantityEntry> added, removed;
+  std::vector<CheckEntry> checks_added, checks_removed;
+  std::vector<std::string> new_warnings;  // FILE:LINE:COL: warning: ... of the new side
+  std::vector<MetaChange> meta;
+
+  // A number moved: a check flipped, an input or a result moved beyond rtol,
+  // or a quantity or check came or went. Decides the exit status of `diff`.
+  bool somethingMoved() const;
+  // Nothing at all to report.
+  bool empty() const;
+};
+
+// Relative change of `now` against `was`, as defined for ValueChange::relative.
+double relativeChange(double was, double now);
+// Whether two values differ by more than rtol relative to the larger of them.
+bool movedBeyond(double was, double now, double rtol);
+
+// Compares two calculated worksheets. The expressions' unit spellings are made
+// canonical in place first, so a reformatted line never shows as a change.
+SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double rtol);
+
+}  // namespace calctrail

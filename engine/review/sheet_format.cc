@@ -1,0 +1,276 @@
+#include "engine/review/sheet_format.h"
+
+#include <algorithm>
+#include <cstring>
+#include <memory>
+
+#include "engine/sheet/sheet_parser.h"
+#include "engine/units/unit_parser.h"
+
+namespace calctrail {
+
+namespace {
+
+bool isBlankChar(char c) { return c == ' ' || c == '\t'; }
+
+std::string trimmed(std::string_view s) {
+  size_t b = 0, e = s.size();
+  while (b < e && isBlankChar(s[b])) ++b;
+  while (e > b && isBlankChar(s[e - 1])) --e;
+  return std::string(s.substr(b, e - b));
+}
+
+int codePoints(std::string_view s) {
+  int n = 0;
+  for (char c : s)
+    if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;
+  return n;
+}
+
+bool sameBits(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }
+
+bool sameUnit(const Unit& a, const Unit& b) {
+  return sameBits(a.factor, b.factor) && sameBits(a.offset, b.offset) && a.dim == b.dim;
+}
+
+// The canonical spelling of `u` if it reads back to exactly the same unit.
+bool canonicalSpelling(const Unit& u, std::string* text) {
+  Unit back;
+  UnitError err;
+  if (!parseUnit(u.text, &back, &err) || !sameUnit(back, u)) return false;
+  *text = u.text;
+  return true;
+}
+
+bool isBareUnitName(const std::string& t) {
+  if (t.empty()) return false;
+  return std::all_of(t.begin(), t.end(), [](char c) {
+    return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || c == '_';
+  });
+}
+
+void canonicalize(Expr* e, bool power_base) {
+  if (e->kind == ExprKind::Number && e->unit) {
+    std::string text;
+    if (canonicalSpelling(*e->unit, &text)) {
+      // A base of a power keeps its brackets: `3 [mm]^2` is not `3 mm^2`,
+      // which reads two ways and is an error.
+      if (!power_base && (text == "%" || isBareUnitName(text))) e->unit_written = text;
+      else e->unit_written = "[" + text + "]";
+    } else {
+      e->unit_written = trimmed(e->unit_written);
+    }
+  }
+  for (size_t i = 0; i < e->args.size(); ++i) canonicalize(e->args[i].get(), e->kind == ExprKind::Power && i == 0);
+}
+
+std::string displayUnitText(const Quantity& q) {
+  std::string text;
+  if (q.display && canonicalSpelling(*q.display, &text)) return text;
+  return trimmed(q.unit_written);
+}
+
+// A comment as written from its `#`, trailing blanks dropped.
+std::string commentLine(const SourceFile& file, int line) {
+  std::string_view text = file.lineText(line);
+  if (line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) text.remove_prefix(3);
+  size_t b = 0;
+  while (b < text.size() && isBlankChar(text[b])) ++b;
+  size_t e = text.size();
+  while (e > b && isBlankChar(text[e - 1])) --e;
+  return std::string(text.substr(b, e - b));
+}
+
+struct Line {
+  std::string code;         // the statement without its description
+  std::string description;  // "" when none
+  bool aligned = false;     // a definition or a check: its `#` joins the block's column
+};
+
+int blockColumn(const std::vector<Line>& lines, size_t begin, size_t end) {
+  int widest = -1;
+  for (size_t i = begin; i < end; ++i) {
+    if (lines[i].description.empty()) continue;
+    const int w = codePoints(lines[i].code);
+    if (w + 2 <= kDescriptionColumnCap) widest = std::max(widest, w);
+  }
+  if (widest < 0) return 0;
+  const int step = kDescriptionColumnStep;
+  return std::min((widest + 2 + step - 1) / step * step, kDescriptionColumnCap);
+}
+
+bool sameExpr(const Expr& a, const Expr& b) {
+  if (a.kind != b.kind || a.text != b.text || !sameBits(a.number, b.number)) return false;
+  if (static_cast<bool>(a.unit) != static_cast<bool>(b.unit)) return false;
+  if (a.unit && !sameUnit(*a.unit, *b.unit)) return false;
+  if (a.args.size() != b.args.size()) return false;
+  for (size_t i = 0; i < a.args.size(); ++i)
+    if (!sameExpr(*a.args[i], *b.args[i])) return false;
+  return true;
+}
+
+// Statements without the blank lines at the start and end of the file.
+std::pair<size_t, size_t> innerRange(const Sheet& s) {
+  size_t b = 0, e = s.statements.size();
+  while (b < e && s.statements[b].kind == Statement::Blank) ++b;
+  while (e > b && s.statements[e - 1].kind == Statement::Blank) --e;
+  return {b, e};
+}
+
+std::string statementMismatch(const Sheet& a, const Sheet& b, const Statement& sa, const Statement& sb) {
+  if (sa.kind != sb.kind) return "another kind of statement";
+  switch (sa.kind) {
+    case Statement::Blank:
+    case Statement::Invalid:
+      return "";
+    case Statement::Comment:
+    case Statement::Section:
+    case Statement::Note:
+      return sa.text == sb.text ? "" : "another text";
+    case Statement::Meta:
+      return sa.key == sb.key && sa.text == sb.text ? "" : "another metadata value";
+    case Statement::Define: {
+      const Quantity& qa = a.quantities[sa.index];
+      const Quantity& qb = b.quantities[sb.index];
+      if (qa.name != qb.name) return "another name";
+      if (static_cast<bool>(qa.display) != static_cast<bool>(qb.display) ||
+          (qa.display && !sameUnit(*qa.display, *qb.display)))
+        return "another display unit";
+      if (qa.description != qb.description) return "another description";
+      if (!qa.expr || !qb.expr || !sameExpr(*qa.expr, *qb.expr)) return "another formula";
+      return "";
+    }
+    case Statement::CheckStmt: {
+      const Check& ca = a.checks[sa.index];
+      const Check& cb = b.checks[sb.index];
+      if (ca.name != cb.name) return "another check name";
+      if (ca.op != cb.op || !sameExpr(*ca.lhs, *cb.lhs) || !sameExpr(*ca.rhs, *cb.rhs)) return "another condition";
+      if (ca.description != cb.description) return "another description";
+      return "";
+    }
+  }
+  return "";
+}
+
+}  // namespace
+
+void canonicalizeUnits(Expr* e) { canonicalize(e, false); }
+
+std::string canonicalDefinition(const Quantity& q) {
+  std::string out = q.name;
+  if (q.display || !q.unit_written.empty()) out += " [" + displayUnitText(q) + "]";
+  out += " = ";
+  out += renderExpr(*q.expr);
+  return out;
+}
+
+std::string canonicalCondition(const Check& c) {
+  return "check " + c.name + ": " + renderExpr(*c.lhs) + " " + comparisonText(c.op) + " " + renderExpr(*c.rhs);
+}
+
+bool sameMeaning(const Sheet& a, const Sheet& b, std::string* why) {
+  const auto [ab, ae] = innerRange(a);
+  const auto [bb, be] = innerRange(b);
+  size_t i = ab, j = bb;
+  for (; i < ae && j < be; ++i, ++j) {
+    const std::string diff = statementMismatch(a, b, a.statements[i], b.statements[j]);
+    if (!diff.empty()) {
+      *why = "line " + std::to_string(a.statements[i].line) + " would become line " +
+             std::to_string(b.statements[j].line) + " with " + diff;
+      return false;
+    }
+  }
+  if (i != ae || j != be) {
+    *why = "the number of lines would change";
+    return false;
+  }
+  return true;
+}
+
+std::string formatWorksheet(const std::string& display_path, const std::string& bytes, Diagnostics* diags) {
+  auto file = std::make_shared<SourceFile>(display_path, bytes);
+  Sheet sheet = parseSheet(file, diags);
+  if (diags->hasErrors()) return "";
+  for (Quantity& q : sheet.quantities) canonicalizeUnits(q.expr.get());
+  for (Check& c : sheet.checks) {
+    canonicalizeUnits(c.lhs.get());
+    canonicalizeUnits(c.rhs.get());
+  }
+
+  const auto [first, last] = innerRange(sheet);
+  std::vector<Line> lines;
+  for (size_t k = first; k < last; ++k) {
+    const Statement& st = sheet.statements[k];
+    Line line;
+    switch (st.kind) {
+      case Statement::Blank:
+      case Statement::Invalid:
+        break;
+      case Statement::Comment:
+        line.code = commentLine(*file, st.line);
+        break;
+      case Statement::Meta:
+        line.code = st.key + ":" + (st.text.empty() ? "" : " " + st.text);
+        break;
+      case Statement::Section:
+        line.code = "section " + st.text;
+        break;
+      case Statement::Note:
+        line.code = "note " + st.text;
+        break;
+      case Statement::Define: {
+        const Quantity& q = sheet.quantities[st.index];
+        line.code = canonicalDefinition(q);
+        line.description = q.description;
+        line.aligned = true;
+        break;
+      }
+      case Statement::CheckStmt: {
+        const Check& c = sheet.checks[st.index];
+        line.code = canonicalCondition(c);
+        line.description = c.description;
+        line.aligned = true;
+        break;
+      }
+    }
+    lines.push_back(std::move(line));
+  }
+
+  std::string out;
+  for (size_t i = 0; i < lines.size();) {
+    if (!lines[i].aligned) {
+      out += lines[i].code + "\n";
+      ++i;
+      continue;
+    }
+    size_t end = i;
+    while (end < lines.size() && lines[end].aligned) ++end;
+    const int column = blockColumn(lines, i, end);
+    for (; i < end; ++i) {
+      out += lines[i].code;
+      if (!lines[i].description.empty()) {
+        const int w = codePoints(lines[i].code);
+        out += std::string(static_cast<size_t>(w + 2 <= column ? column - w : 2), ' ');
+        out += "# " + lines[i].description;
+      }
+      out += "\n";
+    }
+  }
+
+  // Never hand back a text that says something else: read it again and compare.
+  Diagnostics again;
+  Sheet check = parseSheet(std::make_shared<SourceFile>(display_path, out), &again);
+  std::string why;
+  if (again.hasErrors()) {
+    why = "the canonical text does not parse: " + again.list().front().message;
+  } else if (!sameMeaning(sheet, check, &why)) {
+    why = "the canonical text would change the meaning: " + why;
+  }
+  if (!why.empty()) {
+    diags->error(display_path, "internal error in the formatter, the file is left as it is (" + why + ")");
+    return "";
+  }
+  return out;
+}
+
+}  // namespace calctrail
