@@ -1,6 +1,7 @@
 #include "engine/calculation.h"
 
 #include <cmath>
+#include <unordered_map>
 
 #include "engine/eval/dimension_check.h"
 #include "engine/eval/evaluator.h"
@@ -130,10 +131,19 @@ std::string unknownNameMessage(const std::string& name, const std::vector<std::s
 void Calculation::resolveNames() {
   const int n = static_cast<int>(sheet.quantities.size());
   graph = std::make_unique<DependencyGraph>(n);
-  std::vector<std::string> names;  // built on the first unknown name only
+  // Suggestions cost a pass over every name: built on the first unknown name,
+  // kept per distinct name, and given for the first few dozen names only, so
+  // a sheet full of unknown names still reports in linear time.
+  std::vector<std::string> names;
+  std::unordered_map<std::string, std::string> messages;
+  const std::vector<std::string> no_names;
   auto unknown = [&](const SourceFile& file, const Expr& e) {
-    if (names.empty()) names = quantityNames(sheet);
-    diags.error(file, e.begin, e.end, unknownNameMessage(e.text, names));
+    auto it = messages.find(e.text);
+    if (it == messages.end()) {
+      if (names.empty()) names = quantityNames(sheet);
+      it = messages.emplace(e.text, unknownNameMessage(e.text, messages.size() < 50 ? names : no_names)).first;
+    }
+    diags.error(file, e.begin, e.end, it->second);
   };
   for (int i = 0; i < n; ++i) {
     Quantity& q = sheet.quantities[i];
@@ -340,8 +350,16 @@ void Calculation::evaluate() {
     if (!inputs_ok) continue;
     double v = NAN;
     std::string internal;
+    const Program program = compileProgram(*q.expr, sheet);
+    if (program.text.size() > Evaluator::kMaxProgramLength) {
+      diags.error(fileOf(q), q.expr->begin, q.expr->end,
+                  "`" + q.name + "` is too long to compile (" + std::to_string(program.text.size()) +
+                      " characters once units are folded in, at most " +
+                      std::to_string(Evaluator::kMaxProgramLength) + "); split it into named steps");
+      continue;
+    }
     try {
-      v = evaluator.run(compileProgram(*q.expr, sheet), values);
+      v = evaluator.run(program, values);
     } catch (const DomainError&) {
       v = NAN;  // explained below, with the argument at fault
     } catch (const std::exception& e) {

@@ -232,3 +232,11 @@ TEST_CASE("--set replaces a definition for one run", "[calc][set]") {
   CHECK(diagnostics(*calc("d [mm] = 20 mm\n", {"d=10 s"})) ==
         "sheet.calc:1:4: error: `d` is declared in [mm], length (mm), but its formula gives time (s)\n");
 }
+
+TEST_CASE("a formula too long for the arithmetic engine is an error, not an internal failure", "[calc][diagnostics]") {
+  std::string sum = "a = 1.123456789 mm";
+  for (int i = 0; i < 3000; ++i) sum += " + 1.123456789 mm";
+  const std::string d = diagnostics(*calc(sum + "\n"));
+  CHECK(d.rfind("sheet.calc:1:5: error: `a` is too long to compile (", 0) == 0);
+  CHECK(d.find("split it into named steps") != std::string::npos);
+}

@@ -36,7 +36,9 @@ double Evaluator::run(const Program& program, const std::vector<double>& values)
     parser_->SetExpr(program.text);
     return parser_->Eval();
   } catch (const mu::Parser::exception_type& e) {
-    throw std::runtime_error("internal error: muparser rejected `" + program.text + "`: " + e.GetMsg());
+    // Generated text is always valid; say so briefly rather than print it whole.
+    throw std::runtime_error("internal error: muparser rejected the compiled formula (" +
+                             std::to_string(program.text.size()) + " characters): " + e.GetMsg());
   }
 }
 

@@ -28,6 +28,9 @@ class Evaluator {
   // the text (an internal error: generated text is always valid).
   double run(const Program& program, const std::vector<double>& values);
 
+  // muparser refuses expressions longer than 20000 characters.
+  static constexpr size_t kMaxProgramLength = 19000;
+
  private:
   std::unique_ptr<mu::Parser> parser_;
   std::vector<double> slots_;

@@ -10,6 +10,7 @@ DependencyGraph::DependencyGraph(int nodes) : uses_(nodes), used_by_(nodes) {}
 void DependencyGraph::addUse(int user, int used) {
   std::vector<int>& u = uses_[user];
   if (std::find(u.begin(), u.end(), used) != u.end()) return;
+  rank_.clear();  // the order changes
   u.push_back(used);
   used_by_[used].push_back(user);
 }
@@ -139,7 +140,7 @@ std::vector<int> DependencyGraph::order(std::vector<std::vector<int>>* cycles) c
 std::vector<int> DependencyGraph::reach(int node, bool down) const {
   const int n = size();
   std::vector<char> seen(n, 0);
-  std::vector<int> todo{node};
+  std::vector<int> todo{node}, reached{node};
   seen[node] = 1;
   while (!todo.empty()) {
     const int v = todo.back();
@@ -148,12 +149,21 @@ std::vector<int> DependencyGraph::reach(int node, bool down) const {
       if (!seen[w]) {
         seen[w] = 1;
         todo.push_back(w);
+        reached.push_back(w);
       }
     }
   }
+  // Sorted by the position in the evaluation order, computed once per graph,
+  // so a small cone costs little however large the sheet.
+  if (rank_.empty()) {
+    rank_.assign(n, n);
+    const std::vector<int> o = order();
+    for (size_t i = 0; i < o.size(); ++i) rank_[o[i]] = static_cast<int>(i);
+  }
   std::vector<int> out;
-  for (int v : order())
-    if (seen[v]) out.push_back(v);
+  for (int v : reached)
+    if (rank_[v] < n) out.push_back(v);  // nodes on or below a cycle have no place in the order
+  std::sort(out.begin(), out.end(), [&](int a, int b) { return rank_[a] < rank_[b]; });
   return out;
 }
 

@@ -34,6 +34,7 @@ class DependencyGraph {
   std::vector<int> reach(int node, bool down) const;
   std::vector<std::vector<int>> uses_;
   std::vector<std::vector<int>> used_by_;
+  mutable std::vector<int> rank_;  // position in order(), built on the first cone query
 };
 
 }  // namespace calctrail

@@ -1,6 +1,7 @@
 #include "engine/sheet/sheet_parser.h"
 
 #include <algorithm>
+#include <unordered_map>
 
 #include "engine/sheet/expr_parser.h"
 #include "engine/units/unit_parser.h"
@@ -271,16 +272,16 @@ class LineParser {
     }
     ExprParser parser(file_, colon + 1, body_end, diags_);
     if (!parser.parseCondition(&c.lhs, &c.op, &c.op_begin, &c.rhs)) return false;
-    for (const Check& other : sheet_->checks) {
-      if (other.name == c.name) {
-        diags_->error(file_, p, name_end,
-                      "the check `" + c.name + "` is defined twice; the first is on line " +
-                          std::to_string(other.line));
-        return false;
-      }
+    auto first = check_index_.find(c.name);
+    if (first != check_index_.end()) {
+      diags_->error(file_, p, name_end,
+                    "the check `" + c.name + "` is defined twice; the first is on line " +
+                        std::to_string(sheet_->checks[first->second].line));
+      return false;
     }
     st->kind = Statement::CheckStmt;
     st->index = static_cast<int>(sheet_->checks.size());
+    check_index_.emplace(c.name, st->index);
     sheet_->checks.push_back(std::move(c));
     return true;
   }
@@ -289,6 +290,7 @@ class LineParser {
   const SourceFile& file_;
   Diagnostics* diags_;
   std::string section_;
+  std::unordered_map<std::string, int> check_index_;  // check name -> position, for duplicates
 };
 
 }  // namespace
@@ -303,6 +305,9 @@ Sheet parseSheet(std::shared_ptr<SourceFile> file, Diagnostics* diags) {
   }
   LineParser parser(&sheet, diags);
   const int lines = f.lineCount();
+  sheet.statements.reserve(static_cast<size_t>(lines));
+  sheet.quantities.reserve(static_cast<size_t>(lines));
+  sheet.index.reserve(static_cast<size_t>(lines));
   for (int line = 1; line <= lines; ++line) parser.parseLine(line);
   return sheet;
 }
