@@ -217,7 +217,7 @@ TEST_CASE("temperatures: degC and degF are absolute, ddegC a difference", "[calc
   CHECK(c->quantities[i].display.fromSI(c->quantities[i].si) == Approx(30).epsilon(1e-13));
 }
 
-TEST_CASE("--set replaces a definition for one run", "[calc][set]") {
+TEST_CASE("an override with --set replaces a definition for one run", "[calc][set]") {
   const std::string sheet = "d = 20 mm\nA [mm^2] = pi * d^2 / 4\n";
   auto c = calc(sheet, {"d=10 mm"});
   INFO(diagnostics(*c));

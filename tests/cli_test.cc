@@ -19,7 +19,7 @@ const char* kPassing = "F = 2 kN\nr = 0.1 m\nT [N*m] = F * r   # torque\ncheck t
 const char* kFailing = "F = 2 kN\nr = 0.1 m\nT [N*m] = F * r   # torque\ncheck t: T < 100 [N*m]   # arm rating\n";
 }  // namespace
 
-TEST_CASE("--version and --help", "[cli]") {
+TEST_CASE("the version and help options", "[cli]") {
   Run v = runCli("--version");
   CHECK(v.status == 0);
   CHECK(v.out.rfind("calctrail ", 0) == 0);
@@ -82,7 +82,7 @@ TEST_CASE("errors exit 2, one line each, all files still checked", "[cli][diagno
   CHECK(runCli("report worksheets").status == 2);  // a directory
 }
 
-TEST_CASE("--set changes one run and never the file", "[cli][set]") {
+TEST_CASE("an override with --set changes one run and never the file", "[cli][set]") {
   const std::string f = sheetFile(kPassing);
   const std::string before = readFile(f);
   Run r = runCli("check '" + f + "' --set 'r=0.2 m'");
@@ -97,7 +97,7 @@ TEST_CASE("--set changes one run and never the file", "[cli][set]") {
         std::string::npos);
 }
 
-TEST_CASE("-o writes the trail to a file; errors leave it untouched", "[cli]") {
+TEST_CASE("the output option writes the trail to a file, and errors leave it untouched", "[cli]") {
   const std::string f = sheetFile(kPassing);
   const std::string out = tempDir() + "/trail.txt";
   Run r = runCli("report '" + f + "' -o '" + out + "'");

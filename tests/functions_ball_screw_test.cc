@@ -92,7 +92,7 @@ TEST_CASE("cubic_mean_load: a cycle that never turns is an error", "[functions][
              Catch::Contains("load F1 = -1000 N must be >= 0"));
 }
 
-TEST_CASE("critical_speed: ball screw makers' factors 21.9, 15.1, 9.7, 3.4 (x 10^7 dr/L^2 rpm, mm, with 0.8; "
+TEST_CASE("critical_speed: ball screw makers' factors 21.9, 15.1, 9.7, 3.4 (x 10^7 dr/L^2 rpm, mm, with 0.8, "
           "common practice, from memory)",
           "[functions][ball_screw]") {
   // Steel as the catalogues take it: E = 206 GPa, density 7850 kg/m^3.

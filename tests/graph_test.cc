@@ -47,7 +47,7 @@ TEST_CASE("a strongly connected knot names members off the shortest loop too", "
   CHECK(cycles[0] == std::vector<int>{0, 1, 2, 3});
 }
 
-TEST_CASE("the downstream cone is what an edit touches; the upstream cone what a result needs", "[graph]") {
+TEST_CASE("the downstream cone is what an edit touches, the upstream cone what a result needs", "[graph]") {
   // d = 0, a = 1 (uses d), b = 2 (uses a), c = 3 (uses d), e = 4 (alone)
   DependencyGraph g(5);
   g.addUse(1, 0);

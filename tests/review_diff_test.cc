@@ -179,7 +179,7 @@ TEST_CASE("diff: a calculated value replaced by a given one", "[review][diff]") 
   CHECK(q.d.moved.size() == 1);  // eta
 }
 
-TEST_CASE("diff: checks added, removed, changed; metadata", "[review][diff]") {
+TEST_CASE("diff: checks added, removed, changed, and metadata", "[review][diff]") {
   std::string now = replaced(kBase, "check torque: T <= T_max  # operator effort\n",
                              "check torque: T < T_max\ncheck efficient: eta >= 30 %\n");
   now = replaced(now, "revision: A", "revision: B");
