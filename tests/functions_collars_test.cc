@@ -5,6 +5,7 @@
 #include <string>
 #include <vector>
 
+#include "tests/function_calls.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -15,21 +16,8 @@ using calctrail::findFunction;
 
 constexpr double mm = 1e-3;
 
-double call(const char* name, std::vector<double> args) {
-  const FunctionDecl* d = findFunction(name);
-  REQUIRE(d != nullptr);
-  REQUIRE(args.size() == d->args.size());
-  return d->eval(args.data());
-}
-
-std::string errorOf(const char* name, std::vector<double> args) {
-  try {
-    call(name, args);
-  } catch (const DomainError& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using calctrail::test::call;
+using calctrail::test::errorOf;
 
 }  // namespace
 

@@ -8,6 +8,7 @@
 #include <string>
 #include <vector>
 
+#include "tests/function_calls.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -23,21 +24,8 @@ constexpr double GPa = 1e9;
 
 constexpr double E = 207 * GPa, Sy = 500 * MPa, d = 37.5 * mm, L = 1.5;
 
-double call(const char* name, std::vector<double> args) {
-  const FunctionDecl* decl = findFunction(name);
-  REQUIRE(decl != nullptr);
-  REQUIRE(args.size() == decl->args.size());
-  return decl->eval(args.data());
-}
-
-std::string errorOf(const char* name, std::vector<double> args) {
-  try {
-    call(name, args);
-  } catch (const DomainError& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using calctrail::test::call;
+using calctrail::test::errorOf;
 
 }  // namespace
 

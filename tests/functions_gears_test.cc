@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "tests/function_calls.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -20,21 +21,8 @@ constexpr double deg = kPi / 180;
 constexpr double rpm = 2 * kPi / 60;
 constexpr double hp = 550 * 0.3048 * 0.45359237 * 9.80665;  // 550 ft*lbf/s, exact definition (NIST SP 811)
 
-double call(const char* name, std::vector<double> args) {
-  const FunctionDecl* d = findFunction(name);
-  REQUIRE(d != nullptr);
-  REQUIRE(args.size() == d->args.size());
-  return d->eval(args.data());
-}
-
-std::string errorOf(const char* name, std::vector<double> args) {
-  try {
-    call(name, args);
-  } catch (const DomainError& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using calctrail::test::call;
+using calctrail::test::errorOf;
 
 }  // namespace
 

@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "tests/function_calls.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -23,21 +24,8 @@ constexpr double lbf = 0.45359237 * 9.80665;  // exact (NIST SP 811)
 constexpr double ft = 0.3048;
 constexpr double hp = 550 * ft * lbf;
 
-double call(const char* name, std::vector<double> args) {
-  const FunctionDecl* d = findFunction(name);
-  REQUIRE(d != nullptr);
-  REQUIRE(args.size() == d->args.size());
-  return d->eval(args.data());
-}
-
-std::string errorOf(const char* name, std::vector<double> args) {
-  try {
-    call(name, args);
-  } catch (const DomainError& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using calctrail::test::call;
+using calctrail::test::errorOf;
 
 }  // namespace
 

@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "tests/function_calls.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -26,21 +27,8 @@ constexpr double deg = kPi / 180;
 // Shigley's Example 8-1.
 constexpr double F = 6400, dm = 30 * mm, l = 8 * mm, f = 0.08, fc = 0.08, dc = 40 * mm;
 
-double call(const char* name, std::vector<double> args) {
-  const FunctionDecl* d = findFunction(name);
-  REQUIRE(d != nullptr);
-  REQUIRE(args.size() == d->args.size());
-  return d->eval(args.data());
-}
-
-std::string errorOf(const char* name, std::vector<double> args) {
-  try {
-    call(name, args);
-  } catch (const DomainError& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using calctrail::test::call;
+using calctrail::test::errorOf;
 
 }  // namespace
 

@@ -8,6 +8,7 @@
 #include <string>
 #include <vector>
 
+#include "tests/function_calls.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -23,21 +24,8 @@ constexpr double rpm = 2 * kPi / 60;
 
 constexpr double F = 6400, dm = 30 * mm, dr = 28 * mm, p = 4 * mm, T = 26.18;
 
-double call(const char* name, std::vector<double> args) {
-  const FunctionDecl* d = findFunction(name);
-  REQUIRE(d != nullptr);
-  REQUIRE(args.size() == d->args.size());
-  return d->eval(args.data());
-}
-
-std::string errorOf(const char* name, std::vector<double> args) {
-  try {
-    call(name, args);
-  } catch (const DomainError& e) {
-    return e.what();
-  }
-  return "(no error)";
-}
+using calctrail::test::call;
+using calctrail::test::errorOf;
 
 }  // namespace
 

@@ -2,20 +2,14 @@
 
 #include <algorithm>
 
+#include "engine/util/text_width.h"
+
 namespace calctrail {
 
 namespace {
 
-int width(const std::string& s) {
-  int n = 0;
-  for (char c : s)
-    if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;
-  return n;
-}
-
-std::string pad(const std::string& s, int w) {
-  return s + std::string(static_cast<size_t>(std::max(0, w - width(s))), ' ');
-}
+int width(const std::string& s) { return displayWidth(s); }
+std::string pad(const std::string& s, int w) { return padRight(s, w); }
 
 // Wraps words at `cols`, each line starting with `indent`.
 std::string wrap(const std::string& text, const std::string& indent, int cols = 78) {

@@ -7,21 +7,11 @@
 
 #include "engine/report/number_format.h"
 #include "engine/util/json_writer.h"
+#include "engine/util/text_width.h"
 
 namespace calctrail {
 
 namespace {
-
-int width(const std::string& s) {
-  int n = 0;
-  for (char c : s)
-    if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;
-  return n;
-}
-
-std::string pad(const std::string& s, int w) {
-  return s + std::string(static_cast<size_t>(std::max(0, w - width(s))), ' ');
-}
 
 std::string plural(size_t n, const char* one, const char* many) {
   return std::to_string(n) + " " + (n == 1 ? one : many);
@@ -77,12 +67,12 @@ std::string table(const std::vector<std::vector<std::string>>& rows, const std::
   for (const auto& r : rows)
     for (size_t c = 0; c < r.size(); ++c) {
       if (widths.size() <= c) widths.push_back(0);
-      widths[c] = std::max(widths[c], width(r[c]));
+      widths[c] = std::max(widths[c], displayWidth(r[c]));
     }
   std::string out;
   for (const auto& r : rows) {
     std::string line = indent;
-    for (size_t c = 0; c < r.size(); ++c) line += c + 1 < r.size() ? pad(r[c], widths[c]) + "  " : r[c];
+    for (size_t c = 0; c < r.size(); ++c) line += c + 1 < r.size() ? padRight(r[c], widths[c]) + "  " : r[c];
     while (!line.empty() && line.back() == ' ') line.pop_back();
     out += line + "\n";
   }

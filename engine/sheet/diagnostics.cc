@@ -2,19 +2,13 @@
 
 #include <algorithm>
 
+#include "engine/util/text_width.h"
 #include "engine/util/utf8.h"
 
 namespace calctrail {
 
 namespace {
 const char* severityWord(Severity s) { return s == Severity::Error ? "error" : "warning"; }
-
-int codePoints(std::string_view s) {
-  int n = 0;
-  for (char c : s)
-    if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;
-  return n;
-}
 }  // namespace
 
 std::string Diagnostic::headline() const {
@@ -57,7 +51,7 @@ void Diagnostics::addAt(Severity s, const SourceFile& file, uint32_t begin, uint
   const uint32_t line_end = file.lineStart(pos.line) + static_cast<uint32_t>(text.size());
   end = std::min(std::max(end, begin + 1), std::max(line_end, begin + 1));
   if (begin < line_end) {
-    d.caret_width = std::max(1, codePoints(std::string_view(file.bytes()).substr(
+    d.caret_width = std::max(1, displayWidth(std::string_view(file.bytes()).substr(
                                     begin, std::min(end, line_end) - begin)));
   }
   list_.push_back(std::move(d));
