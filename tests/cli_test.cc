@@ -151,3 +151,15 @@ TEST_CASE("the same input gives the same bytes", "[cli]") {
   Run c = runCli("report " + path + " --digits 6");
   CHECK(c.out != a.out);
 }
+
+TEST_CASE("JSON gives a declared unit as written", "[cli][json]") {
+  const std::string f = sheetFile("F = 2 kN\nr = 0.1 m\nT [N\xC2\xB7m] = F * r\n");
+  Run r = runCli("report '" + f + "' --format json");
+  REQUIRE(r.status == 0);
+  Json j;
+  std::string error;
+  REQUIRE(parseJson(r.out, &j, &error));
+  CHECK(j["quantities"][2]["unit"].string == "N\xC2\xB7m");
+  CHECK(j["quantities"][2]["value"].number == 200);
+  CHECK(j["quantities"][0]["unit"].string == "kN");
+}

@@ -27,7 +27,8 @@ std::string renderJson(const Calculation& calc, const Trail& t) {
     w.beginObject();
     w.key("name").value(s.name);
     w.key("value").value(q.display.fromSI(q.si));
-    w.key("unit").value(s.unit);
+    // The contract: the declared display unit as written, else the engine's choice.
+    w.key("unit").value(q.declared ? src.unit_written : s.unit);
     w.key("si").value(q.si);
     w.key("si_unit").value(q.dim.siSymbol());
     w.key("dimension").value(s.dimension);
