@@ -26,8 +26,6 @@
 #include <dirent.h>
 #include <sys/mman.h>
 #include <sys/resource.h>
-#include <sys/wait.h>
-#include <unistd.h>
 
 #include <algorithm>
 #include <chrono>
@@ -51,6 +49,7 @@
 #include "engine/sheet/source_file.h"
 #include "engine/units/unit.h"
 #include "functions/function_decl.h"
+#include "engine/util/child_run.h"
 
 using namespace calctrail;
 
@@ -667,42 +666,7 @@ void keepBest(const CaseResult& run, CaseResult* best) {
 }
 
 bool forkCase(const std::string& shape, int lines, bool staged, CaseResult* out) {
-  int fds[2];
-  if (pipe(fds) != 0) return false;
-  std::fflush(stdout);
-  std::fflush(stderr);
-  const pid_t pid = fork();
-  if (pid < 0) {
-    close(fds[0]);
-    close(fds[1]);
-    return false;
-  }
-  if (pid == 0) {
-    close(fds[0]);
-    CaseResult r;
-    runCase(shape, lines, staged, &r);
-    const char* p = reinterpret_cast<const char*>(&r);
-    size_t left = sizeof r;
-    while (left > 0) {
-      const ssize_t w = write(fds[1], p, left);
-      if (w <= 0) _exit(3);
-      p += w;
-      left -= static_cast<size_t>(w);
-    }
-    _exit(0);
-  }
-  close(fds[1]);
-  char* p = reinterpret_cast<char*>(out);
-  size_t got = 0;
-  while (got < sizeof *out) {
-    const ssize_t n = read(fds[0], p + got, sizeof *out - got);
-    if (n <= 0) break;
-    got += static_cast<size_t>(n);
-  }
-  close(fds[0]);
-  int status = 0;
-  waitpid(pid, &status, 0);
-  return got == sizeof *out && WIFEXITED(status) && WEXITSTATUS(status) == 0;
+  return runInChild([&](CaseResult* r) { runCase(shape, lines, staged, r); }, out);
 }
 
 // ---------------------------------------------------------------------------
@@ -811,27 +775,7 @@ void runParserNote(ParserNote* note) {
 }
 
 bool forkNote(ParserNote* out) {
-  int fds[2];
-  if (pipe(fds) != 0) return false;
-  std::fflush(stdout);
-  const pid_t pid = fork();
-  if (pid < 0) {
-    close(fds[0]);
-    close(fds[1]);
-    return false;
-  }
-  if (pid == 0) {
-    close(fds[0]);
-    ParserNote note;
-    runParserNote(&note);
-    _exit(write(fds[1], &note, sizeof note) == static_cast<ssize_t>(sizeof note) ? 0 : 3);
-  }
-  close(fds[1]);
-  const ssize_t got = read(fds[0], out, sizeof *out);
-  close(fds[0]);
-  int status = 0;
-  waitpid(pid, &status, 0);
-  return got == static_cast<ssize_t>(sizeof *out) && WIFEXITED(status) && WEXITSTATUS(status) == 0;
+  return runInChild([](ParserNote* note) { runParserNote(note); }, out);
 }
 
 std::vector<std::string> splitList(const std::string& s) {

@@ -11,8 +11,6 @@
 // heap as in one `calctrail` command (a warm heap flatters small sheets);
 // each figure is the best of 3 runs, or of one when a run takes over 2 s.
 // Exit status 1 when a ratio in CPU time is above 12.
-#include <sys/wait.h>
-#include <unistd.h>
 
 #include <algorithm>
 #include <chrono>
@@ -24,6 +22,7 @@
 #include <vector>
 
 #include "engine/sheet/sheet_parser.h"
+#include "engine/util/child_run.h"
 
 using namespace calctrail;
 
@@ -71,35 +70,19 @@ struct Run {
 
 // Parses in a child process; false when the child fails.
 bool parseInChild(const std::string& shape, int lines, Run* out) {
-  int fds[2];
-  if (pipe(fds) != 0) return false;
-  std::fflush(stdout);
-  const pid_t pid = fork();
-  if (pid < 0) {
-    close(fds[0]);
-    close(fds[1]);
-    return false;
-  }
-  if (pid == 0) {
-    close(fds[0]);
-    const std::string text = sheet(shape, lines);
-    Run r;
-    const double c0 = cpuMs();
-    const auto t0 = std::chrono::steady_clock::now();
-    Diagnostics diags;
-    Sheet s = parseSheet(std::make_shared<SourceFile>("bench.calc", text), &diags);
-    r.wall_ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
-    r.cpu_ms = cpuMs() - c0;
-    r.statements = static_cast<int>(s.statements.size());
-    r.errors = diags.errorCount();
-    _exit(write(fds[1], &r, sizeof r) == static_cast<ssize_t>(sizeof r) ? 0 : 3);
-  }
-  close(fds[1]);
-  const ssize_t got = read(fds[0], out, sizeof *out);
-  close(fds[0]);
-  int status = 0;
-  waitpid(pid, &status, 0);
-  return got == static_cast<ssize_t>(sizeof *out) && WIFEXITED(status) && WEXITSTATUS(status) == 0;
+  return runInChild(
+      [&](Run* r) {
+        const std::string text = sheet(shape, lines);
+        const double c0 = cpuMs();
+        const auto t0 = std::chrono::steady_clock::now();
+        Diagnostics diags;
+        Sheet s = parseSheet(std::make_shared<SourceFile>("bench.calc", text), &diags);
+        r->wall_ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+        r->cpu_ms = cpuMs() - c0;
+        r->statements = static_cast<int>(s.statements.size());
+        r->errors = diags.errorCount();
+      },
+      out);
 }
 
 }  // namespace
