@@ -7,6 +7,9 @@
 //
 //   calculation_perftest                  all shapes, 1k 10k 100k, then the muparser note
 //   calculation_perftest --sizes 1000,10000 --shapes chain,mix
+//   calculation_perftest --shapes none --cases one-cycle --no-note
+//                                         only the worksheets with errors an audit found
+//                                         super-linear (suggestions, one-cycle, two-cycles)
 //   calculation_perftest --cpu            CPU time instead of wall time (a busy machine)
 //   calculation_perftest --dump mix 1000  print a generated worksheet and stop
 //   calculation_perftest --worksheets DIR the demos the mix copies (default: the
@@ -32,6 +35,7 @@
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
+#include <cstring>
 #include <ctime>
 #include <set>
 #include <string>
@@ -50,6 +54,7 @@
 #include "engine/units/unit.h"
 #include "functions/function_decl.h"
 #include "engine/util/child_run.h"
+#include "engine/util/edit_distance.h"
 
 using namespace calctrail;
 
@@ -778,6 +783,183 @@ bool forkNote(ParserNote* out) {
   return runInChild([](ParserNote* note) { runParserNote(note); }, out);
 }
 
+// ---------------------------------------------------------------------------
+// Worksheets with errors, in the shapes an audit found super-linear. Each is
+// timed end to end through Calculation::fromText (what `calctrail check` runs,
+// without printing), and its hot stage alone through the public call:
+//
+//   suggestions  N quantities whose names share a 40-character stem, then N
+//                formulas that use unknown names one edit from them: 2N lines;
+//                the stage is nearestWords for 50 unknown names (as the
+//                calculation asks) over the N names.
+//   one-cycle    N quantities on one loop, x_i = x_(i+1) + 1 mm, x_(N-1) uses
+//                x_0; the stage is DependencyGraph::order on that graph.
+//   two-cycles   N/2 pairs a_k = b_k + 1 mm, b_k = a_k * 2; the stage as above.
+
+const char* const kStem = "quantity_with_a_very_long_shared_prefix_";
+
+std::string stemName(char first, int i) {
+  char buf[80];
+  std::snprintf(buf, sizeof buf, "%s%c%05d", kStem, first, i % 100000);
+  return buf;
+}
+
+std::string errorSheet(const std::string& shape, int n) {
+  std::string s;
+  if (shape == "suggestions") {
+    for (int i = 0; i < n; ++i) s += stemName(static_cast<char>('0' + i / 100000 % 10), i) + " = 1 mm\n";
+    for (int i = 0; i < n; ++i) s += "y_" + std::to_string(i) + " = " + stemName('x', i) + " + 1 mm\n";
+  } else if (shape == "one-cycle") {
+    for (int i = 0; i < n; ++i)
+      s += "x" + std::to_string(i) + " = x" + std::to_string((i + 1) % n) + " + 1 mm\n";
+  } else {
+    for (int k = 0; k < n / 2; ++k) {
+      const std::string a = "a" + std::to_string(k), b = "b" + std::to_string(k);
+      s += a + " = " + b + " + 1 mm\n" + b + " = " + a + " * 2\n";
+    }
+  }
+  return s;
+}
+
+int errorSheetLines(const std::string& shape, int n) { return shape == "suggestions" ? 2 * n : n / 2 * 2; }
+
+// What a child sends back for one error case.
+struct ErrorCaseResult {
+  int lines = 0;
+  int errors = 0;          // diagnostics of severity error
+  int expected = 0;        // errors the shape must give: every unknown name, or every cycle
+  int right = 0;           // of those, the ones that say what they must (the right suggestion, every member)
+  double calc = 1e300, calc_cpu = 1e300;  // Calculation::fromText, ms (wall or --cpu) and CPU ms
+  double stage = 1e300, stage_cpu = 1e300;  // the hot stage alone, ms and CPU ms
+  double rss_peak_mb = 0;
+};
+
+// The number of " -> " in a cycle message: the members it names.
+size_t arrows(const std::string& msg) {
+  size_t count = 0;
+  for (size_t at = msg.find(" -> "); at != std::string::npos; at = msg.find(" -> ", at + 4)) ++count;
+  return count;
+}
+
+void runErrorCase(const std::string& shape, int n, ErrorCaseResult* r) {
+  const std::string text = errorSheet(shape, n);
+  r->lines = errorSheetLines(shape, n);
+  {
+    std::string bytes = text;
+    const double t0 = now(), c0 = cpuNow();
+    std::unique_ptr<Calculation> calc = Calculation::fromText("bench.calc", std::move(bytes));
+    r->calc = now() - t0;
+    r->calc_cpu = cpuNow() - c0;
+    r->errors = calc->diags.errorCount();
+    r->expected = shape == "suggestions" ? n : shape == "one-cycle" ? 1 : n / 2;
+    int suggested = 0;
+    for (const Diagnostic& d : calc->diags.list()) {
+      if (d.severity != Severity::Error) continue;
+      if (shape == "suggestions") {
+        // The first 50 distinct names get suggestions, the nearest first; the
+        // rest none (the calculation's cap).
+        const size_t from = d.message.find(std::string("`") + kStem + "x");
+        if (from == std::string::npos) continue;
+        const std::string digits = d.message.substr(from + 1 + std::strlen(kStem) + 1, 5);
+        const std::string want = std::string("did you mean `") + kStem + "0" + digits + "`";
+        if (d.message.find("did you mean") == std::string::npos) {
+          r->right += suggested == 50;
+        } else {
+          ++suggested;
+          r->right += d.message.find(want) != std::string::npos;
+        }
+      } else {
+        const size_t members = shape == "one-cycle" ? static_cast<size_t>(n) : 2;
+        r->right += arrows(d.message) == members;
+      }
+    }
+  }
+  if (shape == "suggestions") {
+    std::vector<std::string> names;
+    for (int i = 0; i < n; ++i) names.push_back(stemName(static_cast<char>('0' + i / 100000 % 10), i));
+    const double s0 = now(), sc0 = cpuNow();  // the names are built outside the clock
+    size_t found = 0;
+    for (int i = 0; i < 50; ++i) found += nearestWords(stemName('x', i * (n / 50)), names).size();
+    r->stage = now() - s0;
+    r->stage_cpu = cpuNow() - sc0;
+    if (found == 0) r->right = -1;
+  } else {
+    DependencyGraph graph(n);
+    if (shape == "one-cycle") {
+      for (int i = 0; i < n; ++i) graph.addUse(i, (i + 1) % n);
+    } else {
+      for (int k = 0; k + 1 < n; k += 2) graph.addUse(k, k + 1), graph.addUse(k + 1, k);
+    }
+    std::vector<std::vector<int>> cycles;
+    const double s0 = now(), sc0 = cpuNow();
+    graph.order(&cycles);
+    r->stage = now() - s0;
+    r->stage_cpu = cpuNow() - sc0;
+    if (cycles.size() != static_cast<size_t>(r->expected)) r->right = -1;
+  }
+  r->rss_peak_mb = peakRssMb();
+}
+
+// Runs every error case at its sizes, in turn, best of `runs`; prints the
+// table and the ratios. Returns 1 when a ratio in CPU time is above 15 for
+// a 10x size, 2 when a case failed or gave a wrong answer.
+int runErrorCases(const std::vector<std::string>& cases, int runs) {
+  std::printf("\nworksheets with errors, the shapes an audit found super-linear (Calculation::fromText\n"
+              "as `calctrail check` runs it; stage = the hot call alone); best of %d runs,\n"
+              "each in a fresh child\n\n", runs);
+  std::printf("%-11s %8s %8s %9s %9s %8s %9s %9s %8s %7s  %s\n", "case", "N", "lines", "calc", "calc cpu",
+              "us/line", "stage", "stage cpu", "us/line", "RSS MB", "errors");
+  int status = 0;
+  for (const std::string& shape : cases) {
+    const std::vector<int> sizes =
+        shape == "suggestions" ? std::vector<int>{10000, 100000} : std::vector<int>{100000, 1000000};
+    std::vector<ErrorCaseResult> best(sizes.size());
+    std::vector<char> failed(sizes.size(), 0);
+    for (int run = 0; run < runs; ++run) {
+      for (size_t k = 0; k < sizes.size(); ++k) {
+        if (failed[k]) continue;
+        ErrorCaseResult one;
+        failed[k] = !runInChild([&](ErrorCaseResult* r) { runErrorCase(shape, sizes[k], r); }, &one);
+        if (failed[k]) continue;
+        ErrorCaseResult& b = best[k];
+        const ErrorCaseResult keep = b;
+        b = one;
+        if (run > 0) {
+          b.calc = std::min(keep.calc, one.calc), b.calc_cpu = std::min(keep.calc_cpu, one.calc_cpu);
+          b.stage = std::min(keep.stage, one.stage), b.stage_cpu = std::min(keep.stage_cpu, one.stage_cpu);
+          b.rss_peak_mb = std::max(keep.rss_peak_mb, one.rss_peak_mb);
+        }
+      }
+    }
+    for (size_t k = 0; k < sizes.size(); ++k) {
+      const ErrorCaseResult& r = best[k];
+      if (failed[k]) {
+        std::printf("%-11s %8d  (the child process failed)\n", shape.c_str(), sizes[k]);
+        status = 2;
+        continue;
+      }
+      const bool right = r.errors == r.expected && r.right == r.expected;
+      std::printf("%-11s %8d %8d %9.1f %9.1f %8.2f %9.1f %9.1f %8.3f %7.1f  %d of %d right%s\n",
+                  shape.c_str(), sizes[k], r.lines, r.calc, r.calc_cpu, r.calc * 1000.0 / r.lines, r.stage,
+                  r.stage_cpu, r.stage * 1000.0 / r.lines, r.rss_peak_mb, r.right, r.expected,
+                  right ? "" : "  ** WRONG **");
+      if (!right) status = 2;
+    }
+    if (!failed[0] && !failed[1]) {
+      const ErrorCaseResult& a = best[0];
+      const ErrorCaseResult& b = best[1];
+      const double calc = b.calc_cpu / a.calc_cpu, stage = b.stage_cpu / a.stage_cpu;
+      // n log n (the diagnostics' sort, the order's heap) and a heap that no
+      // longer fits the caches give 11 to 14 at these sizes; a quadratic path 100.
+      const double n_log_n = 10.0 * std::log(10.0 * sizes[0]) / std::log(static_cast<double>(sizes[0]));
+      std::printf("%-11s 10x N: calc %.2fx (cpu), stage %.2fx (cpu); n log n would be %.2fx%s\n", "", calc,
+                  stage, n_log_n, calc > 15 || stage > 15 ? "  ** NOT LINEAR: above 15 **" : "");
+      if ((calc > 15 || stage > 15) && status == 0) status = 1;
+    }
+  }
+  return status;
+}
+
 std::vector<std::string> splitList(const std::string& s) {
   std::vector<std::string> out;
   size_t b = 0;
@@ -792,8 +974,9 @@ std::vector<std::string> splitList(const std::string& s) {
 
 int usage() {
   std::fprintf(stderr,
-               "usage: calculation_perftest [--shapes chain,fanin,mix] [--sizes 1000,10000,100000] [--runs 5] [--cpu]\n"
-               "                            [--worksheets DIR] [--no-note]\n"
+               "usage: calculation_perftest [--shapes chain,fanin,mix|none] [--sizes 1000,10000,100000]\n"
+               "                            [--cases suggestions,one-cycle,two-cycles|none] [--runs 5]\n"
+               "                            [--cpu] [--worksheets DIR] [--no-note]\n"
                "       calculation_perftest --dump chain|fanin|mix LINES\n");
   return 2;
 }
@@ -802,6 +985,7 @@ int usage() {
 
 int main(int argc, char** argv) {
   std::vector<std::string> shapes = {"chain", "fanin", "mix"};
+  std::vector<std::string> cases = {"suggestions", "one-cycle", "two-cycles"};
   std::vector<int> sizes = {1000, 10000, 100000};
   bool note = true;
   int runs = 5;
@@ -814,8 +998,14 @@ int main(int argc, char** argv) {
       return 0;
     } else if (a == "--shapes" && i + 1 < argc) {
       shapes = splitList(argv[++i]);
+      if (shapes == std::vector<std::string>{"none"}) shapes.clear();
       for (const std::string& s : shapes)
         if (s != "chain" && s != "fanin" && s != "mix") return usage();
+    } else if (a == "--cases" && i + 1 < argc) {
+      cases = splitList(argv[++i]);
+      if (cases == std::vector<std::string>{"none"}) cases.clear();
+      for (const std::string& s : cases)
+        if (s != "suggestions" && s != "one-cycle" && s != "two-cycles") return usage();
     } else if (a == "--sizes" && i + 1 < argc) {
       sizes.clear();
       for (const std::string& s : splitList(argv[++i])) sizes.push_back(std::max(10, std::atoi(s.c_str())));
@@ -842,9 +1032,10 @@ int main(int argc, char** argv) {
     for (const Template& t : templates()) std::printf(" %s (%zu lines)", t.name.c_str(), t.lines.size());
     std::printf("\n\n");
   }
-  std::printf("%-6s %7s %7s %7s %8s %8s %8s %8s %8s %8s %8s %8s %8s %7s %7s\n", "shape", "lines", "quant", "parse",
-              "res+ord", "check", "compile", "evaluate", "trail", "calc", "e2e", "e2e cpu", "us/line", "faults",
-              "RSS MB");
+  if (!shapes.empty())
+    std::printf("%-6s %7s %7s %7s %8s %8s %8s %8s %8s %8s %8s %8s %8s %7s %7s\n", "shape", "lines",
+                "quant", "parse", "res+ord", "check", "compile", "evaluate", "trail", "calc", "e2e",
+                "e2e cpu", "us/line", "faults", "RSS MB");
   int status = 0;
   struct Row { std::string shape; int lines; double e2e, e2e_cpu; };
   std::vector<Row> rows;
@@ -888,12 +1079,14 @@ int main(int argc, char** argv) {
       rows.push_back({shape, lines, r.e2e, r.e2e_cpu});
     }
   }
-  std::printf("\ncolumns: quant = quantities; res+ord = name resolution, dependency graph and order;\n"
-              "calc = Calculation::fromText (SHA-256, parse, every stage); trail = buildTrail + renderText;\n"
-              "e2e = calc + trail, on a cold heap, as one `calctrail report` run; e2e cpu = its process CPU time;\n"
-              "faults = its minor page faults (first touches of fresh memory); RSS MB = the child's peak RSS.\n"
-              "parse to evaluate come from a staged run after it, of the same text in the same child (warm heap).\n"
-              "\nworksheets (no errors allowed; in the mix, the checks the demos fail on purpose fail):\n");
+  if (!shapes.empty())
+    std::printf(
+        "\ncolumns: quant = quantities; res+ord = name resolution, dependency graph and order;\n"
+        "calc = Calculation::fromText (SHA-256, parse, every stage); trail = buildTrail + renderText;\n"
+        "e2e = calc + trail, on a cold heap, as one `calctrail report` run; e2e cpu = its process CPU time;\n"
+        "faults = its minor page faults (first touches of fresh memory); RSS MB = the child's peak RSS.\n"
+        "parse to evaluate come from a staged run after it, of the same text in the same child (warm heap).\n"
+        "\nworksheets (no errors allowed; in the mix, the checks the demos fail on purpose fail):\n");
   for (const std::string& n : notes) std::printf("  %s\n", n.c_str());
 
   bool header = false;
@@ -919,6 +1112,11 @@ int main(int argc, char** argv) {
                 : ratio > 12   ? "ok in CPU time; wall time above 12 (a busy machine?)"
                                : "ok");
     if (cpu_ratio > 12 && status == 0) status = 1;
+  }
+
+  if (!cases.empty()) {
+    const int error_status = runErrorCases(cases, std::min(runs, 3));
+    if (error_status == 2 || (error_status == 1 && status == 0)) status = error_status;
   }
 
   if (note) {

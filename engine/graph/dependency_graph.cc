@@ -2,16 +2,25 @@
 
 #include <algorithm>
 #include <queue>
+#include <utility>
 
 namespace calctrail {
 
-DependencyGraph::DependencyGraph(int nodes) : uses_(nodes), used_by_(nodes) {}
+DependencyGraph::DependencyGraph(int nodes) : uses_(nodes), used_by_(nodes), mark_(nodes, -1) {}
 
 void DependencyGraph::addUse(int user, int used) {
-  std::vector<int>& u = uses_[user];
-  if (std::find(u.begin(), u.end(), used) != u.end()) return;
+  // A repeated edge is found by a mark on the nodes `user` already uses, set
+  // when the calls move to a new user: callers add a formula's uses together,
+  // so each node's uses are marked once, and a formula of 100k distinct names
+  // costs 100k steps, not a scan of its uses per name.
+  if (marked_user_ != user) {
+    marked_user_ = user;
+    for (int w : uses_[user]) mark_[w] = user;
+  }
+  if (mark_[used] == user) return;
+  mark_[used] = user;
   rank_.clear();  // the order changes
-  u.push_back(used);
+  uses_[user].push_back(used);
   used_by_[used].push_back(user);
 }
 
@@ -67,32 +76,35 @@ std::vector<std::vector<int>> stronglyConnected(const std::vector<std::vector<in
   return out;
 }
 
-// A shortest loop from `start` back to itself inside `members`, by BFS.
-std::vector<int> loopThrough(int start, const std::vector<std::vector<int>>& uses,
-                             const std::vector<char>& member) {
-  std::vector<int> parent(uses.size(), -1);
-  std::queue<int> q;
-  q.push(start);
-  parent[start] = start;
-  while (!q.empty()) {
-    const int v = q.front();
-    q.pop();
+// A shortest loop from `start` back to itself through the nodes of component
+// `comp` only, by BFS. `parent` is scratch of the graph's size, all -1, and is
+// left so: only the nodes visited are reset, so each component costs its own
+// size and edges, not the whole graph's.
+std::vector<int> loopThrough(int start, int comp, const std::vector<std::vector<int>>& uses,
+                             const std::vector<int>& comp_of, std::vector<int>* parent) {
+  std::vector<int>& from = *parent;
+  std::vector<int> visited{start};  // also the BFS queue, read from `head`
+  from[start] = start;
+  std::vector<int> path;
+  for (size_t head = 0; head < visited.size() && path.empty(); ++head) {
+    const int v = visited[head];
     for (int w : uses[v]) {
-      if (!member[w]) continue;
+      if (comp_of[w] != comp) continue;
       if (w == start) {
-        std::vector<int> path;
-        for (int x = v; x != start; x = parent[x]) path.push_back(x);
+        for (int x = v; x != start; x = from[x]) path.push_back(x);
         path.push_back(start);
         std::reverse(path.begin(), path.end());
-        return path;
+        break;
       }
-      if (parent[w] < 0) {
-        parent[w] = v;
-        q.push(w);
+      if (from[w] < 0) {
+        from[w] = v;
+        visited.push_back(w);
       }
     }
   }
-  return {start};
+  for (int v : visited) from[v] = -1;
+  if (path.empty()) path.push_back(start);
+  return path;
 }
 
 }  // namespace
@@ -118,20 +130,30 @@ std::vector<int> DependencyGraph::order(std::vector<std::vector<int>>* cycles) c
   if (cycles && static_cast<int>(out.size()) < n) {
     std::vector<char> left(n, 1);
     for (int v : out) left[v] = 0;
-    for (std::vector<int>& comp : stronglyConnected(uses_, left)) {
-      const bool self_loop = comp.size() == 1 &&
-          std::find(uses_[comp[0]].begin(), uses_[comp[0]].end(), comp[0]) != uses_[comp[0]].end();
+    std::vector<std::vector<int>> comps = stronglyConnected(uses_, left);
+    // Scratch of the graph's size, allocated once for every component: one
+    // array per component would make N/2 two-member cycles cost N^2 / 2.
+    std::vector<int> comp_of(n, -1), parent(n, -1);
+    std::vector<char> on_loop(n, 0);
+    for (size_t c = 0; c < comps.size(); ++c)
+      for (int v : comps[c]) comp_of[v] = static_cast<int>(c);
+    for (size_t c = 0; c < comps.size(); ++c) {
+      std::vector<int>& comp = comps[c];
+      const std::vector<int>& own = uses_[comp[0]];
+      const bool self_loop = comp.size() == 1 && std::find(own.begin(), own.end(), comp[0]) != own.end();
       if (comp.size() < 2 && !self_loop) continue;  // only downstream of a cycle
-      std::vector<char> member(n, 0);
-      for (int v : comp) member[v] = 1;
       const int start = *std::min_element(comp.begin(), comp.end());
-      std::vector<int> loop = loopThrough(start, uses_, member);
-      // Name every member: those off the shortest loop follow it.
+      std::vector<int> loop = loopThrough(start, static_cast<int>(c), uses_, comp_of, &parent);
+      // Name every member: those off the shortest loop follow it, in node order.
+      for (int v : loop) on_loop[v] = 1;
       std::sort(comp.begin(), comp.end());
       for (int v : comp)
-        if (std::find(loop.begin(), loop.end(), v) == loop.end()) loop.push_back(v);
+        if (!on_loop[v]) loop.push_back(v);
+      for (int v : comp) on_loop[v] = 0;
       cycles->push_back(std::move(loop));
     }
+    // Each loop starts at its least member and no two share one: the sort
+    // compares first elements only.
     std::sort(cycles->begin(), cycles->end());
   }
   return out;

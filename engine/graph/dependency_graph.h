@@ -13,7 +13,8 @@ class DependencyGraph {
   explicit DependencyGraph(int nodes);
 
   int size() const { return static_cast<int>(uses_.size()); }
-  // `user` uses `used` in its formula. Repeated edges are kept once.
+  // `user` uses `used` in its formula. Repeated edges are kept once. O(1)
+  // amortized when the uses of one user are added together, as a formula's are.
   void addUse(int user, int used);
   const std::vector<int>& uses(int node) const { return uses_[node]; }
   const std::vector<int>& usedBy(int node) const { return used_by_[node]; }
@@ -21,7 +22,10 @@ class DependencyGraph {
   // Every node whose inputs can all be evaluated, dependencies first; ties in
   // node order, so the order is stable. Nodes on a cycle, or downstream of
   // one, are left out; each cycle found goes to *cycles as its members in
-  // order along the loop (first member repeated at the end is implied).
+  // order along the loop (first member repeated at the end is implied),
+  // starting at its least member; members off that shortest loop (a knot of
+  // loops) follow it in node order. Cycles are sorted by first member.
+  // O((nodes + edges) log nodes), however many cycles and however long.
   std::vector<int> order(std::vector<std::vector<int>>* cycles = nullptr) const;
 
   // The downstream cone: `node` and everything that depends on it, directly or
@@ -32,8 +36,10 @@ class DependencyGraph {
 
  private:
   std::vector<int> reach(int node, bool down) const;
-  std::vector<std::vector<int>> uses_;
-  std::vector<std::vector<int>> used_by_;
+  std::vector<std::vector<int>> uses_;     // uses_[v]: the nodes v's formula uses, first use first
+  std::vector<std::vector<int>> used_by_;  // used_by_[v]: the nodes whose formulas use v
+  std::vector<int> mark_;    // mark_[w] == marked_user_: marked_user_ already uses w
+  int marked_user_ = -1;     // the user whose uses mark_ holds; -1 before the first edge
   mutable std::vector<int> rank_;  // position in order(), built on the first cone query
 };
 

@@ -8,13 +8,17 @@
 namespace calctrail {
 
 // Levenshtein distance with adjacent transpositions counted as one edit
-// (optimal string alignment). Stops early and returns max_distance + 1 once
-// the distance is known to exceed max_distance (when max_distance > 0).
+// (optimal string alignment). When max_distance > 0, returns max_distance + 1
+// for any distance above it, and fills at most 2 * max_distance + 1 cells per
+// character of `a` once a common prefix and suffix are stripped (a band of the
+// table): linear in the length, however long the names.
 int editDistance(std::string_view a, std::string_view b, int max_distance = 0);
 
-// The candidates nearest to `word`, best first, at most `max` of them, and
-// only those close enough to be a plausible slip (a third of the length, at
-// least 1, at most 3 edits). A case-only difference counts as nearest.
+// The candidates nearest to `word`, best first (ties in candidate order), at
+// most `max` of them, and only those close enough to be a plausible slip (a
+// third of the length, at least 1, at most 3 edits). A case-only difference
+// counts as nearest. One pass over the candidates, each compared within the
+// distance still worth knowing: O(total length of the candidates).
 std::vector<std::string> nearestWords(std::string_view word,
                                       const std::vector<std::string>& candidates,
                                       size_t max = 3);
