@@ -1,0 +1,18 @@
+// libFuzzer target: any bytes as a unit expression (engine/units/unit_parser.h).
+#include <cstddef>
+#include <cstdint>
+#include <cstdio>
+#include <cstdlib>
+#include <string_view>
+
+#include "tests/fuzz/invariants.h"
+
+extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
+  const std::string broken =
+      calctrail::fuzz::unitParserHolds(std::string_view(reinterpret_cast<const char*>(data), size));
+  if (!broken.empty()) {
+    std::fprintf(stderr, "fuzz invariant broken: %s\n", broken.c_str());
+    std::abort();  // libFuzzer saves the input as a crash
+  }
+  return 0;
+}
