@@ -80,7 +80,142 @@ DimensionChecker::DimensionChecker(const SourceFile& file, Diagnostics* diags, c
                                    const std::vector<Dimension>& dims, const std::vector<char>& known)
     : file_(file), diags_(diags), sheet_(sheet), dims_(dims), known_(known) {}
 
-bool DimensionChecker::check(Expr& e) { return visit(e); }
+namespace {
+const char* const kTemperatureFix =
+    "for a temperature difference write ddegC, ddegF or K (as in `5 ddegC`); to use the value as a "
+    "thermodynamic temperature, declare its quantity in [K]";
+
+std::string absoluteOperand(const Expr& x, const std::string& what) {
+  return "`" + renderExpr(x) + "` is an absolute temperature (degC and degF count from an arbitrary zero), " +
+         "so " + what + " has no physical meaning; " + kTemperatureFix;
+}
+}  // namespace
+
+TemperatureKind temperatureKind(const Quantity& q) {
+  if (q.display && q.display->isAbsoluteTemperature()) return TemperatureKind::Absolute;
+  if (q.display && q.display->isTemperatureDifference()) return TemperatureKind::Difference;
+  // [K], or a unit of any other dimension (which the dimension check rejects).
+  if (q.display) return TemperatureKind::Unknown;
+  return q.expr ? q.expr->temperature : TemperatureKind::Unknown;
+}
+
+std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet) {
+  using K = TemperatureKind;
+  const K a = e.args.empty() ? K::Unknown : e.args[0]->temperature;
+  const K b = e.args.size() < 2 ? K::Unknown : e.args[1]->temperature;
+  const bool any_difference = a == K::Difference || b == K::Difference;
+  const bool is_temperature = e.dim == Dimension::of(Base::Temperature);
+  e.temperature = K::Unknown;
+  switch (e.kind) {
+    case ExprKind::Number:
+      if (e.unit && e.unit->isAbsoluteTemperature()) e.temperature = K::Absolute;
+      else if (e.unit && e.unit->isTemperatureDifference()) e.temperature = K::Difference;
+      return "";
+    case ExprKind::Name: {
+      const int i = sheet.find(e.text);
+      if (i >= 0) e.temperature = temperatureKind(sheet.quantities[i]);
+      return "";
+    }
+    case ExprKind::Group:
+      e.temperature = a;
+      return "";
+    case ExprKind::Negate:
+      if (a == K::Absolute) {
+        return absoluteOperand(*e.args[0], "its negative (below absolute zero)") +
+               "; a temperature below the zero of its scale is written as one number, `-40 degC`";
+      }
+      e.temperature = a;
+      return "";
+    case ExprKind::Add:
+      if (a == K::Absolute && b == K::Absolute) {
+        return "adding two absolute temperatures has no physical meaning (20 degC + 20 degC is not 40 degC); "
+               "add a temperature difference, in ddegC, ddegF or K (as in `T + 5 ddegC`), or declare the "
+               "quantities in [K] to use them as thermodynamic temperatures";
+      }
+      if (a == K::Absolute || b == K::Absolute) e.temperature = K::Absolute;
+      else if (any_difference && is_temperature) e.temperature = K::Difference;
+      return "";
+    case ExprKind::Subtract:
+      if (a == K::Difference && b == K::Absolute) {
+        return "subtracting an absolute temperature from a temperature difference has no physical meaning "
+               "(`T2 - T1` of two absolute temperatures is a difference); " + std::string(kTemperatureFix);
+      }
+      if (a == K::Absolute) e.temperature = b == K::Absolute ? K::Difference : K::Absolute;
+      else if (b == K::Absolute || (any_difference && is_temperature)) e.temperature = K::Difference;
+      return "";
+    case ExprKind::Multiply:
+    case ExprKind::Divide:
+    case ExprKind::Power: {
+      const char* what = e.kind == ExprKind::Multiply ? "multiplying it (2 * 20 degC is not 40 degC)"
+                         : e.kind == ExprKind::Divide ? "dividing it, or dividing by it,"
+                                                      : "a power of it";
+      if (a == K::Absolute) return absoluteOperand(*e.args[0], what);
+      if (b == K::Absolute) return absoluteOperand(*e.args[1], what);
+      if (any_difference && is_temperature) e.temperature = K::Difference;
+      return "";
+    }
+    case ExprKind::Call: {
+      bool absolute = false, difference = false;
+      for (const ExprPtr& x : e.args) {
+        absolute |= x->temperature == K::Absolute;
+        difference |= x->temperature == K::Difference;
+      }
+      if (!absolute && !difference) return "";
+      // min, max and abs keep the kind of their arguments; any other function of an
+      // absolute temperature is an error.
+      const bool keeps = e.text == "min" || e.text == "max" || e.text == "abs";
+      for (const ExprPtr& x : e.args) {
+        if (x->temperature == K::Absolute && !keeps) return absoluteOperand(*x, "`" + e.text + "` of it");
+      }
+      if (absolute && difference) {
+        return "`" + e.text + "` compares absolute temperatures with temperature differences, which has no "
+               "physical meaning; " + std::string(kTemperatureFix);
+      }
+      if (keeps || is_temperature) e.temperature = absolute ? K::Absolute : K::Difference;
+      return "";
+    }
+    case ExprKind::Pi:
+      return "";
+  }
+  return "";
+}
+
+bool DimensionChecker::check(Expr& e) { return visit(e) && checkTemperatureOwner(e); }
+
+// A formula's temperature kind must suit what receives it: a difference
+// shown in [degC] would be off by the zero of the scale, and a check must
+// not compare a difference with an absolute temperature. Looked up by
+// pointer, and only for temperature-valued roots, which are few.
+bool DimensionChecker::checkTemperatureOwner(const Expr& root) {
+  using K = TemperatureKind;
+  if (root.temperature == K::Unknown) return true;
+  for (const Quantity& q : sheet_.quantities) {
+    if (q.expr.get() != &root) continue;
+    if (!q.display) return true;
+    if (root.temperature == K::Difference && q.display->isAbsoluteTemperature()) {
+      return fail(root, "`" + q.name + "` is a temperature difference, but [" + q.unit_written +
+                            "] shows absolute temperatures: the number shown would be off by the zero of the "
+                            "scale; declare it in [ddegC], [ddegF] or [K]");
+    }
+    if (root.temperature == K::Absolute && q.display->isTemperatureDifference()) {
+      return fail(root, "`" + q.name + "` is an absolute temperature, but [" + q.unit_written +
+                            "] is a unit of temperature differences; declare it in [degC], [degF] or [K]");
+    }
+    return true;
+  }
+  for (const Check& c : sheet_.checks) {
+    if (c.rhs.get() != &root) continue;
+    const K l = c.lhs->temperature, r = root.temperature;
+    if ((l == K::Absolute && r == K::Difference) || (l == K::Difference && r == K::Absolute)) {
+      return fail(root, "the check `" + c.name +
+                            "` compares an absolute temperature with a temperature difference; write a limit "
+                            "on a difference in ddegC, ddegF or K (as in `50 ddegC`), and one on a "
+                            "temperature in degC, degF or K");
+    }
+    return true;
+  }
+  return true;
+}
 
 bool DimensionChecker::fail(const Expr& at, const std::string& message) {
   diags_->error(file_, at.begin, at.end, message);
@@ -88,6 +223,12 @@ bool DimensionChecker::fail(const Expr& at, const std::string& message) {
 }
 
 bool DimensionChecker::visit(Expr& e) {
+  if (!visitNode(e)) return false;
+  const std::string temperature_error = absoluteTemperatureRule(e, sheet_);
+  return temperature_error.empty() || fail(e, temperature_error);
+}
+
+bool DimensionChecker::visitNode(Expr& e) {
   switch (e.kind) {
     case ExprKind::Number:
       e.dim = e.unit ? e.unit->dim : kNone;

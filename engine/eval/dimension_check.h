@@ -24,7 +24,9 @@ class DimensionChecker {
 
  private:
   bool visit(Expr& e);
+  bool visitNode(Expr& e);
   bool checkCall(Expr& e);
+  bool checkTemperatureOwner(const Expr& root);
   bool fail(const Expr& at, const std::string& message);
 
   const SourceFile& file_;
@@ -47,6 +49,18 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim);
 // Torque or energy, or power, with any angle exponent: T*theta is work and
 // T*omega is power, so there the radian is 1 and the angle is dropped.
 bool workOrPower(const Dimension& d);
+
+// The rule for absolute temperatures (degC, degF), whose zero is arbitrary:
+// products, quotients, powers, roots and negation of one, and sums of two,
+// have no physical meaning and are errors; an absolute plus or minus a
+// difference is absolute, absolute minus absolute is a difference, and
+// comparisons of two absolutes are fine. Sets e.temperature from its
+// operands (visited already) and returns "" or the error for `e`.
+std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet);
+
+// The temperature kind of a quantity: its declared unit decides ([degC] is
+// absolute, [ddegC] a difference, [K] either), else its formula.
+TemperatureKind temperatureKind(const Quantity& q);
 
 // The value of an expression made of numbers, pi and arithmetic only.
 bool constantValue(const Expr& e, double* value);

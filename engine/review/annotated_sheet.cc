@@ -3,6 +3,7 @@
 #include <map>
 
 #include "engine/report/number_format.h"
+#include "engine/sheet/control_chars.h"
 
 namespace calctrail {
 
@@ -56,7 +57,9 @@ std::string annotatedSheet(const Calculation& calc, int digits) {
   for (const Statement& st : calc.sheet.statements) {
     std::string_view text = file.lineText(st.line);
     if (st.line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) text.remove_prefix(3);
-    out.append(text.data(), text.size());
+    // A line with a control character is an error (shown below it); the
+    // character itself must not reach the terminal that `git diff` prints to.
+    out += withoutControlChars(text);
     out += "\n";
     if (calculated && st.kind == Statement::Define) {
       const QuantityState& s = calc.quantities[st.index];

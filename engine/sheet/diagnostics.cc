@@ -2,6 +2,7 @@
 
 #include <algorithm>
 
+#include "engine/sheet/control_chars.h"
 #include "engine/util/text_width.h"
 #include "engine/util/utf8.h"
 
@@ -14,7 +15,7 @@ const char* severityWord(Severity s) { return s == Severity::Error ? "error" : "
 std::string Diagnostic::headline() const {
   // Problems without a place (an unreadable or empty file) point at 1:1, so
   // every line keeps the FILE:LINE:COL form that editors and CI parse.
-  std::string out = path;
+  std::string out = withoutControlChars(path);
   out += ":" + std::to_string(line > 0 ? line : 1) + ":" + std::to_string(line > 0 ? column : 1);
   out += ": ";
   out += severityWord(severity);
@@ -37,7 +38,7 @@ void Diagnostics::addAt(Severity s, const SourceFile& file, uint32_t begin, uint
   Diagnostic d;
   d.severity = s;
   d.path = file.path();
-  d.message = message;
+  d.message = withoutControlChars(message);
   const SourcePos pos = file.position(begin);
   d.line = pos.line;
   d.column = pos.column;
@@ -46,6 +47,8 @@ void Diagnostics::addAt(Severity s, const SourceFile& file, uint32_t begin, uint
   d.source_line.assign(text.begin(), text.end());
   // Bytes that are not UTF-8 are shown as '?', so the message itself stays valid text.
   for (size_t bad; (bad = findInvalidUtf8(d.source_line)) != std::string::npos;) d.source_line[bad] = '?';
+  // Nor does a control character reach the terminal: the message names it.
+  d.source_line = withoutControlChars(d.source_line);
   std::replace(d.source_line.begin(), d.source_line.end(), '\t', ' ');
   d.caret_column = pos.column;
   const uint32_t line_end = file.lineStart(pos.line) + static_cast<uint32_t>(text.size());
@@ -70,7 +73,13 @@ void Diagnostics::warning(const SourceFile& file, uint32_t begin, uint32_t end,
 void Diagnostics::error(const std::string& path, const std::string& message) {
   Diagnostic d;
   d.path = path;
-  d.message = message;
+  d.message = withoutControlChars(message);
+  list_.push_back(std::move(d));
+}
+
+void Diagnostics::add(Diagnostic d) {
+  d.message = withoutControlChars(d.message);
+  d.source_line = withoutControlChars(d.source_line);
   list_.push_back(std::move(d));
 }
 

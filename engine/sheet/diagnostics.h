@@ -35,7 +35,9 @@ class Diagnostics {
   void warning(const SourceFile& file, uint32_t begin, uint32_t end, const std::string& message);
   // A problem with no source position (an unreadable file, a bad option).
   void error(const std::string& path, const std::string& message);
-  void add(Diagnostic d) { list_.push_back(std::move(d)); }
+  // Messages and source lines are stored without control characters (each
+  // becomes `?`), so that no diagnostic can drive the terminal it is shown on.
+  void add(Diagnostic d);
 
   const std::vector<Diagnostic>& list() const { return list_; }
   bool hasErrors() const;

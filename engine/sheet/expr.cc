@@ -8,6 +8,12 @@ void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
 }
 
 namespace {
+// A number whose unit is written without brackets where `render` shows it.
+bool numberShownWithBareUnit(const Expr& e, bool pretty) {
+  if (e.kind != ExprKind::Number || e.unit_written.empty()) return false;
+  return pretty ? e.unit != nullptr : e.unit_written[0] != '[';
+}
+
 void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::string* out) {
   auto binary = [&](const char* op) {
     render(*e.args[0], value_of, pretty, out);
@@ -58,6 +64,14 @@ void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::strin
         const bool wrap = base.find(' ') != std::string::npos && base[0] != '(';
         *out += wrap ? "(" + base + ")" : base;
         *out += '^';
+        render(*e.args[1], value_of, pretty, out);
+        break;
+      }
+      if (numberShownWithBareUnit(*e.args[0], pretty)) {
+        // `3 [mm]^2` is shown `(3 mm)^2`: `3 mm^2` would read two ways (docs/format.md).
+        *out += '(';
+        render(*e.args[0], value_of, pretty, out);
+        *out += ")^";
         render(*e.args[1], value_of, pretty, out);
         break;
       }

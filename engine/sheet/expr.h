@@ -26,6 +26,14 @@ enum class ExprKind : uint8_t {
   Group,     // (a): kept so the trail shows the author's parentheses
 };
 
+// What a temperature-valued node stands for. The SI value of both is in
+// kelvin, but only an interval may be scaled, negated or summed.
+enum class TemperatureKind : uint8_t {
+  Unknown,     // not a temperature, or one in K (which serves for both)
+  Absolute,    // a point on a scale with an offset: 20 degC, T1 + 5 ddegC
+  Difference,  // an interval: 5 ddegC, T2 - T1
+};
+
 struct Expr {
   ExprKind kind = ExprKind::Number;
   uint32_t begin = 0, end = 0;  // byte offsets of the whole node in its file
@@ -38,6 +46,7 @@ struct Expr {
   std::unique_ptr<Unit> unit;
   std::vector<std::unique_ptr<Expr>> args;  // operands or call arguments
   Dimension dim;  // filled in by the dimension check
+  TemperatureKind temperature = TemperatureKind::Unknown;  // filled in by the dimension check
 
   double siValue() const { return unit ? unit->toSI(number) : number; }
 };

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <cstdlib>
 
+#include "engine/sheet/control_chars.h"
 #include "engine/units/unit_parser.h"
 #include "engine/units/unit_table.h"
 #include "engine/util/utf8.h"
@@ -14,6 +15,18 @@ namespace calctrail {
 namespace {
 bool isDigit(char c) { return c >= '0' && c <= '9'; }
 bool isAsciiLetter(char c) { return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'); }
+
+// The ASCII of a superscript digit or sign (U+00B2 is "2", U+207B is "-"), or 0.
+char superscriptAscii(char32_t cp) {
+  if (cp == 0x2070) return '0';
+  if (cp == 0x00B9) return '1';
+  if (cp == 0x00B2) return '2';
+  if (cp == 0x00B3) return '3';
+  if (cp >= 0x2074 && cp <= 0x2079) return static_cast<char>('0' + (cp - 0x2070));
+  if (cp == 0x207B) return '-';
+  if (cp == 0x207A) return '+';
+  return 0;
+}
 }  // namespace
 
 ExprPtr makeBinary(ExprKind kind, ExprPtr lhs, ExprPtr rhs) {
@@ -99,7 +112,18 @@ void ExprParser::failUnexpected() {
   fail(pos_, pos_ + 1, std::string("unexpected `") + c + "`");
 }
 
+// Text from a --set option has not been through the worksheet's line checks.
+bool ExprParser::rejectControlChars() {
+  size_t length = 0;
+  const size_t at = findControlChar(src_.substr(pos_, end_ - pos_), &length);
+  if (at == std::string_view::npos) return true;
+  const uint32_t b = pos_ + static_cast<uint32_t>(at);
+  fail(b, b + static_cast<uint32_t>(length), controlCharMessage(src_, b));
+  return false;
+}
+
 ExprPtr ExprParser::parseWhole() {
+  if (!rejectControlChars()) return nullptr;
   ExprPtr e = parseSum();
   if (!e || failed_) return nullptr;
   if (!atEnd()) {
@@ -129,6 +153,7 @@ bool ExprParser::comparisonAhead(Comparison* op, uint32_t* length) {
 }
 
 bool ExprParser::parseCondition(ExprPtr* lhs, Comparison* op, uint32_t* op_begin, ExprPtr* rhs) {
+  if (!rejectControlChars()) return false;
   *lhs = parseSum();
   if (!*lhs || failed_) return false;
   uint32_t length = 0;
@@ -344,6 +369,59 @@ ExprPtr ExprParser::parseNumber() {
   return e;
 }
 
+// `3 mm^2` reads two ways, 3 [mm^2] or (3 [mm])^2, however it is spaced or
+// typed: `3 mm ^2`, `3 mm ²`, `3 mm⁴`, `3 mm⁻¹`, `3 mm**2` and `3 % ^2` alike. Reports the
+// two bracketed readings and returns false when a power follows the unit.
+bool ExprParser::rejectPowerAfterUnit(const Expr* number, uint32_t begin, std::string_view unit) {
+  uint32_t p = pos_;
+  while (p < end_ && (src_[p] == ' ' || src_[p] == '\t')) ++p;
+  const std::string_view after = src_.substr(p, end_ - p);
+  std::string power;
+  uint32_t q = p;
+  bool stars = false;
+  size_t len = 0;
+  if (!after.empty() && static_cast<unsigned char>(after[0]) >= 0x80 &&
+      superscriptAscii(decodeUtf8(src_.substr(0, end_), p, &len))) {
+    // mm², mm³, mm⁻¹: every superscript power, as the unit parser reads them.
+    while (q < end_ && static_cast<unsigned char>(src_[q]) >= 0x80) {
+      const char a = superscriptAscii(decodeUtf8(src_.substr(0, end_), q, &len));
+      if (!a) break;
+      if (a != '+') power += a;
+      q += static_cast<uint32_t>(len);
+    }
+  } else if (!after.empty() && after[0] == '^') {
+    q += 1;
+  } else if (after.rfind("**", 0) == 0) {
+    stars = true;
+    q += 2;
+  } else {
+    return true;
+  }
+  if (power.empty()) {
+    // The exponent as written: a bracketed group, or a signed number or name.
+    while (q < end_ && (src_[q] == ' ' || src_[q] == '\t')) ++q;
+    const uint32_t from = q;
+    if (q < end_ && src_[q] == '(') {
+      const size_t close = src_.substr(0, end_).find(')', q);
+      q = close == std::string_view::npos ? end_ : static_cast<uint32_t>(close) + 1;
+    } else {
+      if (q < end_ && (src_[q] == '-' || src_[q] == '+')) ++q;
+      while (q < end_ && (isDigit(src_[q]) || isAsciiLetter(src_[q]) || src_[q] == '.' || src_[q] == '_'))
+        ++q;
+    }
+    power.assign(src_.substr(from, q - from));
+    if (power.empty() || power == "-" || power == "+") power = "2";  // only to show the two forms
+  }
+  const std::string u(unit), n = number->text;
+  const std::string written(src_.substr(number->begin, q - number->begin));
+  std::string msg = "`" + written + "` can be read two ways";
+  if (stars) msg += " (and `**` is not an operator; a power is `^`)";
+  msg += ": write `" + n + " [" + u + "^" + power + "]` for a value in " + u + "^" + power + ", or `(" + n +
+         " " + u + ")^" + power + "` for the power of " + n + " " + u;
+  fail(begin, q, msg);
+  return false;
+}
+
 // After a number: nothing, a bracketed unit `[m/s^2]`, `%`, or ONE unit name.
 bool ExprParser::parseUnitAfterNumber(Expr* number) {
   skipSpace();
@@ -377,9 +455,9 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
         size_t n;
         const char32_t cp = decodeUtf8(src_.substr(0, end_), p, &n);
         const char look = asciiLookAlike(cp);
-        if (cp == 0xB2 || cp == 0xB3 || cp == 0xB7 || cp == 0xD7 || cp == 0x22C5 || cp == 0x2264 ||
+        if (superscriptAscii(cp) || cp == 0xB7 || cp == 0xD7 || cp == 0x22C5 || cp == 0x2264 ||
             cp == 0x2265 || (look && !isAsciiLetter(look)))
-          break;  // an operator or a look-alike of one (U+2212 MINUS SIGN): not part of a unit
+          break;  // a power, an operator or a look-alike of one (U+2212 MINUS SIGN): not part of a unit
         p += static_cast<uint32_t>(n);
         continue;
       }
@@ -393,22 +471,8 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
       return false;
     }
     pos_ = p;
-    // `3 mm^2` reads two ways: 3 [mm^2] or (3 [mm])^2.
-    std::string_view after = src_.substr(pos_, end_ - pos_);
-    if (!after.empty() && (after[0] == '^' || after.rfind("\u00B2", 0) == 0 || after.rfind("\u00B3", 0) == 0)) {
-      uint32_t q = pos_ + (after[0] == '^' ? 1 : 2);
-      std::string power = after[0] == '^' ? "" : (after[1] == '\xB2' ? "2" : "3");
-      if (after[0] == '^') {
-        while (q < end_ && (isDigit(src_[q]) || src_[q] == '-' || src_[q] == '.')) power += src_[q++];
-      }
-      const std::string u(unit_text);
-      fail(begin, q, "`" + number->text + " " + u + (after[0] == '^' ? "^" + power : std::string(after.substr(0, 2))) +
-                         "` can be read two ways: write `" + number->text + " [" + u + "^" + power +
-                         "]` for a value in " + u + "^" + power + ", or `(" + number->text + " " + u + ")^" +
-                         power + "` for the power of " + number->text + " " + u);
-      return false;
-    }
   }
+  if (src_[begin] != '[' && !rejectPowerAfterUnit(number, begin, unit_text)) return false;
   number->unit_written.assign(src_.substr(begin, pos_ - begin));
   Unit unit;
   UnitError err;

@@ -34,6 +34,8 @@ class ExprParser {
   ExprPtr parsePrimary();
   ExprPtr parseNumber();
   bool parseUnitAfterNumber(Expr* number);
+  bool rejectPowerAfterUnit(const Expr* number, uint32_t begin, std::string_view unit);
+  bool rejectControlChars();
   ExprPtr parseNameOrCall();
 
   void skipSpace();

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <unordered_map>
 
+#include "engine/sheet/control_chars.h"
 #include "engine/sheet/expr_parser.h"
 #include "engine/units/unit_parser.h"
 #include "engine/util/edit_distance.h"
@@ -95,6 +96,7 @@ class LineParser {
                     std::string("byte ") + hex + " is not UTF-8; save the worksheet as UTF-8");
       return false;
     }
+    if (!rejectControlChars(line, begin, text)) return false;
     if (line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) begin += 3;  // byte-order mark
     uint32_t p = skipSpace(begin, end);
     if (p == end) {
@@ -135,6 +137,23 @@ class LineParser {
     } else {
       diags_->error(file_, next, next + 1, "expected `=` after the name `" + word + "` (or `[unit] =`)");
     }
+    return false;
+  }
+
+  // A control character anywhere in the line, or a CR just before the end of
+  // the file, which SourceFile takes as part of a line end but only CRLF is one.
+  bool rejectControlChars(int line, uint32_t begin, std::string_view text) {
+    const std::string& s = file_.bytes();
+    size_t length = 0;
+    size_t at = findControlChar(text, &length);
+    if (at == std::string_view::npos) {
+      const size_t after = begin + text.size();
+      if (after + 1 != s.size() || s[after] != '\r' || line != file_.lineCount()) return true;
+      at = text.size();
+      length = 1;
+    }
+    const uint32_t b = begin + static_cast<uint32_t>(at);
+    diags_->error(file_, b, b + static_cast<uint32_t>(length), controlCharMessage(s, b));
     return false;
   }
 

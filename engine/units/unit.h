@@ -18,6 +18,10 @@ struct Unit {
   double toSI(double value) const { return value * factor + offset; }
   double fromSI(double si) const { return (si - offset) / factor; }
   bool hasOffset() const { return offset != 0.0; }
+  // An absolute temperature scale with its own zero (degC, degF).
+  bool isAbsoluteTemperature() const { return hasOffset(); }
+  // An interval unit of temperature (ddegC, ddegF); K serves for both.
+  bool isTemperatureDifference() const { return text == "ddegC" || text == "ddegF"; }
   // Human spelling with the SI Brochure's product dot and superscripts: "N·m", "mm²".
   std::string pretty() const;
 };
