@@ -146,6 +146,9 @@ TEST_CASE("bytes that are not UTF-8 are an error at their place", "[sheet][diagn
 TEST_CASE("an empty file is an error", "[sheet][diagnostics]") {
   CHECK(diagnostics(*calc("")) == "sheet.calc:1:1: error: the worksheet is empty: nothing to calculate\n");
   CHECK(diagnostics(*calc("\n  \n\r\n")) == "sheet.calc:1:1: error: the worksheet is empty: nothing to calculate\n");
+  // Found by the pipeline fuzzer: a byte-order mark and a line end were read as content.
+  CHECK(diagnostics(*calc("\xEF\xBB\xBF\n")) ==
+        "sheet.calc:1:1: error: the worksheet is empty: nothing to calculate\n");
 }
 
 TEST_CASE("deep nesting and very long formulas are refused, never a crash", "[sheet][diagnostics]") {

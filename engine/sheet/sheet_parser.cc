@@ -318,7 +318,10 @@ Sheet parseSheet(std::shared_ptr<SourceFile> file, Diagnostics* diags) {
   Sheet sheet;
   sheet.file = std::move(file);
   const SourceFile& f = *sheet.file;
-  if (f.bytes().empty() || f.bytes().find_first_not_of(" \t\r\n") == std::string::npos) {
+  // A byte-order mark alone is no content either (the line parser skips it too).
+  std::string_view body = f.bytes();
+  if (body.rfind("\xEF\xBB\xBF", 0) == 0) body.remove_prefix(3);
+  if (body.find_first_not_of(" \t\r\n") == std::string_view::npos) {
     diags->error(f.path(), "the worksheet is empty: nothing to calculate");
     return sheet;
   }
