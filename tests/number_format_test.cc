@@ -9,8 +9,7 @@
 #include <regex>
 
 #include "engine/report/number_format.h"
-#include "engine/report/html_renderer.h"
-#include "engine/report/markdown_renderer.h"
+#include "engine/report/formats.h"
 #include "engine/report/text_renderer.h"
 #include "engine/report/trail.h"
 #include "tests/test_support.h"
@@ -54,8 +53,9 @@ TEST_CASE("number format: the hardening case a = 1e-300, b = a * 1e-22 in every 
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   const Trail t = buildTrail(*c, 4);
-  for (const std::string& out : {renderText(t), renderMarkdown(t), renderHtml(t)}) {
-    INFO(out);
+  for (const char* format : {"text", "md", "html"}) {
+    const std::string out = renderReport(t, format);
+    INFO(format << ":\n" << out);
     CHECK(out.find("inf") == std::string::npos);
     CHECK(out.find("nan") == std::string::npos);
   }

@@ -3,11 +3,11 @@
 #include <algorithm>
 #include <cctype>
 #include <cmath>
+#include <iterator>
 #include <string_view>
 #include <vector>
 
 #include "engine/report/mathml.h"
-#include "engine/report/power_of_ten.h"
 #include "engine/report/xml_escape.h"
 
 namespace calctrail {
@@ -98,12 +98,12 @@ bool unitStart(char32_t c) {
          c == 0x3A9 || c == 0xD7;
 }
 
-// A value or substituted line for people, as HTML: "1.5e9" as 1.5 × 10⁹,
-// "^2" as ², the minus sign, and no line break between a number and its unit.
-std::string human(const std::string& raw) {
+// A value or substituted line for people, its powers of ten already
+// typeset (1.5 × 10⁹), as HTML: "^2" as ², the minus sign, and no line
+// break between a number and its unit.
+std::string typeset(const std::string& s) {
   static const char* const sup[] = {"\u2070", "\u00B9", "\u00B2", "\u00B3", "\u2074",
                                     "\u2075", "\u2076", "\u2077", "\u2078", "\u2079"};
-  const std::string s = timesTenPowers(raw);
   std::string out;
   char32_t prev = 0;
   for (size_t i = 0; i < s.size();) {
@@ -140,6 +140,9 @@ std::string human(const std::string& raw) {
   }
   return out;
 }
+
+std::string human(const TrailValue& v) { return typeset(valueText(v, NumberStyle::TimesTen)); }
+std::string human(const TrailLine& line) { return typeset(lineText(line, NumberStyle::TimesTen)); }
 
 std::string esc(const std::string& s) { return escapeXml(s); }
 
@@ -272,15 +275,15 @@ std::string header(const Trail& t) {
 std::string checksSummary(const Trail& t) {
   std::string out = std::string("<section class=\"verdict ") + (t.failed ? "has-fail" : "all-pass") + "\">\n";
   out += "<h2>Design checks</h2>\n";
+  const std::string words = esc(verdictWords(t, VerdictForm::Sentence));
   if (t.checks.empty()) {
-    out += "<p class=\"verdict-line\">This worksheet has no design checks.</p>\n</section>\n";
+    out += "<p class=\"verdict-line\">" + words + "</p>\n</section>\n";
     return out;
   }
   if (t.failed == 0) {
-    out += "<p class=\"verdict-line\">All " + std::to_string(t.passed) + " checks pass.</p>\n";
+    out += "<p class=\"verdict-line\">" + words + "</p>\n";
   } else {
-    out += "<p class=\"verdict-line\"><span class=\"fail-mark\">FAIL</span> " + std::to_string(t.failed) + " of " +
-           std::to_string(t.checks.size()) + " checks fail:";
+    out += "<p class=\"verdict-line\"><span class=\"fail-mark\">FAIL</span> " + words;
     for (const TrailCheck& c : t.checks)
       if (!c.passed) out += " <code>" + esc(c.name) + "</code>";
     out += "</p>\n";
@@ -310,10 +313,10 @@ std::string quantityTable(const Trail& t, bool inputs) {
       if (!section.empty()) out += "<tr class=\"group\"><th colspan=\"4\">" + esc(section) + "</th></tr>\n";
     }
     std::string notes = esc(s.description);
-    if (inputs && s.given.empty() && s.formula != s.result)
+    if (inputs && s.formula_in_notes)
       notes = "= <code>" + esc(s.formula) + "</code>" + (notes.empty() ? "" : "; " + notes);
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("<em>(set on the command line)</em>");
-    const std::string& value = inputs && !s.given.empty() ? s.given : s.result;
+    const TrailValue& value = inputs && s.given ? *s.given : s.result;
     out += "<tr><td>" + inlineMath(mathmlName(s.name)) + "</td><td><code>" + esc(s.name) +
            "</code></td><td class=\"value\">" + human(value) + "</td><td>" + notes + "</td></tr>\n";
   }
@@ -338,12 +341,12 @@ std::string callAudit(const TrailCall& c) {
   if (c.formula_is_expression) {
     const std::string formula = c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
                                                : esc(c.pretty);
-    const std::string subst = !c.substituted.empty() && c.substituted != c.pretty ? human(c.substituted) : "";
-    out += equation("<code>" + esc(c.name) + "</code>", formula, subst, human(c.result));
+    const std::string subst = c.show_substituted ? human(c.substituted) : "";
+    out += equation("<code>" + esc(c.name) + "</code>", formula, subst, c.result ? human(*c.result) : "");
   } else {
     out += "<p>" + esc(c.formula) + "</p>\n";
     if (!c.arguments.empty()) out += "<p>with " + human(c.arguments) + "</p>\n";
-    if (!c.result.empty()) out += "<p>= " + human(c.result) + "</p>\n";
+    if (c.result) out += "<p>= " + human(*c.result) + "</p>\n";
   }
   out += "<p class=\"source\">Source: " + esc(c.source) + "</p>\n</div>\n";
   return out;
@@ -357,7 +360,7 @@ std::string step(const TrailStep& s) {
   out += "</p>\n";
   const double symbol_em = mathmlNameWidth(s.name) + 2;
   const std::string formula = s.expr ? displayMath(*s.expr, symbol_em) : esc(s.pretty);
-  const std::string subst = s.substituted != s.pretty && s.substituted != s.result ? human(s.substituted) : "";
+  const std::string subst = s.show_substituted ? human(s.substituted) : "";
   out += equation(inlineMath(mathmlName(s.name)), formula, subst, human(s.result));
   for (const TrailCall& c : s.calls) out += callAudit(c);
   out += "</div>\n";
@@ -428,35 +431,36 @@ std::string signOff(const Trail& t) {
 
 }  // namespace
 
-std::string renderHtml(const Trail& t) {
-  std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
-  out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
-  out += "<meta name=\"generator\" content=\"calctrail\">\n";
+void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
+  auto out = std::back_inserter(buffer);
+  fmt::format_to(out, "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
+  fmt::format_to(out, "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
+  fmt::format_to(out, "<meta name=\"generator\" content=\"calctrail\">\n");
   std::string doc_title = title(t);
   if (!meta(t, "calc").empty()) doc_title = meta(t, "calc") + " " + doc_title;
-  out += "<title>" + esc(doc_title) + "</title>\n<style>";
-  out += kStyle;
-  out += pageRules(t);
-  out += "</style>\n</head>\n<body>\n";
-  out += header(t);
-  out += checksSummary(t);
-  out += "<section class=\"inputs\">\n<h2>Inputs</h2>\n" + quantityTable(t, true) + "</section>\n";
-  out += calculation(t);
+  fmt::format_to(out, "<title>{}</title>\n<style>{}{}</style>\n</head>\n<body>\n", esc(doc_title), kStyle, pageRules(t));
+  fmt::format_to(out, "{}{}", header(t), checksSummary(t));
+  fmt::format_to(out, "<section class=\"inputs\">\n<h2>Inputs</h2>\n{}</section>\n", quantityTable(t, true));
+  fmt::format_to(out, "{}", calculation(t));
   bool any_result = false;
   for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
-  if (any_result) out += "<section class=\"results\">\n<h2>Results</h2>\n" + quantityTable(t, false) + "</section>\n";
+  if (any_result)
+    fmt::format_to(out, "<section class=\"results\">\n<h2>Results</h2>\n{}</section>\n", quantityTable(t, false));
   if (!t.warnings.empty()) {
-    out += "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n";
-    for (const std::string& w : t.warnings) out += "<li><code>" + esc(w) + "</code></li>\n";
-    out += "</ul>\n</section>\n";
+    fmt::format_to(out, "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n");
+    for (const std::string& w : t.warnings) fmt::format_to(out, "<li><code>{}</code></li>\n", esc(w));
+    fmt::format_to(out, "</ul>\n</section>\n");
   }
-  out += "<section class=\"cautions\">\n<h2>Cautions</h2>\n<ul>\n";
-  for (const std::string& c : t.cautions) out += "<li>" + esc(c) + "</li>\n";
-  out += "</ul>\n</section>\n";
-  out += sources(t);
-  out += signOff(t);
-  out += "</body>\n</html>\n";
-  return out;
+  fmt::format_to(out, "<section class=\"cautions\">\n<h2>Cautions</h2>\n<ul>\n");
+  for (const std::string& c : t.cautions) fmt::format_to(out, "<li>{}</li>\n", esc(c));
+  fmt::format_to(out, "</ul>\n</section>\n");
+  fmt::format_to(out, "{}{}</body>\n</html>\n", sources(t), signOff(t));
+}
+
+std::string renderHtml(const Trail& t) {
+  fmt::memory_buffer out;
+  renderHtml(t, out);
+  return fmt::to_string(out);
 }
 
 }  // namespace calctrail
