@@ -116,3 +116,25 @@ TEST_CASE("the schema validator itself rejects what it should", "[json][schema]"
   validate(schema, load(R"({"b":"x"})"), "$", &errors);
   CHECK(errors == std::vector<std::string>{"$: missing `a`"});
 }
+
+TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+    const std::string path = std::string("worksheets/") + sheet + ".calc";
+    auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)));
+    REQUIRE_FALSE(c->hasErrors());
+    Run r = runCli("report " + path + " --format json");
+    REQUIRE(r.status == 0);
+    const Json out = load(r.out);
+    REQUIRE(out["quantities"].array.size() == c->quantities.size());
+    for (size_t i = 0; i < c->quantities.size(); ++i) {
+      const auto& q = c->quantities[i];
+      INFO(path << ": " << out["quantities"][i]["name"].string);
+      CHECK(out["quantities"][i]["si"].number == q.si);
+      CHECK(out["quantities"][i]["value"].number == q.display.fromSI(q.si));
+    }
+    for (size_t k = 0; k < c->checks.size(); ++k) {
+      CHECK(out["checks"][k]["lhs_si"].number == c->checks[k].lhs);
+      CHECK(out["checks"][k]["rhs_si"].number == c->checks[k].rhs);
+    }
+  }
+}

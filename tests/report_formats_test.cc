@@ -6,8 +6,11 @@
 
 #include <cstdlib>
 
+#include "engine/report/formats.h"
 #include "engine/report/html_renderer.h"
+#include "engine/report/json_renderer.h"
 #include "engine/report/markdown_renderer.h"
+#include "engine/report/text_renderer.h"
 #include "engine/report/mathml.h"
 #include "engine/report/power_of_ten.h"
 #include "engine/report/trail.h"
@@ -305,4 +308,90 @@ TEST_CASE("HTML and Markdown: library calls are audited with their sources", "[r
   const std::string md = renderMarkdown(t);
   CHECK(md.find("> where `torque_raise(F, dm, l, f, alpha)`") != std::string::npos);
   CHECK(md.find("> source: ") != std::string::npos);
+}
+
+TEST_CASE("formats: each registered once, dispatched by name", "[report][formats]") {
+  CHECK(reportFormatNames() == std::vector<std::string>{"text", "md", "html", "json"});
+  CHECK(reportFormatHelp() == "text (terminal, git), md (pull requests), html (print to PDF), json (tools)");
+  CHECK(findReportFormat("pdf") == nullptr);
+  auto c = demo("leveling-jack");
+  const Trail t = buildTrail(*c, 4);
+  CHECK(renderReport(t, "text") == renderText(t));
+  CHECK(renderReport(t, "md") == renderMarkdown(t));
+  CHECK(renderReport(t, "html") == renderHtml(t));
+  CHECK(renderReport(t, "json") == renderJson(*c, t));
+  ReportSink sink;
+  CHECK_FALSE(renderReport(t, "pdf", sink));
+  CHECK(sink.size() == 0);
+  CHECK(renderReport(t, "pdf") == renderText(t));  // the default
+}
+
+TEST_CASE("renderers append to the sink they are given", "[report][formats]") {
+  auto c = demo("canal-gate-hoist");
+  const Trail t = buildTrail(*c, 4);
+  for (const ReportFormat& f : reportFormats()) {
+    ReportSink sink;
+    fmt::format_to(std::back_inserter(sink), "kept\n");
+    f.render(t, sink);
+    INFO(f.name);
+    CHECK(fmt::to_string(sink) == "kept\n" + renderReport(t, f.name));
+  }
+}
+
+TEST_CASE("the trail is all a renderer reads: JSON, text and Markdown outlive the calculation",
+          "[report][formats]") {
+  auto c = demo("twin-screw-lift");
+  const Trail t = buildTrail(*c, 4);
+  const std::string json = renderJson(*c, t), text = renderText(t), md = renderMarkdown(t);
+  // The trail keeps the numbers themselves, not only their text.
+  for (const TrailStep& s : t.steps) {
+    CHECK(s.result.si == c->quantities[s.index].si);
+    CHECK(s.result.value == c->quantities[s.index].display.fromSI(c->quantities[s.index].si));
+  }
+  c.reset();
+  CHECK(renderJson(t) == json);
+  CHECK(renderText(t) == text);
+  CHECK(renderMarkdown(t) == md);
+}
+
+TEST_CASE("the verdict is worded once for every format", "[report]") {
+  auto none = calc("a = 1\n");
+  auto pass = calc("a = 1\ncheck big: a > 0\ncheck small: a < 2\n");
+  auto fail = calc("a = 1\ncheck big: a > 0\ncheck huge: a > 5\ncheck vast: a > 9\n");
+  const Trail tn = buildTrail(*none, 4), tp = buildTrail(*pass, 4), tf = buildTrail(*fail, 4);
+  CHECK(verdictWords(tn, VerdictForm::Headline) == "Checks: none in this worksheet");
+  CHECK(verdictWords(tp, VerdictForm::Headline) == "Checks: all 2 pass");
+  CHECK(verdictWords(tf, VerdictForm::Headline) == "Checks: 2 of 3 FAIL:");
+  CHECK(verdictWords(tn, VerdictForm::Sentence) == "This worksheet has no design checks.");
+  CHECK(verdictWords(tp, VerdictForm::Sentence) == "All 2 checks pass.");
+  CHECK(verdictWords(tf, VerdictForm::Sentence) == "2 of 3 checks fail:");
+  CHECK(renderText(tf).find("Checks: 2 of 3 FAIL: huge vast\n") != std::string::npos);
+  CHECK(renderMarkdown(tf).find("**Checks: 2 of 3 FAIL:** `huge` `vast`") != std::string::npos);
+  CHECK(renderHtml(tf).find("FAIL</span> 2 of 3 checks fail: <code>huge</code> <code>vast</code>") !=
+        std::string::npos);
+  CHECK(renderHtml(tp).find(">All 2 checks pass.</p>") != std::string::npos);
+  CHECK(tf.checks[1].condition == "a > 5");
+}
+
+TEST_CASE("values are written from their numbers in each format's style", "[report]") {
+  auto c = calc("P = 1.5e9 W\nQ [W] = P * 2\nd = 2e-7 m\nA [m^2] = d^2 * 3\n");
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  const TrailStep& q = t.steps[1];
+  CHECK(q.result.number.digits == "3.000");
+  CHECK(q.result.number.exponent == "9");
+  CHECK(valueText(q.result) == "3.000e9 W");
+  CHECK(valueText(q.result, NumberStyle::TimesTen) == "3.000 \u00D7 10\u2079 W");
+  // The given literal as written, and the substituted line cut into text and values.
+  REQUIRE(t.steps[0].given);
+  CHECK(valueText(*t.steps[0].given) == "1.5e9 W");
+  CHECK(lineText(q.substituted) == "1.5e9 W \u00B7 2");
+  REQUIRE(q.substituted.size() == 2);
+  CHECK(q.substituted[0].value);
+  CHECK(q.substituted[1].text == " \u00B7 2");
+  CHECK(lineText(t.steps[3].substituted) == "(2e-7 m)^2 \u00B7 3");
+  CHECK(lineText(t.steps[3].substituted, NumberStyle::TimesTen) == "(2 \u00D7 10\u207B\u2077 m)^2 \u00B7 3");
+  CHECK(renderMarkdown(t).find("| `Q` | 3.000 \u00D7 10\u2079 W |") != std::string::npos);
+  CHECK(renderText(t).find("= 3.000e9 W\n") != std::string::npos);
 }
