@@ -17,7 +17,9 @@ void compareGolden(const std::string& args, const std::string& golden) {
   const std::string path = repoPath("tests/golden/" + golden);
   if (std::getenv("CALCTRAIL_UPDATE_GOLDEN")) writeFile(path, r.out);
   const std::string expected = readFile(path);
-  INFO("golden file tests/golden/" << golden << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
+  INFO(
+      "golden file tests/golden/" << golden
+                                  << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
   CHECK(r.out == expected);
 }
 }  // namespace

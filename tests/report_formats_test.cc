@@ -37,7 +37,9 @@ void compareGolden(const std::string& actual, const std::string& golden) {
   const std::string path = repoPath("tests/golden/" + golden);
   if (std::getenv("CALCTRAIL_UPDATE_GOLDEN")) writeFile(path, actual);
   const std::string expected = readFile(path);
-  INFO("golden file tests/golden/" << golden << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
+  INFO(
+      "golden file tests/golden/" << golden
+                                  << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
   CHECK(actual == expected);
 }
 
@@ -86,8 +88,8 @@ TEST_CASE("golden: twin-screw lift, Markdown and HTML trails", "[report][golden]
 }
 
 TEST_CASE("golden files carry no machine path", "[report]") {
-  for (const char* f : {"canal-gate-hoist.md", "canal-gate-hoist.html", "leveling-jack.md", "leveling-jack.html",
-                        "twin-screw-lift.md", "twin-screw-lift.html"}) {
+  for (const char* f : {"canal-gate-hoist.md", "canal-gate-hoist.html", "leveling-jack.md",
+                        "leveling-jack.html", "twin-screw-lift.md", "twin-screw-lift.html"}) {
     const std::string text = readFile(repoPath(std::string("tests/golden/") + f));
     INFO(f);
     REQUIRE_FALSE(text.empty());
@@ -122,22 +124,26 @@ TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "
   CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Cautions</h2>"));
   CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Sources</h2>"));
   // The failed check is marked in words, not only by style.
-  CHECK(html.find("<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
+  CHECK(html.find(
+            "<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
         std::string::npos);
   CHECK(count(html, "<td>pass</td>") == static_cast<size_t>(t.passed));
   for (const char* banned : {"<script", "http://", "https://", "@import", "url(", "<link", "<img", "<iframe"})
     CHECK(html.find(banned) == std::string::npos);
   // Page headers: margin boxes with title, calc number, revision, page n of N.
-  CHECK(html.find("@top-left { content: \"Machine leveling jack: Acme screw turned by hand\"") != std::string::npos);
+  CHECK(html.find("@top-left { content: \"Machine leveling jack: Acme screw turned by hand\"") !=
+        std::string::npos);
   const std::string calc_no = c->sheet.meta.get("calc"), revision = c->sheet.meta.get("revision");
   REQUIRE_FALSE(calc_no.empty());
   REQUIRE_FALSE(revision.empty());
   CHECK(html.find("content: \"calc " + calc_no + " \u00B7 revision " + revision +
                   " \u00B7 page \" counter(page) \" of \" counter(pages)") != std::string::npos);
   // Sign-off from the metadata; `checked:` is empty, so its name cell is blank to fill in.
-  CHECK(html.find("<tr><th>Prepared</th><td>" + c->sheet.meta.get("prepared") + "</td><td class=\"sign\"></td><td>" +
-                  c->sheet.meta.get("date") + "</td></tr>") != std::string::npos);
-  CHECK(html.find("<tr><th>Checked</th><td></td><td class=\"sign\"></td><td></td></tr>") != std::string::npos);
+  CHECK(html.find("<tr><th>Prepared</th><td>" + c->sheet.meta.get("prepared") +
+                  "</td><td class=\"sign\"></td><td>" + c->sheet.meta.get("date") + "</td></tr>") !=
+        std::string::npos);
+  CHECK(html.find("<tr><th>Checked</th><td></td><td class=\"sign\"></td><td></td></tr>") !=
+        std::string::npos);
 }
 
 TEST_CASE("HTML: worksheet text is escaped everywhere", "[report]") {
@@ -165,8 +171,10 @@ TEST_CASE("HTML: worksheet text is escaped everywhere", "[report]") {
   // Only the stylesheet's own </style> closes it: the title in the @page
   // rules cannot end the style element early.
   CHECK(count(html, "</style>") == 1);
-  CHECK(html.find("content: \"Gate \\3C b>&\\3C /b> \\\"hoist\\\" \\3C /style>\\3C script>alert(1)\\3C /script>\"") !=
-        std::string::npos);
+  CHECK(
+      html.find(
+          "content: \"Gate \\3C b>&\\3C /b> \\\"hoist\\\" \\3C /style>\\3C script>alert(1)\\3C /script>\"") !=
+      std::string::npos);
   CHECK(html.find("calc A&B \\\\ \\\"1\\\" \u00B7 revision \\3C r> \u00B7 page ") != std::string::npos);
   // The check's relation in MathML is an entity, not a tag opener.
   CHECK(html.find("<mo>&lt;</mo>") != std::string::npos);
@@ -212,7 +220,8 @@ TEST_CASE("MathML: names, Greek letters, subscripts", "[report]") {
 
 TEST_CASE("MathML: fractions, powers, roots, units, pi, products", "[report]") {
   auto p = formula(
-      "d_r = 30 mm\nF = 2 kN\nT = 1 [N*m]\nx [MPa] = sqrt((4 * F / (pi * d_r^2))^2 + 3 * (16 * T / (pi * d_r^3))^2)\n",
+      "d_r = 30 mm\nF = 2 kN\nT = 1 [N*m]\nx [MPa] = sqrt((4 * F / (pi * d_r^2))^2 + 3 * (16 * T / (pi * "
+      "d_r^3))^2)\n",
       "x");
   const std::string m = mathmlExpr(*p.expr);
   CHECK(m.rfind("<msqrt>", 0) == 0);
@@ -302,8 +311,8 @@ TEST_CASE("HTML and Markdown: library calls are audited with their sources", "[r
   CHECK(html.find("<div class=\"lhs\"><code>torque_raise</code></div>") != std::string::npos);
   CHECK(count(html, "<mi>dm</mi>") > 2);
   // Sources: the function once, with both quantities that use it.
-  CHECK(html.find("<tr><td><code>torque_raise(F, dm, l, f, alpha)</code></td><td><code>T</code>, <code>U</code></td>") !=
-        std::string::npos);
+  CHECK(html.find("<tr><td><code>torque_raise(F, dm, l, f, alpha)</code></td><td><code>T</code>, "
+                  "<code>U</code></td>") != std::string::npos);
   CHECK(html.find("No library function is called") == std::string::npos);
   const std::string md = renderMarkdown(t);
   CHECK(md.find("> where `torque_raise(F, dm, l, f, alpha)`") != std::string::npos);

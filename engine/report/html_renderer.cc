@@ -91,11 +91,13 @@ size_t codepointAt(const std::string& s, size_t i, char32_t* cp) {
   return n;
 }
 
-bool superscriptDigit(char32_t c) { return c == 0x2070 || c == 0xB9 || c == 0xB2 || c == 0xB3 || (c >= 0x2074 && c <= 0x2079); }
+bool superscriptDigit(char32_t c) {
+  return c == 0x2070 || c == 0xB9 || c == 0xB2 || c == 0xB3 || (c >= 0x2074 && c <= 0x2079);
+}
 bool numberEnd(char32_t c) { return (c >= '0' && c <= '9') || superscriptDigit(c); }
 bool unitStart(char32_t c) {
-  return (c < 0x80 && std::isalpha(static_cast<int>(c))) || c == 0xB0 || c == '%' || c == 0xB5 || c == 0x3BC ||
-         c == 0x3A9 || c == 0xD7;
+  return (c < 0x80 && std::isalpha(static_cast<int>(c))) || c == 0xB0 || c == '%' || c == 0xB5 ||
+         c == 0x3BC || c == 0x3A9 || c == 0xD7;
 }
 
 // A value or substituted line for people, its powers of ten already
@@ -174,8 +176,10 @@ std::string pageRules(const Trail& t) {
   const std::string font = "font-family: \"Liberation Serif\", \"Times New Roman\", serif; ";
   const std::string box = font + "font-size: 8.5pt; ", small = font + "font-size: 7pt; ";
   std::string out = "@page {\n";
-  out += "  @top-left { content: " + cssString(title(t)) + "; " + box + "vertical-align: bottom; padding-bottom: 4mm; }\n";
-  out += "  @top-right { content: " + cssString(ident + "page ") + " counter(page) \" of \" counter(pages); " + box +
+  out += "  @top-left { content: " + cssString(title(t)) + "; " + box +
+         "vertical-align: bottom; padding-bottom: 4mm; }\n";
+  out += "  @top-right { content: " + cssString(ident + "page ") +
+         " counter(page) \" of \" counter(pages); " + box +
          "vertical-align: bottom; padding-bottom: 4mm; white-space: nowrap; }\n";
   out += "  @bottom-left { content: " + cssString(t.path + " \u00B7 SHA-256 " + t.sha256) + "; " + small +
          "vertical-align: top; padding-top: 4mm; }\n";
@@ -262,8 +266,10 @@ std::string checkValues(const TrailCheck& c) {
 }
 
 std::string header(const Trail& t) {
-  std::string out = "<header class=\"title-block\">\n<h1>" + esc(title(t)) + "</h1>\n<table class=\"meta\">\n";
-  for (const auto& [key, value] : t.meta) out += "<tr><th>" + esc(key) + "</th><td>" + esc(value) + "</td></tr>\n";
+  std::string out =
+      "<header class=\"title-block\">\n<h1>" + esc(title(t)) + "</h1>\n<table class=\"meta\">\n";
+  for (const auto& [key, value] : t.meta)
+    out += "<tr><th>" + esc(key) + "</th><td>" + esc(value) + "</td></tr>\n";
   out += "<tr><th>file</th><td><code>" + esc(t.path) + "</code></td></tr>\n";
   out += "<tr><th>SHA-256</th><td><code class=\"hash\">" + esc(t.sha256) + "</code></td></tr>\n";
   out += "</table>\n</header>\n";
@@ -328,7 +334,8 @@ std::string quantityTable(const Trail& t, bool inputs) {
 std::string equation(const std::string& lhs, const std::string& formula, const std::string& substituted,
                      const std::string& result) {
   std::string out = "<div class=\"eq\">\n";
-  out += "<div class=\"lhs\">" + lhs + "</div><div class=\"rel\">=</div><div class=\"rhs\">" + formula + "</div>\n";
+  out += "<div class=\"lhs\">" + lhs + "</div><div class=\"rel\">=</div><div class=\"rhs\">" + formula +
+         "</div>\n";
   if (!substituted.empty())
     out += "<div class=\"rel\">=</div><div class=\"rhs subst\">" + substituted + "</div>\n";
   if (!result.empty()) out += "<div class=\"rel\">=</div><div class=\"rhs result\">" + result + "</div>\n";
@@ -339,8 +346,9 @@ std::string equation(const std::string& lhs, const std::string& formula, const s
 std::string callAudit(const TrailCall& c) {
   std::string out = "<div class=\"call\">\n<p>where <code>" + esc(c.signature) + "</code></p>\n";
   if (c.formula_is_expression) {
-    const std::string formula = c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
-                                               : esc(c.pretty);
+    const std::string formula =
+        c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
+                       : esc(c.pretty);
     const std::string subst = c.show_substituted ? human(c.substituted) : "";
     out += equation("<code>" + esc(c.name) + "</code>", formula, subst, c.result ? human(*c.result) : "");
   } else {
@@ -353,8 +361,8 @@ std::string callAudit(const TrailCall& c) {
 }
 
 std::string step(const TrailStep& s) {
-  std::string out = "<div class=\"step\" id=\"q-" + esc(s.name) + "\">\n<p class=\"step-head\"><code>" + esc(s.name) +
-                    "</code>";
+  std::string out = "<div class=\"step\" id=\"q-" + esc(s.name) + "\">\n<p class=\"step-head\"><code>" +
+                    esc(s.name) + "</code>";
   if (!s.description.empty()) out += "<span class=\"desc\">" + esc(s.description) + "</span>";
   if (s.overridden) out += " <em>(set on the command line)</em>";
   out += "</p>\n";
@@ -397,10 +405,13 @@ std::string sources(const Trail& t) {
     }
   }
   if (seen.empty()) {
-    out += "<p>No library function is called: every formula above is written out in the worksheet itself.</p>\n";
+    out +=
+        "<p>No library function is called: every formula above is written out in the worksheet itself.</p>\n";
   } else {
-    out += "<table class=\"functions\">\n<thead><tr><th>Library function</th><th>Used for</th><th>Source</th></tr>"
-           "</thead>\n<tbody>\n" + rows + "</tbody>\n</table>\n";
+    out += fmt::format(
+        "<table class=\"functions\">\n<thead><tr><th>Library function</th><th>Used for</th><th>Source</th></tr>"
+        "</thead>\n<tbody>\n{}</tbody>\n</table>\n",
+        rows);
   }
   out += "</section>\n";
   return out;
@@ -414,13 +425,15 @@ std::string signOff(const Trail& t) {
   out += "<tr><th>revision</th><td>" + given(meta(t, "revision")) + "</td></tr>\n";
   out += "<tr><th>worksheet</th><td><code>" + esc(t.path) + "</code></td></tr>\n";
   out += "<tr><th>SHA-256</th><td><code class=\"hash\">" + esc(t.sha256) + "</code></td></tr>\n</table>\n";
-  out += "<p>The signatures below cover the worksheet with this SHA-256 only. Any change to it, however small, "
-         "changes the SHA-256 and needs a new sign-off.</p>\n";
+  out +=
+      "<p>The signatures below cover the worksheet with this SHA-256 only. Any change to it, however small, "
+      "changes the SHA-256 and needs a new sign-off.</p>\n";
   out += "<table class=\"signatures\">\n<thead><tr><th></th><th>Name</th><th>Signature</th><th>Date</th></tr>"
          "</thead>\n<tbody>\n";
   out += "<tr><th>Prepared</th><td>" + esc(meta(t, "prepared")) + "</td><td class=\"sign\"></td><td>" +
          esc(meta(t, "date")) + "</td></tr>\n";
-  out += "<tr><th>Checked</th><td>" + esc(meta(t, "checked")) + "</td><td class=\"sign\"></td><td></td></tr>\n";
+  out +=
+      "<tr><th>Checked</th><td>" + esc(meta(t, "checked")) + "</td><td class=\"sign\"></td><td></td></tr>\n";
   out += "</tbody>\n</table>\n";
   std::string end = "End of calculation";
   if (!meta(t, "calc").empty()) end += " " + meta(t, "calc");
@@ -438,14 +451,16 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "<meta name=\"generator\" content=\"calctrail\">\n");
   std::string doc_title = title(t);
   if (!meta(t, "calc").empty()) doc_title = meta(t, "calc") + " " + doc_title;
-  fmt::format_to(out, "<title>{}</title>\n<style>{}{}</style>\n</head>\n<body>\n", esc(doc_title), kStyle, pageRules(t));
+  fmt::format_to(out, "<title>{}</title>\n<style>{}{}</style>\n</head>\n<body>\n", esc(doc_title), kStyle,
+                 pageRules(t));
   fmt::format_to(out, "{}{}", header(t), checksSummary(t));
   fmt::format_to(out, "<section class=\"inputs\">\n<h2>Inputs</h2>\n{}</section>\n", quantityTable(t, true));
   fmt::format_to(out, "{}", calculation(t));
   bool any_result = false;
   for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
   if (any_result)
-    fmt::format_to(out, "<section class=\"results\">\n<h2>Results</h2>\n{}</section>\n", quantityTable(t, false));
+    fmt::format_to(out, "<section class=\"results\">\n<h2>Results</h2>\n{}</section>\n",
+                   quantityTable(t, false));
   if (!t.warnings.empty()) {
     fmt::format_to(out, "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n");
     for (const std::string& w : t.warnings) fmt::format_to(out, "<li><code>{}</code></li>\n", esc(w));

@@ -118,20 +118,22 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   if (any_result) {
     fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
     for (const TrailStep& s : t.steps)
-      if (!s.input) fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
+      if (!s.input)
+        fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
     fmt::format_to(out, "\n");
   }
 
   if (!t.checks.empty()) {
-    fmt::format_to(out, "## Checks\n\n| State | Check | Condition | Values | Note |\n|---|---|---|---|---|\n");
+    fmt::format_to(out,
+                   "## Checks\n\n| State | Check | Condition | Values | Note |\n|---|---|---|---|---|\n");
     for (const TrailCheck& c : t.checks) {
       const std::string values = human(c.lhs) + " " + relation(c.op) + " " + human(c.rhs);
       if (c.passed) {
         fmt::format_to(out, "| pass | {} | {} | {} | {} |\n", code(c.name), code(c.condition), values,
                        text(c.description));
       } else {
-        fmt::format_to(out, "| **FAIL** | **{}** | {} | **{}** | {} |\n", code(c.name), code(c.condition), values,
-                       text(c.description));
+        fmt::format_to(out, "| **FAIL** | **{}** | {} | **{}** | {} |\n", code(c.name), code(c.condition),
+                       values, text(c.description));
       }
     }
     fmt::format_to(out, "\n");

@@ -38,10 +38,12 @@ std::string conditionText(const Check& c) {
 
 std::string verdictWords(const Trail& t, VerdictForm form) {
   const bool headline = form == VerdictForm::Headline;
-  if (t.checks.empty()) return headline ? "Checks: none in this worksheet" : "This worksheet has no design checks.";
+  if (t.checks.empty())
+    return headline ? "Checks: none in this worksheet" : "This worksheet has no design checks.";
   if (t.failed == 0) return headline ? fmt::format("Checks: all {} pass", t.passed)
                                      : fmt::format("All {} checks pass.", t.passed);
-  return fmt::format(headline ? "Checks: {} of {} FAIL:" : "{} of {} checks fail:", t.failed, t.checks.size());
+  return fmt::format(headline ? "Checks: {} of {} FAIL:" : "{} of {} checks fail:", t.failed,
+                     t.checks.size());
 }
 
 void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
@@ -59,7 +61,9 @@ std::string lineText(const TrailLine& line, NumberStyle style) {
   fmt::memory_buffer out;
   for (const TrailPiece& p : line) {
     if (p.value) appendValue(out, *p.value, style);
-    else fmt::format_to(std::back_inserter(out), "{}", style == NumberStyle::TimesTen ? timesTenPowers(p.text) : p.text);
+    else
+      fmt::format_to(std::back_inserter(out), "{}",
+                     style == NumberStyle::TimesTen ? timesTenPowers(p.text) : p.text);
   }
   return fmt::to_string(out);
 }
@@ -128,7 +132,8 @@ const Expr* parsedFormula(const FunctionDecl& f) {
     auto file = std::make_shared<SourceFile>("function " + f.name, f.formula);
     Diagnostics ignored;
     ExprPtr e;
-    if (f.formula_is_expression) e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
+    if (f.formula_is_expression)
+      e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
     it = cache.emplace(f.name, std::make_pair(file, std::move(e))).first;
   }
   return it->second.second.get();
@@ -144,7 +149,8 @@ std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
       u.text.compare(u.text.size() - suffix.size(), suffix.size(), suffix) == 0) {
     Unit plain;
     UnitError err;
-    if (parseUnit(u.text.substr(0, u.text.size() - suffix.size()), &plain, &err) && plain.dim == want) return plain;
+    if (parseUnit(u.text.substr(0, u.text.size() - suffix.size()), &plain, &err) && plain.dim == want)
+      return plain;
   }
   return std::nullopt;
 }
@@ -163,8 +169,8 @@ Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& c
   return preferredUnit(decl.dim);
 }
 
-TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector<std::optional<TrailValue>>& given,
-                    const Unit& step_unit, int digits) {
+TrailCall auditCall(const Expr& call, const Calculation& calc,
+                    const std::vector<std::optional<TrailValue>>& given, const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
   c.name = f.name;
@@ -228,8 +234,8 @@ TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector
   return c;
 }
 
-TrailLine substitute(const Expr& e, const Calculation& calc, const std::vector<std::optional<TrailValue>>& given,
-                     int digits) {
+TrailLine substitute(const Expr& e, const Calculation& calc,
+                     const std::vector<std::optional<TrailValue>>& given, int digits) {
   std::vector<TrailValue> values;
   const std::string text = renderExpr(
       e,
@@ -384,7 +390,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (d.severity == Severity::Warning) t.warnings.push_back(d.headline());
   t.cautions = generalCautions();
   for (const FunctionDecl* f : used)
-    if (!f->caution.empty() && std::find(t.cautions.begin(), t.cautions.end(), f->caution) == t.cautions.end())
+    if (!f->caution.empty() &&
+        std::find(t.cautions.begin(), t.cautions.end(), f->caution) == t.cautions.end())
       t.cautions.push_back(f->caution);
   return t;
 }

@@ -29,7 +29,8 @@ std::pair<std::string, std::string> valuePair(double was, double now, const Unit
 }
 
 std::pair<std::string, std::string> valuePair(const ValueChange& v, int digits) {
-  if (!v.same_dimension) return {formatQuantity(v.old_si, v.old_unit, digits), formatQuantity(v.new_si, v.unit, digits)};
+  if (!v.same_dimension)
+    return {formatQuantity(v.old_si, v.old_unit, digits), formatQuantity(v.new_si, v.unit, digits)};
   return valuePair(v.old_si, v.new_si, v.unit, digits);
 }
 
@@ -112,8 +113,9 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
   for (const CheckFlip& f : d.flipped) {
     const CheckEntry& c = f.now;
     fmt::format_to(out, "\n!! CHECK FLIPPED  {}: {} -> {}\n", c.name, state(!c.passed), state(c.passed));
-    fmt::format_to(out, "   {}: {}{} (was {})\n", c.condition, checkValues(c.op, c.lhs, c.rhs, c.unit, digits),
-                   c.passed ? " holds" : " is false", checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits));
+    fmt::format_to(out, "   {}: {}{} (was {})\n", c.condition,
+                   checkValues(c.op, c.lhs, c.rhs, c.unit, digits), c.passed ? " holds" : " is false",
+                   checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits));
     if (!c.description.empty()) fmt::format_to(out, "   {}\n", c.description);
   }
 
@@ -136,11 +138,13 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
   }
 
   if (!d.moved.empty())
-    fmt::format_to(out, "\nResults moved beyond rtol {}, largest change first:\n{}", rtolText(d.rtol), valueRows(d.moved));
+    fmt::format_to(out, "\nResults moved beyond rtol {}, largest change first:\n{}", rtolText(d.rtol),
+                   valueRows(d.moved));
 
   if (!d.added.empty() || !d.removed.empty()) {
     std::vector<std::vector<std::string>> rows;
-    for (const QuantityEntry& q : d.added) rows.push_back({"added", q.formula, "= " + formatQuantity(q.si, q.unit, digits)});
+    for (const QuantityEntry& q : d.added)
+      rows.push_back({"added", q.formula, "= " + formatQuantity(q.si, q.unit, digits)});
     for (const QuantityEntry& q : d.removed)
       rows.push_back({"removed", q.formula, "was " + formatQuantity(q.si, q.unit, digits)});
     fmt::format_to(out, "\nQuantities added and removed:\n{}", table(rows, "  "));
@@ -194,9 +198,9 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     fmt::format_to(out, "\n#### Checks flipped\n\n| Check | Condition | Was | Now |\n|---|---|---|---|\n");
     for (const CheckFlip& f : d.flipped) {
       const CheckEntry& c = f.now;
-      fmt::format_to(out, "| {} | {} | {}: {} | **{}**: {} |\n", mdCode(c.name), mdCode(c.condition), state(!c.passed),
-                     mdCell(checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits)), state(c.passed),
-                     mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
+      fmt::format_to(out, "| {} | {} | {}: {} | **{}**: {} |\n", mdCode(c.name), mdCode(c.condition),
+                     state(!c.passed), mdCell(checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits)),
+                     state(c.passed), mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
     }
   }
 
@@ -224,19 +228,22 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
   if (!d.added.empty() || !d.removed.empty()) {
     fmt::format_to(out, "\n#### Quantities added and removed\n\n| | Definition | Value |\n|---|---|--:|\n");
     for (const QuantityEntry& q : d.added)
-      fmt::format_to(out, "| added | {} | {} |\n", mdCode(q.formula), mdCell(formatQuantity(q.si, q.unit, digits)));
+      fmt::format_to(out, "| added | {} | {} |\n", mdCode(q.formula),
+                     mdCell(formatQuantity(q.si, q.unit, digits)));
     for (const QuantityEntry& q : d.removed)
       fmt::format_to(out, "| removed | {} | was {} |\n", mdCode(q.formula),
                      mdCell(formatQuantity(q.si, q.unit, digits)));
   }
 
   if (!d.checks_added.empty() || !d.checks_removed.empty()) {
-    fmt::format_to(out, "\n#### Checks added and removed\n\n| | Check | Condition | State |\n|---|---|---|---|\n");
+    fmt::format_to(out,
+                   "\n#### Checks added and removed\n\n| | Check | Condition | State |\n|---|---|---|---|\n");
     for (const CheckEntry& c : d.checks_added)
-      fmt::format_to(out, "| added | {} | {} | {}: {} |\n", mdCode(c.name), mdCode(c.condition), state(c.passed),
-                     mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
+      fmt::format_to(out, "| added | {} | {} | {}: {} |\n", mdCode(c.name), mdCode(c.condition),
+                     state(c.passed), mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
     for (const CheckEntry& c : d.checks_removed)
-      fmt::format_to(out, "| removed | {} | {} | was {} |\n", mdCode(c.name), mdCode(c.condition), state(c.passed));
+      fmt::format_to(out, "| removed | {} | {} | was {} |\n", mdCode(c.name), mdCode(c.condition),
+                     state(c.passed));
   }
 
   if (!d.new_warnings.empty()) {
