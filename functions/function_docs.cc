@@ -5,6 +5,7 @@
 #include <cstdio>
 #include <string>
 
+#include "engine/util/json_writer.h"
 #include "functions/function_library.h"
 
 namespace calctrail {
@@ -89,28 +90,7 @@ void appendDetail(std::string& out, const FunctionDecl& d) {
   if (!d.caution.empty()) out += "  Caution: " + d.caution + "\n";
 }
 
-void jsonString(std::string& out, std::string_view s) {
-  out += '"';
-  for (const char c : s) {
-    const unsigned char u = static_cast<unsigned char>(c);
-    switch (c) {
-      case '"': out += "\\\""; break;
-      case '\\': out += "\\\\"; break;
-      case '\n': out += "\\n"; break;
-      case '\t': out += "\\t"; break;
-      case '\r': out += "\\r"; break;
-      default:
-        if (u < 0x20) {
-          char buf[8];
-          std::snprintf(buf, sizeof buf, "\\u%04x", u);
-          out += buf;
-        } else {
-          out += c;
-        }
-    }
-  }
-  out += '"';
-}
+void jsonString(std::string& out, std::string_view s) { out += JsonWriter::escape(s); }
 
 void jsonField(std::string& out, const char* key, std::string_view value, bool comma = true) {
   jsonString(out, key);

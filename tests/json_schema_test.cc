@@ -19,7 +19,8 @@ bool hasType(const Json& v, const std::string& type) {
   if (type == "string") return v.type == Json::String;
   if (type == "boolean") return v.type == Json::Bool;
   if (type == "number") return v.type == Json::Number;
-  if (type == "integer") return v.type == Json::Number && v.number == static_cast<double>(static_cast<long long>(v.number));
+  if (type == "integer")
+    return v.type == Json::Number && v.number == static_cast<double>(static_cast<long long>(v.number));
   if (type == "null") return v.type == Json::Null;
   return false;
 }
@@ -36,8 +37,10 @@ bool equal(const Json& a, const Json& b) {
 }
 
 void validate(const Json& schema, const Json& v, const std::string& path, std::vector<std::string>* errors) {
-  static const std::vector<std::string> known = {"$schema", "$id", "title", "type", "const", "enum", "required",
-                                                 "properties", "additionalProperties", "items", "minLength", "pattern"};
+  static const std::vector<std::string> known = {"$schema",  "$id",        "title",
+                                                 "type",     "const",      "enum",
+                                                 "required", "properties", "additionalProperties",
+                                                 "items",    "minLength",  "pattern"};
   for (const auto& [key, value] : schema.object) {
     (void)value;
     if (std::find(known.begin(), known.end(), key) == known.end())
@@ -106,7 +109,8 @@ TEST_CASE("the JSON of every demo worksheet follows docs/trail.schema.json", "[j
 
 TEST_CASE("the schema validator itself rejects what it should", "[json][schema]") {
   const Json schema = load(R"({"type":"object","additionalProperties":false,"required":["a"],
-    "properties":{"a":{"type":"integer"},"b":{"enum":["x","y"]},"c":{"type":"string","pattern":"^[0-9a-f]{4}$"}}})");
+    "properties":{"a":{"type":"integer"},"b":{"enum":["x","y"]},
+    "c":{"type":"string","pattern":"^[0-9a-f]{4}$"}}})");
   std::vector<std::string> errors;
   validate(schema, load(R"({"a":1,"b":"x","c":"00ff"})"), "$", &errors);
   CHECK(errors.empty());
@@ -115,4 +119,26 @@ TEST_CASE("the schema validator itself rejects what it should", "[json][schema]"
   errors.clear();
   validate(schema, load(R"({"b":"x"})"), "$", &errors);
   CHECK(errors == std::vector<std::string>{"$: missing `a`"});
+}
+
+TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+    const std::string path = std::string("worksheets/") + sheet + ".calc";
+    auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)));
+    REQUIRE_FALSE(c->hasErrors());
+    Run r = runCli("report " + path + " --format json");
+    REQUIRE(r.status == 0);
+    const Json out = load(r.out);
+    REQUIRE(out["quantities"].array.size() == c->quantities.size());
+    for (size_t i = 0; i < c->quantities.size(); ++i) {
+      const auto& q = c->quantities[i];
+      INFO(path << ": " << out["quantities"][i]["name"].string);
+      CHECK(out["quantities"][i]["si"].number == q.si);
+      CHECK(out["quantities"][i]["value"].number == q.display.fromSI(q.si));
+    }
+    for (size_t k = 0; k < c->checks.size(); ++k) {
+      CHECK(out["checks"][k]["lhs_si"].number == c->checks[k].lhs);
+      CHECK(out["checks"][k]["rhs_si"].number == c->checks[k].rhs);
+    }
+  }
 }

@@ -108,7 +108,7 @@ void printAndRead(const std::string& demo_name) {
   for (const TrailStep& s : t.steps) {
     if (s.input) continue;
     ++results;
-    CHECK(text.find(normalize(timesTenPowers(s.result))) != std::string::npos);
+    CHECK(text.find(normalize(valueText(s.result, NumberStyle::TimesTen))) != std::string::npos);
   }
   CHECK(results > 5);
 

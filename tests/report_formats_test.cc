@@ -6,8 +6,11 @@
 
 #include <cstdlib>
 
+#include "engine/report/formats.h"
 #include "engine/report/html_renderer.h"
+#include "engine/report/json_renderer.h"
 #include "engine/report/markdown_renderer.h"
+#include "engine/report/text_renderer.h"
 #include "engine/report/mathml.h"
 #include "engine/report/power_of_ten.h"
 #include "engine/report/trail.h"
@@ -34,7 +37,9 @@ void compareGolden(const std::string& actual, const std::string& golden) {
   const std::string path = repoPath("tests/golden/" + golden);
   if (std::getenv("CALCTRAIL_UPDATE_GOLDEN")) writeFile(path, actual);
   const std::string expected = readFile(path);
-  INFO("golden file tests/golden/" << golden << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
+  INFO(
+      "golden file tests/golden/" << golden
+                                  << " differs; regenerate with CALCTRAIL_UPDATE_GOLDEN=1 and read the diff");
   CHECK(actual == expected);
 }
 
@@ -83,14 +88,16 @@ TEST_CASE("golden: twin-screw lift, Markdown and HTML trails", "[report][golden]
 }
 
 TEST_CASE("golden files carry no machine path", "[report]") {
-  for (const char* f : {"canal-gate-hoist.md", "canal-gate-hoist.html", "leveling-jack.md", "leveling-jack.html",
-                        "twin-screw-lift.md", "twin-screw-lift.html"}) {
-    const std::string text = readFile(repoPath(std::string("tests/golden/") + f));
-    INFO(f);
-    REQUIRE_FALSE(text.empty());
-    CHECK(text.find("/tmp") == std::string::npos);
-    CHECK(text.find("/work") == std::string::npos);
-    CHECK(text.find("/home") == std::string::npos);
+  for (const char* name : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+    for (const char* ext : {".txt", ".md", ".html", ".json"}) {
+      const std::string f = std::string(name) + ext;
+      const std::string text = readFile(repoPath("tests/golden/" + f));
+      INFO(f);
+      REQUIRE_FALSE(text.empty());
+      CHECK(text.find("/tmp") == std::string::npos);
+      CHECK(text.find("/work") == std::string::npos);
+      CHECK(text.find("/home") == std::string::npos);
+    }
   }
 }
 
@@ -119,22 +126,26 @@ TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "
   CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Cautions</h2>"));
   CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Sources</h2>"));
   // The failed check is marked in words, not only by style.
-  CHECK(html.find("<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
+  CHECK(html.find(
+            "<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
         std::string::npos);
   CHECK(count(html, "<td>pass</td>") == static_cast<size_t>(t.passed));
   for (const char* banned : {"<script", "http://", "https://", "@import", "url(", "<link", "<img", "<iframe"})
     CHECK(html.find(banned) == std::string::npos);
   // Page headers: margin boxes with title, calc number, revision, page n of N.
-  CHECK(html.find("@top-left { content: \"Machine leveling jack: Acme screw turned by hand\"") != std::string::npos);
+  CHECK(html.find("@top-left { content: \"Machine leveling jack: Acme screw turned by hand\"") !=
+        std::string::npos);
   const std::string calc_no = c->sheet.meta.get("calc"), revision = c->sheet.meta.get("revision");
   REQUIRE_FALSE(calc_no.empty());
   REQUIRE_FALSE(revision.empty());
   CHECK(html.find("content: \"calc " + calc_no + " \u00B7 revision " + revision +
                   " \u00B7 page \" counter(page) \" of \" counter(pages)") != std::string::npos);
   // Sign-off from the metadata; `checked:` is empty, so its name cell is blank to fill in.
-  CHECK(html.find("<tr><th>Prepared</th><td>" + c->sheet.meta.get("prepared") + "</td><td class=\"sign\"></td><td>" +
-                  c->sheet.meta.get("date") + "</td></tr>") != std::string::npos);
-  CHECK(html.find("<tr><th>Checked</th><td></td><td class=\"sign\"></td><td></td></tr>") != std::string::npos);
+  CHECK(html.find("<tr><th>Prepared</th><td>" + c->sheet.meta.get("prepared") +
+                  "</td><td class=\"sign\"></td><td>" + c->sheet.meta.get("date") + "</td></tr>") !=
+        std::string::npos);
+  CHECK(html.find("<tr><th>Checked</th><td></td><td class=\"sign\"></td><td></td></tr>") !=
+        std::string::npos);
 }
 
 TEST_CASE("HTML: worksheet text is escaped everywhere", "[report]") {
@@ -162,8 +173,10 @@ TEST_CASE("HTML: worksheet text is escaped everywhere", "[report]") {
   // Only the stylesheet's own </style> closes it: the title in the @page
   // rules cannot end the style element early.
   CHECK(count(html, "</style>") == 1);
-  CHECK(html.find("content: \"Gate \\3C b>&\\3C /b> \\\"hoist\\\" \\3C /style>\\3C script>alert(1)\\3C /script>\"") !=
-        std::string::npos);
+  CHECK(
+      html.find(
+          "content: \"Gate \\3C b>&\\3C /b> \\\"hoist\\\" \\3C /style>\\3C script>alert(1)\\3C /script>\"") !=
+      std::string::npos);
   CHECK(html.find("calc A&B \\\\ \\\"1\\\" \u00B7 revision \\3C r> \u00B7 page ") != std::string::npos);
   // The check's relation in MathML is an entity, not a tag opener.
   CHECK(html.find("<mo>&lt;</mo>") != std::string::npos);
@@ -209,7 +222,8 @@ TEST_CASE("MathML: names, Greek letters, subscripts", "[report]") {
 
 TEST_CASE("MathML: fractions, powers, roots, units, pi, products", "[report]") {
   auto p = formula(
-      "d_r = 30 mm\nF = 2 kN\nT = 1 [N*m]\nx [MPa] = sqrt((4 * F / (pi * d_r^2))^2 + 3 * (16 * T / (pi * d_r^3))^2)\n",
+      "d_r = 30 mm\nF = 2 kN\nT = 1 [N*m]\nx [MPa] = sqrt((4 * F / (pi * d_r^2))^2 + 3 * (16 * T / (pi * "
+      "d_r^3))^2)\n",
       "x");
   const std::string m = mathmlExpr(*p.expr);
   CHECK(m.rfind("<msqrt>", 0) == 0);
@@ -299,10 +313,96 @@ TEST_CASE("HTML and Markdown: library calls are audited with their sources", "[r
   CHECK(html.find("<div class=\"lhs\"><code>torque_raise</code></div>") != std::string::npos);
   CHECK(count(html, "<mi>dm</mi>") > 2);
   // Sources: the function once, with both quantities that use it.
-  CHECK(html.find("<tr><td><code>torque_raise(F, dm, l, f, alpha)</code></td><td><code>T</code>, <code>U</code></td>") !=
-        std::string::npos);
+  CHECK(html.find("<tr><td><code>torque_raise(F, dm, l, f, alpha)</code></td><td><code>T</code>, "
+                  "<code>U</code></td>") != std::string::npos);
   CHECK(html.find("No library function is called") == std::string::npos);
   const std::string md = renderMarkdown(t);
   CHECK(md.find("> where `torque_raise(F, dm, l, f, alpha)`") != std::string::npos);
   CHECK(md.find("> source: ") != std::string::npos);
+}
+
+TEST_CASE("formats: each registered once, dispatched by name", "[report][formats]") {
+  CHECK(reportFormatNames() == std::vector<std::string>{"text", "md", "html", "json"});
+  CHECK(reportFormatHelp() == "text (terminal, git), md (pull requests), html (print to PDF), json (tools)");
+  CHECK(findReportFormat("pdf") == nullptr);
+  auto c = demo("leveling-jack");
+  const Trail t = buildTrail(*c, 4);
+  CHECK(renderReport(t, "text") == renderText(t));
+  CHECK(renderReport(t, "md") == renderMarkdown(t));
+  CHECK(renderReport(t, "html") == renderHtml(t));
+  CHECK(renderReport(t, "json") == renderJson(*c, t));
+  ReportSink sink;
+  CHECK_FALSE(renderReport(t, "pdf", sink));
+  CHECK(sink.size() == 0);
+  CHECK(renderReport(t, "pdf") == renderText(t));  // the default
+}
+
+TEST_CASE("renderers append to the sink they are given", "[report][formats]") {
+  auto c = demo("canal-gate-hoist");
+  const Trail t = buildTrail(*c, 4);
+  for (const ReportFormat& f : reportFormats()) {
+    ReportSink sink;
+    fmt::format_to(std::back_inserter(sink), "kept\n");
+    f.render(t, sink);
+    INFO(f.name);
+    CHECK(fmt::to_string(sink) == "kept\n" + renderReport(t, f.name));
+  }
+}
+
+TEST_CASE("the trail is all a renderer reads: JSON, text and Markdown outlive the calculation",
+          "[report][formats]") {
+  auto c = demo("twin-screw-lift");
+  const Trail t = buildTrail(*c, 4);
+  const std::string json = renderJson(*c, t), text = renderText(t), md = renderMarkdown(t);
+  // The trail keeps the numbers themselves, not only their text.
+  for (const TrailStep& s : t.steps) {
+    CHECK(s.result.si == c->quantities[s.index].si);
+    CHECK(s.result.value == c->quantities[s.index].display.fromSI(c->quantities[s.index].si));
+  }
+  c.reset();
+  CHECK(renderJson(t) == json);
+  CHECK(renderText(t) == text);
+  CHECK(renderMarkdown(t) == md);
+}
+
+TEST_CASE("the verdict is worded once for every format", "[report]") {
+  auto none = calc("a = 1\n");
+  auto pass = calc("a = 1\ncheck big: a > 0\ncheck small: a < 2\n");
+  auto fail = calc("a = 1\ncheck big: a > 0\ncheck huge: a > 5\ncheck vast: a > 9\n");
+  const Trail tn = buildTrail(*none, 4), tp = buildTrail(*pass, 4), tf = buildTrail(*fail, 4);
+  CHECK(verdictWords(tn, VerdictForm::Headline) == "Checks: none in this worksheet");
+  CHECK(verdictWords(tp, VerdictForm::Headline) == "Checks: all 2 pass");
+  CHECK(verdictWords(tf, VerdictForm::Headline) == "Checks: 2 of 3 FAIL:");
+  CHECK(verdictWords(tn, VerdictForm::Sentence) == "This worksheet has no design checks.");
+  CHECK(verdictWords(tp, VerdictForm::Sentence) == "All 2 checks pass.");
+  CHECK(verdictWords(tf, VerdictForm::Sentence) == "2 of 3 checks fail:");
+  CHECK(renderText(tf).find("Checks: 2 of 3 FAIL: huge vast\n") != std::string::npos);
+  CHECK(renderMarkdown(tf).find("**Checks: 2 of 3 FAIL:** `huge` `vast`") != std::string::npos);
+  CHECK(renderHtml(tf).find("FAIL</span> 2 of 3 checks fail: <code>huge</code> <code>vast</code>") !=
+        std::string::npos);
+  CHECK(renderHtml(tp).find(">All 2 checks pass.</p>") != std::string::npos);
+  CHECK(tf.checks[1].condition == "a > 5");
+}
+
+TEST_CASE("values are written from their numbers in each format's style", "[report]") {
+  auto c = calc("P = 1.5e9 W\nQ [W] = P * 2\nd = 2e-7 m\nA [m^2] = d^2 * 3\n");
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  const TrailStep& q = t.steps[1];
+  CHECK(q.result.number.digits == "3.000");
+  CHECK(q.result.number.exponent == "9");
+  CHECK(valueText(q.result) == "3.000e9 W");
+  CHECK(valueText(q.result, NumberStyle::TimesTen) == "3.000 \u00D7 10\u2079 W");
+  // The given literal as written, and the substituted line cut into text and values.
+  REQUIRE(t.steps[0].given);
+  CHECK(valueText(*t.steps[0].given) == "1.5e9 W");
+  CHECK(lineText(q.substituted) == "1.5e9 W \u00B7 2");
+  REQUIRE(q.substituted.size() == 2);
+  CHECK(q.substituted[0].value);
+  CHECK(q.substituted[1].text == " \u00B7 2");
+  CHECK(lineText(t.steps[3].substituted) == "(2e-7 m)^2 \u00B7 3");
+  CHECK(lineText(t.steps[3].substituted, NumberStyle::TimesTen) == "(2 \u00D7 10\u207B\u2077 m)^2 \u00B7 3");
+  CHECK(renderMarkdown(t).find("| `Q` | 3.000 \u00D7 10\u2079 W |") != std::string::npos);
+  CHECK(renderText(t).find("= 3.000e9 W\n") != std::string::npos);
 }

@@ -3,11 +3,11 @@
 #include <algorithm>
 #include <cctype>
 #include <cmath>
+#include <iterator>
 #include <string_view>
 #include <vector>
 
 #include "engine/report/mathml.h"
-#include "engine/report/power_of_ten.h"
 #include "engine/report/xml_escape.h"
 
 namespace calctrail {
@@ -91,19 +91,21 @@ size_t codepointAt(const std::string& s, size_t i, char32_t* cp) {
   return n;
 }
 
-bool superscriptDigit(char32_t c) { return c == 0x2070 || c == 0xB9 || c == 0xB2 || c == 0xB3 || (c >= 0x2074 && c <= 0x2079); }
+bool superscriptDigit(char32_t c) {
+  return c == 0x2070 || c == 0xB9 || c == 0xB2 || c == 0xB3 || (c >= 0x2074 && c <= 0x2079);
+}
 bool numberEnd(char32_t c) { return (c >= '0' && c <= '9') || superscriptDigit(c); }
 bool unitStart(char32_t c) {
-  return (c < 0x80 && std::isalpha(static_cast<int>(c))) || c == 0xB0 || c == '%' || c == 0xB5 || c == 0x3BC ||
-         c == 0x3A9 || c == 0xD7;
+  return (c < 0x80 && std::isalpha(static_cast<int>(c))) || c == 0xB0 || c == '%' || c == 0xB5 ||
+         c == 0x3BC || c == 0x3A9 || c == 0xD7;
 }
 
-// A value or substituted line for people, as HTML: "1.5e9" as 1.5 × 10⁹,
-// "^2" as ², the minus sign, and no line break between a number and its unit.
-std::string human(const std::string& raw) {
+// A value or substituted line for people, its powers of ten already
+// typeset (1.5 × 10⁹), as HTML: "^2" as ², the minus sign, and no line
+// break between a number and its unit.
+std::string typeset(const std::string& s) {
   static const char* const sup[] = {"\u2070", "\u00B9", "\u00B2", "\u00B3", "\u2074",
                                     "\u2075", "\u2076", "\u2077", "\u2078", "\u2079"};
-  const std::string s = timesTenPowers(raw);
   std::string out;
   char32_t prev = 0;
   for (size_t i = 0; i < s.size();) {
@@ -141,6 +143,9 @@ std::string human(const std::string& raw) {
   return out;
 }
 
+std::string human(const TrailValue& v) { return typeset(valueText(v, NumberStyle::TimesTen)); }
+std::string human(const TrailLine& line) { return typeset(lineText(line, NumberStyle::TimesTen)); }
+
 std::string esc(const std::string& s) { return escapeXml(s); }
 
 // A CSS string literal; "<" is escaped so that no text can close the <style>.
@@ -171,8 +176,10 @@ std::string pageRules(const Trail& t) {
   const std::string font = "font-family: \"Liberation Serif\", \"Times New Roman\", serif; ";
   const std::string box = font + "font-size: 8.5pt; ", small = font + "font-size: 7pt; ";
   std::string out = "@page {\n";
-  out += "  @top-left { content: " + cssString(title(t)) + "; " + box + "vertical-align: bottom; padding-bottom: 4mm; }\n";
-  out += "  @top-right { content: " + cssString(ident + "page ") + " counter(page) \" of \" counter(pages); " + box +
+  out += "  @top-left { content: " + cssString(title(t)) + "; " + box +
+         "vertical-align: bottom; padding-bottom: 4mm; }\n";
+  out += "  @top-right { content: " + cssString(ident + "page ") +
+         " counter(page) \" of \" counter(pages); " + box +
          "vertical-align: bottom; padding-bottom: 4mm; white-space: nowrap; }\n";
   out += "  @bottom-left { content: " + cssString(t.path + " \u00B7 SHA-256 " + t.sha256) + "; " + small +
          "vertical-align: top; padding-top: 4mm; }\n";
@@ -184,12 +191,9 @@ std::string inlineMath(const std::string& elements) { return "<math>" + elements
 
 // One line of typeset formula, shrunk when it would not fit `room` em.
 std::string mathLine(const std::string& elements, double need, double room) {
-  std::string style;
-  if (need > room) {
-    const int percent = std::max(1, static_cast<int>(std::floor(100.0 * room / need)));
-    style = " style=\"font-size: " + std::to_string(percent) + "%\"";
-  }
-  return "<math display=\"block\"" + style + ">" + elements + "</math>";
+  if (need <= room) return fmt::format("<math display=\"block\">{}</math>", elements);
+  const int percent = std::max(1, static_cast<int>(std::floor(100.0 * room / need)));
+  return fmt::format("<math display=\"block\" style=\"font-size: {}%\">{}</math>", percent, elements);
 }
 
 // A formula beside its symbol. MathML does not break lines, so a long
@@ -258,205 +262,220 @@ std::string checkValues(const TrailCheck& c) {
   return human(c.lhs) + " " + relationEntity(c.op) + " " + human(c.rhs);
 }
 
-std::string header(const Trail& t) {
-  std::string out = "<header class=\"title-block\">\n<h1>" + esc(title(t)) + "</h1>\n<table class=\"meta\">\n";
-  for (const auto& [key, value] : t.meta) out += "<tr><th>" + esc(key) + "</th><td>" + esc(value) + "</td></tr>\n";
-  out += "<tr><th>file</th><td><code>" + esc(t.path) + "</code></td></tr>\n";
-  out += "<tr><th>SHA-256</th><td><code class=\"hash\">" + esc(t.sha256) + "</code></td></tr>\n";
-  out += "</table>\n</header>\n";
-  return out;
+// Every part of the document is appended to one buffer.
+using Out = std::back_insert_iterator<fmt::memory_buffer>;
+
+void header(Out out, const Trail& t) {
+  fmt::format_to(out, "<header class=\"title-block\">\n<h1>{}</h1>\n<table class=\"meta\">\n", esc(title(t)));
+  for (const auto& [key, value] : t.meta)
+    fmt::format_to(out, "<tr><th>{}</th><td>{}</td></tr>\n", esc(key), esc(value));
+  fmt::format_to(out, "<tr><th>file</th><td><code>{}</code></td></tr>\n", esc(t.path));
+  fmt::format_to(out, "<tr><th>SHA-256</th><td><code class=\"hash\">{}</code></td></tr>\n", esc(t.sha256));
+  fmt::format_to(out, "</table>\n</header>\n");
 }
 
 // The verdict and every check, first: a failed check must be impossible to
 // miss, so it is marked in words and weight, never by colour alone.
-std::string checksSummary(const Trail& t) {
-  std::string out = std::string("<section class=\"verdict ") + (t.failed ? "has-fail" : "all-pass") + "\">\n";
-  out += "<h2>Design checks</h2>\n";
+void checksSummary(Out out, const Trail& t) {
+  fmt::format_to(out, "<section class=\"verdict {}\">\n<h2>Design checks</h2>\n",
+                 t.failed ? "has-fail" : "all-pass");
+  const std::string words = esc(verdictWords(t, VerdictForm::Sentence));
   if (t.checks.empty()) {
-    out += "<p class=\"verdict-line\">This worksheet has no design checks.</p>\n</section>\n";
-    return out;
+    fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n</section>\n", words);
+    return;
   }
   if (t.failed == 0) {
-    out += "<p class=\"verdict-line\">All " + std::to_string(t.passed) + " checks pass.</p>\n";
+    fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n", words);
   } else {
-    out += "<p class=\"verdict-line\"><span class=\"fail-mark\">FAIL</span> " + std::to_string(t.failed) + " of " +
-           std::to_string(t.checks.size()) + " checks fail:";
+    fmt::format_to(out, "<p class=\"verdict-line\"><span class=\"fail-mark\">FAIL</span> {}", words);
     for (const TrailCheck& c : t.checks)
-      if (!c.passed) out += " <code>" + esc(c.name) + "</code>";
-    out += "</p>\n";
+      if (!c.passed) fmt::format_to(out, " <code>{}</code>", esc(c.name));
+    fmt::format_to(out, "</p>\n");
   }
-  out += "<table class=\"checks\">\n<thead><tr><th>State</th><th>Check</th><th>Condition</th><th>Values</th>"
-         "<th>Note</th></tr></thead>\n<tbody>\n";
+  fmt::format_to(out, "<table class=\"checks\">\n<thead><tr><th>State</th><th>Check</th><th>Condition</th>"
+                      "<th>Values</th><th>Note</th></tr></thead>\n<tbody>\n");
   for (const TrailCheck& c : t.checks) {
-    out += std::string("<tr class=\"") + (c.passed ? "pass" : "fail") + "\">";
-    out += c.passed ? "<td>pass</td>" : "<td><span class=\"fail-mark\">FAIL</span></td>";
-    out += "<td><code>" + esc(c.name) + "</code></td><td>" + conditionMath(c) + "</td><td>" + checkValues(c) +
-           "</td><td>" + esc(c.description) + "</td></tr>\n";
+    fmt::format_to(out, "<tr class=\"{}\">{}", c.passed ? "pass" : "fail",
+                   c.passed ? "<td>pass</td>" : "<td><span class=\"fail-mark\">FAIL</span></td>");
+    fmt::format_to(out, "<td><code>{}</code></td><td>{}</td><td>{}</td><td>{}</td></tr>\n", esc(c.name),
+                   conditionMath(c), checkValues(c), esc(c.description));
   }
-  out += "</tbody>\n</table>\n</section>\n";
-  return out;
+  fmt::format_to(out, "</tbody>\n</table>\n</section>\n");
 }
 
 // Inputs or results: symbol, name, value, notes, grouped under sections.
-std::string quantityTable(const Trail& t, bool inputs) {
-  std::string out = "<table class=\"quantities\">\n<thead><tr><th>Symbol</th><th>Name</th><th>";
-  out += inputs ? "Value</th><th>Notes" : "Result</th><th>Description";
-  out += "</th></tr></thead>\n<tbody>\n";
+void quantityTable(Out out, const Trail& t, bool inputs) {
+  fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Symbol</th><th>Name</th><th>{}</th></tr>"
+                      "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
   for (const TrailStep& s : t.steps) {
     if (s.input != inputs) continue;
     if (s.section != section) {
       section = s.section;
-      if (!section.empty()) out += "<tr class=\"group\"><th colspan=\"4\">" + esc(section) + "</th></tr>\n";
+      if (!section.empty())
+        fmt::format_to(out, "<tr class=\"group\"><th colspan=\"4\">{}</th></tr>\n", esc(section));
     }
     std::string notes = esc(s.description);
-    if (inputs && s.given.empty() && s.formula != s.result)
+    if (inputs && s.formula_in_notes)
       notes = "= <code>" + esc(s.formula) + "</code>" + (notes.empty() ? "" : "; " + notes);
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("<em>(set on the command line)</em>");
-    const std::string& value = inputs && !s.given.empty() ? s.given : s.result;
-    out += "<tr><td>" + inlineMath(mathmlName(s.name)) + "</td><td><code>" + esc(s.name) +
-           "</code></td><td class=\"value\">" + human(value) + "</td><td>" + notes + "</td></tr>\n";
+    const TrailValue& value = inputs && s.given ? *s.given : s.result;
+    fmt::format_to(out,
+                   "<tr><td>{}</td><td><code>{}</code></td><td class=\"value\">{}</td><td>{}</td></tr>\n",
+                   inlineMath(mathmlName(s.name)), esc(s.name), human(value), notes);
   }
-  out += "</tbody>\n</table>\n";
-  return out;
+  fmt::format_to(out, "</tbody>\n</table>\n");
 }
 
 // symbol = formula / = substituted / = result, the equals signs aligned.
-std::string equation(const std::string& lhs, const std::string& formula, const std::string& substituted,
-                     const std::string& result) {
-  std::string out = "<div class=\"eq\">\n";
-  out += "<div class=\"lhs\">" + lhs + "</div><div class=\"rel\">=</div><div class=\"rhs\">" + formula + "</div>\n";
+void equation(Out out, const std::string& lhs, const std::string& formula, const std::string& substituted,
+              const std::string& result) {
+  fmt::format_to(out, "<div class=\"eq\">\n<div class=\"lhs\">{}</div><div class=\"rel\">=</div>"
+                      "<div class=\"rhs\">{}</div>\n", lhs, formula);
   if (!substituted.empty())
-    out += "<div class=\"rel\">=</div><div class=\"rhs subst\">" + substituted + "</div>\n";
-  if (!result.empty()) out += "<div class=\"rel\">=</div><div class=\"rhs result\">" + result + "</div>\n";
-  out += "</div>\n";
-  return out;
+    fmt::format_to(out, "<div class=\"rel\">=</div><div class=\"rhs subst\">{}</div>\n", substituted);
+  if (!result.empty())
+    fmt::format_to(out, "<div class=\"rel\">=</div><div class=\"rhs result\">{}</div>\n", result);
+  fmt::format_to(out, "</div>\n");
 }
 
-std::string callAudit(const TrailCall& c) {
-  std::string out = "<div class=\"call\">\n<p>where <code>" + esc(c.signature) + "</code></p>\n";
+void callAudit(Out out, const TrailCall& c) {
+  fmt::format_to(out, "<div class=\"call\">\n<p>where <code>{}</code></p>\n", esc(c.signature));
   if (c.formula_is_expression) {
-    const std::string formula = c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
-                                               : esc(c.pretty);
-    const std::string subst = !c.substituted.empty() && c.substituted != c.pretty ? human(c.substituted) : "";
-    out += equation("<code>" + esc(c.name) + "</code>", formula, subst, human(c.result));
+    const std::string formula =
+        c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
+                       : esc(c.pretty);
+    const std::string subst = c.show_substituted ? human(c.substituted) : "";
+    equation(out, "<code>" + esc(c.name) + "</code>", formula, subst, c.result ? human(*c.result) : "");
   } else {
-    out += "<p>" + esc(c.formula) + "</p>\n";
-    if (!c.arguments.empty()) out += "<p>with " + human(c.arguments) + "</p>\n";
-    if (!c.result.empty()) out += "<p>= " + human(c.result) + "</p>\n";
+    fmt::format_to(out, "<p>{}</p>\n", esc(c.formula));
+    if (!c.arguments.empty()) fmt::format_to(out, "<p>with {}</p>\n", human(c.arguments));
+    if (c.result) fmt::format_to(out, "<p>= {}</p>\n", human(*c.result));
   }
-  out += "<p class=\"source\">Source: " + esc(c.source) + "</p>\n</div>\n";
-  return out;
+  fmt::format_to(out, "<p class=\"source\">Source: {}</p>\n</div>\n", esc(c.source));
 }
 
-std::string step(const TrailStep& s) {
-  std::string out = "<div class=\"step\" id=\"q-" + esc(s.name) + "\">\n<p class=\"step-head\"><code>" + esc(s.name) +
-                    "</code>";
-  if (!s.description.empty()) out += "<span class=\"desc\">" + esc(s.description) + "</span>";
-  if (s.overridden) out += " <em>(set on the command line)</em>";
-  out += "</p>\n";
+void step(Out out, const TrailStep& s) {
+  fmt::format_to(out, "<div class=\"step\" id=\"q-{}\">\n<p class=\"step-head\"><code>{}</code>", esc(s.name),
+                 esc(s.name));
+  if (!s.description.empty()) fmt::format_to(out, "<span class=\"desc\">{}</span>", esc(s.description));
+  if (s.overridden) fmt::format_to(out, " <em>(set on the command line)</em>");
+  fmt::format_to(out, "</p>\n");
   const double symbol_em = mathmlNameWidth(s.name) + 2;
   const std::string formula = s.expr ? displayMath(*s.expr, symbol_em) : esc(s.pretty);
-  const std::string subst = s.substituted != s.pretty && s.substituted != s.result ? human(s.substituted) : "";
-  out += equation(inlineMath(mathmlName(s.name)), formula, subst, human(s.result));
-  for (const TrailCall& c : s.calls) out += callAudit(c);
-  out += "</div>\n";
-  return out;
+  const std::string subst = s.show_substituted ? human(s.substituted) : "";
+  equation(out, inlineMath(mathmlName(s.name)), formula, subst, human(s.result));
+  for (const TrailCall& c : s.calls) callAudit(out, c);
+  fmt::format_to(out, "</div>\n");
 }
 
-std::string calculation(const Trail& t) {
-  std::string out = "<section class=\"calculation\">\n<h2>Calculation</h2>\n";
+void calculation(Out out, const Trail& t) {
+  fmt::format_to(out, "<section class=\"calculation\">\n<h2>Calculation</h2>\n");
   for (const TrailBlock& b : t.blocks) {
-    if (b.kind == TrailBlock::Section) out += "<h3>" + esc(b.text) + "</h3>\n";
-    else if (b.kind == TrailBlock::Note) out += "<p class=\"note\">" + esc(b.text) + "</p>\n";
-    else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) out += step(t.steps[b.index]);
+    if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(b.text));
+    else if (b.kind == TrailBlock::Note) fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(b.text));
+    else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) step(out, t.steps[b.index]);
   }
-  out += "</section>\n";
-  return out;
+  fmt::format_to(out, "</section>\n");
 }
 
 // Every library function the formulas call, once, with its published source.
-std::string sources(const Trail& t) {
-  std::string out = "<section class=\"sources\">\n<h2>Sources</h2>\n";
+void sources(Out out, const Trail& t) {
+  fmt::format_to(out, "<section class=\"sources\">\n<h2>Sources</h2>\n");
   std::vector<std::string> seen;
-  std::string rows;
+  fmt::memory_buffer rows;
   for (const TrailStep& s : t.steps) {
     for (const TrailCall& c : s.calls) {
       if (std::find(seen.begin(), seen.end(), c.name) != seen.end()) continue;
       seen.push_back(c.name);
-      std::string used;
+      std::vector<std::string> used;  // the quantities that call it, once each
       for (const TrailStep& u : t.steps)
         for (const TrailCall& uc : u.calls)
-          if (uc.name == c.name && used.find("<code>" + esc(u.name) + "</code>") == std::string::npos)
-            used += (used.empty() ? "" : ", ") + ("<code>" + esc(u.name) + "</code>");
-      rows += "<tr><td><code>" + esc(c.signature) + "</code></td><td>" + used + "</td><td>" + esc(c.source) +
-              "</td></tr>\n";
+          if (uc.name == c.name && std::find(used.begin(), used.end(), u.name) == used.end())
+            used.push_back(u.name);
+      std::vector<std::string> cells;
+      for (const std::string& name : used) cells.push_back("<code>" + esc(name) + "</code>");
+      fmt::format_to(std::back_inserter(rows), "<tr><td><code>{}</code></td><td>{}</td><td>{}</td></tr>\n",
+                     esc(c.signature), fmt::join(cells, ", "), esc(c.source));
     }
   }
   if (seen.empty()) {
-    out += "<p>No library function is called: every formula above is written out in the worksheet itself.</p>\n";
+    fmt::format_to(out, "<p>No library function is called: every formula above is written out in the "
+                        "worksheet itself.</p>\n");
   } else {
-    out += "<table class=\"functions\">\n<thead><tr><th>Library function</th><th>Used for</th><th>Source</th></tr>"
-           "</thead>\n<tbody>\n" + rows + "</tbody>\n</table>\n";
+    fmt::format_to(out,
+                   "<table class=\"functions\">\n<thead><tr><th>Library function</th><th>Used for</th>"
+                   "<th>Source</th></tr></thead>\n<tbody>\n{}</tbody>\n</table>\n",
+                   fmt::to_string(rows));
   }
-  out += "</section>\n";
-  return out;
+  fmt::format_to(out, "</section>\n");
 }
 
 // The block a checker signs: the signature covers these worksheet bytes.
-std::string signOff(const Trail& t) {
+void signOff(Out out, const Trail& t) {
   auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : esc(v); };
-  std::string out = "<section class=\"signoff\">\n<h2>Sign-off</h2>\n<table class=\"meta\">\n";
-  out += "<tr><th>calc</th><td>" + given(meta(t, "calc")) + "</td></tr>\n";
-  out += "<tr><th>revision</th><td>" + given(meta(t, "revision")) + "</td></tr>\n";
-  out += "<tr><th>worksheet</th><td><code>" + esc(t.path) + "</code></td></tr>\n";
-  out += "<tr><th>SHA-256</th><td><code class=\"hash\">" + esc(t.sha256) + "</code></td></tr>\n</table>\n";
-  out += "<p>The signatures below cover the worksheet with this SHA-256 only. Any change to it, however small, "
-         "changes the SHA-256 and needs a new sign-off.</p>\n";
-  out += "<table class=\"signatures\">\n<thead><tr><th></th><th>Name</th><th>Signature</th><th>Date</th></tr>"
-         "</thead>\n<tbody>\n";
-  out += "<tr><th>Prepared</th><td>" + esc(meta(t, "prepared")) + "</td><td class=\"sign\"></td><td>" +
-         esc(meta(t, "date")) + "</td></tr>\n";
-  out += "<tr><th>Checked</th><td>" + esc(meta(t, "checked")) + "</td><td class=\"sign\"></td><td></td></tr>\n";
-  out += "</tbody>\n</table>\n";
+  fmt::format_to(out, "<section class=\"signoff\">\n<h2>Sign-off</h2>\n<table class=\"meta\">\n");
+  fmt::format_to(out, "<tr><th>calc</th><td>{}</td></tr>\n", given(meta(t, "calc")));
+  fmt::format_to(out, "<tr><th>revision</th><td>{}</td></tr>\n", given(meta(t, "revision")));
+  fmt::format_to(out, "<tr><th>worksheet</th><td><code>{}</code></td></tr>\n", esc(t.path));
+  fmt::format_to(out, "<tr><th>SHA-256</th><td><code class=\"hash\">{}</code></td></tr>\n</table>\n",
+                 esc(t.sha256));
+  fmt::format_to(out, "<p>The signatures below cover the worksheet with this SHA-256 only. Any change to it, "
+                      "however small, changes the SHA-256 and needs a new sign-off.</p>\n");
+  fmt::format_to(out, "<table class=\"signatures\">\n<thead><tr><th></th><th>Name</th><th>Signature</th>"
+                      "<th>Date</th></tr></thead>\n<tbody>\n");
+  fmt::format_to(out, "<tr><th>Prepared</th><td>{}</td><td class=\"sign\"></td><td>{}</td></tr>\n",
+                 esc(meta(t, "prepared")), esc(meta(t, "date")));
+  fmt::format_to(out, "<tr><th>Checked</th><td>{}</td><td class=\"sign\"></td><td></td></tr>\n",
+                 esc(meta(t, "checked")));
+  fmt::format_to(out, "</tbody>\n</table>\n");
   std::string end = "End of calculation";
   if (!meta(t, "calc").empty()) end += " " + meta(t, "calc");
   if (!meta(t, "revision").empty()) end += ", revision " + meta(t, "revision");
-  out += "<p class=\"end\">" + esc(end) + ".</p>\n</section>\n";
-  return out;
+  fmt::format_to(out, "<p class=\"end\">{}.</p>\n</section>\n", esc(end));
 }
 
 }  // namespace
 
-std::string renderHtml(const Trail& t) {
-  std::string out = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";
-  out += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
-  out += "<meta name=\"generator\" content=\"calctrail\">\n";
+void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
+  auto out = std::back_inserter(buffer);
+  fmt::format_to(out, "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
+  fmt::format_to(out, "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
+  fmt::format_to(out, "<meta name=\"generator\" content=\"calctrail\">\n");
   std::string doc_title = title(t);
   if (!meta(t, "calc").empty()) doc_title = meta(t, "calc") + " " + doc_title;
-  out += "<title>" + esc(doc_title) + "</title>\n<style>";
-  out += kStyle;
-  out += pageRules(t);
-  out += "</style>\n</head>\n<body>\n";
-  out += header(t);
-  out += checksSummary(t);
-  out += "<section class=\"inputs\">\n<h2>Inputs</h2>\n" + quantityTable(t, true) + "</section>\n";
-  out += calculation(t);
+  fmt::format_to(out, "<title>{}</title>\n<style>{}{}</style>\n</head>\n<body>\n", esc(doc_title), kStyle,
+                 pageRules(t));
+  header(out, t);
+  checksSummary(out, t);
+  fmt::format_to(out, "<section class=\"inputs\">\n<h2>Inputs</h2>\n");
+  quantityTable(out, t, true);
+  fmt::format_to(out, "</section>\n");
+  calculation(out, t);
   bool any_result = false;
   for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
-  if (any_result) out += "<section class=\"results\">\n<h2>Results</h2>\n" + quantityTable(t, false) + "</section>\n";
-  if (!t.warnings.empty()) {
-    out += "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n";
-    for (const std::string& w : t.warnings) out += "<li><code>" + esc(w) + "</code></li>\n";
-    out += "</ul>\n</section>\n";
+  if (any_result) {
+    fmt::format_to(out, "<section class=\"results\">\n<h2>Results</h2>\n");
+    quantityTable(out, t, false);
+    fmt::format_to(out, "</section>\n");
   }
-  out += "<section class=\"cautions\">\n<h2>Cautions</h2>\n<ul>\n";
-  for (const std::string& c : t.cautions) out += "<li>" + esc(c) + "</li>\n";
-  out += "</ul>\n</section>\n";
-  out += sources(t);
-  out += signOff(t);
-  out += "</body>\n</html>\n";
-  return out;
+  if (!t.warnings.empty()) {
+    fmt::format_to(out, "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n");
+    for (const std::string& w : t.warnings) fmt::format_to(out, "<li><code>{}</code></li>\n", esc(w));
+    fmt::format_to(out, "</ul>\n</section>\n");
+  }
+  fmt::format_to(out, "<section class=\"cautions\">\n<h2>Cautions</h2>\n<ul>\n");
+  for (const std::string& c : t.cautions) fmt::format_to(out, "<li>{}</li>\n", esc(c));
+  fmt::format_to(out, "</ul>\n</section>\n");
+  sources(out, t);
+  signOff(out, t);
+  fmt::format_to(out, "</body>\n</html>\n");
+}
+
+std::string renderHtml(const Trail& t) {
+  fmt::memory_buffer out;
+  renderHtml(t, out);
+  return fmt::to_string(out);
 }
 
 }  // namespace calctrail

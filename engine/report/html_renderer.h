@@ -7,12 +7,16 @@
 
 #include <string>
 
+#include <fmt/format.h>
+
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
 // `trail` must come from a Calculation that is still alive: the formulas
 // are typeset from its expression trees (TrailStep::expr).
+// Appends the HTML document to `out`.
+void renderHtml(const Trail& trail, fmt::memory_buffer& out);
 std::string renderHtml(const Trail& trail);
 
 }  // namespace calctrail

@@ -4,8 +4,69 @@
 
 namespace calctrail {
 
-std::string renderJson(const Calculation& calc, const Trail& t) {
-  JsonWriter w;
+namespace {
+
+void writeCall(JsonWriter& w, const TrailCall& c) {
+  w.beginObject();
+  w.key("name").value(c.name);
+  w.key("call").value(c.signature);
+  w.key("formula").value(c.formula);
+  w.key("formula_is_expression").value(c.formula_is_expression);
+  w.key("arguments").value(lineText(c.arguments));
+  w.key("substituted").value(lineText(c.substituted));
+  w.key("result").value(c.result ? valueText(*c.result) : "");
+  w.key("source").value(c.source);
+  w.key("caution").value(c.caution);
+  w.endObject();
+}
+
+void writeStep(JsonWriter& w, const TrailStep& s) {
+  w.beginObject();
+  w.key("name").value(s.name);
+  w.key("value").value(s.result.value);
+  w.key("unit").value(s.unit_written);
+  w.key("si").value(s.result.si);
+  w.key("si_unit").value(s.si_unit);
+  w.key("dimension").value(s.dimension);
+  w.key("formula").value(s.formula);
+  w.key("substituted").value(lineText(s.substituted));
+  w.key("result").value(s.ok ? valueText(s.result) : "");
+  w.key("description").value(s.description);
+  w.key("section").value(s.section);
+  w.key("input").value(s.input);
+  w.key("unit_declared").value(s.unit_declared);
+  w.key("overridden").value(s.overridden);
+  w.key("line").value(s.line);
+  w.key("source").value(s.origin);
+  w.key("functions").beginArray();
+  for (const TrailCall& c : s.calls) writeCall(w, c);
+  w.endArray();
+  w.endObject();
+}
+
+void writeCheck(JsonWriter& w, const TrailCheck& c) {
+  w.beginObject();
+  w.key("name").value(c.name);
+  w.key("passed").value(c.passed);
+  w.key("condition").value(c.condition);
+  w.key("op").value(c.op);
+  w.key("lhs").value(c.lhs.value);
+  w.key("rhs").value(c.rhs.value);
+  w.key("unit").value(c.unit);
+  w.key("lhs_text").value(c.ok ? valueText(c.lhs) : "");
+  w.key("rhs_text").value(c.ok ? valueText(c.rhs) : "");
+  w.key("lhs_si").value(c.lhs.si);
+  w.key("rhs_si").value(c.rhs.si);
+  w.key("description").value(c.description);
+  w.key("section").value(c.section);
+  w.key("line").value(c.line);
+  w.endObject();
+}
+
+}  // namespace
+
+void renderJson(const Trail& t, fmt::memory_buffer& out) {
+  JsonWriter w(out);
   w.beginObject();
   w.key("schema").value(kJsonSchemaVersion);
   w.key("file").value(t.path);
@@ -21,69 +82,10 @@ std::string renderJson(const Calculation& calc, const Trail& t) {
     if (s.input) w.value(s.name);
   w.endArray();
   w.key("quantities").beginArray();
-  for (const TrailStep& s : t.steps) {
-    const QuantityState& q = calc.quantities[s.index];
-    const Quantity& src = calc.sheet.quantities[s.index];
-    w.beginObject();
-    w.key("name").value(s.name);
-    w.key("value").value(q.display.fromSI(q.si));
-    // The contract: the declared display unit as written, else the engine's choice.
-    w.key("unit").value(q.declared ? src.unit_written : s.unit);
-    w.key("si").value(q.si);
-    w.key("si_unit").value(q.dim.siSymbol());
-    w.key("dimension").value(s.dimension);
-    w.key("formula").value(s.formula);
-    w.key("substituted").value(s.substituted);
-    w.key("result").value(s.result);
-    w.key("description").value(s.description);
-    w.key("section").value(s.section);
-    w.key("input").value(s.input);
-    w.key("unit_declared").value(q.declared);
-    w.key("overridden").value(s.overridden);
-    w.key("line").value(src.line);
-    // Where the value comes from: given in the worksheet, set on the command
-    // line, calculated, or calculated with the cited library methods.
-    std::string source = s.overridden ? "set on the command line" : s.input ? "given" : "calculated";
-    for (const TrailCall& c : s.calls) source += "; " + c.name + ": " + c.source;
-    w.key("source").value(source);
-    w.key("functions").beginArray();
-    for (const TrailCall& c : s.calls) {
-      w.beginObject();
-      w.key("name").value(c.name);
-      w.key("call").value(c.signature);
-      w.key("formula").value(c.formula);
-      w.key("formula_is_expression").value(c.formula_is_expression);
-      w.key("arguments").value(c.arguments);
-      w.key("substituted").value(c.substituted);
-      w.key("result").value(c.result);
-      w.key("source").value(c.source);
-      w.key("caution").value(c.caution);
-      w.endObject();
-    }
-    w.endArray();
-    w.endObject();
-  }
+  for (const TrailStep& s : t.steps) writeStep(w, s);
   w.endArray();
   w.key("checks").beginArray();
-  for (const TrailCheck& c : t.checks) {
-    const CheckState& s = calc.checks[c.index];
-    w.beginObject();
-    w.key("name").value(c.name);
-    w.key("passed").value(c.passed);
-    w.key("condition").value(c.condition);
-    w.key("op").value(c.op);
-    w.key("lhs").value(s.display.fromSI(s.lhs));
-    w.key("rhs").value(s.display.fromSI(s.rhs));
-    w.key("unit").value(s.display.text);
-    w.key("lhs_text").value(c.lhs);
-    w.key("rhs_text").value(c.rhs);
-    w.key("lhs_si").value(s.lhs);
-    w.key("rhs_si").value(s.rhs);
-    w.key("description").value(c.description);
-    w.key("section").value(c.section);
-    w.key("line").value(calc.sheet.checks[c.index].line);
-    w.endObject();
-  }
+  for (const TrailCheck& c : t.checks) writeCheck(w, c);
   w.endArray();
   w.key("summary").beginObject();
   w.key("checks_passed").value(t.passed);
@@ -96,7 +98,14 @@ std::string renderJson(const Calculation& calc, const Trail& t) {
   for (const std::string& s : t.cautions) w.value(s);
   w.endArray();
   w.endObject();
-  return w.str();
 }
+
+std::string renderJson(const Trail& t) {
+  fmt::memory_buffer out;
+  renderJson(t, out);
+  return fmt::to_string(out);
+}
+
+std::string renderJson(const Calculation&, const Trail& t) { return renderJson(t); }
 
 }  // namespace calctrail

@@ -5,6 +5,8 @@
 
 #include <string>
 
+#include <fmt/format.h>
+
 #include "engine/calculation.h"
 #include "engine/report/trail.h"
 
@@ -12,6 +14,12 @@ namespace calctrail {
 
 constexpr const char* kJsonSchemaVersion = "calctrail-trail/1";
 
+// Appends the JSON of `trail` to `out`. Reads the trail alone.
+void renderJson(const Trail& trail, fmt::memory_buffer& out);
+std::string renderJson(const Trail& trail);
+
+// The old entry point, kept for engine/cli/report_command.cc until it moves
+// to formats.h: `calc` is no longer read.
 std::string renderJson(const Calculation& calc, const Trail& trail);
 
 }  // namespace calctrail

@@ -1,8 +1,8 @@
 #include "engine/report/markdown_renderer.h"
 
 #include <algorithm>
+#include <iterator>
 
-#include "engine/report/power_of_ten.h"
 
 namespace calctrail {
 
@@ -35,8 +35,9 @@ std::string code(const std::string& s) {
   return fence + (pad ? " " : "") + body + (pad ? " " : "") + fence;
 }
 
-// Human numbers: "1.5e9 W" as "1.5 × 10⁹ W".
-std::string human(const std::string& s) { return timesTenPowers(s); }
+// Values for people: "1.5e9 W" as "1.5 × 10⁹ W".
+std::string human(const TrailValue& v) { return valueText(v, NumberStyle::TimesTen); }
+std::string human(const TrailLine& line) { return lineText(line, NumberStyle::TimesTen); }
 
 std::string relation(const std::string& op) {
   if (op == "<=") return "\u2264";
@@ -45,9 +46,7 @@ std::string relation(const std::string& op) {
 }
 
 std::string verdict(const Trail& t) {
-  if (t.checks.empty()) return "**Checks: none in this worksheet**";
-  if (t.failed == 0) return "**Checks: all " + std::to_string(t.passed) + " pass**";
-  std::string out = "**Checks: " + std::to_string(t.failed) + " of " + std::to_string(t.checks.size()) + " FAIL:**";
+  std::string out = "**" + verdictWords(t, VerdictForm::Headline) + "**";
   for (const TrailCheck& c : t.checks)
     if (!c.passed) out += " " + code(c.name);
   return out;
@@ -55,98 +54,105 @@ std::string verdict(const Trail& t) {
 
 }  // namespace
 
-std::string renderMarkdown(const Trail& t) {
-  std::string out;
-  out += "# " + text(t.title.empty() ? "Calculation trail" : t.title) + "\n\n";
-  for (const auto& [key, value] : t.meta) out += "- **" + key + ":** " + text(value) + "\n";
-  out += "- **file:** " + code(t.path) + "\n";
-  out += "- **sha256:** " + code(t.sha256) + "\n\n";
+void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
+  auto out = std::back_inserter(buffer);
+  fmt::format_to(out, "# {}\n\n", text(t.title.empty() ? "Calculation trail" : t.title));
+  for (const auto& [key, value] : t.meta) fmt::format_to(out, "- **{}:** {}\n", key, text(value));
+  fmt::format_to(out, "- **file:** {}\n", code(t.path));
+  fmt::format_to(out, "- **sha256:** {}\n\n", code(t.sha256));
 
   // The verdict first: a failed check must be impossible to miss.
-  out += verdict(t) + "\n\n";
+  fmt::format_to(out, "{}\n\n", verdict(t));
 
-  out += "## Inputs\n\n";
-  out += "| Quantity | Value | Notes |\n|---|---|---|\n";
+  fmt::format_to(out, "## Inputs\n\n| Quantity | Value | Notes |\n|---|---|---|\n");
   std::string section = "\x01";
   for (const TrailStep& s : t.steps) {
     if (!s.input) continue;
     if (s.section != section) {
       section = s.section;
-      if (!section.empty()) out += "| **" + text(section) + "** | | |\n";
+      if (!section.empty()) fmt::format_to(out, "| **{}** | | |\n", text(section));
     }
     std::string notes = text(s.description);
-    if (s.given.empty() && s.formula != s.result) notes = "= " + code(s.formula) + (notes.empty() ? "" : "; " + notes);
+    if (s.formula_in_notes) notes = "= " + code(s.formula) + (notes.empty() ? "" : "; " + notes);
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("*(set on the command line)*");
-    out += "| " + code(s.name) + " | " + human(s.given.empty() ? s.result : s.given) + " | " + notes + " |\n";
+    fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.given ? *s.given : s.result), notes);
   }
-  out += "\n";
+  fmt::format_to(out, "\n");
 
-  out += "## Calculation\n";
+  fmt::format_to(out, "## Calculation\n");
   for (const TrailBlock& b : t.blocks) {
     if (b.kind == TrailBlock::Section) {
-      out += "\n### " + text(b.text) + "\n";
+      fmt::format_to(out, "\n### {}\n", text(b.text));
     } else if (b.kind == TrailBlock::Note) {
-      out += "\n" + text(b.text) + "\n";
+      fmt::format_to(out, "\n{}\n", text(b.text));
     } else if (b.kind == TrailBlock::Step) {
       const TrailStep& s = t.steps[b.index];
       if (s.input) continue;
       // One paragraph a step, its lines joined by hard breaks ("\" at the end).
-      out += "\n**" + code(s.name) + "**";
-      if (!s.description.empty()) out += " " + text(s.description);
-      if (s.overridden) out += " *(set on the command line)*";
-      out += "\\\n" + code(s.name + " = " + s.pretty) + "\\\n";
-      if (s.substituted != s.pretty && s.substituted != s.result) out += code("= " + human(s.substituted)) + "\\\n";
-      out += "= **" + human(s.result) + "**\n";
+      fmt::format_to(out, "\n**{}**", code(s.name));
+      if (!s.description.empty()) fmt::format_to(out, " {}", text(s.description));
+      if (s.overridden) fmt::format_to(out, " *(set on the command line)*");
+      fmt::format_to(out, "\\\n{}\\\n", code(s.name + " = " + s.pretty));
+      if (s.show_substituted) fmt::format_to(out, "{}\\\n", code("= " + human(s.substituted)));
+      fmt::format_to(out, "= **{}**\n", human(s.result));
       for (const TrailCall& c : s.calls) {
         // The library function audited like a formula, with its source.
-        out += "\n> where " + code(c.signature) + "\\\n";
+        fmt::format_to(out, "\n> where {}\\\n", code(c.signature));
         if (c.formula_is_expression) {
-          out += "> " + code("= " + c.pretty) + "\\\n";
-          if (!c.substituted.empty() && c.substituted != c.pretty) out += "> " + code("= " + human(c.substituted)) + "\\\n";
+          fmt::format_to(out, "> {}\\\n", code("= " + c.pretty));
+          if (c.show_substituted) fmt::format_to(out, "> {}\\\n", code("= " + human(c.substituted)));
         } else {
-          out += "> " + text(c.formula) + "\\\n";
-          if (!c.arguments.empty()) out += "> with " + code(human(c.arguments)) + "\\\n";
+          fmt::format_to(out, "> {}\\\n", text(c.formula));
+          if (!c.arguments.empty()) fmt::format_to(out, "> with {}\\\n", code(human(c.arguments)));
         }
-        if (!c.result.empty()) out += "> = " + human(c.result) + "\\\n";
-        out += "> source: " + text(c.source) + "\n";
+        if (c.result) fmt::format_to(out, "> = {}\\\n", human(*c.result));
+        fmt::format_to(out, "> source: {}\n", text(c.source));
       }
     }
   }
-  out += "\n";
+  fmt::format_to(out, "\n");
 
   // Every computed value at a glance, for the reviewer of a change.
   bool any_result = false;
   for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
   if (any_result) {
-    out += "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n";
+    fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
     for (const TrailStep& s : t.steps)
-      if (!s.input) out += "| " + code(s.name) + " | " + human(s.result) + " | " + text(s.description) + " |\n";
-    out += "\n";
+      if (!s.input)
+        fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
+    fmt::format_to(out, "\n");
   }
 
   if (!t.checks.empty()) {
-    out += "## Checks\n\n| State | Check | Condition | Values | Note |\n|---|---|---|---|---|\n";
+    fmt::format_to(out,
+                   "## Checks\n\n| State | Check | Condition | Values | Note |\n|---|---|---|---|---|\n");
     for (const TrailCheck& c : t.checks) {
       const std::string values = human(c.lhs) + " " + relation(c.op) + " " + human(c.rhs);
       if (c.passed) {
-        out += "| pass | " + code(c.name) + " | " + code(c.condition) + " | " + values + " | " + text(c.description) + " |\n";
+        fmt::format_to(out, "| pass | {} | {} | {} | {} |\n", code(c.name), code(c.condition), values,
+                       text(c.description));
       } else {
-        out += "| **FAIL** | **" + code(c.name) + "** | " + code(c.condition) + " | **" + values + "** | " +
-               text(c.description) + " |\n";
+        fmt::format_to(out, "| **FAIL** | **{}** | {} | **{}** | {} |\n", code(c.name), code(c.condition),
+                       values, text(c.description));
       }
     }
-    out += "\n";
+    fmt::format_to(out, "\n");
   }
 
   if (!t.warnings.empty()) {
-    out += "## Warnings\n\n";
-    for (const std::string& w : t.warnings) out += "- " + code(w) + "\n";
-    out += "\n";
+    fmt::format_to(out, "## Warnings\n\n");
+    for (const std::string& w : t.warnings) fmt::format_to(out, "- {}\n", code(w));
+    fmt::format_to(out, "\n");
   }
 
-  out += "## Cautions\n\n";
-  for (const std::string& c : t.cautions) out += "- " + text(c) + "\n";
-  return out;
+  fmt::format_to(out, "## Cautions\n\n");
+  for (const std::string& c : t.cautions) fmt::format_to(out, "- {}\n", text(c));
+}
+
+std::string renderMarkdown(const Trail& t) {
+  fmt::memory_buffer out;
+  renderMarkdown(t, out);
+  return fmt::to_string(out);
 }
 
 }  // namespace calctrail

@@ -5,10 +5,14 @@
 
 #include <string>
 
+#include <fmt/format.h>
+
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
+// Appends the Markdown trail to `out`.
+void renderMarkdown(const Trail& trail, fmt::memory_buffer& out);
 std::string renderMarkdown(const Trail& trail);
 
 }  // namespace calctrail

@@ -30,7 +30,8 @@ const char* greek(const std::string& word) {
 }
 
 bool allDigits(const std::string& s) {
-  return !s.empty() && std::all_of(s.begin(), s.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); });
+  return !s.empty() &&
+         std::all_of(s.begin(), s.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); });
 }
 
 // Characters of UTF-8 text (for the single-letter rule and widths).
@@ -137,7 +138,8 @@ std::string numberElements(const Expr& e) {
     while (exp.size() > 1 && exp[0] == '0') exp.erase(0, 1);
     std::string power = "<mn>" + escapeXml(exp) + "</mn>";
     if (negative) power = mrow(mo("\u2212") + power);
-    out = "<mn>" + escapeXml(e.text.substr(0, at)) + "</mn>" + mo("\u00D7") + "<msup><mn>10</mn>" + power + "</msup>";
+    out = "<mn>" + escapeXml(e.text.substr(0, at)) + "</mn>" + mo("\u00D7") + "<msup><mn>10</mn>" + power +
+          "</msup>";
   }
   const std::string unit = e.unit ? e.unit->pretty() : e.unit_written;
   if (at == std::string::npos && (unit.empty() || unit == "1")) return out;

@@ -2,65 +2,83 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <cstdlib>
+
+#include "engine/report/power_of_ten.h"
 
 namespace calctrail {
 
-namespace {
-std::string fixed(double v, int decimals) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.*f", std::max(0, decimals), v);
-  std::string s = buf;
-  if (s == "-0" || s.rfind("-0.", 0) == 0) {
-    // -0.000 after rounding is 0.000: a sign on a zero says nothing true.
-    if (s.find_first_not_of("-0.") == std::string::npos) s.erase(0, 1);
-  }
-  return s;
-}
-}  // namespace
-
-std::string formatNumber(double value, int digits) {
+ShownNumber roundNumber(double value, int digits) {
   digits = std::clamp(digits, 1, 17);
-  if (value == 0) return digits > 1 ? "0." + std::string(static_cast<size_t>(digits - 1), '0') : "0";
-  if (!std::isfinite(value)) return std::isnan(value) ? "NaN" : (value > 0 ? "inf" : "-inf");
-  const double a = std::fabs(value);
-  // Round to the requested digits first, so 999.96 with 4 digits is 1000.
-  char probe[64];
-  std::snprintf(probe, sizeof probe, "%.*e", digits - 1, value);
-  const double rounded = std::strtod(probe, nullptr);
-  const int exp10 = static_cast<int>(std::floor(std::log10(std::fabs(rounded))));
-  if (a >= 1e-3 && std::fabs(rounded) < 1e6) {
-    // Never round away integer digits: 15184.36 stays 15184.
-    const int decimals = std::max(0, digits - 1 - exp10);
-    return fixed(exp10 >= digits - 1 ? value : rounded, decimals);
+  if (value == 0) {
+    return {digits > 1 ? "0." + std::string(static_cast<size_t>(digits - 1), '0') : "0", "", 'e'};
   }
-  const int eng = static_cast<int>(std::floor(exp10 / 3.0)) * 3;
-  const double mantissa = rounded / std::pow(10.0, eng);
-  const int mant_exp = exp10 - eng;  // 0, 1 or 2
-  std::string out = fixed(mantissa, std::max(0, digits - 1 - mant_exp));
-  return out + "e" + std::to_string(eng);
+  if (!std::isfinite(value)) return {std::isnan(value) ? "NaN" : (value > 0 ? "inf" : "-inf"), "", 'e'};
+  // Round once, in decimal: fmt gives exactly `digits` correctly rounded
+  // digits and the exponent after rounding (999.96 -> "1.000e+03"). All that
+  // follows moves the decimal point in text, so no power of ten is ever
+  // computed in floating point (1e-324 underflows to 0, 1e309 overflows).
+  const std::string sci = fmt::format("{:.{}e}", value, digits - 1);
+  const size_t at = sci.find('e');
+  const int exp10 = std::atoi(sci.c_str() + at + 1);
+  std::string mantissa;  // the significant digits, no sign, no point
+  for (size_t i = 0; i < at; ++i)
+    if (sci[i] >= '0' && sci[i] <= '9') mantissa += sci[i];
+  const std::string sign = value < 0 ? "-" : "";
+  // Digits before the point at `point`, the rest after it.
+  auto place = [&](int point) {
+    std::string m = mantissa;
+    if (static_cast<int>(m.size()) < point) m.append(static_cast<size_t>(point) - m.size(), '0');
+    if (point <= 0) return sign + "0." + std::string(static_cast<size_t>(-point), '0') + m;
+    const std::string head = m.substr(0, static_cast<size_t>(point));
+    const std::string tail = m.substr(static_cast<size_t>(point));
+    return sign + head + (tail.empty() ? "" : "." + tail);
+  };
+  if (std::fabs(value) >= 1e-3 && exp10 < 6) {
+    // Never round away integer digits: 15184.36 stays 15184.
+    if (exp10 >= digits - 1) return {fmt::format("{:.0f}", value), "", 'e'};
+    return {place(exp10 + 1), "", 'e'};
+  }
+  const int eng = (exp10 >= 0 ? exp10 / 3 : -((-exp10 + 2) / 3)) * 3;
+  return {place(exp10 - eng + 1), std::to_string(eng), 'e'};
 }
+
+ShownNumber writtenNumber(std::string_view literal) {
+  const size_t at = literal.find_first_of("eE");
+  if (at == std::string_view::npos) return {std::string(literal), "", 'e'};
+  return {std::string(literal.substr(0, at)), std::string(literal.substr(at + 1)), literal[at]};
+}
+
+void appendNumber(fmt::memory_buffer& out, const ShownNumber& n, NumberStyle style) {
+  fmt::format_to(std::back_inserter(out), "{}", n.digits);
+  if (n.exponent.empty()) return;
+  if (style == NumberStyle::ENotation) fmt::format_to(std::back_inserter(out), "{}{}", n.e, n.exponent);
+  else fmt::format_to(std::back_inserter(out), " \u00D7 10{}", superscriptExponent(n.exponent));
+}
+
+std::string numberText(const ShownNumber& n, NumberStyle style) {
+  fmt::memory_buffer out;
+  appendNumber(out, n, style);
+  return fmt::to_string(out);
+}
+
+std::string formatNumber(double value, int digits) { return numberText(roundNumber(value, digits)); }
 
 std::string joinNumberUnit(const std::string& number, const std::string& unit) {
   if (unit.empty() || unit == "1") return number;
   // SI Brochure: a space between number and unit, "%" included; none
   // before the degree, minute and second of plane angle.
   if (unit == "\u00B0" || unit == "\u2032" || unit == "\u2033") return number + unit;
-  return number + " " + unit;
+  return fmt::format("{} {}", number, unit);
 }
 
 std::string formatQuantity(double si, const Unit& unit, int digits, bool pretty) {
   return joinNumberUnit(formatNumber(unit.fromSI(si), digits), pretty ? unit.pretty() : unit.text);
 }
 
-std::string formatExact(double value) {
-  char buf[40];
-  for (int precision = 15; precision <= 17; ++precision) {
-    std::snprintf(buf, sizeof buf, "%.*g", precision, value);
-    if (std::strtod(buf, nullptr) == value) break;
-  }
-  return buf;
-}
+// fmt's "{}" is the shortest text that reads back to the same double
+// (Dragonbox). It writes integers without a point ("12000"), keeps the sign
+// of -0, and switches to e-notation below 1e-4 and from 1e16 up.
+std::string formatExact(double value) { return fmt::format("{}", value); }
 
 }  // namespace calctrail

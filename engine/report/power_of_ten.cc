@@ -15,6 +15,19 @@ const char* superscript(char c) {
 }
 }  // namespace
 
+std::string superscriptExponent(std::string_view exponent) {
+  std::string out;
+  size_t d = 0;
+  if (d < exponent.size() && (exponent[d] == '-' || exponent[d] == '+')) {
+    if (exponent[d] == '-') out += "\u207B";
+    ++d;
+  }
+  while (d + 1 < exponent.size() && exponent[d] == '0') ++d;  // 1e-03 is 10⁻³
+  for (; d < exponent.size(); ++d)
+    if (digit(exponent[d])) out += superscript(exponent[d]);
+  return out;
+}
+
 std::string timesTenPowers(const std::string& text) {
   std::string out;
   size_t i = 0;
@@ -42,9 +55,7 @@ std::string timesTenPowers(const std::string& text) {
         out.append(text, i, j - i);
         out += " \u00D7 10";
         if (negative) out += "\u207B";
-        size_t d = exp_begin;
-        while (d + 1 < k && text[d] == '0') ++d;  // 1e-03 is 10⁻³
-        for (; d < k; ++d) out += superscript(text[d]);
+        out += superscriptExponent(std::string_view(text).substr(exp_begin, k - exp_begin));
         i = k;
         continue;
       }

@@ -4,10 +4,14 @@
 
 #include <string>
 
+#include <fmt/format.h>
+
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
+// Appends the text trail to `out`.
+void renderText(const Trail& trail, fmt::memory_buffer& out);
 std::string renderText(const Trail& trail);
 
 }  // namespace calctrail

@@ -3,6 +3,7 @@
 #include <algorithm>
 
 #include <cmath>
+#include <cstdlib>
 #include <map>
 #include <memory>
 #include <optional>
@@ -10,6 +11,7 @@
 #include "engine/eval/math_functions.h"
 #include "engine/eval/tree_eval.h"
 #include "engine/report/number_format.h"
+#include "engine/report/power_of_ten.h"
 #include "engine/sheet/expr_parser.h"
 #include "engine/units/unit_parser.h"
 #include "functions/function_decl.h"
@@ -30,7 +32,90 @@ const std::vector<std::string>& generalCautions() {
   return c;
 }
 
+std::string conditionText(const Check& c) {
+  return renderExpr(*c.lhs) + " " + comparisonText(c.op) + " " + renderExpr(*c.rhs);
+}
+
+std::string verdictWords(const Trail& t, VerdictForm form) {
+  const bool headline = form == VerdictForm::Headline;
+  if (t.checks.empty())
+    return headline ? "Checks: none in this worksheet" : "This worksheet has no design checks.";
+  if (t.failed == 0) return headline ? fmt::format("Checks: all {} pass", t.passed)
+                                     : fmt::format("All {} checks pass.", t.passed);
+  return fmt::format(headline ? "Checks: {} of {} FAIL:" : "{} of {} checks fail:", t.failed,
+                     t.checks.size());
+}
+
+void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
+  const std::string number = numberText(v.number, style);
+  fmt::format_to(std::back_inserter(out), "{}", joinNumberUnit(number, v.unit));
+}
+
+std::string valueText(const TrailValue& v, NumberStyle style) {
+  fmt::memory_buffer out;
+  appendValue(out, v, style);
+  return fmt::to_string(out);
+}
+
+std::string lineText(const TrailLine& line, NumberStyle style) {
+  fmt::memory_buffer out;
+  for (const TrailPiece& p : line) {
+    if (p.value) appendValue(out, *p.value, style);
+    else
+      fmt::format_to(std::back_inserter(out), "{}",
+                     style == NumberStyle::TimesTen ? timesTenPowers(p.text) : p.text);
+  }
+  return fmt::to_string(out);
+}
+
 namespace {
+
+// A value in SI shown in `unit`, rounded.
+TrailValue rounded(double si, const Unit& unit, int digits) {
+  const double v = unit.fromSI(si);
+  return {v, si, roundNumber(v, digits), unit.pretty()};
+}
+
+// A literal as the worksheet writes it, in `unit_pretty` ("" for none).
+TrailValue written(const std::string& literal, double si, double value, const std::string& unit_pretty) {
+  return {value, si, writtenNumber(literal), unit_pretty};
+}
+
+// renderExpr() fills names with text; the trail keeps values apart. Each
+// value goes in as a marker "\x1F<index>\x1F" (no worksheet text holds that
+// byte) and the rendered text is then cut at the markers. renderExpr puts a
+// power's base in parentheses when its text holds a space ((33.00 mm)^2), so
+// the marker holds one exactly when the value's text does.
+constexpr char kMark = '\x1F';
+
+std::string marker(std::vector<TrailValue>* values, TrailValue v) {
+  const bool spaced = valueText(v).find(' ') != std::string::npos;
+  values->push_back(std::move(v));
+  return fmt::format("{}{}{}{}", kMark, values->size() - 1, spaced ? " " : "", kMark);
+}
+
+// A value in parentheses when it is negative, as a substituted line needs it.
+std::string markerInLine(std::vector<TrailValue>* values, TrailValue v, bool negative) {
+  const std::string m = marker(values, std::move(v));
+  return negative ? "(" + m + ")" : m;
+}
+
+TrailLine cutAtMarkers(const std::string& text, const std::vector<TrailValue>& values) {
+  TrailLine line;
+  size_t i = 0;
+  while (i < text.size()) {
+    const size_t at = text.find(kMark, i);
+    if (at == std::string::npos) {
+      line.push_back({text.substr(i), std::nullopt});
+      break;
+    }
+    if (at > i) line.push_back({text.substr(i, at - i), std::nullopt});
+    const size_t end = text.find(kMark, at + 1);
+    line.push_back({"", values.at(std::strtoul(text.c_str() + at + 1, nullptr, 10))});
+    i = end + 1;
+  }
+  return line;
+}
 
 // Every call of a library function in a formula, in source order.
 void collectCalls(const Expr& e, std::vector<const Expr*>* out) {
@@ -47,7 +132,8 @@ const Expr* parsedFormula(const FunctionDecl& f) {
     auto file = std::make_shared<SourceFile>("function " + f.name, f.formula);
     Diagnostics ignored;
     ExprPtr e;
-    if (f.formula_is_expression) e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
+    if (f.formula_is_expression)
+      e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
     it = cache.emplace(f.name, std::make_pair(file, std::move(e))).first;
   }
   return it->second.second.get();
@@ -63,7 +149,8 @@ std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
       u.text.compare(u.text.size() - suffix.size(), suffix.size(), suffix) == 0) {
     Unit plain;
     UnitError err;
-    if (parseUnit(u.text.substr(0, u.text.size() - suffix.size()), &plain, &err) && plain.dim == want) return plain;
+    if (parseUnit(u.text.substr(0, u.text.size() - suffix.size()), &plain, &err) && plain.dim == want)
+      return plain;
   }
   return std::nullopt;
 }
@@ -82,8 +169,8 @@ Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& c
   return preferredUnit(decl.dim);
 }
 
-TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector<std::string>& given,
-                    const Unit& step_unit, int digits) {
+TrailCall auditCall(const Expr& call, const Calculation& calc,
+                    const std::vector<std::optional<TrailValue>>& given, const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
   c.name = f.name;
@@ -99,30 +186,39 @@ TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector
     const int j = calc.sheet.find(e.text);
     return j >= 0 && calc.quantities[j].ok ? calc.quantities[j].si : NAN;
   };
-  std::map<std::string, std::string> shown;
+  std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
     EvalFault fault;
     double v = evalTree(*call.args[k], value_of, &fault);
     if (fault.node) return c;
     v = argumentToLibrary(v, f.args[k].per_revolution, call.args[k]->dim);  // what the function sees
     const Unit unit = argumentUnit(*call.args[k], f.args[k], calc);
-    std::string text = formatQuantity(v, unit, digits);
+    TrailValue shown_value = rounded(v, unit, digits);
     // Given values and literals appear as written, as in the step itself.
     const Expr* x = call.args[k].get();
     while (x->kind == ExprKind::Group) x = x->args[0].get();
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (!given[j].empty() && calc.quantities[j].display.text == unit.text) text = given[j];
+      if (given[j] && calc.quantities[j].display.text == unit.text) shown_value = *given[j];
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
-      text = x->unit ? joinNumberUnit(x->text, unit.pretty()) : x->text;
+      shown_value = written(x->text, v, unit.fromSI(v), x->unit ? unit.pretty() : "");
     }
-    shown[f.args[k].name] = v < 0 ? "(" + text + ")" : text;
-    c.arguments += (k ? ", " : "") + f.args[k].name + " = " + text;
+    c.arguments.push_back({fmt::format("{}{} = ", k ? ", " : "", f.args[k].name), std::nullopt});
+    c.arguments.push_back({"", shown_value});
+    shown[f.args[k].name] = {std::move(shown_value), v < 0};
   }
   if (const Expr* formula = parsedFormula(f)) {
     c.pretty = renderExpr(*formula, nullptr, true);
-    c.substituted = renderExpr(
-        *formula, [&](const Expr& name) { return shown.count(name.text) ? shown[name.text] : name.text; }, true);
+    std::vector<TrailValue> values;
+    const std::string text = renderExpr(
+        *formula,
+        [&](const Expr& name) {
+          auto it = shown.find(name.text);
+          return it == shown.end() ? name.text : markerInLine(&values, it->second.first, it->second.second);
+        },
+        true);
+    c.substituted = cutAtMarkers(text, values);
+    c.show_substituted = !c.substituted.empty() && lineText(c.substituted) != c.pretty;
   }
   EvalFault fault;
   const double r = evalTree(call, value_of, &fault);
@@ -133,36 +229,38 @@ TrailCall auditCall(const Expr& call, const Calculation& calc, const std::vector
     if (auto u = unitFor(step_unit, f.result)) unit = *u;
     else if (f.result_unit.empty() || !parseUnit(f.result_unit, &unit, &err) || unit.dim != f.result)
       unit = preferredUnit(f.result);
-    c.result = formatQuantity(f.result_per_revolution ? r * 2 * M_PI : r, unit, digits);
+    c.result = rounded(f.result_per_revolution ? r * 2 * M_PI : r, unit, digits);
   }
   return c;
 }
 
-std::string substitute(const Expr& e, const Calculation& calc, const std::vector<std::string>& given,
-                       int digits) {
-  return renderExpr(
+TrailLine substitute(const Expr& e, const Calculation& calc,
+                     const std::vector<std::optional<TrailValue>>& given, int digits) {
+  std::vector<TrailValue> values;
+  const std::string text = renderExpr(
       e,
       [&](const Expr& name) {
         const int j = calc.sheet.find(name.text);
         const QuantityState& s = calc.quantities[j];
         // A given value appears as written ("950 kg", "0.35"), unrounded.
-        std::string v = !given[j].empty() ? given[j] : formatQuantity(s.si, s.display, digits);
-        return s.si < 0 || s.display.fromSI(s.si) < 0 ? "(" + v + ")" : v;
+        TrailValue v = given[j] ? *given[j] : rounded(s.si, s.display, digits);
+        return markerInLine(&values, std::move(v), s.si < 0 || s.display.fromSI(s.si) < 0);
       },
       true);
+  return cutAtMarkers(text, values);
 }
 
 // A side of a check written as one literal in the unit it is shown in
 // ("2.5", "0 [N*m]") appears as written; anything else as its rounded value.
-std::string literalOrValue(const Expr& side, double si, const Unit& unit, int digits) {
+TrailValue literalOrValue(const Expr& side, double si, const Unit& unit, int digits) {
   const Expr* x = &side;
   while (x->kind == ExprKind::Group) x = x->args[0].get();
   if (x->kind == ExprKind::Number) {
-    const std::string written = x->unit ? x->unit->text : "1";
-    if (written == unit.text || (!x->unit && unit.text.empty()))
-      return x->unit ? joinNumberUnit(x->text, unit.pretty()) : x->text;
+    const std::string as_written = x->unit ? x->unit->text : "1";
+    if (as_written == unit.text || (!x->unit && unit.text.empty()))
+      return written(x->text, si, unit.fromSI(si), x->unit ? unit.pretty() : "");
   }
-  return formatQuantity(si, unit, digits);
+  return rounded(si, unit, digits);
 }
 
 }  // namespace
@@ -188,16 +286,15 @@ Trail buildTrail(const Calculation& calc, int digits) {
     step.name = q.name;
     step.description = q.description;
     step.section = q.section;
+    step.line = q.line;
     step.input = s.input;
     step.overridden = q.overridden;
     step.formula = renderExpr(*q.expr);
     step.pretty = renderExpr(*q.expr, nullptr, true);
     step.expr = q.expr.get();
-    if (s.ok) {
-      step.substituted.clear();  // filled below, once every given value is known
-      step.result = formatQuantity(s.si, s.display, digits);
-      step.value = formatNumber(s.display.fromSI(s.si), digits);
-    }
+    step.ok = s.ok;
+    // Substituted is filled below, once every given value is known.
+    step.result = rounded(s.si, s.display, digits);
     {
       const Expr* x = q.expr.get();
       while (x->kind == ExprKind::Group) x = x->args[0].get();
@@ -206,10 +303,15 @@ Trail buildTrail(const Calculation& calc, int digits) {
                                            (q.display && q.display->text == x->unit->text)
                                      : s.display.text == "1" || s.display.text.empty();
       if (s.ok && literal && same_unit) {
-        step.given = x->unit ? joinNumberUnit(x->text, x->unit->pretty()) : x->text;
+        step.given = written(x->text, s.si, s.display.fromSI(s.si), x->unit ? x->unit->pretty() : "");
       }
     }
+    step.formula_in_notes = !step.given && step.formula != (s.ok ? valueText(step.result) : "");
     step.unit = s.display.text;
+    // The contract: the declared display unit as written, else the engine's choice.
+    step.unit_declared = s.declared;
+    step.unit_written = s.declared ? q.unit_written : step.unit;
+    step.si_unit = s.dim.siSymbol();
     step.unit_pretty = s.display.pretty();
     step.dimension = s.dim.name();
     std::vector<const Expr*> calls;
@@ -220,16 +322,22 @@ Trail buildTrail(const Calculation& calc, int digits) {
     }
     t.steps.push_back(std::move(step));
   }
-  std::vector<std::string> given;
+  std::vector<std::optional<TrailValue>> given;
   for (const TrailStep& s : t.steps) given.push_back(s.given);
   for (TrailStep& s : t.steps) {
+    // Where the value comes from: given in the worksheet, set on the command
+    // line, calculated, or calculated with the cited library methods.
+    s.origin = s.overridden ? "set on the command line" : s.input ? "given" : "calculated";
     if (!calc.quantities[s.index].ok) continue;
     const Expr& expr = *sheet.quantities[s.index].expr;
     s.substituted = substitute(expr, calc, given, digits);
+    const std::string substituted = lineText(s.substituted);
+    s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
     std::vector<const Expr*> calls;
     collectCalls(expr, &calls);
     for (const Expr* call : calls)
       s.calls.push_back(auditCall(*call, calc, given, calc.quantities[s.index].display, digits));
+    for (const TrailCall& c : s.calls) s.origin += "; " + c.name + ": " + c.source;
   }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
@@ -239,10 +347,16 @@ Trail buildTrail(const Calculation& calc, int digits) {
     tc.name = c.name;
     tc.description = c.description;
     tc.section = c.section;
+    tc.line = c.line;
     tc.op = comparisonText(c.op);
-    tc.condition = renderExpr(*c.lhs) + " " + tc.op + " " + renderExpr(*c.rhs);
+    tc.condition = conditionText(c);
     tc.lhs_expr = c.lhs.get();
     tc.rhs_expr = c.rhs.get();
+    tc.unit = s.display.text;
+    tc.ok = s.ok;
+    // The SI values even when a side did not evaluate, as the JSON has always given them.
+    tc.lhs = rounded(s.lhs, s.display, digits);
+    tc.rhs = rounded(s.rhs, s.display, digits);
     if (s.ok) {
       tc.lhs = literalOrValue(*c.lhs, s.lhs, s.display, digits);
       tc.rhs = literalOrValue(*c.rhs, s.rhs, s.display, digits);
@@ -276,7 +390,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (d.severity == Severity::Warning) t.warnings.push_back(d.headline());
   t.cautions = generalCautions();
   for (const FunctionDecl* f : used)
-    if (!f->caution.empty() && std::find(t.cautions.begin(), t.cautions.end(), f->caution) == t.cautions.end())
+    if (!f->caution.empty() &&
+        std::find(t.cautions.begin(), t.cautions.end(), f->caution) == t.cautions.end())
       t.cautions.push_back(f->caution);
   return t;
 }

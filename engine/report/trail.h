@@ -1,14 +1,37 @@
 // The calculation trail: what every renderer shows, built once from a
-// Calculation. Human text (formulas, substituted lines, rounded results) is
-// made here so that text, Markdown and HTML say exactly the same thing.
+// Calculation. Human wording (formulas, the verdict, check conditions) is
+// made here so that every format says exactly the same thing; values stay
+// numbers with their units, so each format writes them its own way (and
+// JSON at full precision). A renderer reads a Trail and nothing else.
 #pragma once
 
+#include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
+#include <fmt/format.h>
+
 #include "engine/calculation.h"
+#include "engine/report/number_format.h"
 
 namespace calctrail {
+
+// A value as the trail shows it: a number in a unit.
+struct TrailValue {
+  double value = 0;     // in the unit shown
+  double si = 0;        // the same value in coherent SI units
+  ShownNumber number;   // rounded to the trail's digits, or a literal as the worksheet writes it
+  std::string unit;     // the unit for people ("N·m", "°"); "" or "1" for a plain number
+};
+
+// A line of text with values in it, such as "6.400 kN · 30.00 mm / 2":
+// formula text and values, in order.
+struct TrailPiece {
+  std::string text;     // formula text ("· ", "(", " / 2"); empty for a value
+  std::optional<TrailValue> value;  // the value this piece shows, if it is one
+};
+using TrailLine = std::vector<TrailPiece>;
 
 struct TrailCall {        // one call of a library function in a formula
   std::string name;
@@ -16,9 +39,10 @@ struct TrailCall {        // one call of a library function in a formula
   std::string formula;    // the function's own formula (or its method in words)
   bool formula_is_expression = true;
   std::string pretty;     // the formula with the product dot: "F · dm / 2 ..."
-  std::string arguments;  // "F = 21.18 kN, dm = 36.50 mm, ..."
-  std::string substituted;  // the function's formula with the call's values
-  std::string result;     // "84.42 N·m"
+  TrailLine arguments;    // "F = 21.18 kN, dm = 36.50 mm, ..."
+  TrailLine substituted;  // the function's formula with the call's values
+  bool show_substituted = false;  // substituted says more than pretty
+  std::optional<TrailValue> result;  // "84.42 N·m"; none when the call could not be evaluated
   std::string source;
   std::string caution;
   // The function's formula as a tree (for typesetting), nullptr when the
@@ -31,19 +55,26 @@ struct TrailStep {        // one quantity
   std::string name;
   std::string description;
   std::string section;
+  int line = 0;           // of its definition in the worksheet
   bool input = false;
   bool overridden = false;
+  bool ok = false;          // has a value (result, substituted)
   std::string formula;      // as written, canonical spacing: "F * dm / 2"
   std::string pretty;       // with the product dot: "F · dm / 2"
-  std::string substituted;  // "6.400 kN · 30.00 mm / 2"
-  std::string result;       // "15.94 N·m"
+  TrailLine substituted;    // "6.400 kN · 30.00 mm / 2"
+  bool show_substituted = false;  // substituted says more than pretty and result
+  TrailValue result;        // "15.94 N·m"
   // For a given value written as one literal in its display unit ("0.08",
   // "42 kN"): the literal as written, which the inputs list shows unrounded.
-  std::string given;
-  std::string value;        // "15.94" (display unit)
-  std::string unit;         // display unit, ASCII as declared: "N*m"
+  std::optional<TrailValue> given;
+  bool formula_in_notes = false;  // an input not given as one literal: its notes show the formula
+  std::string unit;         // display unit, ASCII: "N*m"
+  std::string unit_written; // the contract's unit: as declared in [ ] when declared, else `unit`
+  bool unit_declared = false;
   std::string unit_pretty;  // "N·m"
+  std::string si_unit;      // "kg*m^2/s^2"
   std::string dimension;    // "torque or energy"
+  std::string origin;       // "given", "calculated; torque_raise: SOURCE", ...
   std::vector<TrailCall> calls;
   // The formula as a tree, for typeset formats (MathML). Owned by the
   // Calculation the trail was built from: valid while that lives.
@@ -55,9 +86,12 @@ struct TrailCheck {
   std::string name;
   std::string description;
   std::string section;
-  std::string condition;    // "T_lower > 0 [N*m]"
+  int line = 0;             // of the check in the worksheet
+  std::string condition;    // "T_lower > 0 [N*m]" (conditionText)
   std::string op;           // ">"
-  std::string lhs, rhs;     // "3.126 N·m", "0 N·m"
+  bool ok = false;          // both sides evaluated
+  TrailValue lhs, rhs;      // "3.126 N·m", "0 N·m" (literals as written)
+  std::string unit;         // ASCII unit both sides are shown in: "N*m"
   bool passed = false;
   // Both sides as trees, for typeset formats; owned by the Calculation.
   const Expr* lhs_expr = nullptr;
@@ -88,5 +122,21 @@ Trail buildTrail(const Calculation& calc, int digits);
 
 // The caution every human report carries (screw drives lift and clamp loads).
 const std::vector<std::string>& generalCautions();
+
+// A check's condition as the worksheet writes it: "T_lower > 0 [N*m]".
+std::string conditionText(const Check& check);
+
+// The verdict in words, before the names of the failed checks (a renderer
+// adds those in its own markup). Headline: "Checks: all 3 pass",
+// "Checks: 1 of 3 FAIL:", "Checks: none in this worksheet". Sentence (HTML):
+// "All 3 checks pass.", "1 of 3 checks fail:", "This worksheet has no design checks."
+enum class VerdictForm { Headline, Sentence };
+std::string verdictWords(const Trail& trail, VerdictForm form);
+
+// A value or a line as text, its powers of ten in `style`. Formula text in
+// a line (a literal such as 1e-3) gets the same style.
+void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style);
+std::string valueText(const TrailValue& v, NumberStyle style = NumberStyle::ENotation);
+std::string lineText(const TrailLine& line, NumberStyle style = NumberStyle::ENotation);
 
 }  // namespace calctrail

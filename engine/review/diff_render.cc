@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 #include <utility>
 #include <vector>
 
@@ -14,7 +15,7 @@ namespace calctrail {
 namespace {
 
 std::string plural(size_t n, const char* one, const char* many) {
-  return std::to_string(n) + " " + (n == 1 ? one : many);
+  return fmt::format("{} {}", n, n == 1 ? one : many);
 }
 
 // Two values in one unit, rounded; widened until they differ when they do.
@@ -28,12 +29,13 @@ std::pair<std::string, std::string> valuePair(double was, double now, const Unit
 }
 
 std::pair<std::string, std::string> valuePair(const ValueChange& v, int digits) {
-  if (!v.same_dimension) return {formatQuantity(v.old_si, v.old_unit, digits), formatQuantity(v.new_si, v.unit, digits)};
+  if (!v.same_dimension)
+    return {formatQuantity(v.old_si, v.old_unit, digits), formatQuantity(v.new_si, v.unit, digits)};
   return valuePair(v.old_si, v.new_si, v.unit, digits);
 }
 
 std::string checkValues(const std::string& op, double lhs, double rhs, const Unit& unit, int digits) {
-  return formatQuantity(lhs, unit, digits) + " " + op + " " + formatQuantity(rhs, unit, digits);
+  return fmt::format("{} {} {}", formatQuantity(lhs, unit, digits), op, formatQuantity(rhs, unit, digits));
 }
 
 std::string summaryLine(const SheetDiff& d) {
@@ -51,10 +53,7 @@ std::string summaryLine(const SheetDiff& d) {
   add(d.checks_removed.size(), "check removed", "checks removed");
   add(d.new_warnings.size(), "new warning", "new warnings");
   add(d.meta.size(), "metadata change", "metadata changes");
-  if (parts.empty()) return "";
-  std::string out;
-  for (size_t i = 0; i < parts.size(); ++i) out += (i ? ", " : "") + parts[i];
-  return out;
+  return fmt::format("{}", fmt::join(parts, ", "));
 }
 
 std::string rtolText(double rtol) { return formatExact(rtol); }
@@ -69,14 +68,14 @@ std::string table(const std::vector<std::vector<std::string>>& rows, const std::
       if (widths.size() <= c) widths.push_back(0);
       widths[c] = std::max(widths[c], displayWidth(r[c]));
     }
-  std::string out;
+  fmt::memory_buffer out;
   for (const auto& r : rows) {
     std::string line = indent;
     for (size_t c = 0; c < r.size(); ++c) line += c + 1 < r.size() ? padRight(r[c], widths[c]) + "  " : r[c];
     while (!line.empty() && line.back() == ' ') line.pop_back();
-    out += line + "\n";
+    fmt::format_to(std::back_inserter(out), "{}\n", line);
   }
-  return out;
+  return fmt::to_string(out);
 }
 
 std::string mdCell(const std::string& s) {
@@ -89,7 +88,7 @@ std::string mdCell(const std::string& s) {
   return out;
 }
 
-std::string mdCode(const std::string& s) { return "`" + mdCell(s) + "`"; }
+std::string mdCode(const std::string& s) { return fmt::format("`{}`", mdCell(s)); }
 
 }  // namespace
 
@@ -97,62 +96,58 @@ std::string formatRelativeChange(double relative) {
   if (std::isnan(relative)) return "dimension changed";
   if (std::isinf(relative)) return "from zero";
   if (relative == 0) return "same value";
-  return (relative > 0 ? "+" : "-") + formatNumber(std::fabs(relative) * 100, 3) + " %";
+  return fmt::format("{}{} %", relative > 0 ? "+" : "-", formatNumber(std::fabs(relative) * 100, 3));
 }
 
 std::string renderDiffText(const SheetDiff& d, int digits) {
-  std::string out = "calctrail diff: " + d.old_name + " -> " + d.new_name + "\n";
+  fmt::memory_buffer buffer;
+  auto out = std::back_inserter(buffer);
+  fmt::format_to(out, "calctrail diff: {} -> {}\n", d.old_name, d.new_name);
   const std::string summary = summaryLine(d);
   if (summary.empty()) {
-    out += "No change in inputs, formulas, results or checks (rtol " + rtolText(d.rtol) + ").\n";
-    return out;
+    fmt::format_to(out, "No change in inputs, formulas, results or checks (rtol {}).\n", rtolText(d.rtol));
+    return fmt::to_string(buffer);
   }
-  out += summary + ".\n";
+  fmt::format_to(out, "{}.\n", summary);
 
   for (const CheckFlip& f : d.flipped) {
     const CheckEntry& c = f.now;
-    out += "\n!! CHECK FLIPPED  " + c.name + ": " + state(!c.passed) + " -> " + state(c.passed) + "\n";
-    out += "   " + c.condition + ": " + checkValues(c.op, c.lhs, c.rhs, c.unit, digits) +
-           (c.passed ? " holds" : " is false") + " (was " + checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits) +
-           ")\n";
-    if (!c.description.empty()) out += "   " + c.description + "\n";
+    fmt::format_to(out, "\n!! CHECK FLIPPED  {}: {} -> {}\n", c.name, state(!c.passed), state(c.passed));
+    fmt::format_to(out, "   {}: {}{} (was {})\n", c.condition,
+                   checkValues(c.op, c.lhs, c.rhs, c.unit, digits), c.passed ? " holds" : " is false",
+                   checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits));
+    if (!c.description.empty()) fmt::format_to(out, "   {}\n", c.description);
   }
 
-  if (!d.inputs.empty()) {
-    out += "\nInputs changed:\n";
+  auto valueRows = [&](const std::vector<ValueChange>& list) {
     std::vector<std::vector<std::string>> rows;
-    for (const ValueChange& v : d.inputs) {
+    for (const ValueChange& v : list) {
       auto [a, b] = valuePair(v, digits);
       rows.push_back({v.name, a, "->", b, formatRelativeChange(v.relative)});
     }
-    out += table(rows, "  ");
-  }
+    return table(rows, "  ");
+  };
+  if (!d.inputs.empty()) fmt::format_to(out, "\nInputs changed:\n{}", valueRows(d.inputs));
 
   if (!d.formulas.empty()) {
-    out += "\nFormulas changed:\n";
+    fmt::format_to(out, "\nFormulas changed:\n");
     for (const FormulaChange& f : d.formulas) {
-      out += "  " + std::string(f.is_check ? "check " : "") + f.name + "\n";
-      out += "    was  " + f.old_text + "\n";
-      out += "    now  " + f.new_text + "\n";
+      fmt::format_to(out, "  {}{}\n", f.is_check ? "check " : "", f.name);
+      fmt::format_to(out, "    was  {}\n    now  {}\n", f.old_text, f.new_text);
     }
   }
 
-  if (!d.moved.empty()) {
-    out += "\nResults moved beyond rtol " + rtolText(d.rtol) + ", largest change first:\n";
-    std::vector<std::vector<std::string>> rows;
-    for (const ValueChange& v : d.moved) {
-      auto [a, b] = valuePair(v, digits);
-      rows.push_back({v.name, a, "->", b, formatRelativeChange(v.relative)});
-    }
-    out += table(rows, "  ");
-  }
+  if (!d.moved.empty())
+    fmt::format_to(out, "\nResults moved beyond rtol {}, largest change first:\n{}", rtolText(d.rtol),
+                   valueRows(d.moved));
 
   if (!d.added.empty() || !d.removed.empty()) {
     std::vector<std::vector<std::string>> rows;
-    for (const QuantityEntry& q : d.added) rows.push_back({"added", q.formula, "= " + formatQuantity(q.si, q.unit, digits)});
+    for (const QuantityEntry& q : d.added)
+      rows.push_back({"added", q.formula, "= " + formatQuantity(q.si, q.unit, digits)});
     for (const QuantityEntry& q : d.removed)
       rows.push_back({"removed", q.formula, "was " + formatQuantity(q.si, q.unit, digits)});
-    out += "\nQuantities added and removed:\n" + table(rows, "  ");
+    fmt::format_to(out, "\nQuantities added and removed:\n{}", table(rows, "  "));
   }
 
   if (!d.checks_added.empty() || !d.checks_removed.empty()) {
@@ -163,100 +158,105 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
     for (const CheckEntry& c : d.checks_removed)
       rows.push_back({"removed", std::string("was ") + state(c.passed), c.name + ": " + c.condition,
                       checkValues(c.op, c.lhs, c.rhs, c.unit, digits)});
-    out += "\nChecks added and removed:\n" + table(rows, "  ");
+    fmt::format_to(out, "\nChecks added and removed:\n{}", table(rows, "  "));
   }
 
   if (!d.new_warnings.empty()) {
-    out += "\nNew warnings:\n";
-    for (const std::string& w : d.new_warnings) out += "  " + w + "\n";
+    fmt::format_to(out, "\nNew warnings:\n");
+    for (const std::string& w : d.new_warnings) fmt::format_to(out, "  {}\n", w);
   }
 
   if (!d.meta.empty()) {
-    out += "\nMetadata changed:\n";
     std::vector<std::vector<std::string>> rows;
     for (const MetaChange& m : d.meta)
       rows.push_back({m.key + ":", m.old_value.empty() ? "(none)" : m.old_value, "->",
                       m.new_value.empty() ? "(none)" : m.new_value});
-    out += table(rows, "  ");
+    fmt::format_to(out, "\nMetadata changed:\n{}", table(rows, "  "));
   }
-  return out;
+  return fmt::to_string(buffer);
 }
 
 std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
-  std::string out = "### calctrail diff: " + mdCode(d.old_name) + " \u2192 " + mdCode(d.new_name) + "\n\n";
+  fmt::memory_buffer buffer;
+  auto out = std::back_inserter(buffer);
+  fmt::format_to(out, "### calctrail diff: {} \u2192 {}\n\n", mdCode(d.old_name), mdCode(d.new_name));
   const std::string summary = summaryLine(d);
   if (summary.empty()) {
-    out += "No change in inputs, formulas, results or checks (rtol " + rtolText(d.rtol) + ").\n";
-    return out;
+    fmt::format_to(out, "No change in inputs, formulas, results or checks (rtol {}).\n", rtolText(d.rtol));
+    return fmt::to_string(buffer);
   }
   for (const CheckFlip& f : d.flipped) {
-    out += "> **Check flipped: " + mdCode(f.now.name) + " " + state(!f.now.passed) + " \u2192 " + state(f.now.passed) +
-           "**";
-    if (!f.now.description.empty()) out += " (" + mdCell(f.now.description) + ")";
-    out += "\n";
+    fmt::format_to(out, "> **Check flipped: {} {} \u2192 {}**", mdCode(f.now.name), state(!f.now.passed),
+                   state(f.now.passed));
+    if (!f.now.description.empty()) fmt::format_to(out, " ({})", mdCell(f.now.description));
+    fmt::format_to(out, "\n");
   }
-  if (!d.flipped.empty()) out += "\n";
-  out += summary + " (rtol " + rtolText(d.rtol) + ").\n";
+  if (!d.flipped.empty()) fmt::format_to(out, "\n");
+  fmt::format_to(out, "{} (rtol {}).\n", summary, rtolText(d.rtol));
 
   if (!d.flipped.empty()) {
-    out += "\n#### Checks flipped\n\n| Check | Condition | Was | Now |\n|---|---|---|---|\n";
+    fmt::format_to(out, "\n#### Checks flipped\n\n| Check | Condition | Was | Now |\n|---|---|---|---|\n");
     for (const CheckFlip& f : d.flipped) {
       const CheckEntry& c = f.now;
-      out += "| " + mdCode(c.name) + " | " + mdCode(c.condition) + " | " + state(!c.passed) + ": " +
-             mdCell(checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits)) + " | **" + state(c.passed) +
-             "**: " + mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)) + " |\n";
+      fmt::format_to(out, "| {} | {} | {}: {} | **{}**: {} |\n", mdCode(c.name), mdCode(c.condition),
+                     state(!c.passed), mdCell(checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits)),
+                     state(c.passed), mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
     }
   }
 
-  auto valueTable = [&](const char* title, const char* what, const std::vector<ValueChange>& list) {
+  auto valueTable = [&](const std::string& title, const char* what, const std::vector<ValueChange>& list) {
     if (list.empty()) return;
-    out += std::string("\n#### ") + title + "\n\n| " + what + " | Old | New | Change |\n|---|--:|--:|--:|\n";
+    fmt::format_to(out, "\n#### {}\n\n| {} | Old | New | Change |\n|---|--:|--:|--:|\n", title, what);
     for (const ValueChange& v : list) {
       auto [a, b] = valuePair(v, digits);
-      out += "| " + mdCode(v.name) + " | " + mdCell(a) + " | " + mdCell(b) + " | " + formatRelativeChange(v.relative) +
-             " |\n";
+      fmt::format_to(out, "| {} | {} | {} | {} |\n", mdCode(v.name), mdCell(a), mdCell(b),
+                     formatRelativeChange(v.relative));
     }
   };
   valueTable("Inputs changed", "Input", d.inputs);
 
   if (!d.formulas.empty()) {
-    out += "\n#### Formulas changed\n\n| Name | Old | New |\n|---|---|---|\n";
+    fmt::format_to(out, "\n#### Formulas changed\n\n| Name | Old | New |\n|---|---|---|\n");
     for (const FormulaChange& f : d.formulas)
-      out += "| " + mdCode(std::string(f.is_check ? "check " : "") + f.name) + " | " + mdCode(f.old_text) + " | " +
-             mdCode(f.new_text) + " |\n";
+      fmt::format_to(out, "| {} | {} | {} |\n", mdCode(std::string(f.is_check ? "check " : "") + f.name),
+                     mdCode(f.old_text), mdCode(f.new_text));
   }
 
-  valueTable(("Results moved (beyond rtol " + rtolText(d.rtol) + ", largest change first)").c_str(), "Result",
+  valueTable(fmt::format("Results moved (beyond rtol {}, largest change first)", rtolText(d.rtol)), "Result",
              d.moved);
 
   if (!d.added.empty() || !d.removed.empty()) {
-    out += "\n#### Quantities added and removed\n\n| | Definition | Value |\n|---|---|--:|\n";
+    fmt::format_to(out, "\n#### Quantities added and removed\n\n| | Definition | Value |\n|---|---|--:|\n");
     for (const QuantityEntry& q : d.added)
-      out += "| added | " + mdCode(q.formula) + " | " + mdCell(formatQuantity(q.si, q.unit, digits)) + " |\n";
+      fmt::format_to(out, "| added | {} | {} |\n", mdCode(q.formula),
+                     mdCell(formatQuantity(q.si, q.unit, digits)));
     for (const QuantityEntry& q : d.removed)
-      out += "| removed | " + mdCode(q.formula) + " | was " + mdCell(formatQuantity(q.si, q.unit, digits)) + " |\n";
+      fmt::format_to(out, "| removed | {} | was {} |\n", mdCode(q.formula),
+                     mdCell(formatQuantity(q.si, q.unit, digits)));
   }
 
   if (!d.checks_added.empty() || !d.checks_removed.empty()) {
-    out += "\n#### Checks added and removed\n\n| | Check | Condition | State |\n|---|---|---|---|\n";
+    fmt::format_to(out,
+                   "\n#### Checks added and removed\n\n| | Check | Condition | State |\n|---|---|---|---|\n");
     for (const CheckEntry& c : d.checks_added)
-      out += "| added | " + mdCode(c.name) + " | " + mdCode(c.condition) + " | " + state(c.passed) + ": " +
-             mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)) + " |\n";
+      fmt::format_to(out, "| added | {} | {} | {}: {} |\n", mdCode(c.name), mdCode(c.condition),
+                     state(c.passed), mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
     for (const CheckEntry& c : d.checks_removed)
-      out += "| removed | " + mdCode(c.name) + " | " + mdCode(c.condition) + " | was " + state(c.passed) + " |\n";
+      fmt::format_to(out, "| removed | {} | {} | was {} |\n", mdCode(c.name), mdCode(c.condition),
+                     state(c.passed));
   }
 
   if (!d.new_warnings.empty()) {
-    out += "\n#### New warnings\n\n";
-    for (const std::string& w : d.new_warnings) out += "- " + mdCode(w) + "\n";
+    fmt::format_to(out, "\n#### New warnings\n\n");
+    for (const std::string& w : d.new_warnings) fmt::format_to(out, "- {}\n", mdCode(w));
   }
 
   if (!d.meta.empty()) {
-    out += "\n#### Metadata changed\n\n| Key | Old | New |\n|---|---|---|\n";
+    fmt::format_to(out, "\n#### Metadata changed\n\n| Key | Old | New |\n|---|---|---|\n");
     for (const MetaChange& m : d.meta)
-      out += "| " + m.key + " | " + mdCell(m.old_value) + " | " + mdCell(m.new_value) + " |\n";
+      fmt::format_to(out, "| {} | {} | {} |\n", m.key, mdCell(m.old_value), mdCell(m.new_value));
   }
-  return out;
+  return fmt::to_string(buffer);
 }
 
 namespace {

@@ -5,6 +5,7 @@
 #include <limits>
 #include <map>
 
+#include "engine/report/trail.h"
 #include "engine/review/sheet_format.h"
 
 namespace calctrail {
@@ -37,7 +38,7 @@ CheckEntry checkEntryOf(const Calculation& calc, int k) {
   const CheckState& s = calc.checks[k];
   CheckEntry e;
   e.name = c.name;
-  e.condition = renderExpr(*c.lhs) + " " + comparisonText(c.op) + " " + renderExpr(*c.rhs);
+  e.condition = conditionText(c);
   e.description = c.description;
   e.op = comparisonText(c.op);
   e.passed = s.passed;

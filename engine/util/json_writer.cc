@@ -1,36 +1,41 @@
 #include "engine/util/json_writer.h"
 
 #include <cmath>
-#include <cstdio>
-#include <cstdlib>
+#include <iterator>
+
+#include "engine/report/number_format.h"
 
 namespace calctrail {
 
-std::string JsonWriter::escape(std::string_view s) {
-  std::string out = "\"";
+void JsonWriter::escapeTo(fmt::memory_buffer& out, std::string_view s) {
+  auto it = std::back_inserter(out);
+  out.push_back('"');
   for (char c : s) {
     switch (c) {
-      case '"': out += "\\\""; break;
-      case '\\': out += "\\\\"; break;
-      case '\n': out += "\\n"; break;
-      case '\r': out += "\\r"; break;
-      case '\t': out += "\\t"; break;
-      default:
-        if (static_cast<unsigned char>(c) < 0x20) {
-          char buf[8];
-          std::snprintf(buf, sizeof buf, "\\u%04x", c);
-          out += buf;
-        } else {
-          out += c;
-        }
+      case '"': fmt::format_to(it, "\\\""); break;
+      case '\\': fmt::format_to(it, "\\\\"); break;
+      case '\n': fmt::format_to(it, "\\n"); break;
+      case '\r': fmt::format_to(it, "\\r"); break;
+      case '\t': fmt::format_to(it, "\\t"); break;
+      default: {
+        const auto byte = static_cast<unsigned char>(c);
+        if (byte < 0x20) fmt::format_to(it, "\\u{:04x}", byte);
+        else out.push_back(c);
+      }
     }
   }
-  return out + "\"";
+  out.push_back('"');
+}
+
+std::string JsonWriter::escape(std::string_view s) {
+  fmt::memory_buffer out;
+  escapeTo(out, s);
+  return fmt::to_string(out);
 }
 
 void JsonWriter::newline() {
-  out_ += '\n';
-  out_ += std::string(first_.size() * 2, ' ');
+  out_->push_back('\n');
+  fmt::format_to(std::back_inserter(*out_), "{:{}}", "", first_.size() * 2);
 }
 
 void JsonWriter::beforeValue() {
@@ -39,7 +44,7 @@ void JsonWriter::beforeValue() {
     return;
   }
   if (!first_.empty()) {
-    if (!first_.back()) out_ += ',';
+    if (!first_.back()) out_->push_back(',');
     first_.back() = false;
     newline();
   }
@@ -47,7 +52,7 @@ void JsonWriter::beforeValue() {
 
 JsonWriter& JsonWriter::beginObject() {
   beforeValue();
-  out_ += '{';
+  out_->push_back('{');
   first_.push_back(true);
   return *this;
 }
@@ -56,14 +61,14 @@ JsonWriter& JsonWriter::endObject() {
   const bool empty = first_.back();
   first_.pop_back();
   if (!empty) newline();
-  out_ += '}';
-  if (first_.empty()) out_ += '\n';
+  out_->push_back('}');
+  if (first_.empty()) out_->push_back('\n');
   return *this;
 }
 
 JsonWriter& JsonWriter::beginArray() {
   beforeValue();
-  out_ += '[';
+  out_->push_back('[');
   first_.push_back(true);
   return *this;
 }
@@ -72,55 +77,46 @@ JsonWriter& JsonWriter::endArray() {
   const bool empty = first_.back();
   first_.pop_back();
   if (!empty) newline();
-  out_ += ']';
-  if (first_.empty()) out_ += '\n';
+  out_->push_back(']');
+  if (first_.empty()) out_->push_back('\n');
   return *this;
 }
 
 JsonWriter& JsonWriter::key(std::string_view k) {
   beforeValue();
-  out_ += escape(k);
-  out_ += ": ";
+  escapeTo(*out_, k);
+  fmt::format_to(std::back_inserter(*out_), ": ");
   after_key_ = true;
   return *this;
 }
 
 JsonWriter& JsonWriter::value(std::string_view s) {
   beforeValue();
-  out_ += escape(s);
+  escapeTo(*out_, s);
   return *this;
 }
 
 JsonWriter& JsonWriter::value(double d) {
   beforeValue();
-  if (!std::isfinite(d)) {
-    out_ += "null";
-    return *this;
-  }
-  char buf[40];
-  for (int precision = 15; precision <= 17; ++precision) {
-    std::snprintf(buf, sizeof buf, "%.*g", precision, d);
-    if (std::strtod(buf, nullptr) == d) break;
-  }
-  out_ += buf;
+  fmt::format_to(std::back_inserter(*out_), "{}", std::isfinite(d) ? formatExact(d) : "null");
   return *this;
 }
 
 JsonWriter& JsonWriter::value(int i) {
   beforeValue();
-  out_ += std::to_string(i);
+  fmt::format_to(std::back_inserter(*out_), "{}", i);
   return *this;
 }
 
 JsonWriter& JsonWriter::value(bool b) {
   beforeValue();
-  out_ += b ? "true" : "false";
+  fmt::format_to(std::back_inserter(*out_), "{}", b ? "true" : "false");
   return *this;
 }
 
 JsonWriter& JsonWriter::null() {
   beforeValue();
-  out_ += "null";
+  fmt::format_to(std::back_inserter(*out_), "null");
   return *this;
 }
 

@@ -1,15 +1,24 @@
 // A small streaming JSON writer: correct escaping, full-precision numbers,
 // stable key order (the order they are written in), two-space indentation.
+// It writes into a fmt::memory_buffer: its own, or a caller's sink.
 #pragma once
 
 #include <string>
 #include <string_view>
 #include <vector>
 
+#include <fmt/format.h>
+
 namespace calctrail {
 
 class JsonWriter {
  public:
+  JsonWriter() : out_(&own_) {}
+  // Appends to `sink` instead of a buffer of its own.
+  explicit JsonWriter(fmt::memory_buffer& sink) : out_(&sink) {}
+  JsonWriter(const JsonWriter&) = delete;
+  JsonWriter& operator=(const JsonWriter&) = delete;
+
   JsonWriter& beginObject();
   JsonWriter& endObject();
   JsonWriter& beginArray();
@@ -18,20 +27,27 @@ class JsonWriter {
   JsonWriter& value(std::string_view s);
   JsonWriter& value(const char* s) { return value(std::string_view(s)); }
   JsonWriter& value(const std::string& s) { return value(std::string_view(s)); }
-  JsonWriter& value(double d);  // shortest round-trip text; null for NaN/inf
+  JsonWriter& value(double d);  // shortest round-trip text (formatExact); null for NaN/inf
   JsonWriter& value(int i);
   JsonWriter& value(bool b);
   JsonWriter& null();
 
-  const std::string& str() const { return out_; }
-  static std::string escape(std::string_view s);  // with the quotes
+  // Everything written so far.
+  std::string str() const { return fmt::to_string(*out_); }
+
+  // `s` as a JSON string, with the quotes: " \ and every control byte
+  // (U+0000..U+001F) escaped, everything else (UTF-8 included) as it is.
+  // The one JSON escaper of the program (function docs use it too).
+  static std::string escape(std::string_view s);
+  static void escapeTo(fmt::memory_buffer& out, std::string_view s);
 
  private:
   void beforeValue();
   void newline();
-  std::string out_;
+  fmt::memory_buffer own_;   // the output when no sink is given
+  fmt::memory_buffer* out_;  // where the text goes: own_ or the caller's sink
   std::vector<bool> first_;  // per open container: no member written yet
-  bool after_key_ = false;
+  bool after_key_ = false;   // a key was written: the value follows on its line
 };
 
 }  // namespace calctrail

@@ -1,0 +1,86 @@
+// The JSON writer (engine/util/json_writer.h) on its own: escaping of every
+// control byte and of non-ASCII text, nesting and layout, numbers.
+#include <catch2/catch.hpp>
+
+#include <cfloat>
+#include <cmath>
+
+#include "engine/util/json_writer.h"
+#include "tests/json_reader.h"
+
+using namespace calctrail;
+using namespace calctrail::test;
+
+TEST_CASE("JSON writer: every control byte is escaped, and reads back", "[json_writer]") {
+  for (int b = 0; b < 0x20; ++b) {
+    const std::string s(1, static_cast<char>(b));
+    const std::string e = JsonWriter::escape(s);
+    INFO("byte " << b << ": " << e);
+    if (b == '\n') CHECK(e == "\"\\n\"");
+    else if (b == '\r') CHECK(e == "\"\\r\"");
+    else if (b == '\t') CHECK(e == "\"\\t\"");
+    else CHECK(e == fmt::format("\"\\u{:04x}\"", b));
+    Json j;
+    std::string error;
+    REQUIRE(parseJson(e, &j, &error));
+    CHECK(j.string == s);
+  }
+  CHECK(JsonWriter::escape("a\"b\\c/d") == "\"a\\\"b\\\\c/d\"");
+  CHECK(JsonWriter::escape("") == "\"\"");
+  CHECK(JsonWriter::escape(std::string("nul\0byte", 8)) == "\"nul\\u0000byte\"");
+}
+
+TEST_CASE("JSON writer: non-ASCII text and DEL pass through as UTF-8", "[json_writer]") {
+  const std::string s = "\u03C3_vm \u00B7 N\u00B7m \u2264 20 \u00B0C \u20AC \U0001F600 \x7F";
+  CHECK(JsonWriter::escape(s) == "\"" + s + "\"");
+}
+
+TEST_CASE("JSON writer: nesting, empty containers and layout", "[json_writer]") {
+  JsonWriter w;
+  w.beginObject();
+  w.key("a").value(1);
+  w.key("list").beginArray();
+  w.value("x").value(true).null();
+  w.beginObject().key("deep").beginArray().endArray().endObject();
+  w.endArray();
+  w.key("empty").beginObject().endObject();
+  w.endObject();
+  CHECK(w.str() ==
+        "{\n"
+        "  \"a\": 1,\n"
+        "  \"list\": [\n"
+        "    \"x\",\n"
+        "    true,\n"
+        "    null,\n"
+        "    {\n"
+        "      \"deep\": []\n"
+        "    }\n"
+        "  ],\n"
+        "  \"empty\": {}\n"
+        "}\n");
+  Json j;
+  std::string error;
+  REQUIRE(parseJson(w.str(), &j, &error));
+  CHECK(j["list"][3]["deep"].type == Json::Array);
+}
+
+TEST_CASE("JSON writer: numbers at full precision, null for what JSON cannot hold", "[json_writer]") {
+  JsonWriter w;
+  w.beginArray();
+  const double nan = std::nan(""), inf = HUGE_VAL;
+  for (double d : {0.1, 12000.0, -0.0, 1e-300, DBL_MAX, 5e-324, 26.18, nan, inf, -inf}) w.value(d);
+  w.value(-7).value(false);
+  w.endArray();
+  CHECK(w.str() ==
+        "[\n  0.1,\n  12000,\n  -0,\n  1e-300,\n  1.7976931348623157e+308,\n  5e-324,\n  26.18,\n"
+        "  null,\n  null,\n  null,\n  -7,\n  false\n]\n");
+}
+
+TEST_CASE("JSON writer: appends to a caller's sink", "[json_writer]") {
+  fmt::memory_buffer sink;
+  fmt::format_to(std::back_inserter(sink), "before ");
+  JsonWriter w(sink);
+  w.beginObject().key("k").value("v").endObject();
+  CHECK(fmt::to_string(sink) == "before {\n  \"k\": \"v\"\n}\n");
+  CHECK(w.str() == fmt::to_string(sink));
+}
