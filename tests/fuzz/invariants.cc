@@ -204,19 +204,23 @@ std::string checkDiagnostics(const Calculation& calc, const SourceFile& file) {
   return "";
 }
 
-// The trail at `digits`: every shown value well formed and close to its value.
+// The trail at `digits`: every shown value well formed and close to its value,
+// and every shown text (the value with its unit) starting with that number.
 std::string checkTrail(const Calculation& calc, const Trail& trail, int digits) {
   for (const TrailStep& step : trail.steps) {
+    if (!step.ok) continue;
     const QuantityState& s = calc.quantities[step.index];
-    const std::string why = checkFormatted(step.value, s.display.fromSI(s.si), digits);
+    const std::string value = numberText(step.result.number);
+    const std::string why = checkFormatted(value, s.display.fromSI(s.si), digits);
     if (!why.empty()) return "`" + step.name + "` at " + std::to_string(digits) + " digits: " + why;
-    if (step.result.rfind(step.value, 0) != 0)
-      return "`" + step.name + "` shows the result \"" + shown(step.result) + "\" for the value " +
-             step.value;
+    const std::string result = valueText(step.result);
+    if (result.rfind(value, 0) != 0)
+      return "`" + step.name + "` shows the result \"" + shown(result) + "\" for the value " + value;
   }
   for (const TrailCheck& c : trail.checks) {
-    for (const std::string* side : {&c.lhs, &c.rhs}) {
-      const std::string why = checkSide(c.name, *side);
+    if (!c.ok) continue;
+    for (const TrailValue* side : {&c.lhs, &c.rhs}) {
+      const std::string why = checkSide(c.name, valueText(*side));
       if (!why.empty()) return why;
     }
   }
