@@ -137,7 +137,7 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
     if (!fitsDeclaredUnit(q, m.file(), dim, diags)) return false;
   } else if (info.has_dim && dim != info.dim) {
     // Every formula that reads it was checked with the worksheet's dimension.
-    diags->error(*file, static_cast<uint32_t>(eq + 1), static_cast<uint32_t>(assignment.size()),
+    diags->error(*file, expr->begin, expr->end,
                  "--set: `" + name + "` is " + info.dim.describe() + " in the worksheet, but the value given is " +
                      dim.describe());
     return false;
