@@ -23,6 +23,12 @@ struct Program {
   std::vector<LibraryCall> calls;
   /// Bit i set: the text calls mathFunctions()[i].
   uint32_t math = 0;
+  /// The formula is one name (a check side `n_yield`): its value is v0, read without muparser.
+  bool reads_one = false;
+  /// The formula is one literal (a check side `3`, `10 MPa`): its value is `constant`.
+  bool is_constant = false;
+  /// The literal's SI value, when is_constant (the number muparser would read back from the text).
+  double constant = 0.0;
 };
 
 // `e` must have passed the dimension check (Expr::dim filled in). Names are

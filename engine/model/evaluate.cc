@@ -42,6 +42,8 @@ double Evaluation::runScratch(const Program& program) {
 }
 
 double Evaluation::run(size_t id, const Program& program) {
+  if (program.reads_one) return values_[program.inputs[0]];
+  if (program.is_constant) return program.constant;
   if (const ArithmeticParser* kept = kept_[id].get()) return kept->eval();
   if (!seen_[id] || kept_count_ >= options_.max_kept_programs) {
     seen_[id] = 1;
