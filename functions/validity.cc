@@ -57,7 +57,8 @@ void failLimit(Limit limit, int arg, const char* what, double v, Show how, doubl
       fail(arg, head + num(v) + " must be <= 1: no metal pair of the trade has a higher coefficient");
     case Limit::Whole: fail(arg, head + num(v) + " must be a whole number >= 1");
     case Limit::Result:
-      fail(arg, "the result is not a finite number (" + num(v) + "): the inputs are outside any useful range");
+      fail(arg, "the result is not a finite number (" + num(v) +
+                    "): the inputs are outside any useful range");
   }
   fail(arg, head + show(v, how) + " is outside its limits");
 }

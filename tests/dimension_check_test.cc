@@ -1,12 +1,12 @@
 // engine/eval/dimension_check: the checker on its own, formula by formula,
 // without evaluating anything: sums, powers, roots, math and library calls,
 // and the angle rules that keep a 2*pi from going missing.
-#include <catch2/catch.hpp>
+#include "engine/eval/dimension_check.h"
 
+#include <catch2/catch.hpp>
 #include <memory>
 #include <string>
 
-#include "engine/eval/dimension_check.h"
 #include "engine/sheet/sheet_parser.h"
 
 using namespace calctrail;
@@ -15,8 +15,8 @@ namespace {
 
 struct Checked {
   bool ok = false;
-  Dimension dim;          // of the last quantity's formula, when ok
-  std::string messages;   // every diagnostic headline
+  Dimension dim;         // of the last quantity's formula, when ok
+  std::string messages;  // every diagnostic headline
 };
 
 // Checks every formula of `text` in document order (each may read the ones
@@ -80,11 +80,13 @@ TEST_CASE("dimension check: powers and roots keep whole exponents", "[dimcheck]"
   c = check("d = 2 mm\nV = d^(1 + 2)\n");  // a constant exponent is folded
   REQUIRE(c.ok);
   CHECK(c.dim == Dimension::of(Base::Length, 3));
-  CHECK(check("d = 2 mm\nr = d^0.5\n").messages ==
-        "dims.calc:2:5: error: raising length (mm) to the power 0.5 gives no dimension with whole exponents\n");
+  CHECK(
+      check("d = 2 mm\nr = d^0.5\n").messages ==
+      "dims.calc:2:5: error: raising length (mm) to the power 0.5 gives no dimension with whole exponents\n");
   CHECK(check("d = 2 mm\nk = 2\nr = d^k\n").messages.find("the exponent must be a fixed number") !=
         std::string::npos);
-  CHECK(check("d = 2 mm\nr = 2^d\n").messages.find("an exponent must be a plain number") != std::string::npos);
+  CHECK(check("d = 2 mm\nr = 2^d\n").messages.find("an exponent must be a plain number") !=
+        std::string::npos);
   CHECK(check("d = 2 mm\nr = sqrt(d)\n").messages.find("only even powers have a square root") !=
         std::string::npos);
 }
@@ -99,8 +101,9 @@ TEST_CASE("dimension check: math functions take and give the dimensions the cont
   c = check("y = 1 mm\nx = 2 mm\nt = atan2(y, x)\n");
   REQUIRE(c.ok);
   CHECK(c.dim == kAngle);
-  CHECK(check("d = 1 mm\ns = sin(d)\n").messages.find("`sin` takes an angle (or plain radians), not length") !=
-        std::string::npos);
+  CHECK(
+      check("d = 1 mm\ns = sin(d)\n").messages.find("`sin` takes an angle (or plain radians), not length") !=
+      std::string::npos);
   CHECK(check("d = 1 mm\ns = ln(d)\n").messages.find("`ln` takes a plain number") != std::string::npos);
   CHECK(check("d = 1 mm\nt = 1 s\ns = max(d, t)\n").messages.find("argument 2 is time") != std::string::npos);
   CHECK(check("s = min(1)\n").messages.find("`min` takes at least 2 arguments, not 1") != std::string::npos);
@@ -127,11 +130,11 @@ TEST_CASE("dimension check: the helpers for sums, stray angles, work and power",
   CHECK(compareForSum(kLength, Dimension::of(Base::Time), &incompatible).empty());
   CHECK(incompatible);
   const Dimension torque = Dimension::exponents(2, 1, -2);
-  CHECK(workOrPower(torque * kAngle));                                  // T*theta is work
-  CHECK(workOrPower(Dimension::exponents(2, 1, -3, 0, 0, 0, 0, 1)));   // T*omega is power
+  CHECK(workOrPower(torque * kAngle));                                // T*theta is work
+  CHECK(workOrPower(Dimension::exponents(2, 1, -3, 0, 0, 0, 0, 1)));  // T*omega is power
   CHECK_FALSE(workOrPower(kLength));
   CHECK(strayAngleWarning("n", Dimension::exponents(0, 0, -1, 0, 0, 0, 0, 1)).empty());  // rpm
-  CHECK(strayAngleWarning("l", kLength / kAngle).empty());                                // a lead per rev
+  CHECK(strayAngleWarning("l", kLength / kAngle).empty());                               // a lead per rev
   CHECK(strayAngleWarning("v", Dimension::exponents(1, 0, -1, 0, 0, 0, 0, 1)).find("2*pi too large") !=
         std::string::npos);
   CHECK(strayAngleWarning("x", kLength * kAngle).find("stray angle") != std::string::npos);
@@ -139,8 +142,8 @@ TEST_CASE("dimension check: the helpers for sums, stray angles, work and power",
 
 TEST_CASE("dimension check: constant exponents fold only numbers, pi and arithmetic", "[dimcheck]") {
   Diagnostics diags;
-  Sheet sheet = parseSheet(std::make_shared<SourceFile>("c.calc", "a = (1 + 2) * 3 / 4\nb = a * 2\nc = 1 / 0\n"),
-                           &diags);
+  Sheet sheet = parseSheet(
+      std::make_shared<SourceFile>("c.calc", "a = (1 + 2) * 3 / 4\nb = a * 2\nc = 1 / 0\n"), &diags);
   double v = 0;
   REQUIRE(constantValue(*sheet.quantities[0].expr, &v));
   CHECK(v == 2.25);

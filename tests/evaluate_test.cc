@@ -2,15 +2,15 @@
 // the cone re-run equals a full evaluation bit for bit on every demo
 // worksheet for every single-input change, and two threads evaluate one
 // model at once.
-#include <catch2/catch.hpp>
+#include "engine/model/evaluate.h"
 
+#include <catch2/catch.hpp>
 #include <cstring>
 #include <memory>
 #include <string>
 #include <thread>
 #include <vector>
 
-#include "engine/model/evaluate.h"
 #include "engine/sheet/sheet_parser.h"
 #include "tests/test_support.h"
 
@@ -23,7 +23,8 @@ namespace {
 std::unique_ptr<const Model> buildDemo(const std::string& name) {
   Diagnostics diags;
   auto m = Model::build(
-      parseSheet(std::make_shared<SourceFile>(name, readFile(repoPath("worksheets/" + name))), &diags), &diags);
+      parseSheet(std::make_shared<SourceFile>(name, readFile(repoPath("worksheets/" + name))), &diags),
+      &diags);
   REQUIRE_FALSE(diags.hasErrors());
   return m;
 }
@@ -87,7 +88,7 @@ TEST_CASE("evaluate: the cone of every single-input change equals a full evaluat
     }
     INFO(demo);
     CHECK(inputs >= 10);
-    CHECK(faulted > 0);  // the faulting points were compared too
+    CHECK(faulted > 0);                 // the faulting points were compared too
     CHECK(context.keptPrograms() > 0);  // formulas evaluated again were kept set
   }
 }
@@ -130,8 +131,10 @@ TEST_CASE("evaluate: two threads evaluate one model at once", "[evaluate][thread
       Inputs point(*m, &nominal);
       point.bind(slots[t], base.value(slots[t]) * (0.8 + 0.002 * i));
       Results r = base;
-      if (i % 2) context.evaluateCone(point, &r);
-      else r = context.evaluate(point);
+      if (i % 2)
+        context.evaluateCone(point, &r);
+      else
+        r = context.evaluate(point);
       got[t].push_back(std::move(r));
     }
   };

@@ -1,14 +1,14 @@
 // engine/eval: the arithmetic path (compiled programs in muparser), the
 // interpreter that explains failures, the math functions both share, and
 // the library-call boundary with its per-revolution rule.
-#include <catch2/catch.hpp>
+#include "engine/eval/evaluator.h"
 
+#include <catch2/catch.hpp>
 #include <cmath>
 #include <memory>
 #include <string>
 
 #include "engine/eval/arithmetic.h"
-#include "engine/eval/evaluator.h"
 #include "engine/eval/library_call.h"
 #include "engine/eval/math_functions.h"
 #include "engine/eval/tree_eval.h"
@@ -69,9 +69,9 @@ TEST_CASE("evaluator: tan(90 deg) and 1/cos(90 deg) are errors, not 1.6e16", "[e
 
 TEST_CASE("evaluator: a program is set once and evaluated over changing values", "[evaluator]") {
   Diagnostics diags;
-  auto model = Model::build(parseSheet(std::make_shared<SourceFile>("p.calc", "a = 2\nb = 3\nc = a * b + sqrt(a)\n"),
-                                       &diags),
-                            &diags);
+  auto model = Model::build(
+      parseSheet(std::make_shared<SourceFile>("p.calc", "a = 2\nb = 3\nc = a * b + sqrt(a)\n"), &diags),
+      &diags);
   REQUIRE_FALSE(diags.hasErrors());
   const Program& p = model->slot(model->find("c")).formula;
   REQUIRE(p.inputs.size() == 2);

@@ -1,13 +1,13 @@
 // engine/model/inputs: replacements bound to slots, parsed and checked
 // against the model (name, dimension, twice), layered over a parent, and
 // never written into the model.
-#include <catch2/catch.hpp>
+#include "engine/model/inputs.h"
 
+#include <catch2/catch.hpp>
 #include <memory>
 #include <string>
 
 #include "engine/model/evaluate.h"
-#include "engine/model/inputs.h"
 #include "engine/sheet/sheet_parser.h"
 
 using namespace calctrail;
@@ -69,8 +69,7 @@ TEST_CASE("inputs: the dimension must match the quantity's", "[inputs][diagnosti
   CHECK(in.own().empty());
 }
 
-TEST_CASE("inputs: a name given twice in one layer is an error, a child layer hides its parent",
-          "[inputs]") {
+TEST_CASE("inputs: a name given twice in one layer is an error, a child layer hides its parent", "[inputs]") {
   auto m = build(kSheet);
   Diagnostics diags;
   Inputs base(*m);  // a load case, say
@@ -119,5 +118,6 @@ TEST_CASE("inputs: a value that cannot be calculated is explained when bound", "
   Inputs in(*m);
   Diagnostics diags;
   CHECK_FALSE(in.set("k = 1 / (2 - 2)", &diags));
-  CHECK(headlines(diags) == "--set:1:5: error: `k` cannot be calculated: division by zero: the divisor is 0\n");
+  CHECK(headlines(diags) ==
+        "--set:1:5: error: `k` cannot be calculated: division by zero: the divisor is 0\n");
 }

@@ -1,14 +1,14 @@
 // engine/model/model: building a model once from a parsed sheet: slots,
 // dimensions and display units, the order, the compiled programs, the
 // library passed in, and no change to the model by evaluating it.
-#include <catch2/catch.hpp>
+#include "engine/model/model.h"
 
+#include <catch2/catch.hpp>
 #include <cstring>
 #include <memory>
 #include <string>
 
 #include "engine/model/evaluate.h"
-#include "engine/model/model.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/util/math_constants.h"
 

@@ -43,8 +43,10 @@ void ArithmeticParser::define(const Program& program, LibraryCallStore* store) {
     const uint32_t bit = 1u << i;
     if (!(program.math & bit) || (math_defined_ & bit)) continue;
     // Pure functions: muparser may fold them over constants at compile time.
-    if (math[i].eval1) parser_->DefineFun(math[i].name, math[i].eval1, true);
-    else parser_->DefineFun(math[i].name, math[i].evalN, true);
+    if (math[i].eval1)
+      parser_->DefineFun(math[i].name, math[i].eval1, true);
+    else
+      parser_->DefineFun(math[i].name, math[i].evalN, true);
     math_defined_ |= bit;
   }
   for (const LibraryCall& c : program.calls) {

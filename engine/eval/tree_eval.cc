@@ -58,7 +58,8 @@ struct Interpreter {
         break;
       case ExprKind::Power:
         if (a < 0 && b != std::floor(b))
-          return failAt(e, "a negative base (" + num(a) + ") to a fractional power (" + num(b) + ") has no real value");
+          return failAt(e, "a negative base (" + num(a) + ") to a fractional power (" + num(b) +
+                               ") has no real value");
         if (a == 0 && b < 0) return failAt(e, "zero to a negative power is a division by zero");
         r = std::pow(a, b);
         break;

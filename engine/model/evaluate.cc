@@ -66,9 +66,12 @@ void Evaluation::fault(Fault::Site site, uint32_t index, const Expr& expr, const
                        const std::string& prefix, const std::string& internal, Results* results) {
   const Sheet& sheet = model_.sheet();
   EvalFault f;
-  evalTree(expr, [&](const Expr& e) { return values_[sheet.find(e.text)]; }, &f, model_.library());
+  evalTree(
+      expr, [&](const Expr& e) { return values_[sheet.find(e.text)]; }, &f, model_.library());
   const Expr& at = f.node ? *f.node : expr;
-  std::string msg = prefix + (f.node ? f.message : internal.empty() ? "the value is not a finite number" : internal);
+  std::string msg = prefix + (f.node             ? f.message
+                              : internal.empty() ? "the value is not a finite number"
+                                                 : internal);
   std::vector<std::string> seen;
   std::string inputs;
   forEachName(at, [&](const Expr& e) {
@@ -170,16 +173,9 @@ const std::vector<Slot>& Evaluation::coneOf(const Inputs& inputs) {
   if (same && !cone_key_.empty()) return cone_;
   cone_key_.clear();
   for (const Binding& b : own) cone_key_.push_back(b.slot);
+  cone_ = model_.downstream(cone_key_);
   std::vector<char> in(model_.slotCount(), 0);
-  cone_.clear();
-  for (Slot s : cone_key_) {
-    for (int j : model_.graph().downstream(static_cast<int>(s.index()))) {
-      if (in[j]) continue;
-      in[j] = 1;
-      cone_.push_back(Slot(static_cast<uint32_t>(j)));
-    }
-  }
-  std::sort(cone_.begin(), cone_.end(), [&](Slot a, Slot b) { return model_.rank(a) < model_.rank(b); });
+  for (Slot s : cone_) in[s.index()] = 1;
   cone_checks_.clear();
   for (size_t k = 0; k < model_.checks().size(); ++k) {
     const std::vector<Slot>& reads = model_.checks()[k].reads;

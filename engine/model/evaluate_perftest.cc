@@ -91,17 +91,17 @@ struct Library {
 };
 
 // The given values, SI, in sheet order of the names below.
-const char* const kInputs[] = {"m_load", "g_n",   "k_uneven",  "screws", "stroke",  "t_max",   "d",
-                               "f_run",  "f_low", "f_c",       "D_o",    "D_i",     "n_motor", "i_worm",
-                               "eta_worm", "eta_bevel", "S_y", "L_nut",  "p_allow", "pv_allow", "E",
-                               "L_col",  "C_end"};
+const char* const kInputs[] = {"m_load",  "g_n",      "k_uneven", "screws",    "stroke", "t_max",
+                               "d",       "f_run",    "f_low",    "f_c",       "D_o",    "D_i",
+                               "n_motor", "i_worm",   "eta_worm", "eta_bevel", "S_y",    "L_nut",
+                               "p_allow", "pv_allow", "E",        "L_col",     "C_end"};
 constexpr int kInputCount = sizeof kInputs / sizeof kInputs[0];
 
 // The results the port computes, named as in the sheet (l per radian, as stored).
-const char* const kOutputs[] = {"F",      "p",        "l",       "d_m",     "d_r",     "alpha",  "f_start",
-                                "lambda_s", "T_collar", "T_thread", "T_screw", "T_hold",  "eta",    "eta_drive",
-                                "v_table", "t_lift",   "T_motor", "P_motor", "P_rated", "sigma_a", "tau",
-                                "sigma_vm", "n_yield", "sigma_b", "p_nut",   "pv",      "n_buckle"};
+const char* const kOutputs[] = {
+    "F",        "p",       "l",      "d_m",      "d_r",       "alpha",   "f_start", "lambda_s", "T_collar",
+    "T_thread", "T_screw", "T_hold", "eta",      "eta_drive", "v_table", "t_lift",  "T_motor",  "P_motor",
+    "P_rated",  "sigma_a", "tau",    "sigma_vm", "n_yield",   "sigma_b", "p_nut",   "pv",       "n_buckle"};
 constexpr int kOutputCount = sizeof kOutputs / sizeof kOutputs[0];
 
 struct PortOut {
@@ -113,7 +113,8 @@ void port(const Library& L, const double* in, PortOut* out) {
   const double m_load = in[0], g_n = in[1], k_uneven = in[2], screws = in[3], stroke = in[4], t_max = in[5],
                d = in[6], f_run = in[7], f_low = in[8], f_c = in[9], D_o = in[10], D_i = in[11],
                n_motor = in[12], i_worm = in[13], eta_worm = in[14], eta_bevel = in[15], S_y = in[16],
-               L_nut = in[17], p_allow = in[18], pv_allow = in[19], E = in[20], L_col = in[21], C_end = in[22];
+               L_nut = in[17], p_allow = in[18], pv_allow = in[19], E = in[20], L_col = in[21],
+               C_end = in[22];
   double* v = out->v;
   const double F = v[0] = m_load * g_n / screws * k_uneven;
   const double a1[] = {d};
@@ -179,7 +180,7 @@ void port(const Library& L, const double* in, PortOut* out) {
 
 struct Figures {
   const char* input;
-  size_t cone = 0;      // slots re-run
+  size_t cone = 0;       // slots re-run
   double engine_us = 0;  // per point: bind + evaluateCone (cone + checks)
   double native_us = 0;  // per point: the port, whole
 };
@@ -194,12 +195,12 @@ double perturbed(const char* name, double base, int i) {
   return base * (1.0 + 0.05 * std::sin(0.1 * i));
 }
 
-Figures measure(const Model& m, const Inputs& nominal, const Results& base, const Library& L, const char* name,
-                int points) {
+Figures measure(const Model& m, const Inputs& nominal, const Results& base, const Library& L,
+                const char* name, int points) {
   Figures f;
   f.input = name;
   const Slot slot = m.find(name);
-  f.cone = m.graph().downstream(static_cast<int>(slot.index())).size();
+  f.cone = m.downstream({slot}).size();
   int index = 0;
   while (std::strcmp(kInputs[index], name) != 0) ++index;
   double in[kInputCount];
@@ -298,18 +299,20 @@ void memoryFigures(const Model& demo, int blocks) {
   Results third = context.evaluate(nominal);
   const double third_s = now() - t;
   const double n = static_cast<double>(lines);
-  std::printf("\nmemory: a generated sheet of %zu lines (the twin-screw formulas %d times), per line:\n", lines,
-              blocks);
+  std::printf("\nmemory: a generated sheet of %zu lines (the twin-screw formulas %d times), per line:\n",
+              lines, blocks);
   std::printf("  parsed sheet (expression trees, text):      %7.0f bytes\n", (h1 - h0) / n);
   std::printf("  model beyond its sheet (slots, programs):   %7.0f bytes  (compiledBytes() says %.0f)\n",
               (h2 - h1) / n, static_cast<double>(model->compiledBytes()) / n);
-  std::printf("  evaluation context after one evaluation:    %7.0f bytes  (results included; scratch parser only)\n",
-              (h3 - h2) / n);
-  std::printf("  after a second evaluation (all kept set):   %7.0f bytes  (%zu parsers kept)\n", (h4 - h3) / n,
-              context.keptPrograms());
-  std::printf("  time per line: build %.2f us, first evaluation %.2f us, second %.2f us (setting each\n"
-              "  program in its parser), third %.3f us (bytecode only)\n",
-              build_s * 1e6 / n, first_s * 1e6 / n, second_s * 1e6 / n, third_s * 1e6 / n);
+  std::printf(
+      "  evaluation context after one evaluation:    %7.0f bytes  (results included; scratch parser only)\n",
+      (h3 - h2) / n);
+  std::printf("  after a second evaluation (all kept set):   %7.0f bytes  (%zu parsers kept)\n",
+              (h4 - h3) / n, context.keptPrograms());
+  std::printf(
+      "  time per line: build %.2f us, first evaluation %.2f us, second %.2f us (setting each\n"
+      "  program in its parser), third %.3f us (bytecode only)\n",
+      build_s * 1e6 / n, first_s * 1e6 / n, second_s * 1e6 / n, third_s * 1e6 / n);
 }
 
 int usage() {
@@ -324,10 +327,14 @@ int main(int argc, char** argv) {
   std::string dir;
   for (int i = 1; i < argc; ++i) {
     const std::string a = argv[i];
-    if (a == "--points" && i + 1 < argc) points = std::atoi(argv[++i]);
-    else if (a == "--blocks" && i + 1 < argc) blocks = std::atoi(argv[++i]);
-    else if (a == "--worksheets" && i + 1 < argc) dir = argv[++i];
-    else return usage();
+    if (a == "--points" && i + 1 < argc)
+      points = std::atoi(argv[++i]);
+    else if (a == "--blocks" && i + 1 < argc)
+      blocks = std::atoi(argv[++i]);
+    else if (a == "--worksheets" && i + 1 < argc)
+      dir = argv[++i];
+    else
+      return usage();
   }
   if (points < 1 || blocks < 1) return usage();
   if (dir.empty()) {
@@ -379,9 +386,10 @@ int main(int argc, char** argv) {
     t = now();
     for (int i = 0; i < reps / 10 + 1; ++i) Calculation::fromText(path, bytes);
     const double calc_us = (now() - t) * 1e6 / (reps / 10 + 1);
-    std::printf("  whole evaluation, context kept: %.2f us; in a fresh context: %.1f us; "
-                "Calculation::fromText: %.1f us\n",
-                kept_us, fresh_us, calc_us);
+    std::printf(
+        "  whole evaluation, context kept: %.2f us; in a fresh context: %.1f us; "
+        "Calculation::fromText: %.1f us\n",
+        kept_us, fresh_us, calc_us);
   }
   memoryFigures(*model, blocks);
   return 0;

@@ -64,7 +64,9 @@ bool Inputs::computeOrder(std::vector<Slot>* order) const {
   }
   order->clear();
   if (!any) return true;
-  auto later = [&](int a, int b) { return m.rank(Slot(static_cast<uint32_t>(a))) > m.rank(Slot(static_cast<uint32_t>(b))); };
+  auto later = [&](int a, int b) {
+    return m.rank(Slot(static_cast<uint32_t>(a))) > m.rank(Slot(static_cast<uint32_t>(b)));
+  };
   std::priority_queue<int, std::vector<int>, decltype(later)> ready(later);
   size_t count = 0;
   for (Slot s : m.order())
@@ -138,8 +140,8 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
   } else if (info.has_dim && dim != info.dim) {
     // Every formula that reads it was checked with the worksheet's dimension.
     diags->error(*file, expr->begin, expr->end,
-                 "--set: `" + name + "` is " + info.dim.describe() + " in the worksheet, but the value given is " +
-                     dim.describe());
+                 "--set: `" + name + "` is " + info.dim.describe() +
+                     " in the worksheet, but the value given is " + dim.describe());
     return false;
   }
 
@@ -163,7 +165,8 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
     }
     if (!std::isfinite(v)) {
       EvalFault fault;
-      evalTree(*expr, [](const Expr&) { return NAN; }, &fault, m.library());
+      evalTree(
+          *expr, [](const Expr&) { return NAN; }, &fault, m.library());
       const Expr& at = fault.node ? *fault.node : *expr;
       diags->error(*file, at.begin, at.end,
                    "`" + name + "` cannot be calculated: " +
@@ -179,7 +182,8 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
   if (own_.back().reads_slots || !order_.empty()) {
     std::vector<Slot> order;
     if (!computeOrder(&order)) {
-      diags->error(*file, nb, ne, "--set: `" + name + "` would depend on its own value through the quantities it reads");
+      diags->error(*file, nb, ne,
+                   "--set: `" + name + "` would depend on its own value through the quantities it reads");
       own_.pop_back();
       return false;
     }

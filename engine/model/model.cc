@@ -1,5 +1,6 @@
 #include "engine/model/model.h"
 
+#include <algorithm>
 #include <unordered_map>
 
 #include "engine/eval/arithmetic.h"
@@ -26,7 +27,8 @@ std::string tooLongMessage(const std::string& what, size_t length) {
          "); split it into named steps";
 }
 
-bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim, Diagnostics* diags) {
+bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim,
+                      Diagnostics* diags) {
   const UnitFit fit = fitUnit(dim, q.display->dim);
   if (fit == UnitFit::Incompatible) {
     diags->error(sheet_file, q.unit_begin, q.unit_end,
@@ -38,14 +40,16 @@ bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dim
     // Showing the value would put a number off by 2*pi on the page
     // (a lead per revolution shown in plain mm, rpm*lead in m/s): refuse,
     // and say how to write it.
-    std::string msg = "`" + q.name + "` is declared in [" + q.unit_written + "], " + q.display->dim.describe() +
-                      ", but its formula gives " + dim.describe() +
+    std::string msg = "`" + q.name + "` is declared in [" + q.unit_written + "], " +
+                      q.display->dim.describe() + ", but its formula gives " + dim.describe() +
                       ": they differ by an angle, so the number shown would be off by 2*pi";
     const std::string why = strayAngleWarning(q.name, dim);
-    if (!why.empty()) msg += "; " + why.substr(why.find("): ") + 3);
+    if (!why.empty())
+      msg += "; " + why.substr(why.find("): ") + 3);
     else if (dim.exponent(Base::Angle) < 0)
       msg += "; declare it per revolution, as in [mm/rev], or write `1 [rev]` where a plain 2*pi stands";
-    else msg += "; declare the unit with its angle, as in [rpm] or [rad/s]";
+    else
+      msg += "; declare the unit with its angle, as in [rpm] or [rad/s]";
     diags->error(sheet_file, q.unit_begin, q.unit_end, msg);
     return false;
   }
@@ -146,8 +150,10 @@ void Model::resolveNames(Diagnostics* diags) {
     auto it = messages.find(e.text);
     if (it == messages.end()) {
       if (names.empty()) names = quantityNames(*sheet_);
-      it = messages.emplace(e.text, unknownNameMessage(e.text, messages.size() < 50 ? names : no_names, *library_))
-               .first;
+      it =
+          messages
+              .emplace(e.text, unknownNameMessage(e.text, messages.size() < 50 ? names : no_names, *library_))
+              .first;
     }
     diags->error(file, e.begin, e.end, it->second);
   };
@@ -244,12 +250,13 @@ void Model::checkChecks(Diagnostics* diags) {
     const std::string warning = compareForSum(c.lhs->dim, c.rhs->dim, &incompatible);
     const uint32_t op_end = c.op_begin + static_cast<uint32_t>(std::string(comparisonText(c.op)).size());
     if (incompatible) {
-      diags->error(*sheet_->file, c.op_begin, op_end,
-                   "the check `" + c.name + "` compares " + c.lhs->dim.describe() + " with " +
-                       c.rhs->dim.describe());
+      diags->error(
+          *sheet_->file, c.op_begin, op_end,
+          "the check `" + c.name + "` compares " + c.lhs->dim.describe() + " with " + c.rhs->dim.describe());
       continue;
     }
-    if (!warning.empty()) diags->warning(*sheet_->file, c.op_begin, op_end, "the check `" + c.name + "` " + warning);
+    if (!warning.empty())
+      diags->warning(*sheet_->file, c.op_begin, op_end, "the check `" + c.name + "` " + warning);
     s.has_dim = true;
     s.dim = c.lhs->dim;
     // Show both sides in the unit of the quantity (or literal) the check names first.
@@ -274,7 +281,8 @@ void Model::compile(Diagnostics* diags) {
     const Quantity& q = sheet_->quantities[slot.index()];
     Program p = compileProgram(*q.expr, *sheet_, *library_);
     if (p.text.size() > kMaxProgramLength) {
-      diags->error(*sheet_->file, q.expr->begin, q.expr->end, tooLongMessage("`" + q.name + "`", p.text.size()));
+      diags->error(*sheet_->file, q.expr->begin, q.expr->end,
+                   tooLongMessage("`" + q.name + "`", p.text.size()));
       continue;
     }
     s.formula = std::move(p);
@@ -307,17 +315,39 @@ void Model::compile(Diagnostics* diags) {
   }
 }
 
+std::vector<Slot> Model::downstream(const std::vector<Slot>& slots) const {
+  std::vector<char> in(slots_.size(), 0);
+  std::vector<Slot> cone;
+  std::vector<int> stack;
+  for (Slot s : slots) {
+    if (in[s.index()]) continue;
+    in[s.index()] = 1;
+    stack.push_back(static_cast<int>(s.index()));
+    while (!stack.empty()) {  // iterative: a 100k-long chain cannot overflow the stack
+      const int i = stack.back();
+      stack.pop_back();
+      cone.push_back(Slot(static_cast<uint32_t>(i)));
+      for (int u : graph_->usedBy(i))
+        if (!in[u]) in[u] = 1, stack.push_back(u);
+    }
+  }
+  std::sort(cone.begin(), cone.end(), [&](Slot a, Slot b) { return rank_[a.index()] < rank_[b.index()]; });
+  return cone;
+}
+
 size_t Model::compiledBytes() const {
   size_t bytes = slots_.capacity() * sizeof(SlotInfo) + checks_.capacity() * sizeof(CheckInfo);
   auto program = [](const Program& p) {
     return p.text.capacity() + p.inputs.capacity() * sizeof(int) + p.calls.capacity() * sizeof(LibraryCall);
   };
   for (const SlotInfo& s : slots_) bytes += program(s.formula) + s.display.text.capacity();
-  for (const CheckInfo& c : checks_) bytes += program(c.lhs) + program(c.rhs) + c.reads.capacity() * sizeof(Slot);
+  for (const CheckInfo& c : checks_)
+    bytes += program(c.lhs) + program(c.rhs) + c.reads.capacity() * sizeof(Slot);
   bytes += order_.capacity() * sizeof(Slot) + rank_.capacity() * sizeof(uint32_t);
   bytes += dims_.capacity() * sizeof(Dimension) + known_.capacity() + unresolved_.capacity();
   for (int i = 0; i < graph_->size(); ++i)
-    bytes += (graph_->uses(i).capacity() + graph_->usedBy(i).capacity()) * sizeof(int) + 2 * sizeof(std::vector<int>);
+    bytes += (graph_->uses(i).capacity() + graph_->usedBy(i).capacity()) * sizeof(int) +
+             2 * sizeof(std::vector<int>);
   return bytes;
 }
 

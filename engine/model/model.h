@@ -85,7 +85,14 @@ class Model {
   const std::vector<Slot>& order() const { return order_; }
   // Position of a slot in order(); slots left out of it (on a cycle) rank last.
   uint32_t rank(Slot s) const { return rank_[s.index()]; }
+  // The graph's edges. Its cone queries build a cache on first use
+  // (DependencyGraph::rank_), so they are not safe on shared models: use
+  // downstream() below.
   const DependencyGraph& graph() const { return *graph_; }
+
+  // The downstream cone of `slots`: each of them and every slot that depends
+  // on one, once, in evaluation order. Const and safe from any thread.
+  std::vector<Slot> downstream(const std::vector<Slot>& slots) const;
 
   const std::vector<CheckInfo>& checks() const { return checks_; }
 
@@ -127,7 +134,8 @@ const Unit* unitAsWritten(const Expr& e);
 // A formula of dimension `dim` for quantity `q`, which declares a display
 // unit: reports the error and returns false when the unit does not fit (a
 // different dimension, or one that would put a number off by 2*pi on the page).
-bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim, Diagnostics* diags);
+bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim,
+                      Diagnostics* diags);
 
 // A formula's dimension as a quantity keeps it: torque and power lose a stray
 // angle (N*m*rad/s is W).
