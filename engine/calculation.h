@@ -1,7 +1,11 @@
-// A worksheet calculated end to end: read, parse, apply --set overrides,
-// resolve names, order by dependencies, check dimensions, compile, evaluate,
-// and evaluate the design checks. Every problem lands in `diags`; a
+// A worksheet calculated end to end, as one CLI command does it: read, parse,
+// build the Model, bind --set as Inputs, evaluate, and fill the members the
+// renderers, review and CLI read. Every problem lands in `diags`; a
 // calculation with errors has no values to show.
+//
+// This is the convenience wrapper of the stages {Model, Inputs, Results}
+// (engine/model/, docs/engine.md); code that evaluates a sheet more than
+// once uses those directly.
 #pragma once
 
 #include <memory>
@@ -9,6 +13,9 @@
 #include <vector>
 
 #include "engine/graph/dependency_graph.h"
+#include "engine/model/inputs.h"
+#include "engine/model/model.h"
+#include "engine/model/results.h"
 #include "engine/sheet/diagnostics.h"
 #include "engine/sheet/sheet.h"
 #include "engine/units/unit.h"
@@ -44,6 +51,8 @@ class Calculation {
   static std::unique_ptr<Calculation> fromText(const std::string& display_path, std::string bytes,
                                                const CalcOptions& options = {});
 
+  // The sheet as the trail shows it: a --set quantity carries its --set
+  // formula, with Quantity::overridden and override_text.
   Sheet sheet;
   std::vector<QuantityState> quantities;
   std::vector<CheckState> checks;
@@ -53,22 +62,20 @@ class Calculation {
   std::string sha256;      // of the worksheet bytes as read
   std::string path;
 
+  // The stages (null when the file could not be read). The model borrows `sheet`.
+  std::unique_ptr<const Model> model;
+  std::unique_ptr<Inputs> inputs;
+  Results results;
+
   bool hasErrors() const { return diags.hasErrors(); }
   bool allChecksPass() const;
   int failedChecks() const;
 
  private:
   void run(std::shared_ptr<SourceFile> file, const CalcOptions& options);
-  void applyOverrides(const CalcOptions& options);
-  void resolveNames();
-  void orderAndFindCycles();
-  void checkDimensions();
-  void checkChecks();
-  void evaluate();
-  void evaluateChecks();
-  void explainFailure(const Expr& expr, const SourceFile& file, const std::vector<double>& values,
-                      const std::string& prefix, const std::string& internal);
-  const SourceFile& fileOf(const Quantity& q) const;
+  void fillStates();
+  // The model's trees of --set quantities, kept alive while `sheet` shows the --set ones.
+  std::vector<ExprPtr> replaced_;
 };
 
 }  // namespace calctrail

@@ -8,12 +8,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 
 double driveTorque(const double* a) {
   const double F = positive(a, 0, "axial load F", Show::Force);
@@ -67,15 +67,6 @@ double criticalSpeed(const double* a) {
   const double rho = positive(a, 4, "density rho", Show::Density);
   // First bending mode of a uniform round shaft: omega = fixity^2/L^2 * sqrt(E*I/(rho*A)), I/A = dr^2/16.
   return result(fixity * fixity / (L * L) * dr / 4.0 * std::sqrt(E / rho));
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  x.per_revolution = per_rev;
-  return x;
 }
 
 const char* kLifeSource =

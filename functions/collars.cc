@@ -57,14 +57,6 @@ double thrustBearing(const double* a) {
   return result(mu * F * d / 2.0);
 }
 
-FunctionArg arg(const char* name, Dimension dim, const char* description) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  return x;
-}
-
 const char* kCollarSource =
     "Shigley's Mechanical Engineering Design, Sec. 8-2 (collar friction) and the disc-clutch and flat-pivot "
     "analysis (uniform pressure, uniform wear) of the machine design and theory of machines textbooks (from memory)";

@@ -10,12 +10,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 
 // A round section of diameter dr: radius of gyration dr/4.
 struct Column {
@@ -90,14 +90,6 @@ double bucklingSafety(const double* a) {
   const double F = positive(a, 0, "axial load F", Show::Force);
   const Column c = column(a, 1);
   return result(bucklingLoadOf(c, yield(a, 5, c.E)) / F);
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  return x;
 }
 
 const char* kSource =

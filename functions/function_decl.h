@@ -61,6 +61,18 @@ struct FunctionDecl {
   double (*eval)(const double* args) = nullptr;
 };
 
+namespace fn {
+// An argument as the declarations write it: arg("F", force(), "axial load").
+inline FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
+  FunctionArg x;
+  x.name = name;
+  x.dim = dim;
+  x.description = description;
+  x.per_revolution = per_rev;
+  return x;
+}
+}  // namespace fn
+
 // Every function of the library, in a stable order (listing order).
 const std::vector<FunctionDecl>& functionLibrary();
 

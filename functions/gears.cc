@@ -8,12 +8,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 
 double ratio(const double* a, int i, const char* what) { return positive(a, i, what, Show::Plain); }
 
@@ -69,14 +69,6 @@ double wormEfficiency(const double* a) {
 double wormBackdriveEfficiency(const double* a) {
   const Worm w = worm(a);
   return result((std::cos(w.phi) - w.f / std::tan(w.lambda)) / (std::cos(w.phi) + w.f * std::tan(w.lambda)));
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  return x;
 }
 
 const char* kTrainSource =

@@ -8,12 +8,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 
 // Rated outputs of IEC frame induction motors, kW: the outputs IEC 60072-1
 // assigns to frame sizes 56 to 315, as the makers' ranges follow them
@@ -64,15 +64,6 @@ double standardMotorPower(const double* a) {
     if (P <= kw * 1e3 * (1 + 1e-9)) return kw * 1e3;
   fail(0, "required power P = " + show(P, Show::Power) + " is above " + num(kRatedKw[std::size(kRatedKw) - 1]) +
               " kW, the largest rated output in this table; choose from the motor maker's range");
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  x.per_revolution = per_rev;
-  return x;
 }
 
 std::string ratedText() {

@@ -9,12 +9,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 
 // The thread geometry and friction shared by every function here, checked.
 // `first` is the index of dm in the argument list.
@@ -128,15 +128,6 @@ double backdriveForce(const double* a) {
 double startingFriction(const double* a) {
   const double f = friction(a, 0, "running friction f");
   return result(f * 4.0 / 3.0);
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  x.per_revolution = per_rev;
-  return x;
 }
 
 const char* kSource =

@@ -9,12 +9,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 
 double load(const double* a) { return positive(a, 0, "axial load F", Show::Force); }
 
@@ -97,15 +97,6 @@ double nutPv(const double* a) {
   const double l = positive(a, 4, "lead l", Show::Lead);
   const double n = nonNegative(a, 5, "screw speed n", Show::Speed);
   return result(p_bearing * slidingSpeedOf(a[1], l, n));
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  x.per_revolution = per_rev;
-  return x;
 }
 
 const char* kSource =

@@ -9,12 +9,12 @@
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail::fn {
 
 namespace {
 
-constexpr double kPi = 3.14159265358979323846;
 constexpr double kInch = 0.0254;  // exact (NIST SP 811)
 constexpr double kMm = 1e-3;
 // A size matches a table row within 1 um: far below the smallest gap between
@@ -194,15 +194,6 @@ std::string trapSeriesText() {
     s += "Tr " + num(r.d_mm) + "x" + num(r.preferred);
   }
   return s;
-}
-
-FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
-  FunctionArg x;
-  x.name = name;
-  x.dim = dim;
-  x.description = description;
-  x.per_revolution = per_rev;
-  return x;
 }
 
 const char* kAcmeSource =

@@ -6,7 +6,6 @@
 namespace calctrail::fn {
 
 namespace {
-constexpr double kPi = 3.14159265358979323846;
 
 struct Shown {
   double factor;
@@ -46,61 +45,22 @@ std::string show(double si, Show how) {
 
 void fail(int arg, const std::string& message) { throw DomainError(arg, message); }
 
-double finite(const double* a, int i, const char* what, Show how) {
-  const double v = a[i];
-  if (!std::isfinite(v)) fail(i, std::string(what) + " = " + show(v, how) + " must be a finite number");
-  return v;
-}
-
-double positive(const double* a, int i, const char* what, Show how) {
-  const double v = finite(a, i, what, how);
-  if (!(v > 0)) fail(i, std::string(what) + " = " + show(v, how) + " must be > 0");
-  return v;
-}
-
-double nonNegative(const double* a, int i, const char* what, Show how) {
-  const double v = finite(a, i, what, how);
-  if (!(v >= 0)) fail(i, std::string(what) + " = " + show(v, how) + " must be >= 0");
-  return v;
-}
-
-double atMost(const double* a, int i, double limit, const char* what, Show how) {
-  const double v = a[i];
-  if (!(v <= limit))
-    fail(i, std::string(what) + " = " + show(v, how) + " must be <= " + show(limit, how));
-  return v;
-}
-
-double fraction(const double* a, int i, const char* what) {
-  const double v = positive(a, i, what, Show::Plain);
-  if (!(v <= 1)) fail(i, std::string(what) + " = " + num(v) + " must be <= 1 (write 95 % or 0.95)");
-  return v;
-}
-
-double friction(const double* a, int i, const char* what) {
-  const double v = nonNegative(a, i, what, Show::Plain);
-  if (!(v <= 1))
-    fail(i, std::string(what) + " = " + num(v) +
-                " must be <= 1: no metal pair of the trade has a higher coefficient");
-  return v;
-}
-
-double flankAngle(const double* a, int i, const char* what) {
-  nonNegative(a, i, what, Show::Angle);
-  return atMost(a, i, 45.0 * kPi / 180.0, what, Show::Angle);
-}
-
-double count(const double* a, int i, const char* what) {
-  const double v = positive(a, i, what, Show::Plain);
-  if (!(v >= 1) || std::fabs(v - std::round(v)) > 1e-9)
-    fail(i, std::string(what) + " = " + num(v) + " must be a whole number >= 1");
-  return std::round(v);
-}
-
-double result(double v) {
-  if (!std::isfinite(v))
-    fail(-1, "the result is not a finite number (" + num(v) + "): the inputs are outside any useful range");
-  return v;
+void failLimit(Limit limit, int arg, const char* what, double v, Show how, double bound) {
+  const std::string head = std::string(what) + " = ";
+  switch (limit) {
+    case Limit::Finite: fail(arg, head + show(v, how) + " must be a finite number");
+    case Limit::Positive: fail(arg, head + show(v, how) + " must be > 0");
+    case Limit::NonNegative: fail(arg, head + show(v, how) + " must be >= 0");
+    case Limit::AtMost: fail(arg, head + show(v, how) + " must be <= " + show(bound, how));
+    case Limit::Fraction: fail(arg, head + num(v) + " must be <= 1 (write 95 % or 0.95)");
+    case Limit::Friction:
+      fail(arg, head + num(v) + " must be <= 1: no metal pair of the trade has a higher coefficient");
+    case Limit::Whole: fail(arg, head + num(v) + " must be a whole number >= 1");
+    case Limit::Result:
+      fail(arg, "the result is not a finite number (" + num(v) +
+                    "): the inputs are outside any useful range");
+  }
+  fail(arg, head + show(v, how) + " is outside its limits");
 }
 
 }  // namespace calctrail::fn

@@ -240,3 +240,28 @@ TEST_CASE("a formula too long for the arithmetic engine is an error, not an inte
   CHECK(d.rfind("sheet.calc:1:5: error: `a` is too long to compile (", 0) == 0);
   CHECK(d.find("split it into named steps") != std::string::npos);
 }
+
+TEST_CASE("a check side too long for the arithmetic engine gets the length error, as a formula does",
+          "[calc][diagnostics]") {
+  std::string sum = "1.123456789 mm";
+  for (int i = 0; i < 3000; ++i) sum += " + 1.123456789 mm";
+  const std::string d = diagnostics(*calc("a = 1 mm\ncheck big: " + sum + " > a\n"));
+  CHECK(d.rfind("sheet.calc:2:12: error: a side of the check `big` is too long to compile (", 0) == 0);
+  CHECK(d.find("split it into named steps") != std::string::npos);
+  CHECK(d.find("not a finite number") == std::string::npos);
+}
+
+TEST_CASE("an override with --set may read other quantities, and the sheet shows it as given", "[calc][set]") {
+  auto c = calc("d = 20 mm\nL = 100 mm\nA = d * L\n", {"d = L / 4"});
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  CHECK(si(*c, "d") == Approx(0.025).epsilon(1e-15));
+  CHECK(si(*c, "A") == Approx(0.0025).epsilon(1e-15));
+  const Quantity& d = c->sheet.quantities[0];
+  CHECK(d.overridden);
+  CHECK(d.override_text == " L / 4");
+  CHECK(renderExpr(*d.expr) == "L / 4");
+  CHECK_FALSE(c->quantities[0].input);
+  // The model keeps the worksheet's own formula.
+  CHECK(renderExpr(c->model->formulaExpr(c->model->find("d"))) == "20 mm");
+}

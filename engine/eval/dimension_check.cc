@@ -3,6 +3,7 @@
 #include <cmath>
 
 #include "engine/eval/math_functions.h"
+#include "engine/eval/tree_eval.h"
 #include "engine/units/unit.h"
 #include "engine/util/edit_distance.h"
 #include "functions/function_decl.h"
@@ -52,33 +53,30 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim) {
          "): a plain 2*pi where `1 [rev]` is meant, or a lead or speed written without /rev, gives a value off by 2*pi; write angles as `1 [rev]` and leads as `[mm/rev]`";
 }
 
+namespace {
+bool arithmeticOnly(const Expr& e) {
+  if (e.kind == ExprKind::Name || e.kind == ExprKind::Call) return false;
+  for (const ExprPtr& a : e.args)
+    if (!arithmeticOnly(*a)) return false;
+  return true;
+}
+}  // namespace
+
+// The interpreter does the arithmetic, so a folded exponent is the number
+// the formula itself would compute.
 bool constantValue(const Expr& e, double* value) {
-  double a = 0, b = 0;
-  switch (e.kind) {
-    case ExprKind::Number: *value = e.siValue(); return true;
-    case ExprKind::Pi: *value = M_PI; return true;
-    case ExprKind::Group: return constantValue(*e.args[0], value);
-    case ExprKind::Negate:
-      if (!constantValue(*e.args[0], &a)) return false;
-      *value = -a;
-      return true;
-    case ExprKind::Add: case ExprKind::Subtract: case ExprKind::Multiply: case ExprKind::Divide:
-    case ExprKind::Power:
-      if (!constantValue(*e.args[0], &a) || !constantValue(*e.args[1], &b)) return false;
-      if (e.kind == ExprKind::Add) *value = a + b;
-      else if (e.kind == ExprKind::Subtract) *value = a - b;
-      else if (e.kind == ExprKind::Multiply) *value = a * b;
-      else if (e.kind == ExprKind::Divide) *value = a / b;
-      else *value = std::pow(a, b);
-      return std::isfinite(*value);
-    default:
-      return false;
-  }
+  if (!arithmeticOnly(e)) return false;
+  EvalFault fault;
+  const double v = evalTree(e, [](const Expr&) { return NAN; }, &fault);
+  if (fault.node || !std::isfinite(v)) return false;
+  *value = v;
+  return true;
 }
 
 DimensionChecker::DimensionChecker(const SourceFile& file, Diagnostics* diags, const Sheet& sheet,
-                                   const std::vector<Dimension>& dims, const std::vector<char>& known)
-    : file_(file), diags_(diags), sheet_(sheet), dims_(dims), known_(known) {}
+                                   const std::vector<Dimension>& dims, const std::vector<char>& known,
+                                   const std::vector<FunctionDecl>& library)
+    : file_(file), diags_(diags), sheet_(sheet), dims_(dims), known_(known), library_(library) {}
 
 namespace {
 const char* const kTemperatureFix =
@@ -354,11 +352,13 @@ bool DimensionChecker::checkCall(Expr& e) {
     }
     return false;
   }
-  const FunctionDecl* f = findFunction(e.text);
+  const FunctionDecl* f = nullptr;
+  for (const FunctionDecl& d : library_)
+    if (d.name == e.text) f = &d;
   if (!f) {
     std::vector<std::string> names;
     for (const MathFunction& m : mathFunctions()) names.push_back(m.name);
-    for (const FunctionDecl& d : functionLibrary()) names.push_back(d.name);
+    for (const FunctionDecl& d : library_) names.push_back(d.name);
     std::string msg = "unknown function `" + e.text + "`";
     auto near = nearestWords(e.text, names);
     if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";

@@ -8,6 +8,7 @@
 #include "engine/sheet/diagnostics.h"
 #include "engine/sheet/expr.h"
 #include "engine/sheet/sheet.h"
+#include "functions/function_decl.h"
 
 namespace calctrail {
 
@@ -16,7 +17,8 @@ class DimensionChecker {
   // dims[i]/known[i]: the dimension of quantity i, and whether it has one
   // (a quantity whose own formula failed has none; its users stay quiet).
   DimensionChecker(const SourceFile& file, Diagnostics* diags, const Sheet& sheet,
-                   const std::vector<Dimension>& dims, const std::vector<char>& known);
+                   const std::vector<Dimension>& dims, const std::vector<char>& known,
+                   const std::vector<FunctionDecl>& library = functionLibrary());
 
   // True when the formula is consistent. False after reporting the first
   // problem, or quietly when a quantity it uses has no dimension.
@@ -34,6 +36,7 @@ class DimensionChecker {
   const Sheet& sheet_;
   const std::vector<Dimension>& dims_;
   const std::vector<char>& known_;
+  const std::vector<FunctionDecl>& library_;  // the drive functions a call may name
 };
 
 // Adding an angle to a plain number (or rad/s to 1/s) is allowed, with a
@@ -62,7 +65,8 @@ std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet);
 // absolute, [ddegC] a difference, [K] either), else its formula.
 TemperatureKind temperatureKind(const Quantity& q);
 
-// The value of an expression made of numbers, pi and arithmetic only.
+// The value of an expression made of numbers, pi and arithmetic only
+// (no names, no calls); false when it has none or it is not finite.
 bool constantValue(const Expr& e, double* value);
 
 }  // namespace calctrail

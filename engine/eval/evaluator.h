@@ -1,17 +1,15 @@
-// Runs compiled programs with muparser. One parser instance holds the math
-// and library functions; each formula is set and evaluated once per run, with
-// its inputs bound to slots (see docs/performance.md for why one instance).
+// One-shot evaluation of compiled programs over a value array: a single
+// arithmetic parser whose program is set per call. Kept for the stage
+// benchmark (engine/calculation_perftest.cc), which times the stages one by
+// one; the engine evaluates through engine/model/evaluate.h, which sets each
+// program once and evaluates it many times.
 #pragma once
 
 #include <memory>
-#include <string>
 #include <vector>
 
+#include "engine/eval/arithmetic.h"
 #include "engine/eval/program.h"
-
-namespace mu {
-class Parser;
-}
 
 namespace calctrail {
 
@@ -28,12 +26,13 @@ class Evaluator {
   // the text (an internal error: generated text is always valid).
   double run(const Program& program, const std::vector<double>& values);
 
-  // muparser refuses expressions longer than 20000 characters.
-  static constexpr size_t kMaxProgramLength = 19000;
+  static constexpr size_t kMaxProgramLength = calctrail::kMaxProgramLength;
 
  private:
-  std::unique_ptr<mu::Parser> parser_;
+  ArithmeticParser parser_;
+  LibraryCallStore calls_;
   std::vector<double> slots_;
+  std::vector<double*> addresses_;
 };
 
 }  // namespace calctrail

@@ -1,12 +1,10 @@
 #include "engine/eval/program.h"
 
 #include <algorithm>
-#include <cmath>
 #include <cstdio>
 
 #include "engine/eval/math_functions.h"
-#include "engine/eval/tree_eval.h"
-#include "functions/function_decl.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail {
 
@@ -15,27 +13,30 @@ namespace {
 void appendNumber(double v, std::string* out) {
   char buf[40];
   std::snprintf(buf, sizeof buf, "%.17g", v);  // round-trips every double exactly
+  if (v < 0) *out += '(';
   *out += buf;
+  if (v < 0) *out += ')';
+}
+
+const FunctionDecl* findIn(const std::vector<FunctionDecl>& library, const std::string& name) {
+  for (const FunctionDecl& d : library)
+    if (d.name == name) return &d;
+  return nullptr;
 }
 
 struct Compiler {
   const Sheet& sheet;
+  const std::vector<FunctionDecl>& library;
   Program* program;
 
   void emit(const Expr& e, std::string* out) {
     switch (e.kind) {
-      case ExprKind::Number: {
-        const double v = e.siValue();
-        if (v < 0) *out += '(';
-        appendNumber(v, out);
-        if (v < 0) *out += ')';
-        return;
-      }
-      case ExprKind::Pi: appendNumber(M_PI, out); return;
+      case ExprKind::Number: appendNumber(e.siValue(), out); return;
+      case ExprKind::Pi: appendNumber(kPi, out); return;
       case ExprKind::Name: {
         const int q = sheet.find(e.text);
         auto it = std::find(program->inputs.begin(), program->inputs.end(), q);
-        size_t slot = static_cast<size_t>(it - program->inputs.begin());
+        const size_t slot = static_cast<size_t>(it - program->inputs.begin());
         if (it == program->inputs.end()) program->inputs.push_back(q);
         *out += 'v';
         *out += std::to_string(slot);
@@ -47,39 +48,7 @@ struct Compiler {
         emit(*e.args[0], out);
         *out += "))";
         return;
-      case ExprKind::Call: {
-        const MathFunction* m = findMathFunction(e.text);
-        const FunctionDecl* f = m ? nullptr : findFunction(e.text);
-        if (f && f->args.empty()) {
-          // A constant of the library (a flank angle): muparser callbacks need an argument.
-          const double v = resultFromLibrary(f->eval(nullptr), f->result_per_revolution);
-          if (v < 0) *out += '(';
-          appendNumber(v, out);
-          if (v < 0) *out += ')';
-          return;
-        }
-        const bool result_per_rev = f && f->result_per_revolution;
-        if (result_per_rev) *out += '(';
-        *out += m ? m->muparser_name : f->name.c_str();
-        *out += '(';
-        for (size_t i = 0; i < e.args.size(); ++i) {
-          if (i) *out += ',';
-          const bool scale = f && f->args[i].per_revolution && e.args[i]->dim.exponent(Base::Angle) == -1;
-          if (scale) *out += '(';
-          emit(*e.args[i], out);
-          if (scale) {
-            *out += ")*";
-            appendNumber(2 * M_PI, out);  // per radian -> per revolution
-          }
-        }
-        *out += ')';
-        if (result_per_rev) {
-          *out += '/';
-          appendNumber(2 * M_PI, out);
-          *out += ')';
-        }
-        return;
-      }
+      case ExprKind::Call: call(e, out); return;
       default: break;
     }
     const char* op = e.kind == ExprKind::Add        ? "+"
@@ -93,14 +62,46 @@ struct Compiler {
     emit(*e.args[1], out);
     *out += ')';
   }
+
+  void call(const Expr& e, std::string* out) {
+    if (const MathFunction* m = findMathFunction(e.text)) {
+      program->math |= 1u << (m - mathFunctions().data());
+      *out += m->name;
+    } else {
+      const FunctionDecl* f = findIn(library, e.text);
+      std::vector<Dimension> dims;
+      for (const ExprPtr& a : e.args) dims.push_back(a->dim);
+      const LibraryCall c = LibraryCall::at(*f, dims);
+      if (f->args.empty()) {
+        // A constant of the library (a flank angle): muparser callbacks need an argument.
+        appendNumber(c(nullptr, 0), out);
+        return;
+      }
+      if (std::find(program->calls.begin(), program->calls.end(), c) == program->calls.end())
+        program->calls.push_back(c);
+      *out += c.compiledName();
+    }
+    *out += '(';
+    for (size_t i = 0; i < e.args.size(); ++i) {
+      if (i) *out += ',';
+      emit(*e.args[i], out);
+    }
+    *out += ')';
+  }
 };
 
 }  // namespace
 
-Program compileProgram(const Expr& e, const Sheet& sheet) {
+Program compileProgram(const Expr& e, const Sheet& sheet, const std::vector<FunctionDecl>& library) {
   Program p;
-  Compiler c{sheet, &p};
+  Compiler c{sheet, library, &p};
   c.emit(e, &p.text);
+  // A lone name or literal needs no arithmetic: the evaluation reads it directly.
+  const Expr* x = &e;
+  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  p.reads_one = x->kind == ExprKind::Name;
+  p.is_constant = x->kind == ExprKind::Number;
+  if (p.is_constant) p.constant = x->siValue();
   return p;
 }
 

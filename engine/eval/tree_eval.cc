@@ -4,17 +4,9 @@
 #include <vector>
 
 #include "engine/eval/math_functions.h"
-#include "functions/function_decl.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail {
-
-double argumentToLibrary(double si, bool per_revolution, const Dimension& given) {
-  return per_revolution && given.exponent(Base::Angle) == -1 ? si * 2 * M_PI : si;
-}
-
-double resultFromLibrary(double value, bool per_revolution) {
-  return per_revolution ? value / (2 * M_PI) : value;
-}
 
 namespace {
 
@@ -27,6 +19,7 @@ std::string num(double v) {
 struct Interpreter {
   const NameValue& value_of;
   EvalFault* fault;
+  const std::vector<FunctionDecl>& library;
 
   double failAt(const Expr& e, std::string message) {
     if (!fault->node) {
@@ -40,7 +33,7 @@ struct Interpreter {
     if (fault->node) return NAN;
     switch (e.kind) {
       case ExprKind::Number: return e.siValue();
-      case ExprKind::Pi: return M_PI;
+      case ExprKind::Pi: return kPi;
       case ExprKind::Name: {
         const double v = value_of(e);
         if (!std::isfinite(v)) return failAt(e, "`" + e.text + "` has no value");
@@ -65,7 +58,8 @@ struct Interpreter {
         break;
       case ExprKind::Power:
         if (a < 0 && b != std::floor(b))
-          return failAt(e, "a negative base (" + num(a) + ") to a fractional power (" + num(b) + ") has no real value");
+          return failAt(e, "a negative base (" + num(a) + ") to a fractional power (" + num(b) +
+                               ") has no real value");
         if (a == 0 && b < 0) return failAt(e, "zero to a negative power is a division by zero");
         r = std::pow(a, b);
         break;
@@ -82,25 +76,28 @@ struct Interpreter {
     if (const MathFunction* m = findMathFunction(e.text)) {
       const double x = args[0];
       const std::string name = e.text;
+      long quarter_turns;
       if (name == "sqrt" && x < 0) return failAt(e, "sqrt of a negative value (" + num(x) + " in SI units)");
       if ((name == "asin" || name == "acos") && (x < -1 || x > 1))
         return failAt(e, name + " of " + num(x) + ", outside [-1, 1]");
       if ((name == "ln" || name == "log10") && x <= 0)
         return failAt(e, name + " of " + num(x) + ": the logarithm needs a value above 0");
-      if (name == "tan" && std::fabs(std::cos(x)) < 1e-15)
+      if (name == "tan" && multipleOfRightAngle(x, &quarter_turns) && quarter_turns % 2 != 0)
         return failAt(e, "tan of an odd multiple of 90 deg is infinite");
       const double r = applyMath(*m, args.data(), static_cast<int>(args.size()));
       if (!std::isfinite(r)) return failAt(e, name + " overflows the range of numbers");
       return r;
     }
-    const FunctionDecl* f = findFunction(e.text);
+    const FunctionDecl* f = nullptr;
+    for (const FunctionDecl& d : library)
+      if (d.name == e.text) f = &d;
     if (!f || !f->eval) return failAt(e, "unknown function `" + e.text + "`");
-    for (size_t i = 0; i < args.size(); ++i)
-      args[i] = argumentToLibrary(args[i], f->args[i].per_revolution, e.args[i]->dim);
+    std::vector<Dimension> dims;
+    for (const ExprPtr& a : e.args) dims.push_back(a->dim);
     try {
-      const double r = f->eval(args.data());
+      const double r = LibraryCall::at(*f, dims)(args.data(), static_cast<int>(args.size()));
       if (!std::isfinite(r)) return failAt(e, "`" + f->name + "` gives no finite value for these inputs");
-      return resultFromLibrary(r, f->result_per_revolution);
+      return r;
     } catch (const DomainError& err) {
       const Expr& at = err.arg() >= 0 && err.arg() < static_cast<int>(e.args.size()) ? *e.args[err.arg()] : e;
       return failAt(at, "`" + f->name + "`: " + err.what());
@@ -110,8 +107,9 @@ struct Interpreter {
 
 }  // namespace
 
-double evalTree(const Expr& e, const NameValue& value_of, EvalFault* fault) {
-  Interpreter in{value_of, fault};
+double evalTree(const Expr& e, const NameValue& value_of, EvalFault* fault,
+                const std::vector<FunctionDecl>& library) {
+  Interpreter in{value_of, fault, library};
   const double v = in.eval(e);
   return fault->node ? NAN : v;
 }

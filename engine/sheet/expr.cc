@@ -2,6 +2,21 @@
 
 namespace calctrail {
 
+ExprPtr cloneExpr(const Expr& e) {
+  auto c = std::make_unique<Expr>();
+  c->kind = e.kind;
+  c->begin = e.begin;
+  c->end = e.end;
+  c->text = e.text;
+  c->number = e.number;
+  c->unit_written = e.unit_written;
+  if (e.unit) c->unit = std::make_unique<Unit>(*e.unit);
+  c->args.reserve(e.args.size());
+  for (const ExprPtr& a : e.args) c->args.push_back(cloneExpr(*a));
+  c->dim = e.dim;
+  return c;
+}
+
 void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
   if (e.kind == ExprKind::Name) fn(e);
   for (const ExprPtr& a : e.args) forEachName(*a, fn);

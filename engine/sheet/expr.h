@@ -52,6 +52,9 @@ struct Expr {
 };
 using ExprPtr = std::unique_ptr<Expr>;
 
+// A deep copy of `e`, every member included (a --set tree shown in a sheet).
+ExprPtr cloneExpr(const Expr& e);
+
 // Calls fn on every Name node, in source order.
 void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn);
 

@@ -1,0 +1,48 @@
+// The boundary between a formula and a drive function, and the one place the
+// per-revolution rule lives. A lead written per angle ([mm/rev], stored in
+// metres per radian) reaches the function in metres per revolution, and a
+// lead the function returns per revolution is stored per radian, so that
+// rpm * lead is a speed with no 2*pi lost. Which arguments are converted is
+// fixed per call site when the formula is compiled (from the argument's
+// dimension), so the arithmetic, the explaining interpreter and the trail
+// all call through here and agree.
+#pragma once
+
+#include <cstdint>
+#include <string>
+#include <vector>
+
+#include "engine/units/dimension.h"
+#include "functions/function_decl.h"
+
+namespace calctrail {
+
+struct LibraryCall {
+  /// The function called.
+  const FunctionDecl* decl = nullptr;
+  /// Bit k set: argument k is a length per angle, passed per revolution.
+  uint32_t per_angle_args = 0;
+
+  // The call site's conversions, from the dimensions of its arguments.
+  static LibraryCall at(const FunctionDecl& decl, const std::vector<Dimension>& arg_dims);
+
+  // SI values in, SI value out, with the per-revolution conversions. Throws
+  // DomainError like FunctionDecl::eval. `n` is the number of arguments.
+  double operator()(const double* args, int n) const;
+
+  // The name the compiled text calls it by: the function's own name, with a
+  // suffix when any argument is converted ("lead_angle__r2"), so that each
+  // variant is one muparser function.
+  std::string compiledName() const;
+
+  friend bool operator==(const LibraryCall& a, const LibraryCall& b) {
+    return a.decl == b.decl && a.per_angle_args == b.per_angle_args;
+  }
+};
+
+// Kept for the trail, which shows what a function sees: one argument's value
+// as passed, and a result as stored. Both apply the rule above.
+double argumentToLibrary(double si, bool per_revolution, const Dimension& given);
+double resultFromLibrary(double value, bool per_revolution);
+
+}  // namespace calctrail

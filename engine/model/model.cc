@@ -1,0 +1,354 @@
+#include "engine/model/model.h"
+
+#include <algorithm>
+#include <unordered_map>
+
+#include "engine/eval/arithmetic.h"
+#include "engine/eval/dimension_check.h"
+#include "engine/eval/math_functions.h"
+#include "engine/units/unit_table.h"
+#include "engine/util/edit_distance.h"
+
+namespace calctrail {
+
+const Unit* unitAsWritten(const Expr& e) {
+  const Expr* x = &e;
+  while (x->kind == ExprKind::Negate || x->kind == ExprKind::Group) x = x->args[0].get();
+  return x->kind == ExprKind::Number ? x->unit.get() : nullptr;
+}
+
+Dimension quantityDimension(const Dimension& formula_dim) {
+  return workOrPower(formula_dim) ? formula_dim.withoutAngle() : formula_dim;  // N*m*rad/s is W
+}
+
+std::string tooLongMessage(const std::string& what, size_t length) {
+  return what + " is too long to compile (" + std::to_string(length) +
+         " characters once units are folded in, at most " + std::to_string(kMaxProgramLength) +
+         "); split it into named steps";
+}
+
+bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim,
+                      Diagnostics* diags) {
+  const UnitFit fit = fitUnit(dim, q.display->dim);
+  if (fit == UnitFit::Incompatible) {
+    diags->error(sheet_file, q.unit_begin, q.unit_end,
+                 "`" + q.name + "` is declared in [" + q.unit_written + "], " + q.display->dim.describe() +
+                     ", but its formula gives " + dim.describe());
+    return false;
+  }
+  if (fit == UnitFit::AngleWarning) {
+    // Showing the value would put a number off by 2*pi on the page
+    // (a lead per revolution shown in plain mm, rpm*lead in m/s): refuse,
+    // and say how to write it.
+    std::string msg = "`" + q.name + "` is declared in [" + q.unit_written + "], " +
+                      q.display->dim.describe() + ", but its formula gives " + dim.describe() +
+                      ": they differ by an angle, so the number shown would be off by 2*pi";
+    const std::string why = strayAngleWarning(q.name, dim);
+    if (!why.empty())
+      msg += "; " + why.substr(why.find("): ") + 3);
+    else if (dim.exponent(Base::Angle) < 0)
+      msg += "; declare it per revolution, as in [mm/rev], or write `1 [rev]` where a plain 2*pi stands";
+    else
+      msg += "; declare the unit with its angle, as in [rpm] or [rad/s]";
+    diags->error(sheet_file, q.unit_begin, q.unit_end, msg);
+    return false;
+  }
+  return true;
+}
+
+std::unique_ptr<const Model> Model::build(Sheet sheet, Diagnostics* diags,
+                                          const std::vector<FunctionDecl>& library) {
+  std::unique_ptr<Model> m(new Model());
+  m->owned_ = std::make_unique<Sheet>(std::move(sheet));
+  m->sheet_ = m->owned_.get();
+  m->library_ = &library;
+  m->run(diags);
+  return m;
+}
+
+std::unique_ptr<const Model> Model::borrow(Sheet* sheet, Diagnostics* diags,
+                                           const std::vector<FunctionDecl>& library) {
+  std::unique_ptr<Model> m(new Model());
+  m->sheet_ = sheet;
+  m->library_ = &library;
+  m->run(diags);
+  return m;
+}
+
+void Model::run(Diagnostics* diags) {
+  const size_t n = sheet_->quantities.size();
+  slots_.resize(n);
+  checks_.resize(sheet_->checks.size());
+  dims_.assign(n, Dimension());
+  known_.assign(n, 0);
+  unresolved_.assign(n, 0);
+  exprs_.reserve(n);
+  for (const Quantity& q : sheet_->quantities) exprs_.push_back(q.expr.get());
+  resolveNames(diags);
+  orderAndFindCycles(diags);
+  checkDimensions(diags);
+  checkChecks(diags);
+  compile(diags);
+}
+
+Slot Model::find(const std::string& name) const {
+  const int i = sheet_->find(name);
+  return i < 0 ? Slot() : Slot(static_cast<uint32_t>(i));
+}
+
+namespace {
+std::vector<std::string> quantityNames(const Sheet& sheet) {
+  std::vector<std::string> names;
+  names.reserve(sheet.quantities.size());
+  for (const Quantity& q : sheet.quantities) names.push_back(q.name);
+  return names;
+}
+
+bool isLibraryFunction(const std::vector<FunctionDecl>& library, const std::string& name) {
+  for (const FunctionDecl& d : library)
+    if (d.name == name) return true;
+  return false;
+}
+
+}  // namespace
+
+std::string unknownNameMessage(const std::string& name, const std::vector<std::string>& names,
+                               const std::vector<FunctionDecl>& library) {
+  std::string msg = "unknown name `" + name + "`";
+  auto near = nearestWords(name, names);
+  if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
+  if (findUnit(name)) {
+    msg += " (`" + name + "` is a unit: a unit follows a number, as in `2 " + name +
+           "`, and a compound unit goes in brackets, as in `3 [mm/" + name + "]`)";
+  } else if (findMathFunction(name) || isLibraryFunction(library, name)) {
+    msg += " (`" + name + "` is a function: call it as `" + name + "(...)`)";
+  } else if (near.empty()) {
+    msg += "; define it with `" + name + " = ...`";
+  }
+  return msg;
+}
+
+namespace {
+bool hasCall(const Expr& e) {
+  if (e.kind == ExprKind::Call) return true;
+  for (const ExprPtr& a : e.args)
+    if (hasCall(*a)) return true;
+  return false;
+}
+}  // namespace
+
+void Model::resolveNames(Diagnostics* diags) {
+  const int n = static_cast<int>(sheet_->quantities.size());
+  graph_ = std::make_unique<DependencyGraph>(n);
+  // Suggestions cost a pass over every name: built on the first unknown name,
+  // kept per distinct name, and given for the first few dozen names only, so
+  // a sheet full of unknown names still reports in linear time.
+  std::vector<std::string> names;
+  std::unordered_map<std::string, std::string> messages;
+  const std::vector<std::string> no_names;
+  auto unknown = [&](const SourceFile& file, const Expr& e) {
+    auto it = messages.find(e.text);
+    if (it == messages.end()) {
+      if (names.empty()) names = quantityNames(*sheet_);
+      it =
+          messages
+              .emplace(e.text, unknownNameMessage(e.text, messages.size() < 50 ? names : no_names, *library_))
+              .first;
+    }
+    diags->error(file, e.begin, e.end, it->second);
+  };
+  for (int i = 0; i < n; ++i) {
+    const Quantity& q = sheet_->quantities[i];
+    bool any_name = false;
+    forEachName(*q.expr, [&](const Expr& e) {
+      any_name = true;
+      const int j = sheet_->find(e.text);
+      if (j < 0) {
+        unknown(*sheet_->file, e);
+        unresolved_[i] = 1;
+      } else {
+        graph_->addUse(i, j);
+      }
+    });
+    slots_[i].input = !any_name && !hasCall(*q.expr);
+  }
+  for (const Check& c : sheet_->checks) {
+    for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
+      forEachName(*side, [&](const Expr& e) {
+        if (sheet_->find(e.text) < 0) unknown(*sheet_->file, e);
+      });
+    }
+  }
+}
+
+void Model::orderAndFindCycles(Diagnostics* diags) {
+  std::vector<std::vector<int>> cycles;
+  const std::vector<int> order = graph_->order(&cycles);
+  order_.reserve(order.size());
+  rank_.assign(sheet_->quantities.size(), static_cast<uint32_t>(sheet_->quantities.size()));
+  for (int i : order) {
+    rank_[i] = static_cast<uint32_t>(order_.size());
+    order_.push_back(Slot(static_cast<uint32_t>(i)));
+  }
+  for (const std::vector<int>& cycle : cycles) {
+    const Quantity& first = sheet_->quantities[cycle[0]];
+    std::string loop;
+    for (int v : cycle) loop += sheet_->quantities[v].name + " -> ";
+    loop += first.name;
+    std::string msg;
+    if (cycle.size() == 1) {
+      msg = "`" + first.name + "` uses itself: " + loop + "; a quantity cannot depend on its own value";
+    } else {
+      msg = "a cycle: " + loop + " (" + std::to_string(cycle.size()) +
+            " quantities depend on each other; each needs the others' values first)";
+    }
+    diags->error(*sheet_->file, first.name_begin, first.name_end, msg);
+  }
+}
+
+void Model::checkDimensions(Diagnostics* diags) {
+  // The model owns its sheet: the check fills Expr::dim here, while the model
+  // is being built, and nothing writes into the tree afterwards.
+  for (Slot slot : order_) {
+    const uint32_t i = slot.index();
+    Quantity& q = sheet_->quantities[i];
+    SlotInfo& s = slots_[i];
+    if (unresolved_[i]) continue;  // reported already: keep it and its users quiet
+    DimensionChecker checker(*sheet_->file, diags, *sheet_, dims_, known_, *library_);
+    if (!checker.check(*q.expr)) continue;
+    s.dim = quantityDimension(q.expr->dim);
+    s.has_dim = true;
+    dims_[i] = s.dim;
+    known_[i] = 1;
+    if (q.display) {
+      s.declared = true;
+      s.display = *q.display;
+      if (!fitsDeclaredUnit(q, *sheet_->file, s.dim, diags)) {
+        known_[i] = 0;
+        s.has_dim = false;
+      }
+    } else {
+      const Unit* written = unitAsWritten(*q.expr);
+      s.display = written ? *written : preferredUnit(s.dim);
+      const std::string w = strayAngleWarning(q.name, s.dim);
+      if (!w.empty()) diags->warning(*sheet_->file, q.name_begin, q.name_end, w);
+    }
+  }
+}
+
+void Model::checkChecks(Diagnostics* diags) {
+  for (size_t k = 0; k < sheet_->checks.size(); ++k) {
+    Check& c = sheet_->checks[k];
+    CheckInfo& s = checks_[k];
+    bool unknown = false;
+    for (const Expr* side : {c.lhs.get(), c.rhs.get()})
+      forEachName(*side, [&](const Expr& e) { unknown |= sheet_->find(e.text) < 0; });
+    if (unknown) continue;
+    DimensionChecker checker(*sheet_->file, diags, *sheet_, dims_, known_, *library_);
+    if (!checker.check(*c.lhs) || !checker.check(*c.rhs)) continue;
+    bool incompatible;
+    const std::string warning = compareForSum(c.lhs->dim, c.rhs->dim, &incompatible);
+    const uint32_t op_end = c.op_begin + static_cast<uint32_t>(std::string(comparisonText(c.op)).size());
+    if (incompatible) {
+      diags->error(
+          *sheet_->file, c.op_begin, op_end,
+          "the check `" + c.name + "` compares " + c.lhs->dim.describe() + " with " + c.rhs->dim.describe());
+      continue;
+    }
+    if (!warning.empty())
+      diags->warning(*sheet_->file, c.op_begin, op_end, "the check `" + c.name + "` " + warning);
+    s.has_dim = true;
+    s.dim = c.lhs->dim;
+    // Show both sides in the unit of the quantity (or literal) the check names first.
+    const Unit* unit = nullptr;
+    for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
+      const Expr* x = side;
+      while (x->kind == ExprKind::Group || x->kind == ExprKind::Negate) x = x->args[0].get();
+      if (x->kind == ExprKind::Name && slots_[sheet_->find(x->text)].has_dim) {
+        unit = &slots_[sheet_->find(x->text)].display;
+        break;
+      }
+      if (!unit && x->kind == ExprKind::Number && x->unit) unit = x->unit.get();
+    }
+    s.display = unit && fitUnit(s.dim, unit->dim) != UnitFit::Incompatible ? *unit : preferredUnit(s.dim);
+  }
+}
+
+void Model::compile(Diagnostics* diags) {
+  for (Slot slot : order_) {
+    SlotInfo& s = slots_[slot.index()];
+    if (!s.has_dim) continue;
+    const Quantity& q = sheet_->quantities[slot.index()];
+    Program p = compileProgram(*q.expr, *sheet_, *library_);
+    if (p.text.size() > kMaxProgramLength) {
+      diags->error(*sheet_->file, q.expr->begin, q.expr->end,
+                   tooLongMessage("`" + q.name + "`", p.text.size()));
+      continue;
+    }
+    s.formula = std::move(p);
+  }
+  for (size_t k = 0; k < sheet_->checks.size(); ++k) {
+    CheckInfo& s = checks_[k];
+    if (!s.has_dim) continue;
+    const Check& c = sheet_->checks[k];
+    s.lhs = compileProgram(*c.lhs, *sheet_, *library_);
+    s.rhs = compileProgram(*c.rhs, *sheet_, *library_);
+    bool fits = true;
+    for (const auto& side : {std::make_pair(&s.lhs, c.lhs.get()), std::make_pair(&s.rhs, c.rhs.get())}) {
+      if (side.first->text.size() <= kMaxProgramLength) continue;
+      // The same limit as a formula's, said the same way (not "not a finite number").
+      diags->error(*sheet_->file, side.second->begin, side.second->end,
+                   tooLongMessage("a side of the check `" + c.name + "`", side.first->text.size()));
+      fits = false;
+    }
+    if (!fits) {
+      s.lhs = Program();
+      s.rhs = Program();
+      continue;
+    }
+    s.compiled = true;
+    for (const Program* p : {&s.lhs, &s.rhs})
+      for (int j : p->inputs) {
+        const Slot r(static_cast<uint32_t>(j));
+        if (std::find(s.reads.begin(), s.reads.end(), r) == s.reads.end()) s.reads.push_back(r);
+      }
+  }
+}
+
+std::vector<Slot> Model::downstream(const std::vector<Slot>& slots) const {
+  std::vector<char> in(slots_.size(), 0);
+  std::vector<Slot> cone;
+  std::vector<int> stack;
+  for (Slot s : slots) {
+    if (in[s.index()]) continue;
+    in[s.index()] = 1;
+    stack.push_back(static_cast<int>(s.index()));
+    while (!stack.empty()) {  // iterative: a 100k-long chain cannot overflow the stack
+      const int i = stack.back();
+      stack.pop_back();
+      cone.push_back(Slot(static_cast<uint32_t>(i)));
+      for (int u : graph_->usedBy(i))
+        if (!in[u]) in[u] = 1, stack.push_back(u);
+    }
+  }
+  std::sort(cone.begin(), cone.end(), [&](Slot a, Slot b) { return rank_[a.index()] < rank_[b.index()]; });
+  return cone;
+}
+
+size_t Model::compiledBytes() const {
+  size_t bytes = slots_.capacity() * sizeof(SlotInfo) + checks_.capacity() * sizeof(CheckInfo);
+  auto program = [](const Program& p) {
+    return p.text.capacity() + p.inputs.capacity() * sizeof(int) + p.calls.capacity() * sizeof(LibraryCall);
+  };
+  for (const SlotInfo& s : slots_) bytes += program(s.formula) + s.display.text.capacity();
+  for (const CheckInfo& c : checks_)
+    bytes += program(c.lhs) + program(c.rhs) + c.reads.capacity() * sizeof(Slot);
+  bytes += order_.capacity() * sizeof(Slot) + rank_.capacity() * sizeof(uint32_t);
+  bytes += dims_.capacity() * sizeof(Dimension) + known_.capacity() + unresolved_.capacity();
+  for (int i = 0; i < graph_->size(); ++i)
+    bytes += (graph_->uses(i).capacity() + graph_->usedBy(i).capacity()) * sizeof(int) +
+             2 * sizeof(std::vector<int>);
+  return bytes;
+}
+
+}  // namespace calctrail
