@@ -1,0 +1,2 @@
+" calctrail worksheets: *.calc files (docs/editors/README.md).
+autocmd BufRead,BufNewFile *.calc setfiletype calc
