@@ -226,3 +226,78 @@ TEST_CASE("expr parser: a control character in the range is an error at its plac
         "reports as it is; delete it (a TAB is the only one allowed)");
   CHECK(treeOf("a +\tb") == "(+ a b)");  // a TAB is a blank
 }
+
+TEST_CASE("expr parser: a compound unit written bare after a number shows the bracketed fix",
+          "[expr][hints]") {
+  CHECK(errorOf("40 N*m") == "4: `40 N*m` can be read two ways: write `40 [N*m]` for a value in N*m "
+                             "(a compound unit goes in brackets), or `40 N * m` if `m` is a quantity");
+  CHECK(errorOf("9.81 m/s^2") == "6: `9.81 m/s^2` can be read two ways: write `9.81 [m/s^2]` for a value "
+                                 "in m/s^2 (a compound unit goes in brackets), or `9.81 m / s^2` if `s` is "
+                                 "a quantity");
+  CHECK(errorOf("2 * 1.5 kg*m/s^2").find("write `1.5 [kg*m/s^2]`") != std::string::npos);
+  CHECK(errorOf("1.5 kg*m/s^2").find("`1.5 kg * m / s^2` if `m` and `s` are quantities") !=
+        std::string::npos);
+  CHECK(errorOf("40 N\u00B7m").find("write `40 [N*m]`") != std::string::npos);
+  CHECK(errorOf("3 lbf/in^2 + p").find("write `3 [lbf/in^2]`") != std::string::npos);
+  // With blanks it is a product, as fmt writes one; a name that is no unit is a quantity.
+  CHECK(treeOf("40 N * m") == "(* 40[N] m)");
+  CHECK(treeOf("2 kg*g_n") == "(* 2[kg] g_n)");
+  CHECK(treeOf("2 mm*3") == "(* 2[mm] 3)");
+  CHECK(treeOf("40 [N*m]") == "40[N*m]");
+}
+
+TEST_CASE("expr parser: an unknown unit of units run together suggests the bracketed literal",
+          "[expr][hints]") {
+  CHECK(errorOf("5 Nm") == "3: unknown unit `Nm`; did you mean `5 [N*m]`, `5 m` or `5 km`? (to multiply by a "
+                           "quantity named `Nm`, write `5*Nm`)");
+  CHECK(errorOf("3 kNm").find("did you mean `3 [kN*m]`") != std::string::npos);
+  CHECK(errorOf("10 Nmm").find("did you mean `10 [N*mm]`") != std::string::npos);
+  CHECK(errorOf("2 lbfin").find("did you mean `2 [lbf*in]`") != std::string::npos);
+  // Never a bare compound after a number, where it would not parse.
+  CHECK(errorOf("5 Nm").find("`N*m`") == std::string::npos);
+  // A unit the table has as such is not split.
+  CHECK(treeOf("2 kWh") == "2[kWh]");
+  // Inside brackets the suggestion is the unit itself.
+  CHECK(errorOf("5 [Nm]").find("did you mean `N*m`") != std::string::npos);
+}
+
+TEST_CASE("expr parser: a fraction before a unit is one number, never a reciprocal",
+          "[expr][hints]") {
+  auto value = [](const std::string& text) {
+    Parsed p = parse(text);
+    INFO(text << ": " << p.error);
+    REQUIRE(p.expr);
+    REQUIRE(p.expr->kind == ExprKind::Number);
+    return p.expr->siValue();
+  };
+  CHECK(treeOf("1/8 in") == "1/8[in]");
+  CHECK(value("1/8 in") == 0.125 * 0.0254);
+  CHECK(value("3/4 in") == 0.75 * 0.0254);
+  CHECK(value("1-1/2 in") == 1.5 * 0.0254);
+  CHECK(value("1/8in") == 0.125 * 0.0254);
+  CHECK(value("1/8 [in]") == 0.125 * 0.0254);
+  CHECK(value("1/2 %") == 0.005);
+  CHECK(treeOf("-1/8 in") == "(neg 1/8[in])");
+  CHECK(treeOf("2 * 1/8 in") == "(* 2 1/8[in])");
+  CHECK(treeOf("1/8 [in]^2") == "(^ 1/8[in] 2)");
+  CHECK(treeOf("x / (1/8 in)") == "(/ x (group 1/8[in]))");
+  // Without a unit: the division and subtraction they look like.
+  CHECK(treeOf("1/8") == "(/ 1 8)");
+  CHECK(treeOf("1-1/2") == "(- 1 (/ 1 2))");
+  CHECK(treeOf("1 / (8 in)") == "(/ 1 (group 8[in]))");
+  // Every other number over a number with a unit reads two ways.
+  CHECK(errorOf("1 / 8 in") == "3: `1 / 8 in` can be read two ways: write `1/8 in` (no blanks) for 1/8 of "
+                               "one in, or `1 / (8 in)` to divide 1 by 8 in");
+  CHECK(errorOf("1.5/2 in") == "4: `1.5/2 in` can be read two ways: write `1.5 in / 2` for 1.5/2 of one "
+                               "in, or `1.5 / (2 in)` to divide 1.5 by 2 in");
+  CHECK(errorOf("1/2.5 in").find("write `1 in / 2.5`") != std::string::npos);
+  CHECK(errorOf("-1 / 8 in").find("write `-1/8 in` (no blanks)") != std::string::npos);
+  CHECK(errorOf("L / 1/8 in") == "3: `L / 1/8 in` can be read two ways: write `L / (1/8 in)` to divide by "
+                                 "1/8 in, or put the parentheses where you mean them");
+  CHECK(errorOf("1/0 in") == "1: `1/0` divides by zero: the number under the `/` of a fraction cannot be 0");
+  CHECK(errorOf("1-1/2 %") == "1: `1-1/2 %` can be read two ways: write `(1 + 1/2) * 1 %` for 1 and "
+                              "1/2 %, or `1 - 1/2 %` for the difference (a mixed number needs a unit with a "
+                              "dimension, such as `1-1/2 in`)");
+  CHECK(errorOf("1-1/2 rev").find("`(1 + 1/2) * 1 rev`") != std::string::npos);
+  CHECK(errorOf("1/8 in^2").find("write `1/8 [in^2]`") != std::string::npos);
+}

@@ -7,6 +7,8 @@
 #include <cstdlib>
 #include <cstring>
 #include <dirent.h>
+#include <set>
+#include <sstream>
 #include <sys/stat.h>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -207,34 +209,84 @@ TEST_CASE("fmt: blank lines kept, line endings LF, one final newline", "[review]
   expectLayout("\xEF\xBB\xBFtitle: x\n", "title: x\n");
 }
 
-TEST_CASE("fmt: descriptions aligned per block of definitions and checks", "[review][fmt]") {
+TEST_CASE("fmt: descriptions stand in one column per section", "[review][fmt]") {
   // "CODE" padded so that its `#` stands at 0-based `column`.
   auto at = [](const std::string& code, int column, const std::string& description) {
     int width = 0;
     for (char c : code) width += (static_cast<unsigned char>(c) & 0xC0) != 0x80;
     return code + std::string(static_cast<size_t>(column - width), ' ') + "# " + description + "\n";
   };
-  // The column is the longest line of the block plus two, rounded up to a multiple of 8.
+  // The column is the longest line of the section plus two, rounded up to a multiple of 8.
   expectLayout("d = 40 mm # major diameter\np = 7 mm     # pitch\nd_m [mm] = d - p / 2 # mean\n",
                at("d = 40 mm", 24, "major diameter") + at("p = 7 mm", 24, "pitch") +
                    at("d_m [mm] = d - p / 2", 24, "mean"));
-  // Blank lines, comments, sections and notes start a new block; checks join one.
-  expectLayout("a = 1 # one\n\nlong_name_here [mm] = 2 mm # two\ncheck c: a < 2 # three\n# c\nb = 3 # four\n",
-               at("a = 1", 8, "one") + "\n" + at("long_name_here [mm] = 2 mm", 32, "two") +
-                   at("check c: a < 2", 32, "three") + "# c\n" + at("b = 3", 8, "four"));
-  expectLayout("a = 1 # one\nsection S\nbb = 22 # two\nnote N\nc = 3 # three\n",
-               at("a = 1", 8, "one") + "section S\n" + at("bb = 22", 16, "two") + "note N\n" + at("c = 3", 8, "three"));
+  // Blank lines, comments and notes inside a section do not start a new column; checks share it.
+  expectLayout("a = 1 # one\n\nlong_name_here [mm] = 2 mm # two\nnote N\ncheck c: a < 2 # three\n"
+               "# c\nb = 3 # four\n",
+               at("a = 1", 32, "one") + "\n" + at("long_name_here [mm] = 2 mm", 32, "two") + "note N\n" +
+                   at("check c: a < 2", 32, "three") + "# c\n" + at("b = 3", 32, "four"));
+  // A `section` line starts a new column; the lines before the first section have their own.
+  expectLayout("a = 1 # one\nsection S\nbb = 22 # two\n\nccc_long = 333 # three\nsection T\nc = 3 # four\n",
+               at("a = 1", 8, "one") + "section S\n" + at("bb = 22", 16, "two") + "\n" +
+                   at("ccc_long = 333", 16, "three") + "section T\n" + at("c = 3", 8, "four"));
   // Lines without a description do not widen the column.
   expectLayout("x = a_very_long_formula_name_without_words + 1\ny = 2 # two\n",
                "x = a_very_long_formula_name_without_words + 1\n" + at("y = 2", 8, "two"));
-  // A line too long for the cap gets two spaces and leaves the others alone.
+  // A line too long for the cap gets two spaces and leaves the others of its section alone.
   const std::string longer = "T [N*m] = torque_raise(F, d_m, l, f_high, alpha) + collar(F, f_c, d_c)";
-  expectLayout("f = 0.1 # friction\n" + longer + " # torque\n",
-               at("f = 0.1", 16, "friction") + longer + "  # torque\n");
+  expectLayout("f = 0.1 # friction\n\n" + longer + " # torque\n",
+               at("f = 0.1", 16, "friction") + "\n" + longer + "  # torque\n");
   // Descriptions are kept as written, a `#` inside them included; empty ones vanish.
   expectLayout("x = 1 ## odd\ny = 2 #\n", at("x = 1", 8, "# odd") + "y = 2\n");
   // Width counts characters, not bytes.
   expectLayout("\u03b7 = 0.5 # efficiency\nab = 1 # x\n", at("\u03b7 = 0.5", 16, "efficiency") + at("ab = 1", 16, "x"));
+}
+
+TEST_CASE("fmt: every demo worksheet has one description column per section", "[review][fmt]") {
+  for (const std::string& path : repositoryWorksheets()) {
+    INFO(path);
+    const std::string text = readFile(repoPath(path));
+    CHECK(fmt(text) == text);  // `fmt --check` passes
+    std::istringstream in(text);
+    std::string line;
+    std::set<size_t> columns;
+    auto closeSection = [&] {
+      CHECK(columns.size() <= 1);
+      columns.clear();
+    };
+    while (std::getline(in, line)) {
+      if (line.rfind("section ", 0) == 0) closeSection();
+      if (line.empty() || line[0] == '#' || line.rfind("note ", 0) == 0) continue;
+      const size_t hash = line.find("  # ");
+      if (hash == std::string::npos) continue;
+      // Past the cap a line keeps two spaces and has no column to share.
+      if (hash + 2 <= static_cast<size_t>(kDescriptionColumnCap)) columns.insert(hash + 2);
+    }
+    closeSection();
+  }
+}
+
+TEST_CASE("fmt: a fraction before a unit keeps its reading", "[review][fmt]") {
+  expectLayout("a=1/8 in\n", "a = 1/8 in\n");
+  expectLayout("a = 1/8 [in]\n", "a = 1/8 in\n");
+  expectLayout("a = 1-1/2  in\n", "a = 1-1/2 in\n");
+  expectLayout("a = -3/4 [in]^2\n", "a = -3/4 [in]^2\n");
+  expectLayout("a = 2*1/8 in + x / (1/8 in)\nx = 1 in\n", "a = 2 * 1/8 in + x / (1/8 in)\nx = 1 in\n");
+  expectLayout("r = 1 / (8 in)\nq = 1/8\n", "r = 1 / (8 in)\nq = 1 / 8\n");
+  // Parse, format, parse: the same values, bit for bit.
+  const std::string text = "a = 1/8 in\nb = 3/4 in\nc = 1-1/2 in\nd = -1/8 in\ne = 2 * 1/8 in\n"
+                           "f = 1 / (8 in)\ng = 5/8 %\nh = 1/2 [in/rev]\n";
+  auto before = calc(text);
+  auto after = calc(fmt(text));
+  REQUIRE_FALSE(before->hasErrors());
+  REQUIRE_FALSE(after->hasErrors());
+  expectSameNumbers(*before, *after);
+  CHECK(si(*before, "a") == 0.125 * 0.0254);
+  CHECK(si(*before, "b") == 0.75 * 0.0254);
+  CHECK(si(*before, "c") == 1.5 * 0.0254);
+  CHECK(si(*before, "d") == -0.125 * 0.0254);
+  CHECK(si(*before, "f") == Approx(1 / (8 * 0.0254)).epsilon(1e-15));
+  CHECK(si(*before, "g") == Approx(0.00625).epsilon(1e-15));
 }
 
 TEST_CASE("fmt: the description column never passes the cap", "[review][fmt]") {

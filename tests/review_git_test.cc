@@ -4,6 +4,7 @@
 #include <catch2/catch.hpp>
 
 #include <cstdlib>
+#include <sstream>
 #include <sys/stat.h>
 #include <sys/wait.h>
 
@@ -159,15 +160,15 @@ TEST_CASE("git diff with the calctrail diff driver shows moved results and the f
   REQUIRE(r.status == 0);
   CHECK(r.out.find("\n-f = 0.10                  # thread friction\n+f = 0.20                  # thread friction\n") !=
         std::string::npos);
-  CHECK(r.out.find("\n-#> T = 16.4711 N\u00b7m\n+#> T = 26.7062 N\u00b7m\n") != std::string::npos);
-  CHECK(r.out.find("\n-#> eta = ") != std::string::npos);
-  CHECK(r.out.find("\n-#> check torque: PASS  16.4711 N\u00b7m <= 20 N\u00b7m\n"
-                   "+#> check torque: FAIL  26.7062 N\u00b7m <= 20 N\u00b7m\n") != std::string::npos);
-  CHECK(r.out.find("\n-#> calctrail: 1 check, all PASS\n+#> calctrail: 1 check, 0 PASS, 1 FAIL (torque)\n") !=
+  CHECK(r.out.find("\n-#= T = 16.4711 N\u00b7m\n+#= T = 26.7062 N\u00b7m\n") != std::string::npos);
+  CHECK(r.out.find("\n-#= eta = ") != std::string::npos);
+  CHECK(r.out.find("\n-#= check torque: PASS  16.4711 N\u00b7m <= 20 N\u00b7m\n"
+                   "+#= check torque: FAIL  26.7062 N\u00b7m <= 20 N\u00b7m\n") != std::string::npos);
+  CHECK(r.out.find("\n-#= calctrail: 1 check, all PASS\n+#= calctrail: 1 check, 0 PASS, 1 FAIL (torque)\n") !=
         std::string::npos);
   // Without the driver, git shows the input line only.
   Run plain = shellIn(repo, "git diff HEAD~1 HEAD -- ws/lift.calc");
-  CHECK(plain.out.find("#> T = ") == std::string::npos);
+  CHECK(plain.out.find("#= T = ") == std::string::npos);
   // With a section heading as the hunk header, as docs/review.md sets it up.
   Run headed = shellIn(repo, "git " + driver + " -c diff.calctrail.xfuncname='^section .*$' diff HEAD~1 HEAD");
   CHECK(headed.out.find(" @@ section Screw\n") != std::string::npos);
@@ -193,11 +194,37 @@ TEST_CASE("textconv of a worksheet with errors still gives git a text", "[review
   writeFile(dir + "/bad.calc", "a = 1 m\nb = a + 1 s\n");
   Run r = runCliIn(dir, "textconv bad.calc");
   CHECK(r.status == 0);
-  CHECK(r.out == "#> calctrail: 1 error, nothing calculated\na = 1 m\nb = a + 1 s\n#> error: cannot add time (s) to length (mm)\n");
+  CHECK(r.out == "#= calctrail: 1 error, nothing calculated\na = 1 m\nb = a + 1 s\n#= error: cannot add time (s) to length (mm)\n");
   CHECK(runCliIn(dir, "textconv missing.calc").status == 2);
 }
 
 TEST_CASE("the repository declares the diff driver for worksheets", "[review][git]") {
   const std::string attributes = readFile(repoPath(".gitattributes"));
   CHECK(attributes.find("*.calc diff=calctrail\n") != std::string::npos);
+}
+
+TEST_CASE("textconv marks its lines with #=, and its text is still the same worksheet",
+          "[review][git][hints]") {
+  const std::string dir = tempDir();
+  const std::string sheet = readFile(repoPath("worksheets/canal-gate-hoist.calc"));
+  writeFile(dir + "/gate.calc", sheet);
+  Run r = runCliIn(dir, "textconv gate.calc");
+  REQUIRE(r.status == 0);
+  CHECK(r.out.rfind("#= calctrail: 6 checks, all PASS\n", 0) == 0);
+  CHECK(r.out.find("\n#= T_raise = 84.416 N\u00b7m\n") != std::string::npos);
+  CHECK(r.out.find("\n#= check motor_power: PASS  0.76888 kW <= 1.1 kW\n") != std::string::npos);
+  CHECK(r.out.find("#>") == std::string::npos);
+  // Every line textconv adds starts with the mark; the others are the worksheet's, in order.
+  std::istringstream added(r.out);
+  std::string line, rest;
+  while (std::getline(added, line))
+    if (line.rfind("#= ", 0) != 0) rest += line + "\n";
+  CHECK(rest == sheet);
+  // To calctrail the marked lines are comments: the text checks as the worksheet does.
+  writeFile(dir + "/annotated.calc", r.out);
+  Run original = runCliIn(dir, "check gate.calc");
+  Run annotated = runCliIn(dir, "check annotated.calc");
+  CHECK(annotated.status == original.status);
+  CHECK(annotated.err == original.err);
+  CHECK(annotated.out == original.out);
 }

@@ -262,3 +262,23 @@ TEST_CASE("unit parser: random input never crashes", "[units][parser]") {
   }
   CHECK(accepted > 0);
 }
+
+TEST_CASE("unit parser: units run together, split into known units", "[units][parser][hints]") {
+  CHECK(runTogetherUnits("Nm") == std::vector<std::string>{"N*m"});
+  CHECK(runTogetherUnits("kNm") == std::vector<std::string>{"kN*m"});
+  CHECK(runTogetherUnits("Nmm") == std::vector<std::string>{"N*mm"});
+  CHECK(runTogetherUnits("lbfin") == std::vector<std::string>{"lbf*in"});
+  CHECK(runTogetherUnits("mkg").empty());  // a lone prefix letter is not split off: not m*kg
+  CHECK(runTogetherUnits("kWh").empty());  // a unit of its own
+  CHECK(runTogetherUnits("xyz").empty());
+  Unit u;
+  UnitError err;
+  REQUIRE_FALSE(parseUnit("Nm", &u, &err));
+  CHECK(err.message.rfind("unknown unit `Nm`; did you mean `N*m`", 0) == 0);
+  // After a number, the fixes are whole literals: a compound in brackets.
+  REQUIRE_FALSE(parseUnit("kNm", &u, &err, "3"));
+  CHECK(err.message.rfind("unknown unit `kNm`; did you mean `3 [kN*m]`, `3 km` or `3 kN`?", 0) == 0);
+  // A plural is a plural: "lbs" is pounds before it is lb*s.
+  REQUIRE_FALSE(parseUnit("lbs", &u, &err, "3"));
+  CHECK(err.message.rfind("unknown unit `lbs`; did you mean `3 lb` or `3 lbf`?", 0) == 0);
+}

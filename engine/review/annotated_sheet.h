@@ -2,7 +2,8 @@
 // the worksheet's own lines, each calculated quantity followed by its result
 // and each check by its state, all recalculated. A changed input then shows
 // in the diff together with every result it moved and every check it
-// flipped, each beside the line that defines it. Added lines start with "#>".
+// flipped, each beside the line that defines it. Added lines start with "#=":
+// a comment to calctrail, and read as "gives" beside the line above them.
 #pragma once
 
 #include <string>
@@ -11,7 +12,8 @@
 
 namespace calctrail {
 
-constexpr const char* kAnnotationMark = "#>";
+// Our own mark, not the output mark of another tool (docs/review.md).
+constexpr const char* kAnnotationMark = "#=";
 
 // `digits` significant digits for the results. A worksheet with errors gets
 // its errors beside the lines they point at, and no results.

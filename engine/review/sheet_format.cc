@@ -84,10 +84,13 @@ std::string commentLine(const SourceFile& file, int line) {
 struct Line {
   std::string code;         // the statement without its description
   std::string description;  // "" when none
-  bool aligned = false;     // a definition or a check: its `#` joins the block's column
+  bool section = false;     // a `section` heading: the lines after it share a new column
 };
 
-int blockColumn(const std::vector<Line>& lines, size_t begin, size_t end) {
+// The description column of lines [begin, end): the smallest multiple of the
+// step that leaves two blanks after every line of them that has a
+// description and fits under the cap; longer lines do not count.
+int descriptionColumn(const std::vector<Line>& lines, size_t begin, size_t end) {
   int widest = -1;
   for (size_t i = begin; i < end; ++i) {
     if (lines[i].description.empty()) continue;
@@ -214,6 +217,7 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
         break;
       case Statement::Section:
         line.code = "section " + st.text;
+        line.section = true;
         break;
       case Statement::Note:
         line.code = "note " + st.text;
@@ -222,30 +226,26 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
         const Quantity& q = sheet.quantities[st.index];
         line.code = canonicalDefinition(q);
         line.description = q.description;
-        line.aligned = true;
         break;
       }
       case Statement::CheckStmt: {
         const Check& c = sheet.checks[st.index];
         line.code = canonicalCondition(c);
         line.description = c.description;
-        line.aligned = true;
         break;
       }
     }
     lines.push_back(std::move(line));
   }
 
+  // One description column per section (the lines before the first
+  // `section` are one too): a page reads calmly, and an edit moves at most
+  // the column of its own section.
   std::string out;
   for (size_t i = 0; i < lines.size();) {
-    if (!lines[i].aligned) {
-      out += lines[i].code + "\n";
-      ++i;
-      continue;
-    }
-    size_t end = i;
-    while (end < lines.size() && lines[end].aligned) ++end;
-    const int column = blockColumn(lines, i, end);
+    size_t end = i + 1;
+    while (end < lines.size() && !lines[end].section) ++end;
+    const int column = descriptionColumn(lines, i, end);
     for (; i < end; ++i) {
       out += lines[i].code;
       if (!lines[i].description.empty()) {

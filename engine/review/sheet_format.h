@@ -11,8 +11,10 @@
 
 namespace calctrail {
 
-// A description `#` never stands further right than this column (0-based);
-// a definition longer than that gets two spaces before its `#` instead.
+// Descriptions stand in one column per section (docs/format.md, "Layout of
+// descriptions"). A description `#` never stands further right than this
+// column (0-based); a definition longer than that gets two spaces before its
+// `#` instead.
 constexpr int kDescriptionColumnCap = 60;
 // Description columns are multiples of this (or the cap), so that most edits
 // to one line leave the alignment of its neighbours, and the diff, alone.

@@ -15,6 +15,7 @@ namespace calctrail {
 namespace {
 bool isDigit(char c) { return c >= '0' && c <= '9'; }
 bool isAsciiLetter(char c) { return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'); }
+bool isBlankChar(char c) { return c == ' ' || c == '\t'; }
 
 // The ASCII of a superscript digit or sign (U+00B2 is "2", U+207B is "-"), or 0.
 char superscriptAscii(char32_t cp) {
@@ -227,11 +228,43 @@ ExprPtr ExprParser::parseProduct() {
       fail(pos_ - length, pos_, "the formula is too long (more than 4096 operations); split it into named steps");
       return nullptr;
     }
+    const uint32_t op = pos_ - length;
     ExprPtr rhs = parseUnary();
     if (!rhs) return nullptr;
+    if (kind == ExprKind::Divide && !rejectAmbiguousDivision(*lhs, op, *rhs)) return nullptr;
     lhs = makeBinary(kind, std::move(lhs), std::move(rhs));
   }
   return failed_ ? nullptr : std::move(lhs);
+}
+
+// A fraction is never read as a reciprocal by accident: `1 / 8 in` (blanks),
+// `1.5/2 in` (not two whole numbers) and `F / 1/8 in` (a fraction after `/`)
+// each read two ways, and the error shows both.
+bool ExprParser::rejectAmbiguousDivision(const Expr& lhs, uint32_t op, const Expr& rhs) {
+  const auto signless = [](const Expr& x) { return x.kind == ExprKind::Negate ? x.args[0].get() : &x; };
+  const Expr* l = signless(lhs);
+  const Expr* r = signless(rhs);
+  if (r->kind != ExprKind::Number || !r->unit) return true;
+  const std::string left(src_.substr(lhs.begin, op - lhs.begin));
+  const std::string right(src_.substr(rhs.begin, rhs.end - rhs.begin));
+  std::string l_text = left;
+  while (!l_text.empty() && isBlankChar(l_text.back())) l_text.pop_back();
+  const std::string written = "`" + std::string(src_.substr(lhs.begin, rhs.end - lhs.begin)) + "`";
+  if (r->text.find('/') != std::string::npos) {
+    fail(op, rhs.end,
+         written + " can be read two ways: write `" + l_text + " / (" + right + ")` to divide by " + right +
+             ", or put the parentheses where you mean them");
+    return false;
+  }
+  if (l->kind != ExprKind::Number || l->unit || l->text.find('/') != std::string::npos) return true;
+  const std::string u = r->unit_written, d = r->text;
+  const bool whole = plainIntegerEnd(l->begin) == l->end && plainIntegerEnd(r->begin) == r->begin + d.size();
+  const std::string fraction =
+      whole ? "`" + l_text + "/" + d + " " + u + "` (no blanks)" : "`" + l_text + " " + u + " / " + d + "`";
+  fail(op, rhs.end,
+       written + " can be read two ways: write " + fraction + " for " + l_text + "/" + d + " of one " + u +
+           ", or `" + l_text + " / (" + right + ")` to divide " + l_text + " by " + right);
+  return false;
 }
 
 ExprPtr ExprParser::parseUnary() {
@@ -333,9 +366,8 @@ ExprPtr ExprParser::parsePrimary() {
   return nullptr;
 }
 
-ExprPtr ExprParser::parseNumber() {
-  const uint32_t begin = pos_;
-  uint32_t p = pos_;
+uint32_t ExprParser::scanLiteral(uint32_t at) const {
+  uint32_t p = at;
   while (p < end_ && isDigit(src_[p])) ++p;
   if (p < end_ && src_[p] == '.') {
     ++p;
@@ -349,6 +381,53 @@ ExprPtr ExprParser::parseNumber() {
       p = q;
     }
   }
+  return p;
+}
+
+uint32_t ExprParser::plainIntegerEnd(uint32_t at) const {
+  if (at >= end_ || !isDigit(src_[at])) return 0;
+  const uint32_t q = scanLiteral(at);
+  for (uint32_t k = at; k < q; ++k)
+    if (!isDigit(src_[k])) return 0;
+  if (q < end_ && (src_[q] == '.' || isDigit(src_[q]))) return 0;
+  return q;
+}
+
+// `1/8 in`, `3/4 in`, `1-1/2 in`: inch sizes as they are written. Two plain
+// integers with a `/` and no blanks (after a whole number and a `-`, for a
+// mixed number) directly before a unit are one number; without a unit they
+// are the division and subtraction they look like. Fills `text` and `value`
+// and returns the end of the fraction, or 0 when there is none at `begin`.
+uint32_t ExprParser::fractionEnd(uint32_t begin, uint32_t whole_end, std::string* text, double* value,
+                                 bool* mixed) const {
+  uint32_t num_begin = whole_end;
+  *mixed = false;
+  if (whole_end < end_ && src_[whole_end] == '-') {
+    const uint32_t n = plainIntegerEnd(whole_end + 1);
+    if (n == 0 || n >= end_ || src_[n] != '/') return 0;
+    num_begin = whole_end + 1;
+    *mixed = true;
+  } else {
+    num_begin = begin;
+  }
+  const uint32_t num_end = *mixed ? plainIntegerEnd(num_begin) : whole_end;
+  if (num_end >= end_ || src_[num_end] != '/') return 0;
+  const uint32_t den_end = plainIntegerEnd(num_end + 1);
+  if (den_end == 0) return 0;
+  const auto read = [&](uint32_t b, uint32_t e) {
+    return std::strtod(std::string(src_.substr(b, e - b)).c_str(), nullptr);
+  };
+  const double whole = *mixed ? read(begin, whole_end) : 0.0;
+  const double num = read(num_begin, num_end), den = read(num_end + 1, den_end);
+  // One rounding: (whole * den + num) is exact for the integers anyone writes.
+  *value = (whole * den + num) / den;
+  text->assign(src_.substr(begin, den_end - begin));
+  return den_end;
+}
+
+ExprPtr ExprParser::parseNumber() {
+  const uint32_t begin = pos_;
+  const uint32_t p = scanLiteral(begin);
   auto e = std::make_unique<Expr>();
   e->kind = ExprKind::Number;
   e->begin = begin;
@@ -364,6 +443,42 @@ ExprPtr ExprParser::parseNumber() {
   if (p < end_ && (src_[p] == '.' || isDigit(src_[p]))) {
     fail(begin, p + 1, "malformed number");
     return nullptr;
+  }
+  if (plainIntegerEnd(begin) == p) {
+    std::string text;
+    double value = 0.0;
+    bool mixed = false;
+    if (const uint32_t f = fractionEnd(begin, p, &text, &value, &mixed)) {
+      Expr fraction;
+      fraction.kind = ExprKind::Number;
+      fraction.begin = begin;
+      fraction.text = text;
+      fraction.number = value;
+      pos_ = f;
+      if (!parseUnitAfterNumber(&fraction)) return nullptr;
+      if (fraction.unit) {
+        if (!std::isfinite(value)) {
+          fail(begin, f,
+               "`" + text + "` divides by zero: the number under the `/` of a fraction cannot be 0");
+          return nullptr;
+        }
+        if (mixed && fraction.unit->dim.withoutAngle().dimensionless()) {
+          // `1-1/2 %` could also be 1 - 0.5 %, a number too: no way to tell.
+          const size_t dash = text.find('-');
+          const std::string whole = text.substr(0, dash), part = text.substr(dash + 1);
+          const std::string u = fraction.unit_written;
+          fail(begin, fraction.end,
+               "`" + text + " " + u + "` can be read two ways: write `(" + whole + " + " + part + ") * 1 " +
+                   u + "` for " + whole + " and " + part + " " + u + ", or `" + whole + " - " + part + " " +
+                   u + "` for the difference (a mixed number needs a unit with a dimension, such as " +
+                   "`1-1/2 in`)");
+          return nullptr;
+        }
+        *e = std::move(fraction);
+        return e;
+      }
+      pos_ = p;  // no unit after it: a plain division (1/8) or difference (1-1/2)
+    }
   }
   if (!parseUnitAfterNumber(e.get())) return nullptr;
   return e;
@@ -476,19 +591,82 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
   number->unit_written.assign(src_.substr(begin, pos_ - begin));
   Unit unit;
   UnitError err;
-  if (!parseUnit(unit_text, &unit, &err)) {
+  const bool bare = src_[begin] != '[' && src_[begin] != '%';
+  if (!parseUnit(unit_text, &unit, &err, bare ? std::string_view(number->text) : std::string_view())) {
     const uint32_t at = unit_begin + static_cast<uint32_t>(std::min(err.offset, unit_text.size()));
     std::string msg = err.message;
-    if (src_[begin] != '[' && src_[begin] != '%' && isAsciiLetter(src_[begin])) {
+    if (bare && isAsciiLetter(src_[begin])) {
       msg += " (to multiply by a quantity named `" + std::string(unit_text) + "`, write `" + number->text + "*" +
              std::string(unit_text) + "`)";
     }
     fail(at, std::max<uint32_t>(at + 1, src_[begin] == '[' ? pos_ - 1 : pos_), msg);
     return false;
   }
+  if (bare && !rejectCompoundAfterUnit(number, begin, unit_text)) return false;
   number->unit = std::make_unique<Unit>(std::move(unit));
   number->end = pos_;
   return true;
+}
+
+// `40 N*m` and `9.81 m/s^2`: a unit name, then without a blank `*`, `/` or a
+// product sign and another unit name. It reads two ways (a value in N*m, or
+// 40 N times a quantity named `m`), so it is an error that shows both.
+// `2 kg*g_n` (no unit name after the sign) and `40 N * m` (blanks: a
+// product, as fmt writes it) are not.
+bool ExprParser::rejectCompoundAfterUnit(const Expr* number, uint32_t begin, std::string_view unit) {
+  std::string compound(unit), spaced(unit);
+  std::vector<std::string> names;
+  uint32_t p = pos_;
+  for (;;) {
+    uint32_t q = p;
+    char op = 0;
+    if (q < end_ && (src_[q] == '*' || src_[q] == '/')) {
+      op = src_[q];
+      q += 1;
+      if (q < end_ && src_[q] == '*') break;  // `**`: reported elsewhere
+    } else if (src_.substr(q, 2) == "·") {
+      op = '*';
+      q += 2;
+    } else if (src_.substr(q, 3) == "⋅") {
+      op = '*';
+      q += 3;
+    } else {
+      break;
+    }
+    if (!isNameStart(q)) break;
+    const uint32_t name_end = scanName(q);
+    const std::string name(src_.substr(q, name_end - q));
+    if (!findUnit(name)) break;
+    q = name_end;
+    // A whole-number power of this unit name: `s^2`, `s^-2`.
+    std::string power;
+    if (q + 1 < end_ && src_[q] == '^') {
+      uint32_t r = q + 1;
+      if (r < end_ && src_[r] == '-') ++r;
+      const uint32_t digits = r;
+      while (r < end_ && isDigit(src_[r])) ++r;
+      if (r > digits && !(r < end_ && (src_[r] == '.' || isAsciiLetter(src_[r])))) {
+        power.assign(src_.substr(q, r - q));
+        q = r;
+      }
+    }
+    compound += std::string(1, op) + name + power;
+    spaced += std::string(" ") + op + " " + name + power;
+    names.push_back(name);
+    p = q;
+  }
+  if (names.empty()) return true;
+  Unit u;
+  UnitError err;
+  if (!parseUnit(compound, &u, &err)) return true;  // no unit either way: the names decide
+  std::string who;
+  for (size_t k = 0; k < names.size(); ++k)
+    who += (k == 0 ? "" : k + 1 == names.size() ? " and " : ", ") + ("`" + names[k] + "`");
+  const std::string n = number->text;
+  fail(begin, p, "`" + n + " " + compound + "` can be read two ways: write `" + n + " [" + compound +
+                     "]` for a value in " + compound + " (a compound unit goes in brackets), or `" + n + " " +
+                     spaced + "` if " + who + (names.size() == 1 ? " is a quantity" : " are quantities"));
+  return false;
 }
 
 ExprPtr ExprParser::parseNameOrCall() {

@@ -5,6 +5,7 @@
 #pragma once
 
 #include <cstdint>
+#include <string>
 #include <string_view>
 
 #include "engine/sheet/diagnostics.h"
@@ -33,8 +34,14 @@ class ExprParser {
   ExprPtr parsePower();
   ExprPtr parsePrimary();
   ExprPtr parseNumber();
+  uint32_t scanLiteral(uint32_t at) const;
+  uint32_t plainIntegerEnd(uint32_t at) const;
+  uint32_t fractionEnd(uint32_t begin, uint32_t whole_end, std::string* text, double* value,
+                       bool* mixed) const;
+  bool rejectAmbiguousDivision(const Expr& lhs, uint32_t op, const Expr& rhs);
   bool parseUnitAfterNumber(Expr* number);
   bool rejectPowerAfterUnit(const Expr* number, uint32_t begin, std::string_view unit);
+  bool rejectCompoundAfterUnit(const Expr* number, uint32_t begin, std::string_view unit);
   bool rejectControlChars();
   ExprPtr parseNameOrCall();
 

@@ -1,5 +1,6 @@
 #include "engine/units/unit_parser.h"
 
+#include <algorithm>
 #include <array>
 #include <cmath>
 #include <cstdio>
@@ -137,7 +138,8 @@ std::string script(char32_t cp) {
 
 class Parser {
  public:
-  Parser(std::string_view text, UnitError* err) : s_(text), err_(err) {}
+  Parser(std::string_view text, UnitError* err, std::string_view after_number)
+      : s_(text), err_(err), after_number_(after_number) {}
 
   bool run(Unit* out) {
     begin_ = 0;
@@ -485,9 +487,26 @@ class Parser {
     return true;
   }
 
+  // A suggested unit as the user would type it here: inside brackets as is,
+  // after a number as the whole literal, a compound one in brackets.
+  std::string asWritten(const std::string& unit) const {
+    if (after_number_.empty()) return unit;
+    const bool bare = std::all_of(unit.begin(), unit.end(), [](char c) {
+      return isAsciiLetter(c) || c == '_' || c == '%' || static_cast<unsigned char>(c) >= 0x80;
+    });
+    return std::string(after_number_) + (bare ? " " + unit : " [" + unit + "]");
+  }
+
   std::string unknownMessage(const std::string& word) const {
     std::string msg = "unknown unit `" + word + "`";
-    const std::vector<std::string> near = suggestUnits(word);
+    // Two units run together ("Nm") is the likeliest reading of all, so it
+    // comes first, except after a plural ("lbs" is pounds, not lb*s).
+    const bool plural = word.size() > 2 && word.back() == 's' && findUnit(word.substr(0, word.size() - 1));
+    std::vector<std::string> near = plural ? std::vector<std::string>() : runTogetherUnits(word);
+    for (const std::string& s : suggestUnits(word))
+      if (std::find(near.begin(), near.end(), s) == near.end()) near.push_back(s);
+    if (near.size() > 3) near.resize(3);
+    for (std::string& s : near) s = asWritten(s);
     if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
     // A prefix on a known unit: the table lists its prefixed units one by one.
     static const char* const kPrefixes[] = {"k", "M", "G", "m", "c", "u", "\u00B5", "\u03BC"};
@@ -540,6 +559,7 @@ class Parser {
 
   std::string_view s_;
   UnitError* err_;
+  std::string_view after_number_;  // the number a bare unit follows, "" inside brackets
   size_t begin_ = 0;
   size_t end_ = 0;
   size_t pos_ = 0;
@@ -551,9 +571,31 @@ class Parser {
 
 }  // namespace
 
-bool parseUnit(std::string_view text, Unit* out, UnitError* err) {
-  Parser parser(text, err);
+bool parseUnit(std::string_view text, Unit* out, UnitError* err, std::string_view after_number) {
+  Parser parser(text, err, after_number);
   return parser.run(out);
+}
+
+std::vector<std::string> runTogetherUnits(std::string_view word) {
+  std::vector<std::string> out;
+  const auto known = [](std::string_view part) { return findUnit(part) != nullptr; };
+  // "mN" is a millinewton typed, not a metre times a newton.
+  const auto loneprefix = [&](size_t i) {
+    return i == 1 && std::string_view("kMGmcu").find(word[0]) != std::string_view::npos;
+  };
+  if (findUnit(word)) return out;
+  for (size_t i = 1; i < word.size(); ++i)
+    if (!loneprefix(i) && known(word.substr(0, i)) && known(word.substr(i)))
+      out.push_back(std::string(word.substr(0, i)) + "*" + std::string(word.substr(i)));
+  const bool two = !out.empty();
+  for (size_t i = 1; !two && i + 1 < word.size(); ++i) {
+    if (loneprefix(i) || !known(word.substr(0, i))) continue;
+    for (size_t j = i + 1; j < word.size(); ++j)
+      if (known(word.substr(i, j - i)) && known(word.substr(j)))
+        out.push_back(std::string(word.substr(0, i)) + "*" + std::string(word.substr(i, j - i)) + "*" +
+                      std::string(word.substr(j)));
+  }
+  return out;
 }
 
 }  // namespace calctrail

@@ -5,6 +5,7 @@
 #include <cstddef>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include "engine/units/unit.h"
 
@@ -17,6 +18,15 @@ struct UnitError {
 
 // Parses `text` into *out (with out->text in canonical spelling). On failure
 // returns false and fills *err; *out is then unspecified.
-bool parseUnit(std::string_view text, Unit* out, UnitError* err);
+// `after_number` is the number a bare unit name was written after ("5" in
+// `5 Nm`): the suggested fixes are then whole literals (`5 [N*m]`, `5 mm`),
+// since a compound unit written bare after a number would not parse.
+bool parseUnit(std::string_view text, Unit* out, UnitError* err, std::string_view after_number = {});
+
+// Units typed without their product sign, as products of table units: "Nm"
+// gives N*m, "kNm" kN*m, "Nmm" N*mm. A split into three units is tried only
+// when no split into two fits; a lone prefix letter is not split off ("mNm"
+// is mN*m, not m*N*m). Empty when `word` is a known unit or no such product.
+std::vector<std::string> runTogetherUnits(std::string_view word);
 
 }  // namespace calctrail

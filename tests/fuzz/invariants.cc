@@ -182,8 +182,27 @@ std::string formatExactText(double v) {
 }
 
 // A side of a check: a literal as written or a formatted number, then the unit.
+// Past a literal's end `n`: the end of a fraction written before a unit
+// ("1/8 in", "1-1/2 in"; docs/format.md), or `n` when there is none.
+size_t fractionEnd(std::string_view s, size_t n) {
+  const auto digits = [&](size_t k) {
+    while (k < s.size() && isDigit(s[k])) ++k;
+    return k;
+  };
+  size_t i = n;
+  if (i < s.size() && s[i] == '-') {
+    const size_t j = digits(i + 1);
+    if (j == i + 1 || j >= s.size() || s[j] != '/') return n;
+    i = j;
+  }
+  if (i >= s.size() || s[i] != '/') return n;
+  const size_t j = digits(i + 1);
+  return j > i + 1 ? j : n;
+}
+
 std::string checkSide(const std::string& name, const std::string& side) {
-  const size_t n = literalLength(side);
+  const size_t literal = literalLength(side);
+  const size_t n = literal == 0 ? 0 : fractionEnd(side, literal);
   if (n == 0) return "the check `" + name + "` shows the side \"" + shown(side) + "\", which is no number";
   if (n < side.size() && side[n] != ' ' && static_cast<unsigned char>(side[n]) < 0x80)
     return "the check `" + name + "` shows the side \"" + shown(side) + "\", a malformed number";
