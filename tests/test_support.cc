@@ -72,4 +72,20 @@ Run runCliIn(const std::string& cwd, const std::string& args) {
 
 Run runCli(const std::string& args) { return runCliIn(CALCTRAIL_SOURCE_DIR, args); }
 
+Run runCliThrough(const std::string& cwd, const std::string& prefix, const std::string& args) {
+  const std::string dir = tempDir();
+  const std::string out = dir + "/stdout", err = dir + "/stderr";
+  const std::string cmd = "(cd '" + cwd + "' && " + prefix + " '" + CALCTRAIL_BINARY + "' " + args + ") >'" +
+                          out + "' 2>'" + err + "' </dev/null";
+  const int raw = std::system(cmd.c_str());
+  Run r;
+  r.status = WIFEXITED(raw) ? WEXITSTATUS(raw) : -1;
+  r.out = readFile(out);
+  r.err = readFile(err);
+  std::remove(out.c_str());
+  std::remove(err.c_str());
+  rmdir(dir.c_str());
+  return r;
+}
+
 }  // namespace calctrail::test

@@ -26,6 +26,10 @@ struct Run {
 Run runCli(const std::string& args);
 // The same, in the directory `dir` (a temporary git repository, say).
 Run runCliIn(const std::string& dir, const std::string& args);
+// The same, run as `prefix 'calctrail' args` in a subshell: `args` may redirect
+// standard input ("fmt - </dev/zero"), and `prefix` may feed it ("yes |") or
+// run the program as another user ("setpriv --reuid=65534 ...").
+Run runCliThrough(const std::string& dir, const std::string& prefix, const std::string& args);
 
 std::string repoPath(const std::string& relative);
 std::string readFile(const std::string& path);

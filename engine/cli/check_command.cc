@@ -2,6 +2,7 @@
 
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
+#include "engine/cli/worksheet_input.h"
 #include "engine/report/number_format.h"
 
 namespace calctrail {
@@ -11,7 +12,7 @@ int runCheck(const CheckArgs& args) {
   for (const std::string& file : args.files) {
     CalcOptions options;
     options.sets = args.sets;
-    auto calc = Calculation::fromFile(file, options);
+    auto calc = loadWorksheet(file, options);
     if (calc->hasErrors()) {
       ++files_with_errors;
       for (const Diagnostic& d : calc->diags.list())
@@ -26,7 +27,7 @@ int runCheck(const CheckArgs& args) {
       if (s.passed) continue;
       ++failed_here;
       const SourcePos pos = calc->sheet.file->position(c.name_begin);
-      std::cout << file << ":" << pos.line << ":" << pos.column << ": error: check `" << c.name
+      std::cout << calc->path << ":" << pos.line << ":" << pos.column << ": error: check `" << c.name
                 << "` fails: " << formatQuantity(s.lhs, s.display, 4) << " " << comparisonText(c.op) << " "
                 << formatQuantity(s.rhs, s.display, 4) << " is false";
       if (!c.description.empty()) std::cout << " (" << c.description << ")";

@@ -11,7 +11,7 @@ namespace calctrail {
 enum ExitStatus { kExitOk = 0, kExitCheckFailed = 1, kExitError = 2 };
 
 struct ReportArgs {
-  std::string file;
+  std::string file;  // the worksheet; "-" reads standard input
   std::string format = "text";
   std::string output;
   std::vector<std::string> sets;
@@ -41,14 +41,14 @@ int runDiff(const DiffArgs& args);
 struct FmtArgs {
   std::vector<std::string> files;
   bool check = false;  // exit 1 when a file is not in canonical layout
-  bool write = false;  // rewrite files in place (atomically)
+  bool write = false;  // replace each file by its formatted text (engine/util/safe_write.h)
 };
 int runFmt(const FmtArgs& args);
 
 int runTextconv(const std::string& file, int digits);
 
-// Writes `text` to `path` through a temporary file and a rename, so a reader
-// never sees half a file and an interrupted write leaves the old one intact.
+// writeOutputFile (engine/util/safe_write.h) with no input to refuse; a command
+// that reads worksheets passes them to writeOutputFile instead.
 bool writeFileAtomically(const std::string& path, const std::string& text, std::string* error);
 
 }  // namespace calctrail

@@ -4,6 +4,7 @@
 
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
+#include "engine/cli/worksheet_input.h"
 #include "engine/review/diff_render.h"
 #include "engine/review/git_source.h"
 #include "engine/review/sheet_diff.h"
@@ -14,11 +15,12 @@ namespace {
 // A side that cannot be read becomes a calculation holding that one error,
 // named as the user wrote the side, so both kinds of failure print alike.
 std::unique_ptr<Calculation> loadSide(const std::string& spec) {
-  std::string bytes, error;
+  std::string bytes;
+  ReadError error;
   if (!readSide(spec, &bytes, &error)) {
     auto calc = std::make_unique<Calculation>();
     calc->path = spec;
-    calc->diags.error(spec, error);
+    calc->diags.add(readErrorDiagnostic(spec, error));
     return calc;
   }
   return Calculation::fromText(spec, std::move(bytes));

@@ -1,13 +1,11 @@
-#include <climits>
 #include <cstdio>
-#include <cstdlib>
 #include <iostream>
-#include <iterator>
-#include <sys/stat.h>
 
 #include "engine/cli/commands.h"
+#include "engine/cli/worksheet_input.h"
 #include "engine/review/sheet_format.h"
 #include "engine/sheet/source_file.h"
+#include "engine/util/safe_write.h"
 
 namespace calctrail {
 
@@ -23,31 +21,14 @@ int firstDifferentLine(const std::string& a, const std::string& b) {
   return line;
 }
 
-bool readInput(const std::string& file, std::string* bytes, std::string* error) {
-  if (file != "-") return readFile(file, bytes, error);
-  bytes->assign(std::istreambuf_iterator<char>(std::cin), std::istreambuf_iterator<char>());
-  return true;
+bool readInput(const std::string& file, std::string* bytes, ReadError* error) {
+  return file == "-" ? readStandardInput(bytes, error) : readFile(file, bytes, error);
 }
 
 void printError(const std::string& file, const std::string& message) {
   Diagnostics d;
   d.error(file, message);
   std::cerr << d.list().front().headline() << "\n";
-}
-
-// Replaces the file a path leads to, keeping a symbolic link a link and the
-// file's permissions as they were.
-bool replaceFile(const std::string& file, const std::string& text, std::string* error) {
-  std::string target = file;
-  if (char* real = realpath(file.c_str(), nullptr)) {
-    target = real;
-    std::free(real);
-  }
-  struct stat before;
-  const bool have_mode = stat(target.c_str(), &before) == 0;
-  if (!writeFileAtomically(target, text, error)) return false;
-  if (have_mode) chmod(target.c_str(), before.st_mode & 07777);
-  return true;
 }
 
 }  // namespace
@@ -64,14 +45,16 @@ int runFmt(const FmtArgs& args) {
       errors = true;
       continue;
     }
+    const std::string name = file == "-" ? kStdinName : file;
     std::string bytes, error;
-    if (!readInput(file, &bytes, &error)) {
-      printError(file, error);
+    ReadError read_error;
+    if (!readInput(file, &bytes, &read_error)) {
+      std::cerr << readErrorDiagnostic(name, read_error).headline() << "\n";
       errors = true;
       continue;
     }
     Diagnostics diags;
-    const std::string text = formatWorksheet(file == "-" ? "<stdin>" : file, bytes, &diags);
+    const std::string text = formatWorksheet(name, bytes, &diags);
     if (diags.hasErrors()) {
       // Never rewrite what did not parse: the layout of a broken line is unknown.
       for (const Diagnostic& d : diags.list()) std::cerr << d.render();
@@ -91,7 +74,7 @@ int runFmt(const FmtArgs& args) {
                 << firstDifferentLine(bytes, text) << ")\n";
       continue;
     }
-    if (!replaceFile(file, text, &error)) {
+    if (!replaceFileContents(file, text, &error)) {
       printError(file, error + "; the file is unchanged");
       errors = true;
       continue;

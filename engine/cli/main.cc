@@ -2,12 +2,68 @@
 // fixed by the contract (report, check, --set, exit codes); see --help.
 #include <CLI/CLI.hpp>
 
+#include <cctype>
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <iostream>
 
 #include "engine/cli/commands.h"
 
 using namespace calctrail;
+
+namespace {
+
+// Whether `s` is a number written out in decimal: digits with an optional sign,
+// point and exponent. Hex, inf, nan and spaces are no option values.
+bool isDecimal(const std::string& s, bool whole) {
+  size_t i = s[0] == '+' || s[0] == '-' ? 1 : 0;
+  size_t digits = 0;
+  for (; i < s.size() && std::isdigit(static_cast<unsigned char>(s[i])); ++i) ++digits;
+  if (!whole && i < s.size() && s[i] == '.')
+    for (++i; i < s.size() && std::isdigit(static_cast<unsigned char>(s[i])); ++i) ++digits;
+  if (digits == 0) return false;
+  if (!whole && i < s.size() && (s[i] == 'e' || s[i] == 'E')) {
+    ++i;
+    if (i < s.size() && (s[i] == '+' || s[i] == '-')) ++i;
+    const size_t start = i;
+    for (; i < s.size() && std::isdigit(static_cast<unsigned char>(s[i])); ++i) {
+    }
+    if (i == start) return false;
+  }
+  return i == s.size();
+}
+
+// A finite real number, 0 or more (--rtol): NaN would hide every change.
+CLI::Validator finiteNonNegative() {
+  const std::string wanted = "give a finite number, 0 or more, such as 1e-6";
+  return CLI::Validator(
+      [wanted](std::string& s) -> std::string {
+        if (s.empty() || !isDecimal(s, false)) return "`" + s + "` is not a number; " + wanted;
+        const double v = std::strtod(s.c_str(), nullptr);
+        if (!std::isfinite(v)) return "`" + s + "` is too large; " + wanted;
+        if (v < 0) return "`" + s + "` is negative; " + wanted;
+        return {};
+      },
+      "NUMBER >= 0");
+}
+
+// A whole number from `lo` to `hi` (--digits).
+CLI::Validator wholeNumberIn(int lo, int hi) {
+  const std::string wanted = "give a whole number from " + std::to_string(lo) + " to " + std::to_string(hi);
+  return CLI::Validator(
+      [lo, hi, wanted](std::string& s) -> std::string {
+        if (s.empty() || !isDecimal(s, true)) return "`" + s + "` is not a whole number; " + wanted;
+        // Over 9 digits is out of any range here, and strtol need not see it.
+        const bool huge = s.size() - (s[0] == '+' || s[0] == '-') > 9;
+        const long v = huge ? static_cast<long>(hi) + 1 : std::strtol(s.c_str(), nullptr, 10);
+        if (v < lo || v > hi) return "`" + s + "` is out of range; " + wanted;
+        return {};
+      },
+      "INT in [" + std::to_string(lo) + " - " + std::to_string(hi) + "]");
+}
+
+}  // namespace
 
 int main(int argc, char** argv) {
   CLI::App app{
@@ -27,7 +83,7 @@ int main(int argc, char** argv) {
   ReportArgs report;
   CLI::App* report_cmd = app.add_subcommand(
       "report", "Recalculate a worksheet and print its calculation trail (exit 0 even when a check fails)");
-  report_cmd->add_option("FILE", report.file, "The worksheet (.calc)")->required();
+  report_cmd->add_option("FILE", report.file, "The worksheet (.calc); - reads standard input")->required();
   report_cmd->add_option("--format,-f", report.format,
                          "Output format: text (terminal, git), md (pull requests), html (print to PDF), json (tools)")
       ->check(CLI::IsMember({"text", "md", "html", "json"}))
@@ -38,7 +94,7 @@ int main(int argc, char** argv) {
       ->type_name("NAME=VALUE")
       ->allow_extra_args(false);
   report_cmd->add_option("--digits", report.digits, "Significant digits in human formats (1 to 15)")
-      ->check(CLI::Range(1, 15))
+      ->check(wholeNumberIn(1, 15))
       ->default_str("4");
 
   CheckArgs check;
@@ -73,10 +129,10 @@ int main(int argc, char** argv) {
       ->check(CLI::IsMember({"text", "md", "json"}))
       ->default_str("text");
   diff_cmd->add_option("--rtol", diff.rtol, "Relative change below which a result has not moved")
-      ->check(CLI::NonNegativeNumber)
+      ->check(finiteNonNegative())
       ->default_str("1e-9");
   diff_cmd->add_option("--digits", diff.digits, "Significant digits of the rounded values (1 to 15)")
-      ->check(CLI::Range(1, 15))
+      ->check(wholeNumberIn(1, 15))
       ->default_str("4");
   diff_cmd->footer(
       "\nExit status: 0 no number moved; 1 a check flipped, a value moved beyond --rtol, or a quantity or\n"
@@ -103,7 +159,7 @@ int main(int argc, char** argv) {
       "textconv", "Print a worksheet with its recalculated results, for git's diff driver (see docs/review.md)");
   textconv_cmd->add_option("FILE", textconv_file, "The worksheet (.calc)")->required();
   textconv_cmd->add_option("--digits", textconv_digits, "Significant digits of the results (1 to 15)")
-      ->check(CLI::Range(1, 15))
+      ->check(wholeNumberIn(1, 15))
       ->default_str("6");
   textconv_cmd->footer(
       "\nSet up once per repository:\n"

@@ -3,18 +3,20 @@
 
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
+#include "engine/cli/worksheet_input.h"
 #include "engine/report/html_renderer.h"
 #include "engine/report/json_renderer.h"
 #include "engine/report/markdown_renderer.h"
 #include "engine/report/text_renderer.h"
 #include "engine/report/trail.h"
+#include "engine/util/safe_write.h"
 
 namespace calctrail {
 
 int runReport(const ReportArgs& args) {
   CalcOptions options;
   options.sets = args.sets;
-  auto calc = Calculation::fromFile(args.file, options);
+  auto calc = loadWorksheet(args.file, options);
   for (const Diagnostic& d : calc->diags.list()) std::cerr << d.render();
   if (calc->hasErrors()) {
     std::cerr << calc->diags.errorCount() << " error" << (calc->diags.errorCount() == 1 ? "" : "s")
@@ -32,7 +34,7 @@ int runReport(const ReportArgs& args) {
     return kExitOk;
   }
   std::string error;
-  if (!writeFileAtomically(args.output, text, &error)) {
+  if (!writeOutputFile(args.output, text, {args.file}, &error)) {
     std::cerr << args.output << ":1:1: error: " << error << "\n";
     return kExitError;
   }

@@ -3,12 +3,13 @@
 
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
+#include "engine/cli/worksheet_input.h"
 #include "engine/review/annotated_sheet.h"
 
 namespace calctrail {
 
 int runTextconv(const std::string& file, int digits) {
-  auto calc = Calculation::fromFile(file);
+  auto calc = loadWorksheet(file);
   if (!calc->sheet.file) {  // unreadable: there is no text to show
     for (const Diagnostic& d : calc->diags.list()) std::cerr << d.headline() << "\n";
     return kExitError;

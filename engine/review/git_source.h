@@ -2,10 +2,18 @@
 // the git repository of the current directory (REV:PATH).
 #pragma once
 
+#include <cstddef>
+#include <cstdint>
 #include <string>
 #include <vector>
 
+#include "engine/sheet/source_file.h"
+
 namespace calctrail {
+
+// How long git may take to hand over one blob before it is stopped
+// (docs/limits.md); the environment variable CALCTRAIL_GIT_TIMEOUT, in seconds, overrides it.
+constexpr double kGitTimeoutSeconds = 30;
 
 // Reads `spec`. A path that exists is read as a file. Otherwise `REV:PATH` is
 // read with `git cat-file blob` (the blob as committed, no conversion), in the
@@ -14,15 +22,25 @@ namespace calctrail {
 //   - any other PATH is tried relative to the current directory first (so
 //     `diff HEAD~1:x.calc x.calc` compares the same file from a subfolder),
 //     then relative to the repository root, as git prints paths.
+// Both kinds keep to the limits of readFile, and git to its time limit.
 // False with a one-line reason in *error when the side cannot be read.
-bool readSide(const std::string& spec, std::string* bytes, std::string* error);
+bool readSide(const std::string& spec, std::string* bytes, ReadError* error);
+
+struct ProcessLimits {
+  double timeout_seconds = 0;       // the child's process group is killed after this long; 0: no limit
+  size_t max_output = SIZE_MAX;     // ... or once standard output passes this many bytes
+  size_t max_error = size_t{1} << 16;  // bytes of standard error kept; the rest is read and dropped
+};
 
 struct ProcessResult {
-  bool started = false;  // false: the program could not be run at all
-  int status = -1;       // exit status, -1 when killed by a signal
+  bool started = false;           // false: the program could not be run at all
+  int status = -1;                // exit status, -1 when killed by a signal
+  bool timed_out = false;         // killed at the time limit
+  bool output_too_large = false;  // killed when standard output passed its limit
   std::string out, err;
 };
-// Runs `argv` (no shell involved) in the current directory, capturing both streams.
-ProcessResult runProcess(const std::vector<std::string>& argv);
+// Runs `argv` (no shell involved) in the current directory, in a process group
+// of its own, capturing both streams within `limits`.
+ProcessResult runProcess(const std::vector<std::string>& argv, const ProcessLimits& limits = {});
 
 }  // namespace calctrail

@@ -46,7 +46,10 @@ void Diagnostics::addAt(Severity s, const SourceFile& file, uint32_t begin, uint
   // Show tabs as single spaces so the caret stays under the right character.
   d.source_line.assign(text.begin(), text.end());
   // Bytes that are not UTF-8 are shown as '?', so the message itself stays valid text.
-  for (size_t bad; (bad = findInvalidUtf8(d.source_line)) != std::string::npos;) d.source_line[bad] = '?';
+  // Each search resumes after the last byte replaced, so a line of bad bytes costs one pass.
+  for (size_t from = 0, bad;
+       (bad = findInvalidUtf8(std::string_view(d.source_line).substr(from))) != std::string::npos; from += bad + 1)
+    d.source_line[from + bad] = '?';
   // Nor does a control character reach the terminal: the message names it.
   d.source_line = withoutControlChars(d.source_line);
   std::replace(d.source_line.begin(), d.source_line.end(), '\t', ' ');

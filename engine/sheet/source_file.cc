@@ -3,17 +3,21 @@
 #include <algorithm>
 #include <cerrno>
 #include <cstring>
-#include <fstream>
-#include <sstream>
+#include <fcntl.h>
+#include <stdexcept>
 #include <sys/stat.h>
+#include <unistd.h>
 
 namespace calctrail {
 
 SourceFile::SourceFile(std::string path, std::string bytes)
     : path_(std::move(path)), bytes_(std::move(bytes)) {
+  // Offsets are 32-bit throughout the parser; a larger text would wrap them.
+  if (bytes_.size() > kMaxSourceBytes) throw std::length_error(path_ + ": worksheet over the size limit");
   line_starts_.push_back(0);
-  for (uint32_t i = 0; i < bytes_.size(); ++i)
-    if (bytes_[i] == '\n' && i + 1 < bytes_.size()) line_starts_.push_back(i + 1);
+  const uint32_t size = static_cast<uint32_t>(bytes_.size());
+  for (uint32_t i = 0; i < size; ++i)
+    if (bytes_[i] == '\n' && i + 1 < size) line_starts_.push_back(i + 1);
 }
 
 std::string_view SourceFile::lineText(int line) const {
@@ -36,29 +40,119 @@ SourcePos SourceFile::position(uint32_t offset) const {
   return {line, column};
 }
 
-bool readFile(const std::string& path, std::string* bytes, std::string* error) {
-  struct stat st;
-  if (stat(path.c_str(), &st) != 0) {
-    *error = std::string("cannot read file: ") + std::strerror(errno);
-    return false;
+namespace {
+
+std::string sizeText(size_t bytes) {
+  return bytes >= (size_t{1} << 20) ? std::to_string(bytes >> 20) + " MiB"
+                                     : std::to_string(bytes >> 10) + " KiB";
+}
+
+std::string tooLarge(const std::string& what) {
+  return what + " is larger than " + sizeText(kMaxSourceBytes) +
+         ", the limit for a worksheet (docs/limits.md)";
+}
+
+// Takes bytes as they arrive and stops at the first limit passed, so an endless
+// stream (/dev/zero) costs at most one line's worth of memory before the error.
+class LimitedText {
+ public:
+  LimitedText(std::string what, bool keep) : what_(std::move(what)), keep_(keep) {}
+
+  // False, with the reason in *error, once a limit is passed.
+  bool add(const char* data, size_t n, ReadError* error) {
+    if (n > kMaxSourceBytes - total_) {
+      *error = {tooLarge(what_), 0};
+      return false;
+    }
+    total_ += n;
+    for (size_t i = 0; i < n; ++i) {
+      // Lines are numbered by LF, as SourceFile numbers them; a CR also ends the
+      // measured run, so a file with CR line endings is not one long line.
+      if (data[i] == '\n') {
+        ++line_;
+        run_ = 0;
+      } else if (data[i] == '\r') {
+        run_ = 0;
+      } else if (++run_ > kMaxLineBytes) {
+        *error = {"line " + std::to_string(line_) + " is longer than " + sizeText(kMaxLineBytes) +
+                      ", the limit for one line (docs/limits.md)",
+                  line_};
+        return false;
+      }
+    }
+    if (keep_) text_.append(data, n);
+    return true;
   }
-  if (S_ISDIR(st.st_mode)) {
-    *error = "cannot read file: it is a directory";
-    return false;
+
+  std::string& text() { return text_; }
+
+ private:
+  std::string what_;   // names the input in messages: "the file", "standard input"
+  bool keep_;          // whether the bytes are kept, or only checked
+  std::string text_;   // the bytes so far, when kept
+  size_t total_ = 0;   // bytes so far
+  int line_ = 1;       // the line the next byte belongs to
+  size_t run_ = 0;     // bytes of that line so far, since its start or a CR
+};
+
+// Reads `fd` to its end in bounded steps.
+bool readBounded(int fd, const std::string& what, std::string* bytes, ReadError* error) {
+  LimitedText text(what, true);
+  char buf[65536];
+  for (;;) {
+    const ssize_t n = read(fd, buf, sizeof buf);
+    if (n < 0 && errno == EINTR) continue;
+    if (n < 0) {
+      *error = {std::string("cannot read file: ") + std::strerror(errno), 0};
+      return false;
+    }
+    if (n == 0) break;
+    if (!text.add(buf, static_cast<size_t>(n), error)) return false;
   }
-  std::ifstream in(path, std::ios::binary);
-  if (!in) {
-    *error = std::string("cannot read file: ") + std::strerror(errno);
-    return false;
-  }
-  std::ostringstream ss;
-  ss << in.rdbuf();
-  if (in.bad()) {
-    *error = "cannot read file: read error";
-    return false;
-  }
-  *bytes = ss.str();
+  *bytes = std::move(text.text());
   return true;
+}
+
+}  // namespace
+
+bool readFile(const std::string& path, std::string* bytes, ReadError* error) {
+  const int fd = open(path.c_str(), O_RDONLY | O_CLOEXEC | O_NOCTTY);
+  if (fd < 0) {
+    *error = {std::string("cannot read file: ") + std::strerror(errno), 0};
+    return false;
+  }
+  struct stat st;
+  bool ok = fstat(fd, &st) == 0;
+  if (!ok) {
+    *error = {std::string("cannot read file: ") + std::strerror(errno), 0};
+  } else if (S_ISDIR(st.st_mode)) {
+    *error = {"cannot read file: it is a directory", 0};
+    ok = false;
+  } else if (S_ISREG(st.st_mode) && static_cast<uint64_t>(st.st_size) > kMaxSourceBytes) {
+    // Said at once, without reading gigabytes first.
+    *error = {tooLarge("the file"), 0};
+    ok = false;
+  } else {
+    ok = readBounded(fd, "the file", bytes, error);
+  }
+  close(fd);
+  return ok;
+}
+
+bool readFile(const std::string& path, std::string* bytes, std::string* error) {
+  ReadError e;
+  if (readFile(path, bytes, &e)) return true;
+  *error = e.message;
+  return false;
+}
+
+bool readStandardInput(std::string* bytes, ReadError* error) {
+  return readBounded(STDIN_FILENO, "standard input", bytes, error);
+}
+
+bool checkSourceLimits(std::string_view bytes, const std::string& what, ReadError* error) {
+  LimitedText text(what, false);
+  return text.add(bytes.data(), bytes.size(), error);
 }
 
 }  // namespace calctrail

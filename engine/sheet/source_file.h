@@ -1,13 +1,24 @@
 // The bytes of one worksheet and the map from byte offsets to lines and
 // columns. Columns count Unicode code points from 1, as editors show them.
+// Reading a worksheet is bounded (docs/limits.md), so no input, a device or an
+// endless stream included, can exhaust memory or outgrow the 32-bit offsets.
 #pragma once
 
+#include <cstddef>
 #include <cstdint>
 #include <string>
 #include <string_view>
 #include <vector>
 
 namespace calctrail {
+
+// The largest worksheet calctrail reads: over twice the 100k-line worksheets the
+// benchmarks time (5-7 MB, docs/performance.md), far below the 4 GiB that byte
+// offsets can address.
+constexpr size_t kMaxSourceBytes = size_t{16} << 20;
+// The longest line: well beyond any formula the expression parser accepts
+// written with names of usual length; each diagnostic copies and prints its line.
+constexpr size_t kMaxLineBytes = size_t{64} << 10;
 
 struct SourcePos {
   int line = 0;    // 1-based
@@ -16,6 +27,8 @@ struct SourcePos {
 
 class SourceFile {
  public:
+  // Throws std::length_error for bytes past kMaxSourceBytes: every reader checks
+  // the limit first (readFile, checkSourceLimits), so only a caller that skips it gets here.
   SourceFile(std::string path, std::string bytes);
 
   const std::string& path() const { return path_; }
@@ -34,7 +47,21 @@ class SourceFile {
   std::vector<uint32_t> line_starts_;
 };
 
-// Reads a whole file; false with a reason in *error when it cannot.
+// Why a worksheet could not be read.
+struct ReadError {
+  std::string message;  // one line, such as "cannot read file: No such file or directory"
+  int line = 0;         // the 1-based line the problem is on; 0 for the file as a whole
+};
+
+// Reads a whole file, within kMaxSourceBytes and kMaxLineBytes; false with the
+// reason in *error when it cannot (a directory, a missing file, a limit passed).
+bool readFile(const std::string& path, std::string* bytes, ReadError* error);
+// The same, with the reason as text (a line over the limit is named in it).
 bool readFile(const std::string& path, std::string* bytes, std::string* error);
+// Reads standard input to its end, within the same limits.
+bool readStandardInput(std::string* bytes, ReadError* error);
+// Whether bytes from elsewhere (a git blob, say) keep to the same limits;
+// `what` names them in the message ("the file", "standard input").
+bool checkSourceLimits(std::string_view bytes, const std::string& what, ReadError* error);
 
 }  // namespace calctrail
