@@ -97,6 +97,6 @@ TEST_CASE("numeric options take every value in their range", "[cli-options]") {
 TEST_CASE("textconv --digits changes the rounding it promises", "[cli-options]") {
   const std::string dir = sheetsDir();
   writeFile(dir + "/pi.calc", "a = 1 mm\nx [mm] = a * pi\n");
-  CHECK(runCliIn(dir, "textconv pi.calc --digits 3").out.find("#> x = 3.14 mm\n") != std::string::npos);
-  CHECK(runCliIn(dir, "textconv pi.calc --digits 9").out.find("#> x = 3.14159265 mm\n") != std::string::npos);
+  CHECK(runCliIn(dir, "textconv pi.calc --digits 3").out.find("#= x = 3.14 mm\n") != std::string::npos);
+  CHECK(runCliIn(dir, "textconv pi.calc --digits 9").out.find("#= x = 3.14159265 mm\n") != std::string::npos);
 }
