@@ -140,7 +140,8 @@ TEST_CASE("the schema validator itself rejects what it should", "[json][schema]"
 
 TEST_CASE("a --set run's JSON follows the schema and lists every replacement", "[json][schema]") {
   const Json schema = load(readFile(repoPath("docs/trail.schema.json")));
-  Run r = runCli("report worksheets/twin-screw-lift.calc --format json --set \"f_run=0.10\" --set \"d=52 mm\"");
+  Run r =
+      runCli("report worksheets/twin-screw-lift.calc --format json --set \"f_run=0.10\" --set \"d=52 mm\"");
   INFO(r.err);
   REQUIRE(r.status == 0);
   const Json out = load(r.out);

@@ -25,7 +25,8 @@ bool have(const std::string& program) {
 }
 
 std::string replaceAll(std::string s, const std::string& from, const std::string& to) {
-  for (size_t at = s.find(from); at != std::string::npos; at = s.find(from, at + to.size())) s.replace(at, from.size(), to);
+  for (size_t at = s.find(from); at != std::string::npos; at = s.find(from, at + to.size()))
+    s.replace(at, from.size(), to);
   return s;
 }
 
@@ -44,7 +45,8 @@ std::string normalize(const std::string& text) {
       continue;
     }
     const size_t n = out.size();
-    if (newline && n >= 3 && out[n - 1] == ' ' && out[n - 2] == '-' && std::isalpha(static_cast<unsigned char>(out[n - 3])))
+    if (newline && n >= 3 && out[n - 1] == ' ' && out[n - 2] == '-' &&
+        std::isalpha(static_cast<unsigned char>(out[n - 3])))
       out.pop_back();
     newline = false;
     out += c;
@@ -91,11 +93,13 @@ size_t printAndRead(const std::string& demo_name) {
   writeFile(html, renderHtml(t));
   // A fresh profile, no network, no first-run or background work; the page
   // headers come from the document's @page rules, not from Chromium's own.
-  const std::string cmd = "timeout 180 chromium --headless --no-sandbox --disable-gpu --disable-dev-shm-usage --disable-quic "
-                          "--no-first-run "
-                          "--disable-background-networking --disable-component-update --disable-sync "
-                          "--user-data-dir='" + dir + "/profile' --no-pdf-header-footer --print-to-pdf='" + pdf +
-                          "' 'file://" + html + "' >'" + dir + "/chromium.log' 2>&1";
+  const std::string cmd =
+      "timeout 180 chromium --headless --no-sandbox --disable-gpu --disable-dev-shm-usage --disable-quic "
+      "--no-first-run "
+      "--disable-background-networking --disable-component-update --disable-sync "
+      "--user-data-dir='" +
+      dir + "/profile' --no-pdf-header-footer --print-to-pdf='" + pdf + "' 'file://" + html + "' >'" + dir +
+      "/chromium.log' 2>&1";
   const int status = std::system(cmd.c_str());
   INFO("chromium log:\n" << readFile(dir + "/chromium.log"));
   REQUIRE(status == 0);
@@ -172,7 +176,9 @@ size_t printAndRead(const std::string& demo_name) {
 
 }  // namespace
 
-TEST_CASE("browser: canal gate hoist printed to PDF by Chromium", "[browser]") { printAndRead("canal-gate-hoist"); }
+TEST_CASE("browser: canal gate hoist printed to PDF by Chromium", "[browser]") {
+  printAndRead("canal-gate-hoist");
+}
 
 TEST_CASE("browser: leveling jack printed to PDF by Chromium", "[browser]") { printAndRead("leveling-jack"); }
 
@@ -181,7 +187,8 @@ TEST_CASE("browser: leveling jack printed to PDF by Chromium", "[browser]") { pr
 // repeated at every call, cautions twice, a results table repeating the
 // steps); it prints on 7 now. At most half of 14, so the trail cannot grow
 // back into clutter unnoticed.
-TEST_CASE("browser: twin-screw lift printed to PDF by Chromium, on at most half its former pages", "[browser]") {
+TEST_CASE("browser: twin-screw lift printed to PDF by Chromium, on at most half its former pages",
+          "[browser]") {
   const size_t pages = printAndRead("twin-screw-lift");
   CHECK(pages <= 7);
 }

@@ -292,9 +292,10 @@ TEST_CASE("HTML and Markdown: values for people", "[report]") {
   CHECK(html.find("1.5&nbsp;\u00D7&nbsp;10\u2079&nbsp;W") != std::string::npos);
   CHECK(html.find("40.00&nbsp;\u00D7&nbsp;10\u207B\u00B9\u2075&nbsp;m\u00B2") != std::string::npos);
   // The substituted line is typeset like the formula: the value under the power in parentheses.
-  CHECK(html.find("<msup><mrow><mo>(</mo><mrow><mn>2</mn><mo>\u00D7</mo><msup><mn>10</mn><mrow><mo>\u2212</mo>"
-                  "<mn>7</mn></mrow></msup><mspace width=\"0.22em\"/><mi mathvariant=\"normal\">m</mi></mrow>"
-                  "<mo>)</mo></mrow><mn>2</mn></msup>") != std::string::npos);
+  CHECK(
+      html.find("<msup><mrow><mo>(</mo><mrow><mn>2</mn><mo>\u00D7</mo><msup><mn>10</mn><mrow><mo>\u2212</mo>"
+                "<mn>7</mn></mrow></msup><mspace width=\"0.22em\"/><mi mathvariant=\"normal\">m</mi></mrow>"
+                "<mo>)</mo></mrow><mn>2</mn></msup>") != std::string::npos);
   CHECK(html.find("\u22123.000&nbsp;N\u00B7m &lt; 0&nbsp;N\u00B7m") != std::string::npos);
   const std::string md = renderMarkdown(t);
   CHECK(md.find("| `P` | 1.5 \u00D7 10\u2079 W |") != std::string::npos);
@@ -323,7 +324,8 @@ TEST_CASE("HTML and Markdown: library calls are audited, each function described
   CHECK(html.find("verified: docs/verification.md, <code>torque_raise</code>") != std::string::npos);
   // U uses the call inside a formula: a where line with the call's values, typeset substitution, result.
   CHECK(html.find("<div class=\"where\"><span class=\"w\">where</span> <span class=\"call\">torque_raise("
-                  "20&nbsp;kN, 36.5&nbsp;mm, 7&nbsp;mm, 0.15, 15\u00B0)</span> = <math") != std::string::npos);
+                  "20&nbsp;kN, 36.5&nbsp;mm, 7&nbsp;mm, 0.15, 15\u00B0)</span> = <math") !=
+        std::string::npos);
   CHECK(html.find("No library function is called") == std::string::npos);
   const std::string md = renderMarkdown(t);
   CHECK(md.find("where `torque_raise(20 kN, 36.5 mm, 7 mm, 0.15, 15\u00B0)` `= 20 kN \u00B7 36.5 mm / 2") !=
@@ -393,7 +395,7 @@ TEST_CASE("the verdict is one sentence, the same words in every format", "[repor
   CHECK(verdictState(tf) == "FAIL");
   CHECK(renderText(tf).find("\nFAIL: 2 of 3 checks fail: huge, vast\n") != std::string::npos);
   CHECK(renderMarkdown(tf).find("**FAIL: 2 of 3 checks fail: huge, vast**") != std::string::npos);
-  CHECK(renderHtml(tf).find("<span class=\"fail-mark\">FAIL</span>: 2 of 3 checks fail: huge, vast</p>") !=
+  CHECK(renderHtml(tf).find("<span class=\"fail-mark\">FAIL:</span> 2 of 3 checks fail: huge, vast</p>") !=
         std::string::npos);
   CHECK(renderHtml(tp).find(">PASS: all 2 checks pass</p>") != std::string::npos);
   CHECK(renderJson(tf).find("\"verdict\": \"FAIL: 2 of 3 checks fail: huge, vast\"") != std::string::npos);

@@ -52,7 +52,8 @@ TEST_CASE("a --set run: every format names the replacement next to the hash and 
   const std::string text = renderText(t);
   CHECK(text.find("sha256    " + t.sha256 + "\nMODIFIED  by " + set + "\n") != std::string::npos);
   // (wrapped at 78 columns)
-  CHECK(text.find("\nMODIFIED: the numbers in this report come from the file AS MODIFIED by --set\nf_run=0.10;") <
+  CHECK(text.find(
+            "\nMODIFIED: the numbers in this report come from the file AS MODIFIED by --set\nf_run=0.10;") <
         text.find("INPUTS"));
   const std::string text_sign = between(text, "SIGN-OFF", "\n\n  Prepared");
   CHECK(text_sign.find("MODIFIED   by " + set) != std::string::npos);
@@ -72,23 +73,28 @@ TEST_CASE("a --set run: every format names the replacement next to the hash and 
   // HTML: a framed notice in the title block, the footer of every page, and the sign-off.
   const std::string html = renderHtml(t);
   const std::string title_block = between(html, "<header class=\"title-block\">", "</header>");
-  CHECK(title_block.find(t.sha256) < title_block.find("<p class=\"modified\"><span class=\"fail-mark\">MODIFIED"
-                                                      "</span> the numbers in this report come from the file "
-                                                      "AS MODIFIED by " + set));
+  CHECK(title_block.find(t.sha256) <
+        title_block.find("<p class=\"modified\"><span class=\"fail-mark\">MODIFIED"
+                         "</span> the numbers in this report come from the file "
+                         "AS MODIFIED by " +
+                         set));
   CHECK(html.find("@bottom-left { content: \"worksheets/twin-screw-lift.calc \u00B7 SHA-256 " + t.sha256 +
                   " \u00B7 MODIFIED BY " + set + "\"") != std::string::npos);
   const std::string html_sign = between(html, "<h2>Sign-off</h2>", "<table class=\"signatures\">");
   CHECK(html_sign.find("<tr><th>MODIFIED BY</th><td colspan=\"3\"><code>" + set + "</code></td></tr>") !=
         std::string::npos);
-  CHECK(html_sign.find("<p class=\"modified\"><strong>This report is NOT the calculation") != std::string::npos);
+  CHECK(html_sign.find("<p class=\"modified\"><strong>This report is NOT the calculation") !=
+        std::string::npos);
   CHECK(html_sign.find("cover the worksheet with this SHA-256 only") == std::string::npos);
 
   // JSON: a field of its own, the notice, and the sign-off statement.
   const std::string json = renderJson(t);
   CHECK(json.find("\"modified_by\": [\n    {\n      \"name\": \"f_run\",\n      \"value\": \"0.10\",") !=
         std::string::npos);
-  CHECK(json.find("\"modified_notice\": \"MODIFIED: the numbers in this report come from the file AS MODIFIED "
-                  "by " + set) != std::string::npos);
+  CHECK(
+      json.find("\"modified_notice\": \"MODIFIED: the numbers in this report come from the file AS MODIFIED "
+                "by " +
+                set) != std::string::npos);
   CHECK(json.find("\"sign_off\": \"This report is NOT the calculation") != std::string::npos);
 }
 

@@ -90,7 +90,8 @@ std::vector<const Caution*> cautionsForFunctionText(std::string_view text) {
        "constant conservatively and apply a design factor. Below the transition slenderness Euler's load is "
        "unsafe.",
        {"buckling", "euler-range"}},
-      {"Use the starting value for the breakaway torque of a motor and the running value, at its low end, for "
+      {"Use the starting value for the breakaway torque of a motor and the running value, at its low end, "
+       "for "
        "self-locking.",
        {"starting-friction"}},
       {"Collar friction is often the larger part of the torque: use the high value for motor sizing; it also "

@@ -74,7 +74,7 @@ code.name { font-size: 0.75em; margin-left: 0.4em; }
 .fn math { text-indent: 0; math-style: normal; }
 .fn mfrac > * { math-style: normal; }
 ol.sources { font-size: 0.85em; padding-left: 2em; margin: 0.3em 0; }
-td.value, table.checks td:nth-child(4) { white-space: nowrap; }
+table.checks { font-size: 0.92em; }
 .source { font-style: italic; }
 .cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.3em; margin-top: 1em; break-inside: avoid;
   font-size: 0.92em; }
@@ -316,7 +316,8 @@ void header(Out out, const Trail& t) {
 std::string verdictHtml(const Trail& t) {
   const std::string state = verdictState(t), sentence = verdictSentence(t);
   if (state == "PASS") return esc(sentence);
-  return "<span class=\"fail-mark\">" + esc(state) + "</span>" + esc(sentence.substr(state.size()));
+  // "FAIL:" in the box, so that the sentence reads the same in print as in every format.
+  return "<span class=\"fail-mark\">" + esc(state) + ":</span>" + esc(sentence.substr(state.size() + 1));
 }
 
 // A check's utilisation under that heading ("55 %"), or its margin in words.
@@ -333,8 +334,8 @@ void checksSummary(Out out, const Trail& t) {
   fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n", verdictHtml(t));
   if (!t.warnings.empty()) {
     const std::string w = warningSummary(t);
-    fmt::format_to(out, "<p class=\"warn\"><span class=\"fail-mark\">WARNING</span>{}</p>\n",
-                   esc(w.substr(std::string("WARNING").size())));
+    fmt::format_to(out, "<p class=\"warn\"><span class=\"fail-mark\">WARNING:</span>{}</p>\n",
+                   esc(w.substr(std::string("WARNING:").size())));
   }
   if (t.checks.empty()) {
     fmt::format_to(out, "</section>\n");
@@ -348,8 +349,9 @@ void checksSummary(Out out, const Trail& t) {
     std::string note = esc(c.description);
     for (const std::string& w : c.warnings)
       note += (note.empty() ? "" : " ") + std::string("<strong>WARNING:</strong> ") + esc(w);
-    fmt::format_to(out, "<td><code>{}</code></td><td>{}</td><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n",
-                   esc(c.name), conditionMath(c), checkValues(c), esc(measureCell(c)), note);
+    fmt::format_to(
+        out, "<td><code>{}</code></td><td>{}</td><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n",
+        esc(c.name), conditionMath(c), checkValues(c), esc(measureCell(c)), note);
   }
   fmt::format_to(out, "</tbody>\n</table>\n</section>\n");
 }
@@ -398,7 +400,8 @@ MathValueOf bound(const std::vector<TrailBinding>& bindings) {
 }
 
 // symbol = formula = substituted ... = result, the equals signs aligned.
-void equation(Out out, const std::string& lhs, const std::vector<std::string>& rhs, const std::string& result) {
+void equation(Out out, const std::string& lhs, const std::vector<std::string>& rhs,
+              const std::string& result) {
   fmt::format_to(out, "<div class=\"eq\">\n<div class=\"lhs\">{}</div>", lhs);
   for (size_t k = 0; k < rhs.size(); ++k)
     fmt::format_to(out, "<div class=\"rel\">=</div><div class=\"rhs\">{}</div>\n", rhs[k]);
@@ -489,8 +492,11 @@ void libraryFunctions(Out out, const Trail& t) {
     const size_t number = static_cast<size_t>(at - sources.begin()) + 1;
     std::vector<std::string> used;
     for (const std::string& u : f.used_by) used.push_back("<code>" + esc(u) + "</code>");
-    fmt::format_to(out, "<p class=\"fn\" id=\"fn-{}\"><code class=\"sig\">{}</code> <span class=\"used\">(used for {})"
-                        "</span> ", esc(f.name), esc(f.signature), fmt::join(used, ", "));
+    fmt::format_to(
+        out,
+        "<p class=\"fn\" id=\"fn-{}\"><code class=\"sig\">{}</code> <span class=\"used\">(used for {})"
+        "</span> ",
+        esc(f.name), esc(f.signature), fmt::join(used, ", "));
     if (f.formula_is_expression && f.formula_expr)
       fmt::format_to(out, "= {}", inlineMath(mathmlExpr(*f.formula_expr)));
     else
@@ -511,8 +517,8 @@ void libraryFunctions(Out out, const Trail& t) {
 void signOff(Out out, const Trail& t) {
   auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : esc(v); };
   fmt::format_to(out, "<section class=\"signoff\">\n<h2>Sign-off</h2>\n<table class=\"meta\">\n");
-  fmt::format_to(out, "<tr><th>calc</th><td>{}</td><th>revision</th><td>{}</td></tr>\n", given(meta(t, "calc")),
-                 given(meta(t, "revision")));
+  fmt::format_to(out, "<tr><th>calc</th><td>{}</td><th>revision</th><td>{}</td></tr>\n",
+                 given(meta(t, "calc")), given(meta(t, "revision")));
   fmt::format_to(out, "<tr><th>worksheet</th><td colspan=\"3\"><code>{}</code></td></tr>\n", esc(t.path));
   fmt::format_to(out, "<tr><th>SHA-256</th><td colspan=\"3\"><code class=\"hash\">{}</code></td></tr>\n",
                  esc(t.sha256));

@@ -75,14 +75,16 @@ void checksSummary(std::back_insert_iterator<fmt::memory_buffer> out, const Trai
 
 std::string resultText(const TrailStep& s) {
   std::string out = "**" + human(s.result) + "**";
-  if (!s.calls.empty() && s.calls[0].whole && !s.calls[0].row.empty()) out += " (" + text(s.calls[0].row) + ")";
+  if (!s.calls.empty() && s.calls[0].whole && !s.calls[0].row.empty())
+    out += " (" + text(s.calls[0].row) + ")";
   return out;
 }
 
 void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
   auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : text(v); };
   fmt::format_to(out, "## Sign-off\n\n");
-  fmt::format_to(out, "- **calc:** {}\n- **revision:** {}\n", given(meta(t, "calc")), given(meta(t, "revision")));
+  fmt::format_to(out, "- **calc:** {}\n- **revision:** {}\n", given(meta(t, "calc")),
+                 given(meta(t, "revision")));
   fmt::format_to(out, "- **worksheet:** {}\n- **sha256:** {}\n", code(t.path), code(t.sha256));
   if (!t.modified_by.empty()) fmt::format_to(out, "- **MODIFIED BY:** {}\n", code(replacementList(t)));
   fmt::format_to(out, "\n{}\n\n", t.modified_by.empty() ? text(signOffStatement(t))

@@ -78,10 +78,10 @@ void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
   if (!t.modified_by.empty()) fmt::format_to(out, "  {}by {}\n", pad("MODIFIED", 11), replacementList(t));
   fmt::format_to(out, "{}\n", wrap(signOffStatement(t), "  "));
   const std::string line = "______________";
-  fmt::format_to(out, "  Prepared  {}  signature {}  date {}\n", pad(given(meta("prepared"), line.c_str()), 16),
-                 line, given(meta("date"), line.c_str()));
-  fmt::format_to(out, "  Checked   {}  signature {}  date {}\n", pad(given(meta("checked"), line.c_str()), 16),
-                 line, line);
+  fmt::format_to(out, "  Prepared  {}  signature {}  date {}\n",
+                 pad(given(meta("prepared"), line.c_str()), 16), line, given(meta("date"), line.c_str()));
+  fmt::format_to(out, "  Checked   {}  signature {}  date {}\n",
+                 pad(given(meta("checked"), line.c_str()), 16), line, line);
 }
 
 }  // namespace
@@ -192,7 +192,8 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
       fmt::format_to(out, "    verified: {}\n", f.verification);
     }
     if (!definitions.empty())
-      fmt::format_to(out, "{}", wrap("Definitions: " + fmt::format("{}", fmt::join(definitions, ", ")), "  "));
+      fmt::format_to(out, "{}",
+                     wrap("Definitions: " + fmt::format("{}", fmt::join(definitions, ", ")), "  "));
     fmt::format_to(out, "\n");
   }
 

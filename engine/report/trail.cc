@@ -73,10 +73,13 @@ std::string modifiedNotice(const Trail& t) {
 
 std::string signOffStatement(const Trail& t) {
   if (t.modified_by.empty())
-    return "The signatures below cover the worksheet with this SHA-256 only. Any change to it, however small, "
+    return "The signatures below cover the worksheet with this SHA-256 only. Any change to it, however "
+           "small, "
            "changes the SHA-256 and needs a new sign-off.";
   return "This report is NOT the calculation of the worksheet with this SHA-256: its numbers come from the "
-         "file AS MODIFIED by " + replacementList(t) + ". A signature below covers that file with exactly these "
+         "file AS MODIFIED by " +
+         replacementList(t) +
+         ". A signature below covers that file with exactly these "
          "replacements, never the file alone; to sign the file's own numbers, report it without --set.";
 }
 
@@ -331,7 +334,8 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
       const int j = calc.sheet.find(x->text);
       if (given[j] && calc.quantities[j].display.text == unit.text) shown_value = *given[j];
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
-      shown_value = written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
+      shown_value =
+          written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
     c.arguments.push_back({fmt::format("{}{} = ", k ? ", " : "", f.args[k].name), std::nullopt});
     c.arguments.push_back({"", shown_value});
@@ -415,8 +419,9 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
   }
 }
 
-TrailLine substitute(const Expr& e, const Calculation& calc, const std::vector<std::optional<TrailValue>>& given,
-                     const std::vector<TrailCall>& calls, int digits, std::vector<TrailBinding>* bindings) {
+TrailLine substitute(const Expr& e, const Calculation& calc,
+                     const std::vector<std::optional<TrailValue>>& given, const std::vector<TrailCall>& calls,
+                     int digits, std::vector<TrailBinding>* bindings) {
   std::vector<TrailValue> values;
   const std::string text = renderExpr(
       e,

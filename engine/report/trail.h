@@ -80,7 +80,7 @@ struct TrailFunction {
   std::string name;
   std::string signature;  // "torque_raise(F, dm, l, f, alpha)"
   std::string summary;    // one line from the library
-  std::string method;     // the formula in worksheet syntax, or the method in words (a table without its rows)
+  std::string method;  // the formula in worksheet syntax, or the method in words (a table without its rows)
   bool formula_is_expression = true;
   std::string pretty;     // the formula with the product dot
   const Expr* formula_expr = nullptr;  // for typesetting; lives as long as the program
