@@ -47,7 +47,7 @@ TEST_CASE("report exits 0 even when a check fails, and the trail shows it", "[cl
   const std::string f = sheetFile(kFailing);
   Run r = runCli("report '" + f + "'");
   CHECK(r.status == 0);
-  CHECK(r.out.find("Checks: 1 of 1 FAIL: t") != std::string::npos);
+  CHECK(r.out.find("FAIL: 1 of 1 check fails: t") != std::string::npos);
   CHECK(r.out.find("FAIL  t") != std::string::npos);
   CHECK(r.err.empty());
 }

@@ -1,6 +1,6 @@
 // The report's JSON against its documented schema (docs/trail.schema.json),
 // for every demo worksheet. The validator below covers the keywords that
-// schema uses: type, const, enum, required, properties,
+// schema uses: type (one or a list), const, enum, required, properties,
 // additionalProperties (false), items, minLength and pattern.
 #include <catch2/catch.hpp>
 
@@ -46,9 +46,19 @@ void validate(const Json& schema, const Json& v, const std::string& path, std::v
     if (std::find(known.begin(), known.end(), key) == known.end())
       errors->push_back(path + ": the schema uses `" + key + "`, which this validator does not know");
   }
-  if (schema.has("type") && !hasType(v, schema["type"].string)) {
-    errors->push_back(path + ": expected " + schema["type"].string);
-    return;
+  if (schema.has("type")) {
+    // One type, or a list of them ("utilisation": ["number", "null"]).
+    const Json& type = schema["type"];
+    bool any = type.type == Json::String && hasType(v, type.string);
+    std::string names = type.type == Json::String ? type.string : "";
+    for (const Json& t : type.array) {
+      any |= hasType(v, t.string);
+      names += (names.empty() ? "" : " or ") + t.string;
+    }
+    if (!any) {
+      errors->push_back(path + ": expected " + names);
+      return;
+    }
   }
   if (schema.has("const") && !equal(schema["const"], v)) errors->push_back(path + ": not the constant");
   if (schema.has("enum")) {
@@ -119,6 +129,42 @@ TEST_CASE("the schema validator itself rejects what it should", "[json][schema]"
   errors.clear();
   validate(schema, load(R"({"b":"x"})"), "$", &errors);
   CHECK(errors == std::vector<std::string>{"$: missing `a`"});
+  errors.clear();
+  const Json either = load(R"({"type":["number","null"]})");
+  validate(either, load("null"), "$", &errors);
+  validate(either, load("0.5"), "$", &errors);
+  CHECK(errors.empty());
+  validate(either, load(R"("0.5")"), "$", &errors);
+  CHECK(errors == std::vector<std::string>{"$: expected number or null"});
+}
+
+TEST_CASE("a --set run's JSON follows the schema and lists every replacement", "[json][schema]") {
+  const Json schema = load(readFile(repoPath("docs/trail.schema.json")));
+  Run r =
+      runCli("report worksheets/twin-screw-lift.calc --format json --set \"f_run=0.10\" --set \"d=52 mm\"");
+  INFO(r.err);
+  REQUIRE(r.status == 0);
+  const Json out = load(r.out);
+  std::vector<std::string> errors;
+  validate(schema, out, "$", &errors);
+  std::string all;
+  for (const auto& e : errors) all += e + "\n";
+  INFO(all);
+  CHECK(errors.empty());
+  // In worksheet order, each as typed after `=`.
+  REQUIRE(out["modified_by"].array.size() == 2);
+  CHECK(out["modified_by"][0]["name"].string == "d");
+  CHECK(out["modified_by"][0]["value"].string == "52 mm");
+  CHECK(out["modified_by"][1]["name"].string == "f_run");
+  CHECK(out["modified_by"][1]["value"].string == "0.10");
+  CHECK(out["modified_notice"].string.rfind("MODIFIED: ", 0) == 0);
+  CHECK(out["sign_off"].string.find("AS MODIFIED by --set d=52 mm, --set f_run=0.10") != std::string::npos);
+  // Utilisation per check: demand over capacity, null where a side is not above zero.
+  for (const Json& c : out["checks"].array) {
+    INFO(c["name"].string);
+    if (c["name"].string == "self_locking") CHECK(c["utilisation"].type == Json::Null);
+    else CHECK(c["utilisation"].type == Json::Number);
+  }
 }
 
 TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {

@@ -113,7 +113,9 @@ TEST_CASE("every human format carries the SHA-256, the cautions and the verdict"
   }
   const std::string md = renderMarkdown(t);
   CHECK(md.find("| **FAIL** | **`bearing`** |") != std::string::npos);
-  CHECK(md.find("**Checks: " + counts + " FAIL:** `bearing`") < md.find("## Inputs"));
+  // The check summary first, as in the HTML.
+  CHECK(md.find("**FAIL: " + counts + " checks fails: bearing**") < md.find("## Inputs"));
+  CHECK(md.find("## Design checks") < md.find("## Inputs"));
 }
 
 TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "[report]") {
@@ -124,7 +126,7 @@ TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "
   REQUIRE(checks != std::string::npos);
   CHECK(checks < html.find("<h2>Inputs</h2>"));
   CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Cautions</h2>"));
-  CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Sources</h2>"));
+  CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Library functions used</h2>"));
   // The failed check is marked in words, not only by style.
   CHECK(html.find(
             "<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
@@ -289,14 +291,18 @@ TEST_CASE("HTML and Markdown: values for people", "[report]") {
   const std::string html = renderHtml(t);
   CHECK(html.find("1.5&nbsp;\u00D7&nbsp;10\u2079&nbsp;W") != std::string::npos);
   CHECK(html.find("40.00&nbsp;\u00D7&nbsp;10\u207B\u00B9\u2075&nbsp;m\u00B2") != std::string::npos);
-  CHECK(html.find("(2&nbsp;\u00D7&nbsp;10\u207B\u2077&nbsp;m)\u00B2") != std::string::npos);
+  // The substituted line is typeset like the formula: the value under the power in parentheses.
+  CHECK(
+      html.find("<msup><mrow><mo>(</mo><mrow><mn>2</mn><mo>\u00D7</mo><msup><mn>10</mn><mrow><mo>\u2212</mo>"
+                "<mn>7</mn></mrow></msup><mspace width=\"0.22em\"/><mi mathvariant=\"normal\">m</mi></mrow>"
+                "<mo>)</mo></mrow><mn>2</mn></msup>") != std::string::npos);
   CHECK(html.find("\u22123.000&nbsp;N\u00B7m &lt; 0&nbsp;N\u00B7m") != std::string::npos);
   const std::string md = renderMarkdown(t);
   CHECK(md.find("| `P` | 1.5 \u00D7 10\u2079 W |") != std::string::npos);
   CHECK(md.find("`= (2 \u00D7 10\u207B\u2077 m)^2`") != std::string::npos);
 }
 
-TEST_CASE("HTML and Markdown: library calls are audited with their sources", "[report]") {
+TEST_CASE("HTML and Markdown: library calls are audited, each function described once", "[report]") {
   auto c = calc(
       "F = 20 kN\nd_m = 36.5 mm\nl = 7 mm\nf = 0.15\nalpha = 15 deg\n"
       "T [N*m] = torque_raise(F, d_m, l, f, alpha)  # raise\n"
@@ -306,19 +312,29 @@ TEST_CASE("HTML and Markdown: library calls are audited with their sources", "[r
   const Trail t = buildTrail(*c, 4);
   const std::string src = t.steps[5].calls.at(0).source;
   REQUIRE_FALSE(src.empty());
+  // T is the call alone: its chain goes on into the function's formula with the values.
+  CHECK(t.steps[5].single_call);
+  CHECK_FALSE(t.steps[6].single_call);
   const std::string html = renderHtml(t);
-  CHECK(html.find("<p>where <code>torque_raise(F, dm, l, f, alpha)</code></p>") != std::string::npos);
-  CHECK(html.find("<p class=\"source\">Source: " + escapeXml(src) + "</p>") != std::string::npos);
-  // The function's own formula typeset from its tree.
-  CHECK(html.find("<div class=\"lhs\"><code>torque_raise</code></div>") != std::string::npos);
-  CHECK(count(html, "<mi>dm</mi>") > 2);
-  // Sources: the function once, with both quantities that use it.
-  CHECK(html.find("<tr><td><code>torque_raise(F, dm, l, f, alpha)</code></td><td><code>T</code>, "
-                  "<code>U</code></td>") != std::string::npos);
+  // The source, the formula and the limits once, in "Library functions used", with both users.
+  CHECK(count(html, escapeXml(src)) == 1);
+  CHECK(html.find("<p class=\"fn\" id=\"fn-torque_raise\"><code class=\"sig\">torque_raise(F, dm, l, f, "
+                  "alpha)</code> <span class=\"used\">(used for <code>T</code>, <code>U</code>)</span>") !=
+        std::string::npos);
+  CHECK(html.find("verified: docs/verification.md, <code>torque_raise</code>") != std::string::npos);
+  // U uses the call inside a formula: a where line with the call's values, typeset substitution, result.
+  CHECK(html.find("<div class=\"where\"><span class=\"w\">where</span> <span class=\"call\">torque_raise("
+                  "20&nbsp;kN, 36.5&nbsp;mm, 7&nbsp;mm, 0.15, 15\u00B0)</span> = <math") !=
+        std::string::npos);
   CHECK(html.find("No library function is called") == std::string::npos);
   const std::string md = renderMarkdown(t);
-  CHECK(md.find("> where `torque_raise(F, dm, l, f, alpha)`") != std::string::npos);
-  CHECK(md.find("> source: ") != std::string::npos);
+  CHECK(md.find("where `torque_raise(20 kN, 36.5 mm, 7 mm, 0.15, 15\u00B0)` `= 20 kN \u00B7 36.5 mm / 2") !=
+        std::string::npos);
+  CHECK(count(md, src) == 1);
+  CHECK(md.find("**`torque_raise(F, dm, l, f, alpha)`** used by `T`, `U`") != std::string::npos);
+  const std::string text = renderText(t);
+  CHECK(count(text, "= F \u00B7 dm / 2 \u00B7 (l + \u03C0 \u00B7 f \u00B7 dm / cos(alpha))") == 1);
+  CHECK(text.find("    verified: docs/verification.md, `torque_raise`\n") != std::string::npos);
 }
 
 TEST_CASE("formats: each registered once, dispatched by name", "[report][formats]") {
@@ -365,22 +381,24 @@ TEST_CASE("the trail is all a renderer reads: JSON, text and Markdown outlive th
   CHECK(renderMarkdown(t) == md);
 }
 
-TEST_CASE("the verdict is worded once for every format", "[report]") {
+TEST_CASE("the verdict is one sentence, the same words in every format", "[report]") {
   auto none = calc("a = 1\n");
+  auto one = calc("a = 1\ncheck big: a > 0\n");
   auto pass = calc("a = 1\ncheck big: a > 0\ncheck small: a < 2\n");
   auto fail = calc("a = 1\ncheck big: a > 0\ncheck huge: a > 5\ncheck vast: a > 9\n");
-  const Trail tn = buildTrail(*none, 4), tp = buildTrail(*pass, 4), tf = buildTrail(*fail, 4);
-  CHECK(verdictWords(tn, VerdictForm::Headline) == "Checks: none in this worksheet");
-  CHECK(verdictWords(tp, VerdictForm::Headline) == "Checks: all 2 pass");
-  CHECK(verdictWords(tf, VerdictForm::Headline) == "Checks: 2 of 3 FAIL:");
-  CHECK(verdictWords(tn, VerdictForm::Sentence) == "This worksheet has no design checks.");
-  CHECK(verdictWords(tp, VerdictForm::Sentence) == "All 2 checks pass.");
-  CHECK(verdictWords(tf, VerdictForm::Sentence) == "2 of 3 checks fail:");
-  CHECK(renderText(tf).find("Checks: 2 of 3 FAIL: huge vast\n") != std::string::npos);
-  CHECK(renderMarkdown(tf).find("**Checks: 2 of 3 FAIL:** `huge` `vast`") != std::string::npos);
-  CHECK(renderHtml(tf).find("FAIL</span> 2 of 3 checks fail: <code>huge</code> <code>vast</code>") !=
+  const Trail tn = buildTrail(*none, 4), to = buildTrail(*one, 4), tp = buildTrail(*pass, 4),
+              tf = buildTrail(*fail, 4);
+  CHECK(verdictSentence(tn) == "NO CHECKS: this worksheet has no design checks");
+  CHECK(verdictSentence(to) == "PASS: the 1 check passes");
+  CHECK(verdictSentence(tp) == "PASS: all 2 checks pass");
+  CHECK(verdictSentence(tf) == "FAIL: 2 of 3 checks fail: huge, vast");
+  CHECK(verdictState(tf) == "FAIL");
+  CHECK(renderText(tf).find("\nFAIL: 2 of 3 checks fail: huge, vast\n") != std::string::npos);
+  CHECK(renderMarkdown(tf).find("**FAIL: 2 of 3 checks fail: huge, vast**") != std::string::npos);
+  CHECK(renderHtml(tf).find("<span class=\"fail-mark\">FAIL:</span> 2 of 3 checks fail: huge, vast</p>") !=
         std::string::npos);
-  CHECK(renderHtml(tp).find(">All 2 checks pass.</p>") != std::string::npos);
+  CHECK(renderHtml(tp).find(">PASS: all 2 checks pass</p>") != std::string::npos);
+  CHECK(renderJson(tf).find("\"verdict\": \"FAIL: 2 of 3 checks fail: huge, vast\"") != std::string::npos);
   CHECK(tf.checks[1].condition == "a > 5");
 }
 

@@ -21,22 +21,24 @@ namespace {
 constexpr std::string_view kStyle = R"css(
 :root { color: #000; background: #fff; }
 body { font-family: "Liberation Serif", "Times New Roman", Times, "DejaVu Serif", serif; font-size: 10pt;
-  line-height: 1.3; max-width: 180mm; margin: 8mm auto; padding: 0 6mm; }
+  line-height: 1.25; max-width: 180mm; margin: 8mm auto; padding: 0 6mm; }
 math { font-family: "STIX Two Math", "Cambria Math", "Latin Modern Math", "DejaVu Math TeX Gyre", math; }
 code { font-family: "DejaVu Sans Mono", "Liberation Mono", monospace; font-size: 0.85em; }
 h1 { font-size: 1.55em; margin: 0 0 0.4em; }
-h2 { font-size: 1.2em; margin: 1.4em 0 0.5em; padding-bottom: 0.15em; border-bottom: 1pt solid #000; }
-h3 { font-size: 1.05em; margin: 1.2em 0 0.4em; }
+h2 { font-size: 1.2em; margin: 1.1em 0 0.4em; padding-bottom: 0.15em; border-bottom: 1pt solid #000; }
+h3 { font-size: 1.05em; margin: 0.9em 0 0.3em; }
 h2, h3 { break-after: avoid; }
 table { border-collapse: collapse; width: 100%; }
 th, td { text-align: left; vertical-align: baseline; padding: 0.2em 0.5em 0.2em 0; }
 thead th { font-size: 0.9em; border-bottom: 0.75pt solid #000; }
 tbody tr { break-inside: avoid; }
 tbody td { border-bottom: 0.25pt solid #999; }
+table.quantities td { padding-top: 0.1em; padding-bottom: 0.1em; }
 tr.group th { padding-top: 0.6em; font-style: italic; font-weight: normal; border-bottom: 0.25pt solid #999; }
 td.value { white-space: nowrap; }
 table.meta { width: auto; margin-bottom: 0.8em; }
 table.meta th { font-weight: normal; padding-right: 1.5em; }
+table.meta td { padding-right: 2em; }
 table.meta td { border: none; }
 code.hash { word-break: break-all; }
 .verdict { border: 1pt solid #000; padding: 0.5em 0.8em 0.7em; margin: 1em 0 1.2em; break-inside: avoid; }
@@ -45,41 +47,55 @@ code.hash { word-break: break-all; }
 .verdict-line { font-size: 1.15em; font-weight: bold; margin: 0 0 0.6em; }
 .fail-mark { font-weight: bold; border: 1.5pt solid #000; padding: 0 0.25em; }
 tr.fail td { font-weight: bold; }
-.note { margin: 0.4em 0 0.6em; }
-.step { margin: 0.6em 0 0.7em 0.8em; break-inside: avoid; }
-.step-head { margin: 0 0 0.2em; }
-.step-head .desc { margin-left: 0.5em; }
+.note { margin: 0.3em 0 0.4em; }
+.step { display: grid; grid-template-columns: 30% 70%; margin: 0.2em 0; break-inside: avoid; }
+.step .what { grid-column: 1; padding-right: 0.8em; font-size: 0.92em; }
+.step .how { grid-column: 2; min-width: 0; }
 .eq { display: grid; grid-template-columns: max-content max-content minmax(0, 1fr); column-gap: 0.4em;
-  align-items: baseline; margin-left: 1.2em; }
+  align-items: baseline; }
 .eq .lhs { grid-column: 1; }
 .eq .rel { grid-column: 2; }
 .eq .rhs { grid-column: 3; min-width: 0; overflow-wrap: anywhere; }
-.eq math[display="block"] { display: inline math; math-style: normal; margin: 0.15em 0; }
-.eq mfrac > * { math-style: normal; }
+.eq .rhs .broken, .eq .rhs math[display="block"] { vertical-align: middle; }
+.eq math[display="block"] { display: inline math; math-style: normal; margin: 0.1em 0; }
+.eq mfrac > *, .where mfrac > * { math-style: normal; }
 .broken .cont { padding-left: 1.5em; }
 .result { font-weight: bold; }
-.call { margin: 0.4em 0 0.2em 2.4em; padding-left: 0.7em; border-left: 0.75pt solid #000; font-size: 0.92em; }
-.call p { margin: 0.15em 0; }
-.call .eq { margin-left: 0.4em; }
+.row { font-style: italic; }
+.where { margin: 0.1em 0 0.1em 1.2em; font-size: 0.92em; }
+.where .w { font-style: italic; }
+.where .broken, .where math[display="block"] { display: inline-block; vertical-align: middle; }
+.warn { margin: 0.2em 0; font-weight: bold; }
+.modified { border: 2.5pt solid #000; padding: 0.4em 0.6em; margin: 0.6em 0; font-weight: bold; }
+code.name { font-size: 0.75em; margin-left: 0.4em; }
+.fn { font-size: 0.88em; margin: 0.2em 0 0.2em 1.5em; text-indent: -1.5em; break-inside: avoid; }
+.fn code.sig { font-weight: bold; }
+.fn .used, .fn .limits { font-style: italic; }
+.fn math { text-indent: 0; math-style: normal; }
+.fn mfrac > * { math-style: normal; }
+ol.sources { font-size: 0.85em; padding-left: 2em; margin: 0.3em 0; }
+table.checks { font-size: 0.92em; }
 .source { font-style: italic; }
-.cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.4em; margin-top: 1.4em; break-inside: avoid; }
+.cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.3em; margin-top: 1em; break-inside: avoid;
+  font-size: 0.92em; }
 .cautions h2 { border: none; margin-top: 0.5em; }
-.cautions li, .warnings li { margin-bottom: 0.3em; }
-.signoff { break-inside: avoid; margin-top: 1.6em; }
+.cautions li, .warnings li { margin-bottom: 0.15em; }
+.cautions ul { margin: 0.3em 0; }
+.signoff { break-inside: avoid; margin-top: 1em; }
 table.signatures th, table.signatures td { border: 0.75pt solid #000; padding: 0.35em 0.5em; }
-table.signatures tbody td, table.signatures tbody th { height: 2.6em; vertical-align: top; }
+table.signatures tbody td, table.signatures tbody th { height: 2.4em; vertical-align: top; }
 table.signatures td.sign { width: 38%; }
 .end { margin-top: 1.2em; text-align: center; font-style: italic; }
 @media print {
   body { max-width: none; margin: 0; padding: 0; }
   * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
 }
-@page { margin: 20mm 16mm 18mm 16mm; }
+@page { margin: 17mm 15mm 16mm 15mm; }
 )css";
 
-// Room for a formula beside its symbol at full size, in em (the text width
-// of A4 with the page margins, less the step indents).
-constexpr double kFormulaRoomEm = 38.0;
+// Room for a formula beside its symbol at full size, in em (the right-hand
+// column of a step on A4 or Letter with the page margins).
+constexpr double kFormulaRoomEm = 34.0;
 
 size_t codepointAt(const std::string& s, size_t i, char32_t* cp) {
   const auto b = static_cast<unsigned char>(s[i]);
@@ -181,8 +197,13 @@ std::string pageRules(const Trail& t) {
   out += "  @top-right { content: " + cssString(ident + "page ") +
          " counter(page) \" of \" counter(pages); " + box +
          "vertical-align: bottom; padding-bottom: 4mm; white-space: nowrap; }\n";
-  out += "  @bottom-left { content: " + cssString(t.path + " \u00B7 SHA-256 " + t.sha256) + "; " + small +
+  // The hash on every page, and beside it, after a --set, that the numbers are not the file's.
+  std::string foot = t.path + " \u00B7 SHA-256 " + t.sha256;
+  if (!t.modified_by.empty()) foot += " \u00B7 MODIFIED BY " + replacementList(t);
+  out += "  @bottom-left { content: " + cssString(foot) + "; " + small +
          "vertical-align: top; padding-top: 4mm; }\n";
+  out += "  @bottom-right { content: " + cssString(t.generator) + "; " + small +
+         "vertical-align: top; padding-top: 4mm; white-space: nowrap; }\n";
   out += "}\n";
   return out;
 }
@@ -200,15 +221,16 @@ std::string mathLine(const std::string& elements, double need, double room) {
 // formula is broken here between its top-level terms (before a sign where
 // possible, else before a product dot), each continuation starting with its
 // operator; a piece that alone is too wide is shrunk. Nothing is cut off.
-std::string displayMath(const Expr& e, double symbol_em) {
+std::string displayMath(const Expr& e, double symbol_em, const MathValueOf& values = nullptr) {
   // However long the symbol, a formula keeps a readable room.
   const double room = std::max(12.0, kFormulaRoomEm - symbol_em);
-  const double need = mathmlWidth(e);
+  const double need = mathmlWidth(e, values);
   const std::vector<InfixPiece> pieces = infixPieces(e);
-  if (need <= room || pieces.size() < 2) return mathLine(mathmlExpr(e), need, room);
+  if (need <= room || pieces.size() < 2) return mathLine(mathmlExpr(e, values), need, room);
   constexpr double kIndent = 1.5;  // continuation lines, in em
   std::vector<double> widths;
-  for (const InfixPiece& p : pieces) widths.push_back(mathmlWidth(*p.expr) + (p.op.empty() ? 0.0 : 1.1));
+  for (const InfixPiece& p : pieces)
+    widths.push_back(mathmlWidth(*p.expr, values) + (p.op.empty() ? 0.0 : 1.1));
   std::vector<std::pair<size_t, size_t>> lines;  // [first, last) pieces
   size_t first = 0;
   double width = 0;
@@ -235,7 +257,7 @@ std::string displayMath(const Expr& e, double symbol_em) {
     double w = 0;
     for (size_t k = lines[l].first; k < lines[l].second; ++k) {
       if (!pieces[k].op.empty()) elements += "<mo>" + pieces[k].op + "</mo>";
-      elements += mathmlExpr(*pieces[k].expr);
+      elements += mathmlExpr(*pieces[k].expr, values);
       w += widths[k];
     }
     out += std::string("<div") + (l ? " class=\"cont\"" : "") + ">" +
@@ -265,13 +287,43 @@ std::string checkValues(const TrailCheck& c) {
 // Every part of the document is appended to one buffer.
 using Out = std::back_insert_iterator<fmt::memory_buffer>;
 
+// A run changed by --set: said in a framed box wherever the hash is shown.
+void modifiedBox(Out out, const Trail& t) {
+  if (t.modified_by.empty()) return;
+  fmt::format_to(out, "<p class=\"modified\"><span class=\"fail-mark\">MODIFIED</span> {}</p>\n",
+                 esc(modifiedNotice(t).substr(std::string("MODIFIED: ").size())));
+}
+
 void header(Out out, const Trail& t) {
   fmt::format_to(out, "<header class=\"title-block\">\n<h1>{}</h1>\n<table class=\"meta\">\n", esc(title(t)));
-  for (const auto& [key, value] : t.meta)
-    fmt::format_to(out, "<tr><th>{}</th><td>{}</td></tr>\n", esc(key), esc(value));
-  fmt::format_to(out, "<tr><th>file</th><td><code>{}</code></td></tr>\n", esc(t.path));
-  fmt::format_to(out, "<tr><th>SHA-256</th><td><code class=\"hash\">{}</code></td></tr>\n", esc(t.sha256));
-  fmt::format_to(out, "</table>\n</header>\n");
+  // The metadata two to a row; the file and its hash on rows of their own.
+  for (size_t k = 0; k < t.meta.size(); k += 2) {
+    fmt::format_to(out, "<tr><th>{}</th><td>{}</td>", esc(t.meta[k].first), esc(t.meta[k].second));
+    if (k + 1 < t.meta.size())
+      fmt::format_to(out, "<th>{}</th><td>{}</td>", esc(t.meta[k + 1].first), esc(t.meta[k + 1].second));
+    fmt::format_to(out, "</tr>\n");
+  }
+  fmt::format_to(out, "<tr><th>file</th><td colspan=\"3\"><code>{}</code></td></tr>\n", esc(t.path));
+  fmt::format_to(out, "<tr><th>SHA-256</th><td colspan=\"3\"><code class=\"hash\">{}</code></td></tr>\n",
+                 esc(t.sha256));
+  fmt::format_to(out, "<tr><th>generator</th><td colspan=\"3\">{}</td></tr>\n", esc(t.generator));
+  fmt::format_to(out, "</table>\n");
+  modifiedBox(out, t);
+  fmt::format_to(out, "</header>\n");
+}
+
+// The verdict sentence, its first word boxed when it is not a pass.
+std::string verdictHtml(const Trail& t) {
+  const std::string state = verdictState(t), sentence = verdictSentence(t);
+  if (state == "PASS") return esc(sentence);
+  // "FAIL:" in the box, so that the sentence reads the same in print as in every format.
+  return "<span class=\"fail-mark\">" + esc(state) + ":</span>" + esc(sentence.substr(state.size() + 1));
+}
+
+// A check's utilisation under that heading ("55 %"), or its margin in words.
+std::string measureCell(const TrailCheck& c) {
+  const std::string u = "utilisation ";
+  return c.measure.rfind(u, 0) == 0 ? c.measure.substr(u.size()) : c.measure;
 }
 
 // The verdict and every check, first: a failed check must be impossible to
@@ -279,33 +331,43 @@ void header(Out out, const Trail& t) {
 void checksSummary(Out out, const Trail& t) {
   fmt::format_to(out, "<section class=\"verdict {}\">\n<h2>Design checks</h2>\n",
                  t.failed ? "has-fail" : "all-pass");
-  const std::string words = esc(verdictWords(t, VerdictForm::Sentence));
+  fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n", verdictHtml(t));
+  if (!t.warnings.empty()) {
+    const std::string w = warningSummary(t);
+    fmt::format_to(out, "<p class=\"warn\"><span class=\"fail-mark\">WARNING:</span>{}</p>\n",
+                   esc(w.substr(std::string("WARNING:").size())));
+  }
   if (t.checks.empty()) {
-    fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n</section>\n", words);
+    fmt::format_to(out, "</section>\n");
     return;
   }
-  if (t.failed == 0) {
-    fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n", words);
-  } else {
-    fmt::format_to(out, "<p class=\"verdict-line\"><span class=\"fail-mark\">FAIL</span> {}", words);
-    for (const TrailCheck& c : t.checks)
-      if (!c.passed) fmt::format_to(out, " <code>{}</code>", esc(c.name));
-    fmt::format_to(out, "</p>\n");
-  }
   fmt::format_to(out, "<table class=\"checks\">\n<thead><tr><th>State</th><th>Check</th><th>Condition</th>"
-                      "<th>Values</th><th>Note</th></tr></thead>\n<tbody>\n");
+                      "<th>Values</th><th>Utilisation</th><th>Note</th></tr></thead>\n<tbody>\n");
   for (const TrailCheck& c : t.checks) {
     fmt::format_to(out, "<tr class=\"{}\">{}", c.passed ? "pass" : "fail",
                    c.passed ? "<td>pass</td>" : "<td><span class=\"fail-mark\">FAIL</span></td>");
-    fmt::format_to(out, "<td><code>{}</code></td><td>{}</td><td>{}</td><td>{}</td></tr>\n", esc(c.name),
-                   conditionMath(c), checkValues(c), esc(c.description));
+    std::string note = esc(c.description);
+    for (const std::string& w : c.warnings)
+      note += (note.empty() ? "" : " ") + std::string("<strong>WARNING:</strong> ") + esc(w);
+    fmt::format_to(
+        out, "<td><code>{}</code></td><td>{}</td><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n",
+        esc(c.name), conditionMath(c), checkValues(c), esc(measureCell(c)), note);
   }
   fmt::format_to(out, "</tbody>\n</table>\n</section>\n");
 }
 
-// Inputs or results: symbol, name, value, notes, grouped under sections.
+// A quantity's symbol, and its name as written where the symbol is not
+// simply that name (d_m is typeset d with subscript m; F is F).
+std::string symbolCell(const std::string& name) {
+  const std::string symbol = inlineMath(mathmlName(name));
+  if (mathmlName(name) == "<mi>" + esc(name) + "</mi>") return symbol;
+  return symbol + " <code class=\"name\">" + esc(name) + "</code>";
+}
+
+// The inputs (every result is in its step): quantity, value, notes,
+// grouped under sections.
 void quantityTable(Out out, const Trail& t, bool inputs) {
-  fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Symbol</th><th>Name</th><th>{}</th></tr>"
+  fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Quantity</th><th>{}</th></tr>"
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
   for (const TrailStep& s : t.steps) {
@@ -313,60 +375,87 @@ void quantityTable(Out out, const Trail& t, bool inputs) {
     if (s.section != section) {
       section = s.section;
       if (!section.empty())
-        fmt::format_to(out, "<tr class=\"group\"><th colspan=\"4\">{}</th></tr>\n", esc(section));
+        fmt::format_to(out, "<tr class=\"group\"><th colspan=\"3\">{}</th></tr>\n", esc(section));
     }
     std::string notes = esc(s.description);
     if (inputs && s.formula_in_notes)
       notes = "= <code>" + esc(s.formula) + "</code>" + (notes.empty() ? "" : "; " + notes);
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("<em>(set on the command line)</em>");
+    if (inputs)
+      for (const std::string& w : s.warnings) notes += " <strong>WARNING:</strong> " + esc(w);
     const TrailValue& value = inputs && s.given ? *s.given : s.result;
-    fmt::format_to(out,
-                   "<tr><td>{}</td><td><code>{}</code></td><td class=\"value\">{}</td><td>{}</td></tr>\n",
-                   inlineMath(mathmlName(s.name)), esc(s.name), human(value), notes);
+    fmt::format_to(out, "<tr><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n", symbolCell(s.name),
+                   human(value), notes);
   }
   fmt::format_to(out, "</tbody>\n</table>\n");
 }
 
-// symbol = formula / = substituted / = result, the equals signs aligned.
-void equation(Out out, const std::string& lhs, const std::string& formula, const std::string& substituted,
+// The value set in place of each bound node of a substituted formula.
+MathValueOf bound(const std::vector<TrailBinding>& bindings) {
+  return [&bindings](const Expr& node) -> const TrailBinding* {
+    for (const TrailBinding& b : bindings)
+      if (b.node == &node) return &b;
+    return nullptr;
+  };
+}
+
+// symbol = formula = substituted ... = result, the equals signs aligned.
+void equation(Out out, const std::string& lhs, const std::vector<std::string>& rhs,
               const std::string& result) {
-  fmt::format_to(out, "<div class=\"eq\">\n<div class=\"lhs\">{}</div><div class=\"rel\">=</div>"
-                      "<div class=\"rhs\">{}</div>\n", lhs, formula);
-  if (!substituted.empty())
-    fmt::format_to(out, "<div class=\"rel\">=</div><div class=\"rhs subst\">{}</div>\n", substituted);
+  fmt::format_to(out, "<div class=\"eq\">\n<div class=\"lhs\">{}</div>", lhs);
+  for (size_t k = 0; k < rhs.size(); ++k)
+    fmt::format_to(out, "<div class=\"rel\">=</div><div class=\"rhs\">{}</div>\n", rhs[k]);
   if (!result.empty())
     fmt::format_to(out, "<div class=\"rel\">=</div><div class=\"rhs result\">{}</div>\n", result);
   fmt::format_to(out, "</div>\n");
 }
 
-void callAudit(Out out, const TrailCall& c) {
-  fmt::format_to(out, "<div class=\"call\">\n<p>where <code>{}</code></p>\n", esc(c.signature));
-  if (c.formula_is_expression) {
-    const std::string formula =
-        c.formula_expr ? displayMath(*c.formula_expr, 0.5 * static_cast<double>(c.name.size()) + 3)
-                       : esc(c.pretty);
-    const std::string subst = c.show_substituted ? human(c.substituted) : "";
-    equation(out, "<code>" + esc(c.name) + "</code>", formula, subst, c.result ? human(*c.result) : "");
-  } else {
-    fmt::format_to(out, "<p>{}</p>\n", esc(c.formula));
-    if (!c.arguments.empty()) fmt::format_to(out, "<p>with {}</p>\n", human(c.arguments));
-    if (c.result) fmt::format_to(out, "<p>= {}</p>\n", human(*c.result));
-  }
-  fmt::format_to(out, "<p class=\"source\">Source: {}</p>\n</div>\n", esc(c.source));
+// A library call inside a formula: its values, its own formula with them
+// (typeset like the worksheet's formulas) and its result, on one line when
+// they fit. The function's formula, limits and source are listed once.
+void whereLine(Out out, const TrailCall& c) {
+  fmt::format_to(out, "<div class=\"where\"><span class=\"w\">where</span> <span class=\"call\">{}</span>",
+                 human(c.with_values));
+  if (c.formula_is_expression && c.show_substituted && c.formula_expr)
+    fmt::format_to(out, " = {}", displayMath(*c.formula_expr, 14, bound(c.bindings)));
+  if (c.result) fmt::format_to(out, " = <span class=\"result\">{}</span>", human(*c.result));
+  if (!c.row.empty()) fmt::format_to(out, " <span class=\"row\">({})</span>", esc(c.row));
+  fmt::format_to(out, "</div>\n");
 }
 
 void step(Out out, const TrailStep& s) {
-  fmt::format_to(out, "<div class=\"step\" id=\"q-{}\">\n<p class=\"step-head\"><code>{}</code>", esc(s.name),
+  fmt::format_to(out, "<div class=\"step\" id=\"q-{}\">\n<div class=\"what\"><code>{}</code>", esc(s.name),
                  esc(s.name));
-  if (!s.description.empty()) fmt::format_to(out, "<span class=\"desc\">{}</span>", esc(s.description));
+  if (!s.description.empty()) fmt::format_to(out, " <span class=\"desc\">{}</span>", esc(s.description));
   if (s.overridden) fmt::format_to(out, " <em>(set on the command line)</em>");
-  fmt::format_to(out, "</p>\n");
+  fmt::format_to(out, "</div>\n<div class=\"how\">\n");
   const double symbol_em = mathmlNameWidth(s.name) + 2;
-  const std::string formula = s.expr ? displayMath(*s.expr, symbol_em) : esc(s.pretty);
-  const std::string subst = s.show_substituted ? human(s.substituted) : "";
-  equation(out, inlineMath(mathmlName(s.name)), formula, subst, human(s.result));
-  for (const TrailCall& c : s.calls) callAudit(out, c);
-  fmt::format_to(out, "</div>\n");
+  std::vector<std::string> rhs = {s.expr ? displayMath(*s.expr, symbol_em) : esc(s.pretty)};
+  double last = s.expr ? mathmlWidth(*s.expr) : 1e9;  // width of the last line, in em
+  if (s.show_substituted) {
+    rhs.push_back(s.substituted_expr ? displayMath(*s.substituted_expr, symbol_em, bound(s.bindings))
+                                     : human(s.substituted));
+    last = s.substituted_expr ? mathmlWidth(*s.substituted_expr, bound(s.bindings)) : 1e9;
+  }
+  if (s.single_call && s.calls[0].formula_expr) {
+    rhs.push_back(displayMath(*s.calls[0].formula_expr, symbol_em, bound(s.calls[0].bindings)));
+    last = mathmlWidth(*s.calls[0].formula_expr, bound(s.calls[0].bindings));
+  }
+  std::string result = human(s.result);
+  const std::string row = !s.calls.empty() && s.calls[0].whole ? s.calls[0].row : "";
+  if (!row.empty()) result += " <span class=\"row\">(" + esc(row) + ")</span>";
+  // The result ends the last line where it fits there, as a hand calculation writes it.
+  const double result_em = 0.6 * static_cast<double>(valueText(s.result).size() + row.size()) + 1.5;
+  if (rhs.size() > 1 && last + result_em <= kFormulaRoomEm - symbol_em) {
+    rhs.back() += " = <span class=\"result\">" + result + "</span>";
+    result.clear();
+  }
+  equation(out, inlineMath(mathmlName(s.name)), rhs, result);
+  for (const TrailCall& c : s.calls)
+    if (!c.whole) whereLine(out, c);
+  for (const std::string& w : s.warnings)
+    fmt::format_to(out, "<p class=\"warn\"><span class=\"fail-mark\">WARNING</span> {}</p>\n", esc(w));
+  fmt::format_to(out, "</div>\n</div>\n");
 }
 
 void calculation(Out out, const Trail& t) {
@@ -379,49 +468,66 @@ void calculation(Out out, const Trail& t) {
   fmt::format_to(out, "</section>\n");
 }
 
-// Every library function the formulas call, once, with its published source.
-void sources(Out out, const Trail& t) {
-  fmt::format_to(out, "<section class=\"sources\">\n<h2>Sources</h2>\n");
-  std::vector<std::string> seen;
-  fmt::memory_buffer rows;
-  for (const TrailStep& s : t.steps) {
-    for (const TrailCall& c : s.calls) {
-      if (std::find(seen.begin(), seen.end(), c.name) != seen.end()) continue;
-      seen.push_back(c.name);
-      std::vector<std::string> used;  // the quantities that call it, once each
-      for (const TrailStep& u : t.steps)
-        for (const TrailCall& uc : u.calls)
-          if (uc.name == c.name && std::find(used.begin(), used.end(), u.name) == used.end())
-            used.push_back(u.name);
-      std::vector<std::string> cells;
-      for (const std::string& name : used) cells.push_back("<code>" + esc(name) + "</code>");
-      fmt::format_to(std::back_inserter(rows), "<tr><td><code>{}</code></td><td>{}</td><td>{}</td></tr>\n",
-                     esc(c.signature), fmt::join(cells, ", "), esc(c.source));
-    }
-  }
-  if (seen.empty()) {
+// Every library function the formulas call, once: what it computes, its
+// formula or method, limits, published source and where its tests are
+// listed. Sources that several functions share are written once, numbered.
+void libraryFunctions(Out out, const Trail& t) {
+  fmt::format_to(out, "<section class=\"library\">\n<h2>Library functions used</h2>\n");
+  if (t.functions.empty()) {
     fmt::format_to(out, "<p>No library function is called: every formula above is written out in the "
-                        "worksheet itself.</p>\n");
-  } else {
-    fmt::format_to(out,
-                   "<table class=\"functions\">\n<thead><tr><th>Library function</th><th>Used for</th>"
-                   "<th>Source</th></tr></thead>\n<tbody>\n{}</tbody>\n</table>\n",
-                   fmt::to_string(rows));
+                        "worksheet itself.</p>\n</section>\n");
+    return;
   }
-  fmt::format_to(out, "</section>\n");
+  fmt::format_to(out, "<p class=\"note\">Each function once: the steps above show its call, the values and "
+                      "the result. Each is tested against its source and an independent check, listed under "
+                      "its name in docs/verification.md; the sources are numbered below.</p>\n");
+  std::vector<std::string> sources, definitions;
+  for (const TrailFunction& f : t.functions) {
+    if (f.trivial) {
+      definitions.push_back("<code>" + esc(f.signature) + "</code> = " + typeset(f.value));
+      continue;
+    }
+    auto at = std::find(sources.begin(), sources.end(), f.source);
+    if (at == sources.end()) at = sources.insert(sources.end(), f.source);
+    const size_t number = static_cast<size_t>(at - sources.begin()) + 1;
+    std::vector<std::string> used;
+    for (const std::string& u : f.used_by) used.push_back("<code>" + esc(u) + "</code>");
+    fmt::format_to(
+        out,
+        "<p class=\"fn\" id=\"fn-{}\"><code class=\"sig\">{}</code> <span class=\"used\">(used for {})"
+        "</span> ",
+        esc(f.name), esc(f.signature), fmt::join(used, ", "));
+    if (f.formula_is_expression && f.formula_expr)
+      fmt::format_to(out, "= {}", inlineMath(mathmlExpr(*f.formula_expr)));
+    else
+      fmt::format_to(out, "Method: {}", esc(f.method));
+    if (!f.limits.empty()) fmt::format_to(out, ". <span class=\"limits\">Limits: {}.</span>", esc(f.limits));
+    fmt::format_to(out, " Source [{}]; verified: docs/verification.md, <code>{}</code>.</p>\n", number,
+                   esc(f.name));
+  }
+  if (!definitions.empty())
+    fmt::format_to(out, "<p class=\"note\">Definitions: {}</p>\n", fmt::join(definitions, ", "));
+  fmt::format_to(out, "<ol class=\"sources\">\n");
+  for (const std::string& source : sources) fmt::format_to(out, "<li>{}</li>\n", esc(source));
+  fmt::format_to(out, "</ol>\n</section>\n");
 }
 
-// The block a checker signs: the signature covers these worksheet bytes.
+// The block a checker signs: the signature covers these worksheet bytes,
+// and, after a --set, says in a framed box that the numbers are not the file's.
 void signOff(Out out, const Trail& t) {
   auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : esc(v); };
   fmt::format_to(out, "<section class=\"signoff\">\n<h2>Sign-off</h2>\n<table class=\"meta\">\n");
-  fmt::format_to(out, "<tr><th>calc</th><td>{}</td></tr>\n", given(meta(t, "calc")));
-  fmt::format_to(out, "<tr><th>revision</th><td>{}</td></tr>\n", given(meta(t, "revision")));
-  fmt::format_to(out, "<tr><th>worksheet</th><td><code>{}</code></td></tr>\n", esc(t.path));
-  fmt::format_to(out, "<tr><th>SHA-256</th><td><code class=\"hash\">{}</code></td></tr>\n</table>\n",
+  fmt::format_to(out, "<tr><th>calc</th><td>{}</td><th>revision</th><td>{}</td></tr>\n",
+                 given(meta(t, "calc")), given(meta(t, "revision")));
+  fmt::format_to(out, "<tr><th>worksheet</th><td colspan=\"3\"><code>{}</code></td></tr>\n", esc(t.path));
+  fmt::format_to(out, "<tr><th>SHA-256</th><td colspan=\"3\"><code class=\"hash\">{}</code></td></tr>\n",
                  esc(t.sha256));
-  fmt::format_to(out, "<p>The signatures below cover the worksheet with this SHA-256 only. Any change to it, "
-                      "however small, changes the SHA-256 and needs a new sign-off.</p>\n");
+  if (!t.modified_by.empty())
+    fmt::format_to(out, "<tr><th>MODIFIED BY</th><td colspan=\"3\"><code>{}</code></td></tr>\n",
+                   esc(replacementList(t)));
+  fmt::format_to(out, "</table>\n");
+  if (t.modified_by.empty()) fmt::format_to(out, "<p>{}</p>\n", esc(signOffStatement(t)));
+  else fmt::format_to(out, "<p class=\"modified\"><strong>{}</strong></p>\n", esc(signOffStatement(t)));
   fmt::format_to(out, "<table class=\"signatures\">\n<thead><tr><th></th><th>Name</th><th>Signature</th>"
                       "<th>Date</th></tr></thead>\n<tbody>\n");
   fmt::format_to(out, "<tr><th>Prepared</th><td>{}</td><td class=\"sign\"></td><td>{}</td></tr>\n",
@@ -432,7 +538,7 @@ void signOff(Out out, const Trail& t) {
   std::string end = "End of calculation";
   if (!meta(t, "calc").empty()) end += " " + meta(t, "calc");
   if (!meta(t, "revision").empty()) end += ", revision " + meta(t, "revision");
-  fmt::format_to(out, "<p class=\"end\">{}.</p>\n</section>\n", esc(end));
+  fmt::format_to(out, "<p class=\"end\">{}. {}.</p>\n</section>\n", esc(end), esc(t.generator));
 }
 
 }  // namespace
@@ -441,7 +547,7 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
   auto out = std::back_inserter(buffer);
   fmt::format_to(out, "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
   fmt::format_to(out, "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
-  fmt::format_to(out, "<meta name=\"generator\" content=\"calctrail\">\n");
+  fmt::format_to(out, "<meta name=\"generator\" content=\"{}\">\n", esc(t.generator));
   std::string doc_title = title(t);
   if (!meta(t, "calc").empty()) doc_title = meta(t, "calc") + " " + doc_title;
   fmt::format_to(out, "<title>{}</title>\n<style>{}{}</style>\n</head>\n<body>\n", esc(doc_title), kStyle,
@@ -452,22 +558,15 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
   quantityTable(out, t, true);
   fmt::format_to(out, "</section>\n");
   calculation(out, t);
-  bool any_result = false;
-  for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
-  if (any_result) {
-    fmt::format_to(out, "<section class=\"results\">\n<h2>Results</h2>\n");
-    quantityTable(out, t, false);
-    fmt::format_to(out, "</section>\n");
-  }
   if (!t.warnings.empty()) {
     fmt::format_to(out, "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n");
     for (const std::string& w : t.warnings) fmt::format_to(out, "<li><code>{}</code></li>\n", esc(w));
     fmt::format_to(out, "</ul>\n</section>\n");
   }
+  libraryFunctions(out, t);
   fmt::format_to(out, "<section class=\"cautions\">\n<h2>Cautions</h2>\n<ul>\n");
   for (const std::string& c : t.cautions) fmt::format_to(out, "<li>{}</li>\n", esc(c));
   fmt::format_to(out, "</ul>\n</section>\n");
-  sources(out, t);
   signOff(out, t);
   fmt::format_to(out, "</body>\n</html>\n");
 }

@@ -15,6 +15,7 @@ void writeCall(JsonWriter& w, const TrailCall& c) {
   w.key("arguments").value(lineText(c.arguments));
   w.key("substituted").value(lineText(c.substituted));
   w.key("result").value(c.result ? valueText(*c.result) : "");
+  w.key("row").value(c.row);
   w.key("source").value(c.source);
   w.key("caution").value(c.caution);
   w.endObject();
@@ -41,6 +42,9 @@ void writeStep(JsonWriter& w, const TrailStep& s) {
   w.key("functions").beginArray();
   for (const TrailCall& c : s.calls) writeCall(w, c);
   w.endArray();
+  w.key("warnings").beginArray();
+  for (const std::string& m : s.warnings) w.value(m);
+  w.endArray();
   w.endObject();
 }
 
@@ -57,9 +61,19 @@ void writeCheck(JsonWriter& w, const TrailCheck& c) {
   w.key("rhs_text").value(c.ok ? valueText(c.rhs) : "");
   w.key("lhs_si").value(c.lhs.si);
   w.key("rhs_si").value(c.rhs.si);
+  // How close the check is (trail.h): demand / capacity, above 1 fails;
+  // null where a side is not above zero, and the margin, below 0 fails.
+  if (c.utilisation) w.key("utilisation").value(*c.utilisation);
+  else w.key("utilisation").null();
+  w.key("margin").value(c.margin.value);
+  w.key("margin_si").value(c.margin.si);
+  w.key("measure").value(c.measure);
   w.key("description").value(c.description);
   w.key("section").value(c.section);
   w.key("line").value(c.line);
+  w.key("warnings").beginArray();
+  for (const std::string& m : c.warnings) w.value(m);
+  w.endArray();
   w.endObject();
 }
 
@@ -71,7 +85,19 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   w.key("schema").value(kJsonSchemaVersion);
   w.key("file").value(t.path);
   w.key("sha256").value(t.sha256);
-  w.key("generator").value(std::string("calctrail ") + CALCTRAIL_VERSION);
+  w.key("generator").value(t.generator);
+  // The --set replacements of this run: when there is one, the numbers are
+  // the file's AS MODIFIED, and `sha256` identifies the file alone.
+  w.key("modified_by").beginArray();
+  for (const TrailReplacement& r : t.modified_by) {
+    w.beginObject();
+    w.key("name").value(r.name);
+    w.key("value").value(r.value);
+    w.key("line").value(r.line);
+    w.endObject();
+  }
+  w.endArray();
+  w.key("modified_notice").value(modifiedNotice(t));
   w.key("digits").value(t.digits);
   w.key("title").value(t.title);
   w.key("metadata").beginObject();
@@ -90,6 +116,9 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   w.key("summary").beginObject();
   w.key("checks_passed").value(t.passed);
   w.key("checks_failed").value(t.failed);
+  w.key("verdict").value(verdictSentence(t));
+  w.key("warnings").value(static_cast<int>(t.warnings.size()));
+  w.key("warnings_at_steps").value(t.warnings_at_steps);
   w.endObject();
   w.key("warnings").beginArray();
   for (const std::string& s : t.warnings) w.value(s);
@@ -97,6 +126,25 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   w.key("cautions").beginArray();
   for (const std::string& s : t.cautions) w.value(s);
   w.endArray();
+  w.key("caution_ids").beginArray();
+  for (const std::string& s : t.caution_ids) w.value(s);
+  w.endArray();
+  w.key("library_functions").beginArray();
+  for (const TrailFunction& f : t.functions) {
+    w.beginObject();
+    w.key("name").value(f.name);
+    w.key("call").value(f.signature);
+    w.key("method").value(f.method);
+    w.key("limits").value(f.limits);
+    w.key("source").value(f.source);
+    w.key("verification").value(f.verification);
+    w.key("used_by").beginArray();
+    for (const std::string& u : f.used_by) w.value(u);
+    w.endArray();
+    w.endObject();
+  }
+  w.endArray();
+  w.key("sign_off").value(signOffStatement(t));
   w.endObject();
 }
 

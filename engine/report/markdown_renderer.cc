@@ -45,11 +45,53 @@ std::string relation(const std::string& op) {
   return op;
 }
 
-std::string verdict(const Trail& t) {
-  std::string out = "**" + verdictWords(t, VerdictForm::Headline) + "**";
-  for (const TrailCheck& c : t.checks)
-    if (!c.passed) out += " " + code(c.name);
+std::string meta(const Trail& t, const std::string& key) {
+  for (const auto& [k, v] : t.meta)
+    if (k == key) return v;
+  return "";
+}
+
+void checksSummary(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  // The verdict and every check first: a failed check must be impossible to miss.
+  fmt::format_to(out, "## Design checks\n\n**{}**\n\n", text(verdictSentence(t)));
+  if (!t.warnings.empty()) fmt::format_to(out, "**{}**\n\n", text(warningSummary(t)));
+  if (t.checks.empty()) return;
+  fmt::format_to(out, "| State | Check | Condition | Values | Utilisation or margin | Note |\n"
+                      "|---|---|---|---|---|---|\n");
+  for (const TrailCheck& c : t.checks) {
+    const std::string values = human(c.lhs) + " " + relation(c.op) + " " + human(c.rhs);
+    std::string note = text(c.description);
+    for (const std::string& w : c.warnings) note += (note.empty() ? "" : " ") + ("**WARNING:** " + text(w));
+    if (c.passed) {
+      fmt::format_to(out, "| pass | {} | {} | {} | {} | {} |\n", code(c.name), code(c.condition), values,
+                     c.measure, note);
+    } else {
+      fmt::format_to(out, "| **FAIL** | **{}** | {} | **{}** | **{}** | {} |\n", code(c.name),
+                     code(c.condition), values, c.measure, note);
+    }
+  }
+  fmt::format_to(out, "\n");
+}
+
+std::string resultText(const TrailStep& s) {
+  std::string out = "**" + human(s.result) + "**";
+  if (!s.calls.empty() && s.calls[0].whole && !s.calls[0].row.empty())
+    out += " (" + text(s.calls[0].row) + ")";
   return out;
+}
+
+void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : text(v); };
+  fmt::format_to(out, "## Sign-off\n\n");
+  fmt::format_to(out, "- **calc:** {}\n- **revision:** {}\n", given(meta(t, "calc")),
+                 given(meta(t, "revision")));
+  fmt::format_to(out, "- **worksheet:** {}\n- **sha256:** {}\n", code(t.path), code(t.sha256));
+  if (!t.modified_by.empty()) fmt::format_to(out, "- **MODIFIED BY:** {}\n", code(replacementList(t)));
+  fmt::format_to(out, "\n{}\n\n", t.modified_by.empty() ? text(signOffStatement(t))
+                                                         : "**" + text(signOffStatement(t)) + "**");
+  fmt::format_to(out, "| | Name | Signature | Date |\n|---|---|---|---|\n");
+  fmt::format_to(out, "| Prepared | {} | | {} |\n", text(meta(t, "prepared")), text(meta(t, "date")));
+  fmt::format_to(out, "| Checked | {} | | |\n", text(meta(t, "checked")));
 }
 
 }  // namespace
@@ -59,10 +101,12 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "# {}\n\n", text(t.title.empty() ? "Calculation trail" : t.title));
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "- **{}:** {}\n", key, text(value));
   fmt::format_to(out, "- **file:** {}\n", code(t.path));
-  fmt::format_to(out, "- **sha256:** {}\n\n", code(t.sha256));
+  fmt::format_to(out, "- **sha256:** {}\n", code(t.sha256));
+  fmt::format_to(out, "- **generator:** {}\n\n", text(t.generator));
+  // Next to the hash: the hash alone no longer identifies these numbers.
+  if (!t.modified_by.empty()) fmt::format_to(out, "> **{}**\n\n", text(modifiedNotice(t)));
 
-  // The verdict first: a failed check must be impossible to miss.
-  fmt::format_to(out, "{}\n\n", verdict(t));
+  checksSummary(out, t);
 
   fmt::format_to(out, "## Inputs\n\n| Quantity | Value | Notes |\n|---|---|---|\n");
   std::string section = "\x01";
@@ -75,6 +119,7 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
     std::string notes = text(s.description);
     if (s.formula_in_notes) notes = "= " + code(s.formula) + (notes.empty() ? "" : "; " + notes);
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("*(set on the command line)*");
+    for (const std::string& w : s.warnings) notes += " **WARNING:** " + text(w);
     fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.given ? *s.given : s.result), notes);
   }
   fmt::format_to(out, "\n");
@@ -94,20 +139,19 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
       if (s.overridden) fmt::format_to(out, " *(set on the command line)*");
       fmt::format_to(out, "\\\n{}\\\n", code(s.name + " = " + s.pretty));
       if (s.show_substituted) fmt::format_to(out, "{}\\\n", code("= " + human(s.substituted)));
-      fmt::format_to(out, "= **{}**\n", human(s.result));
+      if (s.single_call) fmt::format_to(out, "{}\\\n", code("= " + human(s.calls[0].substituted)));
+      std::vector<std::string> lines = {"= " + resultText(s)};
       for (const TrailCall& c : s.calls) {
-        // The library function audited like a formula, with its source.
-        fmt::format_to(out, "\n> where {}\\\n", code(c.signature));
-        if (c.formula_is_expression) {
-          fmt::format_to(out, "> {}\\\n", code("= " + c.pretty));
-          if (c.show_substituted) fmt::format_to(out, "> {}\\\n", code("= " + human(c.substituted)));
-        } else {
-          fmt::format_to(out, "> {}\\\n", text(c.formula));
-          if (!c.arguments.empty()) fmt::format_to(out, "> with {}\\\n", code(human(c.arguments)));
-        }
-        if (c.result) fmt::format_to(out, "> = {}\\\n", human(*c.result));
-        fmt::format_to(out, "> source: {}\n", text(c.source));
+        if (c.whole) continue;
+        // A call inside the formula: its values, its formula's values, its result.
+        std::string where = "where " + code(human(c.with_values));
+        if (c.formula_is_expression && c.show_substituted) where += " " + code("= " + human(c.substituted));
+        if (c.result) where += " = " + human(*c.result);
+        if (!c.row.empty()) where += " (" + text(c.row) + ")";
+        lines.push_back(where);
       }
+      for (const std::string& w : s.warnings) lines.push_back("**WARNING:** " + text(w));
+      fmt::format_to(out, "{}\n", fmt::join(lines, "\\\n"));
     }
   }
   fmt::format_to(out, "\n");
@@ -123,20 +167,23 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
     fmt::format_to(out, "\n");
   }
 
-  if (!t.checks.empty()) {
-    fmt::format_to(out,
-                   "## Checks\n\n| State | Check | Condition | Values | Note |\n|---|---|---|---|---|\n");
-    for (const TrailCheck& c : t.checks) {
-      const std::string values = human(c.lhs) + " " + relation(c.op) + " " + human(c.rhs);
-      if (c.passed) {
-        fmt::format_to(out, "| pass | {} | {} | {} | {} |\n", code(c.name), code(c.condition), values,
-                       text(c.description));
-      } else {
-        fmt::format_to(out, "| **FAIL** | **{}** | {} | **{}** | {} |\n", code(c.name), code(c.condition),
-                       values, text(c.description));
+  if (!t.functions.empty()) {
+    fmt::format_to(out, "## Library functions used\n\n");
+    std::vector<std::string> definitions;
+    for (const TrailFunction& f : t.functions) {
+      if (f.trivial) {
+        definitions.push_back(code(f.signature + " = " + f.value));
+        continue;
       }
+      std::vector<std::string> used;
+      for (const std::string& u : f.used_by) used.push_back(code(u));
+      fmt::format_to(out, "**{}** used by {}\\\n", code(f.signature), fmt::join(used, ", "));
+      if (f.formula_is_expression) fmt::format_to(out, "{}\\\n", code("= " + f.pretty));
+      else fmt::format_to(out, "method: {}\\\n", text(f.method));
+      if (!f.limits.empty()) fmt::format_to(out, "limits: {}\\\n", text(f.limits));
+      fmt::format_to(out, "source: {}\\\nverified: {}\n\n", text(f.source), f.verification);
     }
-    fmt::format_to(out, "\n");
+    if (!definitions.empty()) fmt::format_to(out, "Definitions: {}\n\n", fmt::join(definitions, ", "));
   }
 
   if (!t.warnings.empty()) {
@@ -147,6 +194,8 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
 
   fmt::format_to(out, "## Cautions\n\n");
   for (const std::string& c : t.cautions) fmt::format_to(out, "- {}\n", text(c));
+  fmt::format_to(out, "\n");
+  signOff(out, t);
 }
 
 std::string renderMarkdown(const Trail& t) {

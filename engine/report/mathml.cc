@@ -86,6 +86,12 @@ NameParts splitName(const std::string& name) {
     const std::string letters = head.substr(0, k);
     return glyphs(letters) == 1 || greek(letters) != nullptr;
   };
+  // Two Latin letters with no underscore ("dm", "fc", "Sy", as the library
+  // and engineering texts write d_m, f_c, S_y) are a letter with a
+  // subscript, so that a library formula and a worksheet set them alike.
+  if (parts.size() == 1 && name.size() == 2 && std::isalpha(static_cast<unsigned char>(name[0])) &&
+      std::islower(static_cast<unsigned char>(name[1])) && !greek(name))
+    parts = {name.substr(0, 1), name.substr(1)};
   if (parts.empty() || !symbolLike(parts[0])) {
     n.base = mi(name);
     n.base_w = 0.55 * static_cast<double>(glyphs(name));
@@ -152,72 +158,94 @@ std::string numberElements(const Expr& e) {
   return mrow(out);
 }
 
-void render(const Expr& e, std::string* out);
+void render(const Expr& e, const MathValueOf* values, std::string* out);
 
 // The operand of a fraction, radical or exponent: its bar or position groups
 // it, so the author's outer parentheses are dropped. (render() always writes
 // exactly one element, as mfrac and msup require of their children.)
-std::string bare(const Expr& e) {
+std::string bare(const Expr& e, const MathValueOf* values) {
   std::string s;
-  render(ungroup(e), &s);
+  render(ungroup(e), values, &s);
   return s;
 }
 
-std::string callElements(const Expr& e) {
-  if (e.text == "sqrt" && e.args.size() == 1) return "<msqrt>" + bare(*e.args[0]) + "</msqrt>";
+// The value bound to a node in a substituted formula, or nullptr.
+const TrailBinding* boundValue(const Expr& e, const MathValueOf* values) {
+  return values && *values ? (*values)(e) : nullptr;
+}
+
+std::string parenthesized(const std::string& inner) { return mrow(mo("(") + inner + mo(")")); }
+
+std::string callElements(const Expr& e, const MathValueOf* values) {
+  if (e.text == "sqrt" && e.args.size() == 1) return "<msqrt>" + bare(*e.args[0], values) + "</msqrt>";
   if (e.text == "abs" && e.args.size() == 1)
-    return mrow("<mo fence=\"true\">|</mo>" + bare(*e.args[0]) + "<mo fence=\"true\">|</mo>");
+    return mrow("<mo fence=\"true\">|</mo>" + bare(*e.args[0], values) + "<mo fence=\"true\">|</mo>");
   std::string fn = e.text == "log10" ? "<msub><mi>log</mi><mn>10</mn></msub>" : mi(e.text, true);
   std::string args;
   for (size_t i = 0; i < e.args.size(); ++i) {
     if (i) args += "<mo separator=\"true\">,</mo>";
-    render(*e.args[i], &args);
+    render(*e.args[i], values, &args);
   }
   // U+2061 FUNCTION APPLICATION: tells the layout that cos is applied, not multiplied.
   return mrow(fn + mo("&#x2061;") + mrow(mo("(") + args + mo(")")));
 }
 
-void render(const Expr& e, std::string* out) {
+void render(const Expr& e, const MathValueOf* values, std::string* out) {
   auto binary = [&](const char* op) {
     std::string s;
-    render(*e.args[0], &s);
+    render(*e.args[0], values, &s);
     s += mo(op);
-    render(*e.args[1], &s);
+    render(*e.args[1], values, &s);
     *out += mrow(s);
   };
+  if (const TrailBinding* b = boundValue(e, values)) {
+    const std::string v = mathmlValue(b->value);
+    *out += b->negative ? parenthesized(v) : v;
+    return;
+  }
   switch (e.kind) {
     case ExprKind::Number: *out += numberElements(e); break;
     case ExprKind::Pi: *out += mi("\u03C0", true); break;
     case ExprKind::Name: *out += mathmlName(e.text); break;
-    case ExprKind::Call: *out += callElements(e); break;
+    case ExprKind::Call: *out += callElements(e, values); break;
     case ExprKind::Negate: {
       std::string s = mo("\u2212");
-      render(*e.args[0], &s);
+      render(*e.args[0], values, &s);
       *out += mrow(s);
       break;
     }
     case ExprKind::Add: binary("+"); break;
     case ExprKind::Subtract: binary("\u2212"); break;
     case ExprKind::Multiply: binary("\u00B7"); break;
-    case ExprKind::Divide: *out += "<mfrac>" + bare(*e.args[0]) + bare(*e.args[1]) + "</mfrac>"; break;
+    case ExprKind::Divide:
+      *out += "<mfrac>" + bare(*e.args[0], values) + bare(*e.args[1], values) + "</mfrac>";
+      break;
     case ExprKind::Power: {
       const Expr& base = *e.args[0];
+      if (const TrailBinding* b = boundValue(base, values)) {
+        // (39.00 mm)²: a value with a unit or a sign is put in parentheses under a power.
+        const std::string v = mathmlValue(b->value);
+        const bool plain = !b->negative && (b->value.unit.empty() || b->value.unit == "1") &&
+                           b->value.number.exponent.empty();
+        *out += "<msup>" + (plain ? v : parenthesized(v)) + bare(*e.args[1], values) + "</msup>";
+        break;
+      }
       if (base.kind == ExprKind::Name) {
         const NameParts n = splitName(base.text);
         // d_r² as one symbol with both scripts, not (d_r)².
         if (!n.sub.empty()) {
-          *out += "<msubsup>" + n.base + n.sub + bare(*e.args[1]) + "</msubsup>";
+          *out += "<msubsup>" + n.base + n.sub + bare(*e.args[1], values) + "</msubsup>";
           break;
         }
       }
       std::string b;
-      render(base, &b);
-      *out += "<msup>" + b + bare(*e.args[1]) + "</msup>";
+      render(base, values, &b);
+      *out += "<msup>" + b + bare(*e.args[1], values) + "</msup>";
       break;
     }
     case ExprKind::Group: {
       std::string s = mo("(");
-      render(*e.args[0], &s);
+      render(*e.args[0], values, &s);
       s += mo(")");
       *out += mrow(s);
       break;
@@ -225,7 +253,16 @@ void render(const Expr& e, std::string* out) {
   }
 }
 
-double width(const Expr& e) {
+double valueWidth(const TrailValue& v) {
+  // Upright digits and unit letters run wider than italic names.
+  double w = 0.55 * static_cast<double>(glyphs(v.number.digits));
+  if (!v.number.exponent.empty()) w += 2.0 + 0.35 * static_cast<double>(v.number.exponent.size());
+  if (!v.unit.empty() && v.unit != "1") w += 0.3 + 0.65 * static_cast<double>(glyphs(v.unit));
+  return w;
+}
+
+double width(const Expr& e, const MathValueOf* values) {
+  if (const TrailBinding* b = boundValue(e, values)) return valueWidth(b->value) + (b->negative ? 0.8 : 0.0);
   switch (e.kind) {
     case ExprKind::Number: {
       double w = 0.5 * static_cast<double>(e.text.size());
@@ -236,18 +273,19 @@ double width(const Expr& e) {
     case ExprKind::Pi: return 0.6;
     case ExprKind::Name: return mathmlNameWidth(e.text);
     case ExprKind::Call: {
-      if (e.text == "sqrt" && e.args.size() == 1) return 1.0 + width(*e.args[0]);
+      if (e.text == "sqrt" && e.args.size() == 1) return 1.0 + width(*e.args[0], values);
       double w = 0.5 * static_cast<double>(e.text.size()) + 0.9;
-      for (size_t i = 0; i < e.args.size(); ++i) w += width(*e.args[i]) + (i ? 0.5 : 0.0);
+      for (size_t i = 0; i < e.args.size(); ++i) w += width(*e.args[i], values) + (i ? 0.6 : 0.0);
       return w;
     }
-    case ExprKind::Negate: return 0.8 + width(*e.args[0]);
+    case ExprKind::Negate: return 0.8 + width(*e.args[0], values);
     case ExprKind::Add:
     case ExprKind::Subtract:
-    case ExprKind::Multiply: return width(*e.args[0]) + 1.1 + width(*e.args[1]);
-    case ExprKind::Divide: return 0.4 + std::max(width(ungroup(*e.args[0])), width(ungroup(*e.args[1])));
-    case ExprKind::Power: return width(*e.args[0]) + 0.7 * width(ungroup(*e.args[1]));
-    case ExprKind::Group: return 0.8 + width(*e.args[0]);
+    case ExprKind::Multiply: return width(*e.args[0], values) + 1.1 + width(*e.args[1], values);
+    case ExprKind::Divide:
+      return 0.4 + std::max(width(ungroup(*e.args[0]), values), width(ungroup(*e.args[1]), values));
+    case ExprKind::Power: return width(*e.args[0], values) + 0.7 * width(ungroup(*e.args[1]), values);
+    case ExprKind::Group: return 0.8 + width(*e.args[0], values);
   }
   return 1.0;
 }
@@ -259,10 +297,34 @@ std::string mathmlName(const std::string& name) {
   return n.sub.empty() ? n.base : "<msub>" + n.base + n.sub + "</msub>";
 }
 
-std::string mathmlExpr(const Expr& e) {
+std::string mathmlExpr(const Expr& e, const MathValueOf& value_of) {
   std::string out;
-  render(e, &out);
+  render(e, value_of ? &value_of : nullptr, &out);
   return out;
+}
+
+std::string mathmlValue(const TrailValue& v) {
+  std::string digits = v.number.digits, out;
+  if (!digits.empty() && digits[0] == '-') {
+    out += mo("\u2212");
+    digits.erase(0, 1);
+  }
+  out += "<mn>" + escapeXml(digits) + "</mn>";
+  if (!v.number.exponent.empty()) {
+    std::string exp = v.number.exponent;
+    const bool negative = exp[0] == '-';
+    if (exp[0] == '-' || exp[0] == '+') exp.erase(0, 1);
+    while (exp.size() > 1 && exp[0] == '0') exp.erase(0, 1);
+    std::string power = "<mn>" + escapeXml(exp) + "</mn>";
+    if (negative) power = mrow(mo("\u2212") + power);
+    out += mo("\u00D7") + "<msup><mn>10</mn>" + power + "</msup>";
+  }
+  if (!v.unit.empty() && v.unit != "1") {
+    const bool angle_mark = v.unit == "\u00B0" || v.unit == "\u2032" || v.unit == "\u2033";
+    if (!angle_mark) out += "<mspace width=\"0.22em\"/>";
+    out += mi(v.unit, true);
+  }
+  return mrow(out);
 }
 
 std::vector<InfixPiece> infixPieces(const Expr& e) {
@@ -284,7 +346,9 @@ std::vector<InfixPiece> infixPieces(const Expr& e) {
   return {pieces.rbegin(), pieces.rend()};
 }
 
-double mathmlWidth(const Expr& e) { return width(e); }
+double mathmlWidth(const Expr& e, const MathValueOf& value_of) {
+  return width(e, value_of ? &value_of : nullptr);
+}
 
 double mathmlNameWidth(const std::string& name) {
   const NameParts n = splitName(name);

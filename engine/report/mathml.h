@@ -5,19 +5,31 @@
 // The expression tree is the source; nothing is re-parsed from text.
 #pragma once
 
+#include <functional>
 #include <string>
 #include <vector>
 
+#include "engine/report/trail.h"
 #include "engine/sheet/expr.h"
 
 namespace calctrail {
 
 // The elements for a quantity name, without the <math> wrapper:
-// "d_m" -> d with subscript m, "sigma_vm" -> σ with subscript vm, "F1" -> F₁.
+// "d_m" -> d with subscript m, "sigma_vm" -> σ with subscript vm, "F1" -> F₁;
+// two letters and no underscore are the same rule: "dm" -> d with subscript m.
 std::string mathmlName(const std::string& name);
 
-// The elements for a formula, without the <math> wrapper.
-std::string mathmlExpr(const Expr& e);
+// For a substituted formula: the value shown in place of a node (a name, or
+// a nested call), or nullptr to set the node itself.
+using MathValueOf = std::function<const TrailBinding*(const Expr& node)>;
+
+// The elements for a formula, without the <math> wrapper; with `value_of`,
+// the formula with values in place of its names, set the same way (a value
+// below zero, or with a unit under a power, in parentheses).
+std::string mathmlExpr(const Expr& e, const MathValueOf& value_of = nullptr);
+
+// A value as a number and its unit: "25.74 kN", "1.5 × 10⁹ W", "15.00°".
+std::string mathmlValue(const TrailValue& v);
 
 // A formula's top-level chain of sums, differences and products, left to
 // right: the first piece with an empty operator, the others with "+", "−"
@@ -33,7 +45,7 @@ std::vector<InfixPiece> infixPieces(const Expr& e);
 
 // Rough typeset width in em at full size, so that a renderer can shrink a
 // long formula to the page width: MathML does not break lines.
-double mathmlWidth(const Expr& e);
+double mathmlWidth(const Expr& e, const MathValueOf& value_of = nullptr);
 double mathmlNameWidth(const std::string& name);
 
 }  // namespace calctrail

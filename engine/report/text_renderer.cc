@@ -40,6 +40,50 @@ std::string underline(const std::string& title, char c) {
 
 std::string heading(const std::string& title) { return underline(title, '-'); }
 
+// "value" or "value  (row found)": a table lookup names its row.
+std::string resultText(const TrailStep& s) {
+  std::string out = valueText(s.result);
+  if (!s.calls.empty() && s.calls[0].whole && !s.calls[0].row.empty()) out += "  (" + s.calls[0].row + ")";
+  return out;
+}
+
+// A library call that is not the whole step: "where CALL = SUBSTITUTED =
+// RESULT", on one line when it fits, else one part a line.
+void whereLine(std::back_insert_iterator<fmt::memory_buffer> out, const TrailCall& c) {
+  std::vector<std::string> parts = {lineText(c.with_values)};
+  if (c.formula_is_expression && c.show_substituted) parts.push_back(lineText(c.substituted));
+  if (c.result) parts.push_back(valueText(*c.result) + (c.row.empty() ? "" : "  (" + c.row + ")"));
+  std::string one = "      where " + parts[0];
+  for (size_t k = 1; k < parts.size(); ++k) one += " = " + parts[k];
+  if (width(one) <= 78) {
+    fmt::format_to(out, "{}\n", one);
+    return;
+  }
+  fmt::format_to(out, "      where {}\n", parts[0]);
+  for (size_t k = 1; k < parts.size(); ++k) fmt::format_to(out, "          = {}\n", parts[k]);
+}
+
+void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  auto meta = [&](const std::string& key) {
+    for (const auto& [k, v] : t.meta)
+      if (k == key) return v;
+    return std::string();
+  };
+  auto given = [](const std::string& v, const char* blank) { return v.empty() ? std::string(blank) : v; };
+  fmt::format_to(out, "\n{}", heading("SIGN-OFF"));
+  fmt::format_to(out, "  {}{}\n", pad("calc", 11), given(meta("calc"), "-"));
+  fmt::format_to(out, "  {}{}\n", pad("revision", 11), given(meta("revision"), "-"));
+  fmt::format_to(out, "  {}{}\n", pad("worksheet", 11), t.path);
+  fmt::format_to(out, "  {}{}\n", pad("sha256", 11), t.sha256);
+  if (!t.modified_by.empty()) fmt::format_to(out, "  {}by {}\n", pad("MODIFIED", 11), replacementList(t));
+  fmt::format_to(out, "{}\n", wrap(signOffStatement(t), "  "));
+  const std::string line = "______________";
+  fmt::format_to(out, "  Prepared  {}  signature {}  date {}\n",
+                 pad(given(meta("prepared"), line.c_str()), 16), line, given(meta("date"), line.c_str()));
+  fmt::format_to(out, "  Checked   {}  signature {}  date {}\n",
+                 pad(given(meta("checked"), line.c_str()), 16), line, line);
+}
+
 }  // namespace
 
 void renderText(const Trail& t, fmt::memory_buffer& buffer) {
@@ -47,13 +91,17 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "{}", underline(t.title.empty() ? "Calculation trail" : t.title, '='));
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "{}{}\n", pad(key, 10), value);
   fmt::format_to(out, "{}{}\n", pad("file", 10), t.path);
-  fmt::format_to(out, "{}{}\n\n", pad("sha256", 10), t.sha256);
+  fmt::format_to(out, "{}{}\n", pad("sha256", 10), t.sha256);
+  // Next to the hash: the hash alone no longer identifies these numbers.
+  if (!t.modified_by.empty()) fmt::format_to(out, "{}by {}\n", pad("MODIFIED", 10), replacementList(t));
+  fmt::format_to(out, "{}{}\n", pad("generator", 10), t.generator);
+  if (!t.modified_by.empty()) fmt::format_to(out, "\n{}", wrap(modifiedNotice(t), ""));
+  fmt::format_to(out, "\n");
 
   // The verdict first: a failed check must be impossible to miss.
-  fmt::format_to(out, "{}", verdictWords(t, VerdictForm::Headline));
-  for (const TrailCheck& c : t.checks)
-    if (!c.passed) fmt::format_to(out, " {}", c.name);
-  fmt::format_to(out, "\n\n");
+  fmt::format_to(out, "{}\n", verdictSentence(t));
+  if (!t.warnings.empty()) fmt::format_to(out, "{}", wrap(warningSummary(t), ""));
+  fmt::format_to(out, "\n");
 
   // Inputs, grouped under their sections.
   fmt::format_to(out, "{}", heading("INPUTS"));
@@ -78,6 +126,7 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
     if (!notes.empty()) line += "  " + notes;
     while (!line.empty() && line.back() == ' ') line.pop_back();
     fmt::format_to(out, "{}\n", line);
+    for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
   }
   fmt::format_to(out, "\n");
 
@@ -97,22 +146,14 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
       const std::string indent = "    " + std::string(static_cast<size_t>(width(s.name)), ' ') + " ";
       fmt::format_to(out, "    {} = {}\n", s.name, s.pretty);
       if (s.show_substituted) fmt::format_to(out, "{}= {}\n", indent, lineText(s.substituted));
-      fmt::format_to(out, "{}= {}\n", indent, valueText(s.result));
-      for (const TrailCall& c : s.calls) {
-        // The function is audited like a formula: its own formula, the
-        // values of this call substituted, the result, and its source.
-        fmt::format_to(out, "      where {}\n", c.signature);
-        const std::string eq = "          = ";
-        if (c.formula_is_expression) fmt::format_to(out, "{}{}\n", eq, c.pretty);
-        else fmt::format_to(out, "{}", wrap(c.formula, "          "));
-        if (c.formula_is_expression && c.show_substituted) {
-          fmt::format_to(out, "{}{}\n", eq, lineText(c.substituted));
-        } else if (!c.formula_is_expression && !c.arguments.empty()) {
-          fmt::format_to(out, "          with {}\n", lineText(c.arguments));
-        }
-        if (c.result) fmt::format_to(out, "{}{}\n", eq, valueText(*c.result));
-        fmt::format_to(out, "{}", wrap("source: " + c.source, "        "));
-      }
+      // One call that is the whole formula continues the chain with its own
+      // formula's values; its formula, limits and source are listed once,
+      // under LIBRARY FUNCTIONS USED.
+      if (s.single_call) fmt::format_to(out, "{}= {}\n", indent, lineText(s.calls[0].substituted));
+      fmt::format_to(out, "{}= {}\n", indent, resultText(s));
+      for (const TrailCall& c : s.calls)
+        if (!c.whole) whereLine(out, c);
+      for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
     }
   }
   fmt::format_to(out, "\n");
@@ -124,9 +165,35 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
     for (const TrailCheck& c : t.checks) {
       fmt::format_to(out, "  {}  {}  {}\n", c.passed ? "pass" : "FAIL", pad(c.name, w), c.condition);
       fmt::format_to(out, "        {:{}}  {} {} {}", "", w, valueText(c.lhs), c.op, valueText(c.rhs));
+      if (!c.measure.empty()) fmt::format_to(out, ": {}", c.measure);
       if (!c.description.empty()) fmt::format_to(out, "  ({})", c.description);
       fmt::format_to(out, "\n");
+      for (const std::string& m : c.warnings)
+        fmt::format_to(out, "{}", wrap("WARNING: " + m, std::string(static_cast<size_t>(w) + 10, ' ')));
     }
+    fmt::format_to(out, "\n");
+  }
+
+  if (!t.functions.empty()) {
+    // Each library function once: what it computes, how, within which
+    // limits, from which source, and where its tests are listed.
+    fmt::format_to(out, "{}", heading("LIBRARY FUNCTIONS USED"));
+    std::vector<std::string> definitions;
+    for (const TrailFunction& f : t.functions) {
+      if (f.trivial) {
+        definitions.push_back(f.signature + " = " + f.value);
+        continue;
+      }
+      fmt::format_to(out, "  {}  used by {}\n", f.signature, fmt::join(f.used_by, ", "));
+      if (f.formula_is_expression) fmt::format_to(out, "    = {}\n", f.pretty);
+      else fmt::format_to(out, "{}", wrap("method: " + f.method, "    "));
+      if (!f.limits.empty()) fmt::format_to(out, "{}", wrap("limits: " + f.limits, "    "));
+      fmt::format_to(out, "{}", wrap("source: " + f.source, "    "));
+      fmt::format_to(out, "    verified: {}\n", f.verification);
+    }
+    if (!definitions.empty())
+      fmt::format_to(out, "{}",
+                     wrap("Definitions: " + fmt::format("{}", fmt::join(definitions, ", ")), "  "));
     fmt::format_to(out, "\n");
   }
 
@@ -142,6 +209,7 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
     w.replace(0, 4, "  - ");
     fmt::format_to(out, "{}", w);
   }
+  signOff(out, t);
 }
 
 std::string renderText(const Trail& t) {

@@ -9,41 +9,79 @@
 #include <optional>
 
 #include "engine/eval/math_functions.h"
+#include "engine/report/cautions.h"
 #include "engine/eval/tree_eval.h"
 #include "engine/report/number_format.h"
 #include "engine/report/power_of_ten.h"
 #include "engine/sheet/expr_parser.h"
 #include "engine/units/unit_parser.h"
+#include "engine/util/math_constants.h"
 #include "functions/function_decl.h"
 
 namespace calctrail {
-
-const std::vector<std::string>& generalCautions() {
-  static const std::vector<std::string> c = {
-      "Friction values vary widely: size torque and motor with the high value and test self-locking "
-      "and back-driving with the low one.",
-      "Self-locking is no brake: vibration, shock and lubrication can back-drive a screw that is "
-      "self-locking on paper. Provide a brake or lock where a load is held.",
-      "Long screws in compression buckle: check the column with its real end conditions and length.",
-      "These results are a design aid. They are to be reviewed by a qualified engineer under the "
-      "codes, standards and local rules that apply to the machine, above all where a load is lifted "
-      "or clamped over people.",
-  };
-  return c;
-}
 
 std::string conditionText(const Check& c) {
   return renderExpr(*c.lhs) + " " + comparisonText(c.op) + " " + renderExpr(*c.rhs);
 }
 
-std::string verdictWords(const Trail& t, VerdictForm form) {
-  const bool headline = form == VerdictForm::Headline;
-  if (t.checks.empty())
-    return headline ? "Checks: none in this worksheet" : "This worksheet has no design checks.";
-  if (t.failed == 0) return headline ? fmt::format("Checks: all {} pass", t.passed)
-                                     : fmt::format("All {} checks pass.", t.passed);
-  return fmt::format(headline ? "Checks: {} of {} FAIL:" : "{} of {} checks fail:", t.failed,
-                     t.checks.size());
+std::string verdictState(const Trail& t) {
+  if (t.checks.empty()) return "NO CHECKS";
+  return t.failed == 0 ? "PASS" : "FAIL";
+}
+
+std::string verdictSentence(const Trail& t) {
+  const std::string state = verdictState(t);
+  if (t.checks.empty()) return state + ": this worksheet has no design checks";
+  if (t.failed == 0)
+    return t.checks.size() == 1 ? state + ": the 1 check passes"
+                                : fmt::format("{}: all {} checks pass", state, t.checks.size());
+  std::vector<std::string> names;
+  for (const TrailCheck& c : t.checks)
+    if (!c.passed) names.push_back(c.name);
+  return fmt::format("{}: {} of {} {} {}: {}", state, t.failed, t.checks.size(),
+                     t.checks.size() == 1 ? "check" : "checks", t.failed == 1 ? "fails" : "fail",
+                     fmt::join(names, ", "));
+}
+
+std::string warningSummary(const Trail& t) {
+  if (t.warnings.empty()) return "";
+  std::vector<std::string> places;
+  for (const TrailStep& s : t.steps)
+    if (!s.warnings.empty()) places.push_back(fmt::format("{} (line {})", s.name, s.line));
+  for (const TrailCheck& c : t.checks)
+    if (!c.warnings.empty()) places.push_back(fmt::format("check {} (line {})", c.name, c.line));
+  const size_t n = t.warnings.size();
+  const size_t at = static_cast<size_t>(t.warnings_at_steps);
+  std::string out = fmt::format("WARNING: {} {}", n, n == 1 ? "warning" : "warnings");
+  if (at == n) out += fmt::format(", flagged at {}: ", n == 1 ? "its step" : "their steps");
+  else if (at > 0) out += fmt::format(", {} flagged at {}: ", at, at == 1 ? "its step" : "their steps");
+  if (at > 0) out += fmt::format("{}", fmt::join(places, ", "));
+  if (at < n) out += fmt::format("{}{} listed under Warnings", at > 0 ? "; " : ", ", n - at);
+  return out;
+}
+
+std::string replacementList(const Trail& t) {
+  std::vector<std::string> sets;
+  for (const TrailReplacement& r : t.modified_by) sets.push_back("--set " + r.name + "=" + r.value);
+  return fmt::format("{}", fmt::join(sets, ", "));
+}
+
+std::string modifiedNotice(const Trail& t) {
+  if (t.modified_by.empty()) return "";
+  return "MODIFIED: the numbers in this report come from the file AS MODIFIED by " + replacementList(t) +
+         "; the SHA-256 identifies the file alone, not these numbers.";
+}
+
+std::string signOffStatement(const Trail& t) {
+  if (t.modified_by.empty())
+    return "The signatures below cover the worksheet with this SHA-256 only. Any change to it, however "
+           "small, "
+           "changes the SHA-256 and needs a new sign-off.";
+  return "This report is NOT the calculation of the worksheet with this SHA-256: its numbers come from the "
+         "file AS MODIFIED by " +
+         replacementList(t) +
+         ". A signature below covers that file with exactly these "
+         "replacements, never the file alone; to sign the file's own numbers, report it without --set.";
 }
 
 void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
@@ -169,6 +207,97 @@ Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& c
   return preferredUnit(decl.dim);
 }
 
+// A number for a table row as the tables write it: "48", "1.5", "5.5".
+std::string rowNumber(double v) { return fmt::format("{:.6g}", v); }
+
+// Inches as the Acme table names its sizes: "1", "1-1/4", "5/16".
+std::string inchLabel(double inches) {
+  const long sixteenths = std::lround(inches * 16);
+  if (std::fabs(static_cast<double>(sixteenths) - inches * 16) > 1e-6) return "";
+  const long whole = sixteenths / 16;
+  long num = sixteenths % 16, den = 16;
+  while (num > 0 && num % 2 == 0) num /= 2, den /= 2;
+  if (num == 0) return std::to_string(whole);
+  const std::string frac = std::to_string(num) + "/" + std::to_string(den);
+  return whole ? std::to_string(whole) + "-" + frac : frac;
+}
+
+// `item` is one entry of the comma-separated list after `list_at` in `text`.
+bool listHolds(const std::string& text, const std::string& list_at, const std::string& item) {
+  const size_t at = text.find(list_at);
+  if (at == std::string::npos || item.empty()) return false;
+  const std::string list = ", " + text.substr(at + list_at.size()) + ",";
+  return list.find(", " + item + ",") != std::string::npos;
+}
+
+// A library table: where its rows begin in the function's formula text, and
+// the row a call found, as "Tr 48x8, ISO 2904 table". The row is looked up
+// in the table the function prints, so a row that is not there is never
+// shown (the step then shows the result alone).
+struct LookupTable {
+  const char* function;
+  const char* rows_after;  // the rows follow this text in the formula
+  std::string (*row)(const std::vector<double>& si_args, double si_result, const FunctionDecl& f);
+};
+
+const std::vector<LookupTable>& lookupTables() {
+  static const std::vector<LookupTable> tables = {
+      {"trap_pitch", ": ",
+       [](const std::vector<double>& a, double r, const FunctionDecl& f) {
+         const std::string item = "Tr " + rowNumber(a[0] * 1000) + "x" + rowNumber(r * 1000);
+         return listHolds(f.formula, ": ", item) ? item + ", ISO 2904 table" : std::string();
+       }},
+      {"acme_tpi", ": ",
+       [](const std::vector<double>& a, double r, const FunctionDecl& f) {
+         const std::string label = inchLabel(a[0] / 0.0254), tpi = rowNumber(r * 0.0254);
+         return listHolds(f.formula, ": ", label + " (" + tpi + ")")
+                    ? "Acme " + label + "-" + tpi + ", ASME B1.5 table"
+                    : std::string();
+       }},
+      {"acme_pitch", "",
+       [](const std::vector<double>& a, double r, const FunctionDecl&) {
+         const FunctionDecl* table = findFunction("acme_tpi");
+         const std::string label = inchLabel(a[0] / 0.0254), tpi = rowNumber(0.0254 / r);
+         return table && listHolds(table->formula, ": ", label + " (" + tpi + ")")
+                    ? "Acme " + label + "-" + tpi + ", ASME B1.5 table"
+                    : std::string();
+       }},
+      {"standard_motor_power", "the series ",
+       [](const std::vector<double>&, double r, const FunctionDecl& f) {
+         const std::string kw = rowNumber(r / 1000);
+         std::string series = f.formula;
+         if (series.size() > 3 && series.compare(series.size() - 3, 3, " kW") == 0)
+           series.resize(series.size() - 3);
+         return listHolds(series, "the series ", kw) ? kw + " kW, IEC 60072-1 series" : std::string();
+       }},
+  };
+  return tables;
+}
+
+const LookupTable* lookupTable(const std::string& function) {
+  for (const LookupTable& t : lookupTables())
+    if (function == t.function) return &t;
+  return nullptr;
+}
+
+// The unit a per-revolution argument is shown in when it is a lead (a length
+// per angle): its quantity's or its literal's own ("8.000 mm/rev"), so that
+// a lead never shows as a plain length.
+std::optional<Unit> leadUnit(const Expr& arg, const Calculation& calc) {
+  const Expr* x = &arg;
+  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  if (arg.dim.exponent(Base::Angle) != -1) return std::nullopt;
+  if (x->kind == ExprKind::Name) {
+    const int j = calc.sheet.find(x->text);
+    if (j >= 0 && calc.quantities[j].display.dim == arg.dim) return calc.quantities[j].display;
+  }
+  if (x->kind == ExprKind::Number && x->unit && x->unit->dim == arg.dim) return *x->unit;
+  Unit u;
+  UnitError err;
+  if (parseUnit("mm/rev", &u, &err) && u.dim == arg.dim) return u;
+  return std::nullopt;
+}
+
 TrailCall auditCall(const Expr& call, const Calculation& calc,
                     const std::vector<std::optional<TrailValue>>& given, const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
@@ -181,19 +310,24 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
   c.formula_is_expression = f.formula_is_expression;
   c.source = f.source;
   c.caution = f.caution;
+  c.trivial = f.args.empty();
   c.formula_expr = parsedFormula(f);
   auto value_of = [&](const Expr& e) {
     const int j = calc.sheet.find(e.text);
     return j >= 0 && calc.quantities[j].ok ? calc.quantities[j].si : NAN;
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
+  std::vector<double> library_args;
+  c.with_values.push_back({f.name + "(", std::nullopt});
   for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
     EvalFault fault;
-    double v = evalTree(*call.args[k], value_of, &fault);
+    const double raw = evalTree(*call.args[k], value_of, &fault);
     if (fault.node) return c;
-    v = argumentToLibrary(v, f.args[k].per_revolution, call.args[k]->dim);  // what the function sees
-    const Unit unit = argumentUnit(*call.args[k], f.args[k], calc);
-    TrailValue shown_value = rounded(v, unit, digits);
+    const double v = argumentToLibrary(raw, f.args[k].per_revolution, call.args[k]->dim);  // what it sees
+    library_args.push_back(v);
+    const std::optional<Unit> lead = f.args[k].per_revolution ? leadUnit(*call.args[k], calc) : std::nullopt;
+    const Unit unit = lead ? *lead : argumentUnit(*call.args[k], f.args[k], calc);
+    TrailValue shown_value = rounded(lead ? raw : v, unit, digits);
     // Given values and literals appear as written, as in the step itself.
     const Expr* x = call.args[k].get();
     while (x->kind == ExprKind::Group) x = x->args[0].get();
@@ -201,12 +335,16 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
       const int j = calc.sheet.find(x->text);
       if (given[j] && calc.quantities[j].display.text == unit.text) shown_value = *given[j];
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
-      shown_value = written(x->text, v, unit.fromSI(v), x->unit ? unit.pretty() : "");
+      shown_value =
+          written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
     c.arguments.push_back({fmt::format("{}{} = ", k ? ", " : "", f.args[k].name), std::nullopt});
     c.arguments.push_back({"", shown_value});
+    if (k) c.with_values.push_back({", ", std::nullopt});
+    c.with_values.push_back({"", shown_value});
     shown[f.args[k].name] = {std::move(shown_value), v < 0};
   }
+  c.with_values.push_back({")", std::nullopt});
   if (const Expr* formula = parsedFormula(f)) {
     c.pretty = renderExpr(*formula, nullptr, true);
     std::vector<TrailValue> values;
@@ -214,7 +352,9 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
         *formula,
         [&](const Expr& name) {
           auto it = shown.find(name.text);
-          return it == shown.end() ? name.text : markerInLine(&values, it->second.first, it->second.second);
+          if (it == shown.end()) return name.text;
+          c.bindings.push_back({&name, it->second.first, it->second.second});
+          return markerInLine(&values, it->second.first, it->second.second);
         },
         true);
     c.substituted = cutAtMarkers(text, values);
@@ -223,28 +363,69 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
   EvalFault fault;
   const double r = evalTree(call, value_of, &fault);
   if (!fault.node) {
-    // In the step's own unit where it fits (lbf*in in a US sheet), else the function's.
+    // In the step's own unit where it fits (lbf*in in a US sheet, mm/rev for
+    // a lead), else the function's (a lead in it per revolution).
     Unit unit;
     UnitError err;
-    if (auto u = unitFor(step_unit, f.result)) unit = *u;
-    else if (f.result_unit.empty() || !parseUnit(f.result_unit, &unit, &err) || unit.dim != f.result)
-      unit = preferredUnit(f.result);
-    c.result = rounded(f.result_per_revolution ? r * 2 * M_PI : r, unit, digits);
+    if (step_unit.dim == call.dim) unit = step_unit;
+    else if (auto u = unitFor(step_unit, f.result); u && !f.result_per_revolution) unit = *u;
+    else if (f.result_unit.empty() ||
+             !parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &unit, &err) ||
+             unit.dim != call.dim)
+      unit = preferredUnit(call.dim);
+    c.result = rounded(r, unit, digits);
+    if (const LookupTable* table = lookupTable(f.name); table && library_args.size() == f.args.size())
+      c.row = table->row(library_args, f.result_per_revolution ? r * kTwoPi : r, f);
   }
   return c;
 }
 
+bool isLibraryCall(const Expr& e) {
+  return e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text);
+}
+
+bool hasNestedCall(const Expr& e, bool inside_call) {
+  if (isLibraryCall(e) && inside_call) return true;
+  for (const auto& a : e.args)
+    if (hasNestedCall(*a, inside_call || isLibraryCall(e))) return true;
+  return false;
+}
+
+// In a copy of a step's formula, every library call inside another becomes
+// a name "\x1F<k>" standing for the k-th call of the step (source order).
+void markNestedCalls(Expr& e, bool inside_call, int* next) {
+  const bool library = isLibraryCall(e);
+  const int index = library ? (*next)++ : -1;
+  for (auto& a : e.args) markNestedCalls(*a, inside_call || library, next);
+  if (library && inside_call) {
+    e.kind = ExprKind::Name;
+    e.text = fmt::format("{}{}", kMark, index);
+    e.args.clear();
+  }
+}
+
 TrailLine substitute(const Expr& e, const Calculation& calc,
-                     const std::vector<std::optional<TrailValue>>& given, int digits) {
+                     const std::vector<std::optional<TrailValue>>& given, const std::vector<TrailCall>& calls,
+                     int digits, std::vector<TrailBinding>* bindings) {
   std::vector<TrailValue> values;
   const std::string text = renderExpr(
       e,
       [&](const Expr& name) {
+        if (!name.text.empty() && name.text[0] == kMark) {
+          // A nested call, put as the value it gave.
+          const size_t k = std::strtoul(name.text.c_str() + 1, nullptr, 10);
+          if (k >= calls.size() || !calls[k].result) return name.text.substr(1);
+          const TrailValue& v = *calls[k].result;
+          bindings->push_back({&name, v, v.si < 0});
+          return markerInLine(&values, v, v.si < 0);
+        }
         const int j = calc.sheet.find(name.text);
         const QuantityState& s = calc.quantities[j];
         // A given value appears as written ("950 kg", "0.35"), unrounded.
         TrailValue v = given[j] ? *given[j] : rounded(s.si, s.display, digits);
-        return markerInLine(&values, std::move(v), s.si < 0 || s.display.fromSI(s.si) < 0);
+        const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
+        bindings->push_back({&name, v, negative});
+        return markerInLine(&values, std::move(v), negative);
       },
       true);
   return cutAtMarkers(text, values);
@@ -263,6 +444,49 @@ TrailValue literalOrValue(const Expr& side, double si, const Unit& unit, int dig
   return rounded(si, unit, digits);
 }
 
+// A utilisation in percent, to whole percent except where rounding would
+// show a pass or a fail as exactly 100 %.
+std::string percentText(double u) {
+  const double p = u * 100;
+  for (int decimals = 0; decimals < 4; ++decimals) {
+    const std::string text = fmt::format("{:.{}f}", p, decimals);
+    const double back = std::strtod(text.c_str(), nullptr);
+    if (back != 100 || p == 100) return text + " %";
+  }
+  return fmt::format("{:.4f} %", p);
+}
+
+// Demand and capacity of a check, by its comparison: `x <= limit` has the
+// demand on the left, `x >= need` on the right.
+void measureCheck(TrailCheck* tc, const CheckState& s, const Check& c, int digits) {
+  const bool demand_left = c.op == Comparison::Less || c.op == Comparison::LessEqual;
+  const double demand = demand_left ? s.lhs : s.rhs, capacity = demand_left ? s.rhs : s.lhs;
+  tc->margin = rounded(capacity - demand, s.display, digits);
+  if (!s.ok) return;
+  if (demand > 0 && capacity > 0 && std::isfinite(demand / capacity)) {
+    tc->utilisation = demand / capacity;
+    tc->measure = "utilisation " + percentText(*tc->utilisation);
+  } else {
+    tc->measure = "margin " + valueText(tc->margin);
+  }
+}
+
+// Where a trail says what the library's tests of a function are.
+std::string verificationOf(const FunctionDecl& f) { return "docs/verification.md, `" + f.name + "`"; }
+
+// The method of a library function for "Library functions used": a table
+// lookup without its rows (the row found is shown at each step).
+std::string methodOf(const FunctionDecl& f) {
+  const LookupTable* table = lookupTable(f.name);
+  if (!table || !*table->rows_after) return f.formula;
+  const size_t at = f.formula.find(table->rows_after);
+  if (at == std::string::npos) return f.formula;
+  const std::string after = table->rows_after;
+  std::string method = f.formula.substr(0, at + (after == ": " ? 0 : after.size()));
+  while (!method.empty() && method.back() == ' ') method.pop_back();
+  return method + " (the row found is shown at each step; every row: docs/functions.md)";
+}
+
 }  // namespace
 
 Trail buildTrail(const Calculation& calc, int digits) {
@@ -271,6 +495,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   t.digits = digits;
   t.path = calc.path;
   t.sha256 = calc.sha256;
+  t.generator = std::string("calctrail ") + CALCTRAIL_VERSION;
   t.title = sheet.meta.get("title");
   for (const std::string& key : Metadata::keys()) {
     if (key == "title") continue;
@@ -281,6 +506,12 @@ Trail buildTrail(const Calculation& calc, int digits) {
   for (size_t i = 0; i < sheet.quantities.size(); ++i) {
     const Quantity& q = sheet.quantities[i];
     const QuantityState& s = calc.quantities[i];
+    if (q.overridden) {
+      std::string value = q.override_text;
+      while (!value.empty() && value.front() == ' ') value.erase(0, 1);
+      while (!value.empty() && value.back() == ' ') value.pop_back();
+      t.modified_by.push_back({q.name, value, q.line});
+    }
     TrailStep step;
     step.index = static_cast<int>(i);
     step.name = q.name;
@@ -330,13 +561,31 @@ Trail buildTrail(const Calculation& calc, int digits) {
     s.origin = s.overridden ? "set on the command line" : s.input ? "given" : "calculated";
     if (!calc.quantities[s.index].ok) continue;
     const Expr& expr = *sheet.quantities[s.index].expr;
-    s.substituted = substitute(expr, calc, given, digits);
-    const std::string substituted = lineText(s.substituted);
-    s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
     std::vector<const Expr*> calls;
     collectCalls(expr, &calls);
     for (const Expr* call : calls)
       s.calls.push_back(auditCall(*call, calc, given, calc.quantities[s.index].display, digits));
+    // A call inside another's arguments is shown there by its value.
+    for (size_t k = 0; k < calls.size(); ++k)
+      for (size_t o = 0; o < calls.size(); ++o)
+        if (o != k && calls[o]->begin <= calls[k]->begin && calls[k]->end <= calls[o]->end)
+          s.calls[k].nested = true;
+    s.substituted_expr = &expr;
+    if (hasNestedCall(expr, false)) {
+      ExprPtr copy = cloneExpr(expr);
+      int next = 0;
+      markNestedCalls(*copy, false, &next);
+      s.substituted_owner = std::shared_ptr<const Expr>(std::move(copy));
+      s.substituted_expr = s.substituted_owner.get();
+    }
+    s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, digits, &s.bindings);
+    const std::string substituted = lineText(s.substituted);
+    s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
+    const Expr* x = &expr;
+    while (x->kind == ExprKind::Group) x = x->args[0].get();
+    if (!calls.empty() && x == calls[0]) s.calls[0].whole = true;
+    s.single_call = !calls.empty() && s.calls[0].whole && s.calls[0].formula_is_expression &&
+                    s.calls[0].show_substituted;
     for (const TrailCall& c : s.calls) s.origin += "; " + c.name + ": " + c.source;
   }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
@@ -362,6 +611,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
       tc.rhs = literalOrValue(*c.rhs, s.rhs, s.display, digits);
     }
     tc.passed = s.ok && s.passed;
+    measureCheck(&tc, s, c, digits);
     (tc.passed ? t.passed : t.failed)++;
     t.checks.push_back(std::move(tc));
   }
@@ -386,13 +636,55 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
   }
   flushNote();
-  for (const Diagnostic& d : calc.diags.list())
-    if (d.severity == Severity::Warning) t.warnings.push_back(d.headline());
-  t.cautions = generalCautions();
+  // A warning in the worksheet is flagged at the step (or check) on its line.
+  for (const Diagnostic& d : calc.diags.list()) {
+    if (d.severity != Severity::Warning) continue;
+    t.warnings.push_back(d.headline());
+    if (d.path != calc.path || d.line <= 0) continue;
+    bool placed = false;
+    for (TrailStep& s : t.steps)
+      if (s.line == d.line && !s.overridden) s.warnings.push_back(d.message), placed = true;
+    for (TrailCheck& c : t.checks)
+      if (!placed && c.line == d.line) c.warnings.push_back(d.message), placed = true;
+    t.warnings_at_steps += placed ? 1 : 0;
+  }
+  // Library functions used, each once, in order of first use.
+  for (const FunctionDecl* f : used) {
+    TrailFunction fn;
+    fn.name = f->name;
+    fn.signature = f->name + "(";
+    for (size_t k = 0; k < f->args.size(); ++k) fn.signature += (k ? ", " : "") + f->args[k].name;
+    fn.signature += ")";
+    fn.summary = f->summary;
+    fn.method = methodOf(*f);
+    fn.formula_is_expression = f->formula_is_expression;
+    fn.formula_expr = parsedFormula(*f);
+    if (fn.formula_expr) fn.pretty = renderExpr(*fn.formula_expr, nullptr, true);
+    fn.limits = f->limits;
+    fn.source = f->source;
+    fn.verification = verificationOf(*f);
+    fn.trivial = f->args.empty();
+    for (const TrailStep& s : t.steps)
+      for (const TrailCall& c : s.calls)
+        if (c.name == f->name) {
+          if (fn.value.empty() && c.result) fn.value = valueText(*c.result);
+          if (std::find(fn.used_by.begin(), fn.used_by.end(), s.name) == fn.used_by.end())
+            fn.used_by.push_back(s.name);
+        }
+    t.functions.push_back(std::move(fn));
+  }
+  // Cautions from the one catalogue: the general ones, then those of the
+  // functions used, each entry once however many functions carry it.
+  std::vector<const Caution*> cautions;
+  for (const Caution& c : cautionCatalogue())
+    if (c.general) cautions.push_back(&c);
   for (const FunctionDecl* f : used)
-    if (!f->caution.empty() &&
-        std::find(t.cautions.begin(), t.cautions.end(), f->caution) == t.cautions.end())
-      t.cautions.push_back(f->caution);
+    for (const Caution* c : cautionsForFunctionText(f->caution))
+      if (std::find(cautions.begin(), cautions.end(), c) == cautions.end()) cautions.push_back(c);
+  for (const Caution* c : cautions) {
+    t.cautions.push_back(c->text);
+    t.caution_ids.push_back(c->id);
+  }
   return t;
 }
 

@@ -5,6 +5,7 @@
 // JSON at full precision). A renderer reads a Trail and nothing else.
 #pragma once
 
+#include <memory>
 #include <optional>
 #include <string>
 #include <utility>
@@ -33,6 +34,22 @@ struct TrailPiece {
 };
 using TrailLine = std::vector<TrailPiece>;
 
+// A node of a formula tree (a name, or a nested call) and the value shown in
+// its place, so that a typeset format can set the substituted formula from
+// the tree instead of from text.
+struct TrailBinding {
+  const Expr* node = nullptr;  // in the tree the binding belongs to
+  TrailValue value;            // shown in its place
+  bool negative = false;       // the value is below zero: a line puts it in parentheses
+};
+
+// One replacement made on the command line for this run (`--set f_high=0.10`).
+struct TrailReplacement {
+  std::string name;   // the quantity replaced
+  std::string value;  // the text given after `=`, trimmed
+  int line = 0;       // of the definition it replaces
+};
+
 struct TrailCall {        // one call of a library function in a formula
   std::string name;
   std::string signature;  // "torque_raise(F, dm, l, f, alpha)"
@@ -48,6 +65,31 @@ struct TrailCall {        // one call of a library function in a formula
   // The function's formula as a tree (for typesetting), nullptr when the
   // formula is a method in words. Parsed once; lives as long as the program.
   const Expr* formula_expr = nullptr;
+  std::vector<TrailBinding> bindings;  // formula_expr's argument names and this call's values
+  TrailLine with_values;  // the call with its argument values: "output_speed(1450 rpm, 20)"
+  std::string row;        // a table lookup's row found: "Tr 48x8, ISO 2904 table"; "" otherwise
+  bool trivial = false;   // no arguments: a constant by definition, shown by its value alone
+  bool nested = false;    // an argument of another library call, shown there by its value
+  bool whole = false;     // the step's whole formula: the step's own lines show it, no "where" line
+};
+
+// A library function the worksheet calls, shown once in "Library functions
+// used" with its formula, limits, source and verification; the steps show
+// only the call, the values and the result.
+struct TrailFunction {
+  std::string name;
+  std::string signature;  // "torque_raise(F, dm, l, f, alpha)"
+  std::string summary;    // one line from the library
+  std::string method;  // the formula in worksheet syntax, or the method in words (a table without its rows)
+  bool formula_is_expression = true;
+  std::string pretty;     // the formula with the product dot
+  const Expr* formula_expr = nullptr;  // for typesetting; lives as long as the program
+  std::string limits;     // validity limits in words
+  std::string source;     // the published source
+  std::string verification;  // where its tests are listed: "docs/verification.md, `torque_raise`"
+  bool trivial = false;   // a zero-argument constant: listed by its value, with no block
+  std::string value;      // a trivial function's value as the trail shows it ("15.00°")
+  std::vector<std::string> used_by;  // the quantities that call it, once each, in order
 };
 
 struct TrailStep {        // one quantity
@@ -76,9 +118,18 @@ struct TrailStep {        // one quantity
   std::string dimension;    // "torque or energy"
   std::string origin;       // "given", "calculated; torque_raise: SOURCE", ...
   std::vector<TrailCall> calls;
+  // The formula is one library call with a formula of its own (calls[0]):
+  // the call's substituted formula continues the step's chain.
+  bool single_call = false;
+  std::vector<std::string> warnings;  // the worksheet's warnings on this line, messages only
   // The formula as a tree, for typeset formats (MathML). Owned by the
   // Calculation the trail was built from: valid while that lives.
   const Expr* expr = nullptr;
+  // The tree `substituted` was made from, for typeset formats: `expr`, or a
+  // copy of it (owned here) with every nested library call put as one value.
+  const Expr* substituted_expr = nullptr;
+  std::shared_ptr<const Expr> substituted_owner;
+  std::vector<TrailBinding> bindings;  // substituted_expr's names (and nested calls) and their values
 };
 
 struct TrailCheck {
@@ -93,6 +144,14 @@ struct TrailCheck {
   TrailValue lhs, rhs;      // "3.126 N·m", "0 N·m" (literals as written)
   std::string unit;         // ASCII unit both sides are shown in: "N*m"
   bool passed = false;
+  // How close the check is: utilisation = demand / capacity, the sense taken
+  // from the comparison (`x <= limit`: x / limit; `x >= need`: need / x), so
+  // above 1 fails. None when either side is not above zero; the margin
+  // (capacity - demand, in `unit`; below zero fails) is then what is shown.
+  std::optional<double> utilisation;
+  TrailValue margin;
+  std::string measure;      // "utilisation 55 %" or "margin 14.06 N·m"; "" when not evaluated
+  std::vector<std::string> warnings;  // the worksheet's warnings on this line, messages only
   // Both sides as trees, for typeset formats; owned by the Calculation.
   const Expr* lhs_expr = nullptr;
   const Expr* rhs_expr = nullptr;
@@ -109,29 +168,47 @@ struct Trail {
   std::vector<std::pair<std::string, std::string>> meta;  // key order of the format
   std::string path;
   std::string sha256;
+  std::string generator;  // "calctrail 1.2.0": the program that made the report
   int digits = 4;
+  // Every --set replacement of this run, in worksheet order: when there is
+  // one, the numbers are the file's AS MODIFIED, and every format says so.
+  std::vector<TrailReplacement> modified_by;
   std::vector<TrailStep> steps;   // every quantity, document order
   std::vector<TrailCheck> checks;
   std::vector<TrailBlock> blocks;
+  std::vector<TrailFunction> functions;  // every library function called, in order of first use
   std::vector<std::string> warnings;  // FILE:LINE:COL: warning: ...
-  std::vector<std::string> cautions;  // general, then those of functions used
+  int warnings_at_steps = 0;          // how many of them are flagged at a step or a check
+  std::vector<std::string> cautions;  // the catalogue's entries that apply, each once (cautions.h)
+  std::vector<std::string> caution_ids;  // their identities, in the same order
   int passed = 0, failed = 0;
 };
 
 Trail buildTrail(const Calculation& calc, int digits);
 
-// The caution every human report carries (screw drives lift and clamp loads).
-const std::vector<std::string>& generalCautions();
-
 // A check's condition as the worksheet writes it: "T_lower > 0 [N*m]".
 std::string conditionText(const Check& check);
 
-// The verdict in words, before the names of the failed checks (a renderer
-// adds those in its own markup). Headline: "Checks: all 3 pass",
-// "Checks: 1 of 3 FAIL:", "Checks: none in this worksheet". Sentence (HTML):
-// "All 3 checks pass.", "1 of 3 checks fail:", "This worksheet has no design checks."
-enum class VerdictForm { Headline, Sentence };
-std::string verdictWords(const Trail& trail, VerdictForm form);
+// The verdict as one sentence, the same words in every format:
+// "PASS: all 5 checks pass", "FAIL: 2 of 5 checks fail: buckling, speed",
+// "NO CHECKS: this worksheet has no design checks". verdictState is its
+// first word (PASS, FAIL, NO CHECKS), which a format may mark up.
+std::string verdictState(const Trail& trail);
+std::string verdictSentence(const Trail& trail);
+
+// The warnings in the check summary: "" when there are none, else as
+// "WARNING: 1 warning, flagged at its step: v (line 3)".
+std::string warningSummary(const Trail& trail);
+
+// A run changed by --set, said next to the hash: "" for the file's own
+// numbers, else "MODIFIED: the numbers in this report come from the file AS
+// MODIFIED by --set f_high=0.10; the SHA-256 identifies the file alone, not
+// these numbers."
+std::string modifiedNotice(const Trail& trail);
+// "--set f_high=0.10, --set d=10 mm": every replacement, as typed.
+std::string replacementList(const Trail& trail);
+// What the signatures cover, for the sign-off block of every format.
+std::string signOffStatement(const Trail& trail);
 
 // A value or a line as text, its powers of ten in `style`. Formula text in
 // a line (a literal such as 1e-3) gets the same style.

@@ -14,6 +14,7 @@ ExprPtr cloneExpr(const Expr& e) {
   c->args.reserve(e.args.size());
   for (const ExprPtr& a : e.args) c->args.push_back(cloneExpr(*a));
   c->dim = e.dim;
+  c->temperature = e.temperature;
   return c;
 }
 
