@@ -102,9 +102,9 @@ TEST_CASE("golden files carry no machine path", "[report]") {
 }
 
 TEST_CASE("every human format carries the SHA-256, the cautions and the verdict", "[report]") {
-  auto c = demo("leveling-jack");
+  auto c = demo("press-overload-fails");
   const Trail t = buildTrail(*c, 4);
-  REQUIRE(t.failed == 1);  // the demo shows a failed check on purpose
+  REQUIRE(t.failed == 1);  // the demo that shows a failed check on purpose
   const std::string counts = "1 of " + std::to_string(t.checks.size());
   for (const std::string& out : {renderMarkdown(t), renderHtml(t)}) {
     CHECK(out.find(t.sha256) != std::string::npos);
@@ -112,14 +112,14 @@ TEST_CASE("every human format carries the SHA-256, the cautions and the verdict"
     CHECK(out.find(counts) != std::string::npos);
   }
   const std::string md = renderMarkdown(t);
-  CHECK(md.find("| **FAIL** | **`bearing`** |") != std::string::npos);
+  CHECK(md.find("| **FAIL** | **`nut_pressure`** |") != std::string::npos);
   // The check summary first, as in the HTML.
-  CHECK(md.find("**FAIL: " + counts + " checks fails: bearing**") < md.find("## Inputs"));
+  CHECK(md.find("**FAIL: " + counts + " checks fails: nut\\_pressure**") < md.find("## Inputs"));
   CHECK(md.find("## Design checks") < md.find("## Inputs"));
 }
 
 TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "[report]") {
-  auto c = demo("leveling-jack");
+  auto c = demo("press-overload-fails");
   const Trail t = buildTrail(*c, 4);
   const std::string html = renderHtml(t);
   const size_t checks = html.find("<section class=\"verdict has-fail\">");
@@ -129,13 +129,13 @@ TEST_CASE("HTML: checks summary first, sign-off last, no script and no fetch", "
   CHECK(html.find("<h2>Sign-off</h2>") > html.find("<h2>Library functions used</h2>"));
   // The failed check is marked in words, not only by style.
   CHECK(html.find(
-            "<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>bearing</code>") !=
+            "<tr class=\"fail\"><td><span class=\"fail-mark\">FAIL</span></td><td><code>nut_pressure</code>") !=
         std::string::npos);
   CHECK(count(html, "<td>pass</td>") == static_cast<size_t>(t.passed));
   for (const char* banned : {"<script", "http://", "https://", "@import", "url(", "<link", "<img", "<iframe"})
     CHECK(html.find(banned) == std::string::npos);
   // Page headers: margin boxes with title, calc number, revision, page n of N.
-  CHECK(html.find("@top-left { content: \"Machine leveling jack: Acme screw turned by hand\"") !=
+  CHECK(html.find("@top-left { content: \"Bench press at overload: a failing check, shown on purpose\"") !=
         std::string::npos);
   const std::string calc_no = c->sheet.meta.get("calc"), revision = c->sheet.meta.get("revision");
   REQUIRE_FALSE(calc_no.empty());
