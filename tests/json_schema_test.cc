@@ -1,7 +1,8 @@
 // The report's JSON against its documented schema (docs/trail.schema.json),
 // for every demo worksheet. The validator below covers the keywords that
 // schema uses: type, const, enum, required, properties,
-// additionalProperties (false), items, minLength and pattern.
+// additionalProperties (false, or a schema for every other key: the load
+// cases by name), items, minLength and pattern; a type may be a list.
 #include <catch2/catch.hpp>
 
 #include <regex>
@@ -46,9 +47,14 @@ void validate(const Json& schema, const Json& v, const std::string& path, std::v
     if (std::find(known.begin(), known.end(), key) == known.end())
       errors->push_back(path + ": the schema uses `" + key + "`, which this validator does not know");
   }
-  if (schema.has("type") && !hasType(v, schema["type"].string)) {
-    errors->push_back(path + ": expected " + schema["type"].string);
-    return;
+  if (schema.has("type")) {
+    const Json& type = schema["type"];
+    bool any = type.type == Json::String && hasType(v, type.string);
+    for (const Json& t : type.array) any |= hasType(v, t.string);
+    if (!any) {
+      errors->push_back(path + ": expected " + (type.type == Json::String ? type.string : "another type"));
+      return;
+    }
   }
   if (schema.has("const") && !equal(schema["const"], v)) errors->push_back(path + ": not the constant");
   if (schema.has("enum")) {
@@ -69,6 +75,8 @@ void validate(const Json& schema, const Json& v, const std::string& path, std::v
     for (const auto& [key, value] : v.object) {
       if (schema.has("properties") && schema["properties"].has(key)) {
         validate(schema["properties"][key], value, path + "." + key, errors);
+      } else if (schema.has("additionalProperties") && schema["additionalProperties"].type == Json::Object) {
+        validate(schema["additionalProperties"], value, path + "." + key, errors);
       } else if (schema.has("additionalProperties") && !schema["additionalProperties"].boolean) {
         errors->push_back(path + ": `" + key + "` is not in the schema");
       }
@@ -91,7 +99,7 @@ Json load(const std::string& text) {
 
 TEST_CASE("the JSON of every demo worksheet follows docs/trail.schema.json", "[json][schema]") {
   const Json schema = load(readFile(repoPath("docs/trail.schema.json")));
-  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
     Run r = runCli("report " + path + " --format json");
     INFO(path << "\n" << r.err);
@@ -122,7 +130,7 @@ TEST_CASE("the schema validator itself rejects what it should", "[json][schema]"
 }
 
 TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {
-  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
     auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)));
     REQUIRE_FALSE(c->hasErrors());
