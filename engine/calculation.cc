@@ -44,10 +44,10 @@ int Calculation::failedChecks() const {
 void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& options) {
   sheet = parseSheet(std::move(file), &diags);
   model = Model::borrow(&sheet, &diags);
-  bindCases(options.case_name);
+  bindShownCase(options.case_name);
   inputs = std::make_unique<Inputs>(*model, shown_layer_.get());
   for (const std::string& set : options.sets) inputs->set(set, &diags);
-  for (CaseRun& c : cases) c.inputs = std::make_unique<Inputs>(*model, inputs.get());
+  bindCases(!options.case_name.empty());
   if (!diags.hasErrors()) {
     Evaluation evaluation(*model);  // one context: the cases re-use the nominal's programs
     results = evaluation.evaluate(*inputs);
@@ -58,12 +58,12 @@ void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& optio
   diags.sort();
 }
 
-// Every case line is checked against the model (names, dimensions), here
-// with no --set over it; evaluateCases binds them again over --set. With
-// --case the shown case becomes the layer under --set and no case runs beside it.
-void Calculation::bindCases(const std::string& shown) {
-  const bool alone = !shown.empty();
-  if (alone && shown != kNominalCase && sheet.findCase(shown) < 0) {
+// --case NAME: that case's replacements become the layer under --set, so
+// the run is the worksheet as if written with them.
+void Calculation::bindShownCase(const std::string& shown) {
+  if (shown.empty() || shown == kNominalCase) return;
+  const int k = sheet.findCase(shown);
+  if (k < 0) {
     std::vector<std::string> names = {kNominalCase};
     for (const LoadCase& c : sheet.cases) names.push_back(c.name);
     std::string msg = "--case: the worksheet has no case `" + shown + "`";
@@ -73,38 +73,42 @@ void Calculation::bindCases(const std::string& shown) {
     for (const std::string& n : names) all += (all.empty() ? "`" : ", `") + n + "`";
     msg += " (its cases: " + all + ")";
     diags.error(path, msg);
+    return;
   }
-  if (alone) shown_case = shown == kNominalCase ? "" : shown;
-  if (!shown_case.empty()) shown_layer_ = std::make_unique<Inputs>(*model);
+  shown_case = shown;
+  shown_layer_ = std::make_unique<Inputs>(*model);
+  for (const CaseReplacement& r : sheet.cases[k].replacements)
+    shown_layer_->replace(r.name, r.name_begin, r.name_end, *r.expr, sheet.file, &diags,
+                          "case `" + shown + "`");
+}
+
+// Each case as its own layer over --set; a replacement --set hides is
+// checked all the same, in a layer of its own. Every case line is checked
+// (names, dimensions) with --case too, where only the shown one runs.
+void Calculation::bindCases(bool alone) {
   for (const LoadCase& c : sheet.cases) {
+    if (c.name == shown_case) continue;  // bound by bindShownCase
     const std::string who = "case `" + c.name + "`";
-    Inputs checked(*model);
-    Inputs* layer = c.name == shown_case ? shown_layer_.get() : &checked;
-    for (const CaseReplacement& r : c.replacements)
-      layer->replace(r.name, r.name_begin, r.name_end, *r.expr, sheet.file, &diags, who);
-    if (alone) continue;
     CaseRun run;
     run.def = &c;
-    cases.push_back(std::move(run));
+    run.inputs = std::make_unique<Inputs>(*model, inputs.get());
+    Inputs hidden(*model);
+    for (const CaseReplacement& r : c.replacements) {
+      const Slot slot = model->find(r.name);
+      Inputs* layer = alone || (slot.valid() && inputs->find(slot)) ? &hidden : run.inputs.get();
+      layer->replace(r.name, r.name_begin, r.name_end, *r.expr, sheet.file, &diags, who);
+    }
+    if (!alone) cases.push_back(std::move(run));
   }
 }
 
-// Each case as its own layer over --set (a --set of the same name hides the
-// case's replacement), evaluated over the nominal's results: only the cone of
-// its replacements is re-run.
+// Each case over the nominal's results: only the cone of its replacements is re-run.
 void Calculation::evaluateCases(Evaluation* evaluation) {
   if (!results.faults.empty()) return;  // the worksheet has errors: its own first
   for (CaseRun& c : cases) {
-    const std::string who = "case `" + c.def->name + "`";
-    Inputs hidden(*model);  // replacements that --set hides: already checked
-    for (const CaseReplacement& r : c.def->replacements) {
-      const Slot slot = model->find(r.name);
-      Inputs* layer = slot.valid() && inputs->find(slot) ? &hidden : c.inputs.get();
-      layer->replace(r.name, r.name_begin, r.name_end, *r.expr, sheet.file, &diags, who);
-    }
-    if (diags.hasErrors()) return;  // a case and --set together would make a cycle
     c.results = results;
     evaluation->evaluateCone(*c.inputs, &c.results);
+    const std::string who = "case `" + c.def->name + "`";
     for (const Fault& f : c.results.faults) c.errors.error(*f.file, f.begin, f.end, who + ": " + f.message);
     c.errors.sort();
   }

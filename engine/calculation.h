@@ -103,7 +103,8 @@ class Calculation {
  private:
   void run(std::shared_ptr<SourceFile> file, const CalcOptions& options);
   void fillStates();
-  void bindCases(const std::string& shown);
+  void bindShownCase(const std::string& shown);
+  void bindCases(bool alone);
   void evaluateCases(Evaluation* evaluation);
   // The model's trees of --set quantities, kept alive while `sheet` shows the --set ones.
   std::vector<ExprPtr> replaced_;

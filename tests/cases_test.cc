@@ -35,7 +35,9 @@ CalcOptions options(const std::string& case_name = "", const std::vector<std::st
   return o;
 }
 
-bool sameBits(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }
+bool sameBits(double a, double b) {
+  return std::memcmp(&a, &b, sizeof a) == 0;
+}
 
 const CaseRun& run(const Calculation& c, const std::string& name) {
   for (const CaseRun& r : c.cases)
@@ -97,8 +99,10 @@ TEST_CASE("case lines: every problem at its place in the case line", "[cases][pa
         "sheet.calc:4:6: error: `nominal` is the worksheet as written, without replacements; give the case "
         "another name\n"
         "sheet.calc:5:9: error: case `x`: the worksheet defines no quantity `aa`; did you mean `a`?\n"
-        "sheet.calc:5:23: error: case `x`: `b` is declared in [m], length (mm), but the value given is time (s)\n"
-        "sheet.calc:5:32: error: case `x`: `a` is length (mm) in the worksheet, but the value given is time (s)\n"
+        "sheet.calc:5:23: error: case `x`: `b` is declared in [m], length (mm), but the value given is time "
+        "(s)\n"
+        "sheet.calc:5:32: error: case `x`: `a` is length (mm) in the worksheet, but the value given is time "
+        "(s)\n"
         "sheet.calc:6:6: error: the case `x` is defined twice; the first is on line 5\n"
         "sheet.calc:6:18: error: the case `x` replaces `a` twice\n"
         "sheet.calc:7:16: error: an empty replacement in the case `y`: write `NAME = VALUE` between commas\n"
@@ -129,16 +133,18 @@ TEST_CASE("every case is evaluated in one run, bit for bit as the sheet with its
   CHECK(run(*c, "high").inputs->own().size() == 1);
 }
 
-TEST_CASE("cases: --set applies on top of every case and hides a case's replacement of the same name", "[cases]") {
+TEST_CASE("cases: --set applies on top of every case and hides a case's replacement of the same name",
+          "[cases]") {
   auto c = Calculation::fromText("sheet.calc", kSheet, options("", {"f=0.2"}));
   REQUIRE_FALSE(c->hasErrors());
-  CHECK(caseValue(*c, "high", "T") == Approx(20.0));       // --set f wins over the case's f
-  CHECK(caseValue(*c, "overload", "T") == Approx(28.0));   // F from the case, f from --set
+  CHECK(caseValue(*c, "high", "T") == Approx(20.0));      // --set f wins over the case's f
+  CHECK(caseValue(*c, "overload", "T") == Approx(28.0));  // F from the case, f from --set
   auto d = Calculation::fromText("sheet.calc", kSheet, options("", {"d=40 mm"}));
   CHECK(caseValue(*d, "high", "T") == Approx(30.0));
 }
 
-TEST_CASE("cases: --case evaluates one case alone as the nominal, and an unknown name lists the cases", "[cases]") {
+TEST_CASE("cases: --case evaluates one case alone as the nominal, and an unknown name lists the cases",
+          "[cases]") {
   auto c = Calculation::fromText("sheet.calc", kSheet, options("overload"));
   REQUIRE_FALSE(c->hasErrors());
   CHECK(c->cases.empty());
@@ -213,16 +219,18 @@ TEST_CASE("a case that divides by zero: an error naming it, the other cases stil
   CHECK(j["checks"][0]["governing"].string == "more");
   Run k = runCli("check " + path);
   CHECK(k.status == 2);
-  CHECK(k.err == path + ":3:5: error: case `zero`: `c` cannot be calculated: division by zero: the divisor is 0 "
-                        "(with a = 3.000 m, b = 1.500 m)\n");
+  CHECK(k.err == path +
+                     ":3:5: error: case `zero`: `c` cannot be calculated: division by zero: the divisor is 0 "
+                     "(with a = 3.000 m, b = 1.500 m)\n");
 }
 
 TEST_CASE("check fails when a check fails in any case, and its line names the case", "[cases][cli]") {
   const std::string path = sheetFile(kSheet);
   Run r = runCli("check " + path);
   CHECK(r.status == 1);
-  CHECK(r.out == path + ":7:7: error: check `torque` fails in case overload: 16.80 N·m <= 15.00 N·m is false\n"
-                        "1 worksheet, 6 checks: 1 failed\n");
+  CHECK(r.out == path +
+                     ":7:7: error: check `torque` fails in case overload: 16.80 N·m <= 15.00 N·m is false\n"
+                     "1 worksheet, 6 checks: 1 failed\n");
   CHECK(runCli("check " + path + " --case high").status == 0);
   Run alone = runCli("check " + path + " --case overload");
   CHECK(alone.status == 1);
@@ -283,7 +291,8 @@ TEST_CASE("diff compares case by case and reports cases added and removed", "[ca
 TEST_CASE("fmt lays out case lines canonically and keeps their meaning", "[cases][review]") {
   Diagnostics diags;
   const std::string out = formatWorksheet(
-      "s.calc", "F = 10 [kN]\nf=0.1\ncase  hot :f=0.2,F = 12 [kN]   #  warm\ncase cold: f = max(0.05,0.06)\n", &diags);
+      "s.calc", "F = 10 [kN]\nf=0.1\ncase  hot :f=0.2,F = 12 [kN]   #  warm\ncase cold: f = max(0.05,0.06)\n",
+      &diags);
   CHECK_FALSE(diags.hasErrors());
   CHECK(out ==
         "F = 10 kN\n"

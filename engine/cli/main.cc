@@ -37,8 +37,9 @@ int main(int argc, char** argv) {
                          "Replace the definition of NAME by VALUE for this run only, e.g. --set \"d=10 mm\"")
       ->type_name("NAME=VALUE")
       ->allow_extra_args(false);
-  report_cmd->add_option("--case", report.case_name,
-                         "Evaluate this load case alone, as if the worksheet were written with its replacements")
+  report_cmd
+      ->add_option("--case", report.case_name,
+                   "Evaluate this load case alone, as if the worksheet were written with its replacements")
       ->type_name("NAME");
   report_cmd->add_option("--digits", report.digits, "Significant digits in human formats (1 to 15)")
       ->check(CLI::Range(1, 15))

@@ -184,12 +184,16 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
   bnd.reads_slots = !bnd.program.inputs.empty();
   if (!bnd.reads_slots) {
     // A value: calculated once, now, by the same arithmetic as every formula.
-    double v = NAN;
-    try {
-      Evaluator once;
-      v = once.run(bnd.program, {});
-    } catch (const std::exception&) {
-      v = NAN;
+    // A lone literal is read as the evaluation reads it (Program::constant):
+    // no parser to set up for the common case of a value.
+    double v = bnd.program.is_constant ? bnd.program.constant : NAN;
+    if (!bnd.program.is_constant) {
+      try {
+        Evaluator once;
+        v = once.run(bnd.program, {});
+      } catch (const std::exception&) {
+        v = NAN;
+      }
     }
     if (!std::isfinite(v)) {
       EvalFault fault;

@@ -26,7 +26,9 @@ void appendRow(fmt::memory_buffer& out, const std::vector<std::string>& fields) 
   fmt::format_to(std::back_inserter(out), "\r\n");
 }
 
-const char* verdict(bool ok, bool passed) { return !ok ? "not evaluated" : passed ? "pass" : "FAIL"; }
+const char* verdict(bool ok, bool passed) {
+  return !ok ? "not evaluated" : passed ? "pass" : "FAIL";
+}
 
 }  // namespace
 

@@ -28,12 +28,16 @@ void writeStepCases(JsonWriter& w, const Trail& t, const TrailStep& s) {
     const TrailCaseValue& v = s.cases[k];
     w.key(t.cases[k].name).beginObject();
     w.key("value");
-    if (v.ok) w.value(v.value.value);
-    else w.null();
+    if (v.ok)
+      w.value(v.value.value);
+    else
+      w.null();
     w.key("unit").value(s.unit_written);
     w.key("si");
-    if (v.ok) w.value(v.value.si);
-    else w.null();
+    if (v.ok)
+      w.value(v.value.si);
+    else
+      w.null();
     w.key("formula").value(v.formula);
     w.key("result").value(v.ok ? valueText(v.value) : "");
     w.key("description").value(s.description);
@@ -46,8 +50,10 @@ void writeStepCases(JsonWriter& w, const Trail& t, const TrailStep& s) {
 
 void writeCheckCases(JsonWriter& w, const Trail& t, const TrailCheck& c) {
   w.key("governing");
-  if (c.governing >= 0) w.value(t.cases[c.governing].name);
-  else w.null();
+  if (c.governing >= 0)
+    w.value(t.cases[c.governing].name);
+  else
+    w.null();
   w.key("cases").beginObject();
   for (size_t k = 0; k < c.cases.size(); ++k) {
     const TrailCaseCheck& r = c.cases[k];
@@ -62,11 +68,15 @@ void writeCheckCases(JsonWriter& w, const Trail& t, const TrailCheck& c) {
     w.key("lhs_si").value(r.lhs.si);
     w.key("rhs_si").value(r.rhs.si);
     w.key("margin");
-    if (r.ok) w.value(r.margin.value);
-    else w.null();
+    if (r.ok)
+      w.value(r.margin.value);
+    else
+      w.null();
     w.key("margin_si");
-    if (r.ok) w.value(r.margin.si);
-    else w.null();
+    if (r.ok)
+      w.value(r.margin.si);
+    else
+      w.null();
     w.key("governing").value(static_cast<int>(k) == c.governing);
     w.endObject();
   }

@@ -285,8 +285,9 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     fmt::format_to(out, "\n#### In case {}\n\n", mdCode(c.name));
     if (c.not_compared) fmt::format_to(out, "Not compared: the case cannot be calculated on one side.\n");
     for (const CheckFlip& f : c.flipped)
-      fmt::format_to(out, "> **Check flipped: {} {} \u2192 {}** ({})\n", mdCode(f.now.name), state(!f.now.passed),
-                     state(f.now.passed), mdCell(checkValues(f.now.op, f.now.lhs, f.now.rhs, f.now.unit, digits)));
+      fmt::format_to(out, "> **Check flipped: {} {} \u2192 {}** ({})\n", mdCode(f.now.name),
+                     state(!f.now.passed), state(f.now.passed),
+                     mdCell(checkValues(f.now.op, f.now.lhs, f.now.rhs, f.now.unit, digits)));
     valueTable("Results moved in case " + c.name, "Result", c.moved);
   }
   return fmt::to_string(buffer);

@@ -100,8 +100,8 @@ bool SheetDiff::somethingMoved() const {
 
 bool SheetDiff::empty() const {
   return flipped.empty() && inputs.empty() && formulas.empty() && moved.empty() && added.empty() &&
-         removed.empty() && checks_added.empty() && checks_removed.empty() && new_warnings.empty() && meta.empty() &&
-         cases_added.empty() && cases_removed.empty() && cases.empty();
+         removed.empty() && checks_added.empty() && checks_removed.empty() && new_warnings.empty() &&
+         meta.empty() && cases_added.empty() && cases_removed.empty() && cases.empty();
 }
 
 namespace {

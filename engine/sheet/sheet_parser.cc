@@ -355,8 +355,9 @@ class LineParser {
     }
     bool ok = true;
     if (c.name == kNominalCase) {
-      diags_->error(file_, p, name_end,
-                    "`nominal` is the worksheet as written, without replacements; give the case another name");
+      diags_->error(
+          file_, p, name_end,
+          "`nominal` is the worksheet as written, without replacements; give the case another name");
       ok = false;
     } else if (sheet_->findCase(c.name) >= 0) {
       diags_->error(file_, p, name_end,
@@ -390,7 +391,8 @@ class LineParser {
     if (p == end) {
       // At the comma that leaves the part empty.
       const uint32_t at = s[from - 1] == ',' ? from - 1 : end;
-      diags_->error(file_, at, at + 1, "an empty replacement" + in_case + ": write `NAME = VALUE` between commas");
+      diags_->error(file_, at, at + 1,
+                    "an empty replacement" + in_case + ": write `NAME = VALUE` between commas");
       return false;
     }
     const uint32_t name_end = scanDottedName(p, end);
