@@ -2,6 +2,7 @@
 
 #include "engine/model/evaluate.h"
 #include "engine/sheet/sheet_parser.h"
+#include "engine/util/edit_distance.h"
 #include "engine/util/sha256.h"
 
 namespace calctrail {
@@ -28,6 +29,12 @@ std::unique_ptr<Calculation> Calculation::fromText(const std::string& display_pa
 
 bool Calculation::allChecksPass() const { return failedChecks() == 0; }
 
+bool Calculation::caseErrors() const {
+  for (const CaseRun& c : cases)
+    if (c.errors.hasErrors()) return true;
+  return false;
+}
+
 int Calculation::failedChecks() const {
   int n = 0;
   for (const CheckState& c : checks) n += c.ok && !c.passed;
@@ -37,14 +44,74 @@ int Calculation::failedChecks() const {
 void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& options) {
   sheet = parseSheet(std::move(file), &diags);
   model = Model::borrow(&sheet, &diags);
-  inputs = std::make_unique<Inputs>(*model);
+  bindShownCase(options.case_name);
+  inputs = std::make_unique<Inputs>(*model, shown_layer_.get());
   for (const std::string& set : options.sets) inputs->set(set, &diags);
+  bindCases(!options.case_name.empty());
   if (!diags.hasErrors()) {
-    results = evaluate(*model, *inputs);
+    Evaluation evaluation(*model);  // one context: the cases re-use the nominal's programs
+    results = evaluation.evaluate(*inputs);
     for (const Fault& f : results.faults) diags.error(*f.file, f.begin, f.end, f.message);
+    evaluateCases(&evaluation);
   }
   fillStates();
   diags.sort();
+}
+
+// --case NAME: that case's replacements become the layer under --set, so
+// the run is the worksheet as if written with them.
+void Calculation::bindShownCase(const std::string& shown) {
+  if (shown.empty() || shown == kNominalCase) return;
+  const int k = sheet.findCase(shown);
+  if (k < 0) {
+    std::vector<std::string> names = {kNominalCase};
+    for (const LoadCase& c : sheet.cases) names.push_back(c.name);
+    std::string msg = "--case: the worksheet has no case `" + shown + "`";
+    auto near = nearestWords(shown, names);
+    if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
+    std::string all;
+    for (const std::string& n : names) all += (all.empty() ? "`" : ", `") + n + "`";
+    msg += " (its cases: " + all + ")";
+    diags.error(path, msg);
+    return;
+  }
+  shown_case = shown;
+  shown_layer_ = std::make_unique<Inputs>(*model);
+  for (const CaseReplacement& r : sheet.cases[k].replacements)
+    shown_layer_->replace(r.name, r.name_begin, r.name_end, *r.expr, sheet.file, &diags,
+                          "case `" + shown + "`");
+}
+
+// Each case as its own layer over --set; a replacement --set hides is
+// checked all the same, in a layer of its own. Every case line is checked
+// (names, dimensions) with --case too, where only the shown one runs.
+void Calculation::bindCases(bool alone) {
+  for (const LoadCase& c : sheet.cases) {
+    if (c.name == shown_case) continue;  // bound by bindShownCase
+    const std::string who = "case `" + c.name + "`";
+    CaseRun run;
+    run.def = &c;
+    run.inputs = std::make_unique<Inputs>(*model, inputs.get());
+    Inputs hidden(*model);
+    for (const CaseReplacement& r : c.replacements) {
+      const Slot slot = model->find(r.name);
+      Inputs* layer = alone || (slot.valid() && inputs->find(slot)) ? &hidden : run.inputs.get();
+      layer->replace(r.name, r.name_begin, r.name_end, *r.expr, sheet.file, &diags, who);
+    }
+    if (!alone) cases.push_back(std::move(run));
+  }
+}
+
+// Each case over the nominal's results: only the cone of its replacements is re-run.
+void Calculation::evaluateCases(Evaluation* evaluation) {
+  if (!results.faults.empty()) return;  // the worksheet has errors: its own first
+  for (CaseRun& c : cases) {
+    c.results = results;
+    evaluation->evaluateCone(*c.inputs, &c.results);
+    const std::string who = "case `" + c.def->name + "`";
+    for (const Fault& f : c.results.faults) c.errors.error(*f.file, f.begin, f.end, who + ": " + f.message);
+    c.errors.sort();
+  }
 }
 
 namespace {
@@ -76,15 +143,21 @@ void Calculation::fillStates() {
     s.ok = evaluated && results.ok(slot);
     s.si = s.ok ? results.value(slot) : 0.0;
   }
-  // Show each --set formula where the sheet's stood; keep the model's tree alive.
-  for (const Binding& b : inputs->own()) {
-    if (!b.expr) continue;
+  // Show each --set formula (and the shown case's) where the sheet's stood;
+  // keep the model's tree alive.
+  std::vector<const Binding*> shown;
+  for (const Inputs* layer = inputs.get(); layer; layer = layer->parent())
+    for (const Binding& b : layer->own())
+      if (b.expr && inputs->find(b.slot) == &b) shown.push_back(&b);
+  for (const Binding* bp : shown) {
+    const Binding& b = *bp;
     Quantity& q = sheet.quantities[b.slot.index()];
     QuantityState& s = quantities[b.slot.index()];
     replaced_.push_back(std::move(q.expr));
     q.expr = cloneExpr(*b.expr);
     q.overridden = true;
     q.override_text = b.text;
+    q.override_case = b.file == sheet.file ? shown_case : "";
     q.override_file = std::const_pointer_cast<SourceFile>(b.file);
     s.input = readsNothing(*q.expr);
     if (!s.declared && s.has_dim) {

@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "engine/graph/dependency_graph.h"
+#include "engine/model/evaluate.h"
 #include "engine/model/inputs.h"
 #include "engine/model/model.h"
 #include "engine/model/results.h"
@@ -24,6 +25,9 @@ namespace calctrail {
 
 struct CalcOptions {
   std::vector<std::string> sets;  // "NAME=VALUE" from --set, in order
+  // --case: evaluate this load case alone, as if the worksheet were written
+  // with its replacements ("" or "nominal": the worksheet as written).
+  std::string case_name;
 };
 
 struct QuantityState {
@@ -42,6 +46,23 @@ struct CheckState {
   bool passed = false;
   Dimension dim;
   Unit display;            // unit both sides are shown in
+};
+
+// One load case of the worksheet, evaluated beside the nominal in the same run.
+struct CaseRun {
+  /// The case as the worksheet writes it; points into Calculation::sheet.cases.
+  const LoadCase* def = nullptr;
+  /// Its replacements, over the --set layer: a --set of the same name hides the case's.
+  std::unique_ptr<Inputs> inputs;
+  /// The nominal's results with the cone of the replacements re-run; empty when not evaluated.
+  Results results;
+  /// What could not be calculated in this case ("case `overload`: `y` cannot be
+  /// calculated: ..."). Kept apart from Calculation::diags, so that the other
+  /// cases can still be shown; any of them makes the run a worksheet error.
+  Diagnostics errors;
+
+  bool evaluated() const { return !results.values.empty(); }
+  bool ok() const { return evaluated() && !errors.hasErrors(); }
 };
 
 class Calculation {
@@ -67,15 +88,28 @@ class Calculation {
   std::unique_ptr<Inputs> inputs;
   Results results;
 
+  // Every load case of the worksheet in document order, each evaluated over
+  // the nominal (empty with --case, which shows one case as the nominal).
+  std::vector<CaseRun> cases;
+  // The --case shown in place of the worksheet as written; "" for the nominal.
+  std::string shown_case;
+
   bool hasErrors() const { return diags.hasErrors(); }
   bool allChecksPass() const;
   int failedChecks() const;
+  // Some load case could not be calculated (its errors are in CaseRun::errors).
+  bool caseErrors() const;
 
  private:
   void run(std::shared_ptr<SourceFile> file, const CalcOptions& options);
   void fillStates();
+  void bindShownCase(const std::string& shown);
+  void bindCases(bool alone);
+  void evaluateCases(Evaluation* evaluation);
   // The model's trees of --set quantities, kept alive while `sheet` shows the --set ones.
   std::vector<ExprPtr> replaced_;
+  // With --case, the shown case's replacements: the layer under --set.
+  std::unique_ptr<Inputs> shown_layer_;
 };
 
 }  // namespace calctrail

@@ -45,12 +45,12 @@ TEST_CASE("completion: commands, from the program's own help", "[completion]") {
 
 TEST_CASE("completion: options and the values of --format", "[completion]") {
   CHECK(complete("report --fo") == "--format\n");
-  CHECK(complete("report gate.calc --format ''") == "text\nmd\nhtml\njson\n");
+  CHECK(complete("report gate.calc --format ''") == "text\nmd\nhtml\njson\ncsv\n");
   CHECK(complete("report -f h") == "html\n");
   CHECK(complete("diff a.calc b.calc --format ''") == "text\nmd\njson\n");
   CHECK(complete("units --format ''") == "text\nmd\n");
   CHECK(complete("fmt --") == "--help\n--check\n--write\n");
-  CHECK(complete("check -") == "-h\n--help\n--set\n-q\n--quiet\n");
+  CHECK(complete("check -") == "-h\n--help\n--set\n--case\n-q\n--quiet\n");
   // A number or NAME=VALUE has nothing to offer.
   CHECK(complete("report gate.calc --digits ''") == "\n");
   CHECK(complete("functions trap_pitch") == "trap_pitch\ntrap_pitch_dia\n");

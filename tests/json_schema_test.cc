@@ -1,7 +1,8 @@
 // The report's JSON against its documented schema (docs/trail.schema.json),
 // for every demo worksheet. The validator below covers the keywords that
-// schema uses: type (one or a list), const, enum, required, properties,
-// additionalProperties (false), items, minLength and pattern.
+// schema uses: type, const, enum, required, properties,
+// additionalProperties (false, or a schema for every other key: the load
+// cases by name), items, minLength and pattern; a type may be a list.
 #include <catch2/catch.hpp>
 
 #include <regex>
@@ -79,6 +80,8 @@ void validate(const Json& schema, const Json& v, const std::string& path, std::v
     for (const auto& [key, value] : v.object) {
       if (schema.has("properties") && schema["properties"].has(key)) {
         validate(schema["properties"][key], value, path + "." + key, errors);
+      } else if (schema.has("additionalProperties") && schema["additionalProperties"].type == Json::Object) {
+        validate(schema["additionalProperties"], value, path + "." + key, errors);
       } else if (schema.has("additionalProperties") && !schema["additionalProperties"].boolean) {
         errors->push_back(path + ": `" + key + "` is not in the schema");
       }
@@ -101,7 +104,7 @@ Json load(const std::string& text) {
 
 TEST_CASE("the JSON of every demo worksheet follows docs/trail.schema.json", "[json][schema]") {
   const Json schema = load(readFile(repoPath("docs/trail.schema.json")));
-  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
     Run r = runCli("report " + path + " --format json");
     INFO(path << "\n" << r.err);
@@ -168,7 +171,7 @@ TEST_CASE("a --set run's JSON follows the schema and lists every replacement", "
 }
 
 TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {
-  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
     auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)));
     REQUIRE_FALSE(c->hasErrors());

@@ -338,8 +338,9 @@ TEST_CASE("HTML and Markdown: library calls are audited, each function described
 }
 
 TEST_CASE("formats: each registered once, dispatched by name", "[report][formats]") {
-  CHECK(reportFormatNames() == std::vector<std::string>{"text", "md", "html", "json"});
-  CHECK(reportFormatHelp() == "text (terminal, git), md (pull requests), html (print to PDF), json (tools)");
+  CHECK(reportFormatNames() == std::vector<std::string>{"text", "md", "html", "json", "csv"});
+  CHECK(reportFormatHelp() ==
+        "text (terminal, git), md (pull requests), html (print to PDF), json (tools), csv (spreadsheets)");
   CHECK(findReportFormat("pdf") == nullptr);
   auto c = demo("leveling-jack");
   const Trail t = buildTrail(*c, 4);

@@ -22,7 +22,9 @@ namespace {
 
 std::unique_ptr<Calculation> twinScrew(const std::vector<std::string>& sets) {
   const std::string display = "worksheets/twin-screw-lift.calc";
-  auto c = Calculation::fromText(display, readFile(repoPath(display)), CalcOptions{sets});
+  CalcOptions options;
+  options.sets = sets;
+  auto c = Calculation::fromText(display, readFile(repoPath(display)), options);
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   return c;

@@ -12,6 +12,7 @@ int runCheck(const CheckArgs& args) {
   for (const std::string& file : args.files) {
     CalcOptions options;
     options.sets = args.sets;
+    options.case_name = args.case_name;
     auto calc = loadWorksheet(file, options);
     if (calc->hasErrors()) {
       ++files_with_errors;
@@ -20,19 +21,33 @@ int runCheck(const CheckArgs& args) {
       continue;
     }
     int failed_here = 0;
-    for (size_t k = 0; k < calc->checks.size(); ++k) {
-      const CheckState& s = calc->checks[k];
-      const Check& c = calc->sheet.checks[k];
-      ++total_checks;
-      if (s.passed) continue;
-      ++failed_here;
-      const SourcePos pos = calc->sheet.file->position(c.name_begin);
-      std::cout << calc->path << ":" << pos.line << ":" << pos.column << ": error: check `" << c.name
-                << "` fails: " << formatQuantity(s.lhs, s.display, 4) << " " << comparisonText(c.op) << " "
-                << formatQuantity(s.rhs, s.display, 4) << " is false";
-      if (!c.description.empty()) std::cout << " (" << c.description << ")";
-      std::cout << "\n";
+    // One line per failed check in each case; a case that could not be
+    // calculated is an error of the file, the other cases still checked.
+    auto report = [&](const std::string& in_case, const std::vector<CheckResult>& results) {
+      for (size_t k = 0; k < calc->checks.size(); ++k) {
+        const CheckResult& r = results[k];
+        const Check& c = calc->sheet.checks[k];
+        const Unit& unit = calc->checks[k].display;
+        ++total_checks;
+        if (r.passed) continue;
+        ++failed_here;
+        const SourcePos pos = calc->sheet.file->position(c.name_begin);
+        std::cout << calc->path << ":" << pos.line << ":" << pos.column << ": error: check `" << c.name << "` fails"
+                  << (in_case.empty() ? "" : " in case " + in_case) << ": " << formatQuantity(r.lhs, unit, 4)
+                  << " " << comparisonText(c.op) << " " << formatQuantity(r.rhs, unit, 4) << " is false";
+        if (!c.description.empty()) std::cout << " (" << c.description << ")";
+        std::cout << "\n";
+      }
+    };
+    report(calc->shown_case, calc->results.checks);
+    bool case_errors = false;
+    for (const CaseRun& run : calc->cases) {
+      for (const Diagnostic& d : run.errors.list())
+        if (d.severity == Severity::Error) std::cerr << d.headline() << "\n";
+      case_errors |= run.errors.hasErrors();
+      if (run.ok()) report(run.def->name, run.results.checks);
     }
+    if (case_errors) ++files_with_errors;
     failed_checks += failed_here;
     if (failed_here) ++files_failing;
   }

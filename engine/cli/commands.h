@@ -15,6 +15,7 @@ struct ReportArgs {
   std::string format = "text";
   std::string output;
   std::vector<std::string> sets;
+  std::string case_name;  // --case: that load case alone
   int digits = 4;
 };
 int runReport(const ReportArgs& args);
@@ -22,6 +23,7 @@ int runReport(const ReportArgs& args);
 struct CheckArgs {
   std::vector<std::string> files;
   std::vector<std::string> sets;
+  std::string case_name;  // --case: that load case alone
   bool quiet = false;
 };
 int runCheck(const CheckArgs& args);

@@ -9,6 +9,7 @@
 #include <iostream>
 
 #include "engine/cli/commands.h"
+#include "engine/report/formats.h"
 
 using namespace calctrail;
 
@@ -84,15 +85,18 @@ int main(int argc, char** argv) {
   CLI::App* report_cmd = app.add_subcommand(
       "report", "Recalculate a worksheet and print its calculation trail (exit 0 even when a check fails)");
   report_cmd->add_option("FILE", report.file, "The worksheet (.calc); - reads standard input")->required();
-  report_cmd->add_option("--format,-f", report.format,
-                         "Output format: text (terminal, git), md (pull requests), html (print to PDF), json (tools)")
-      ->check(CLI::IsMember({"text", "md", "html", "json"}))
+  report_cmd->add_option("--format,-f", report.format, "Output format: " + reportFormatHelp())
+      ->check(CLI::IsMember(reportFormatNames()))
       ->default_str("text");
   report_cmd->add_option("-o,--output", report.output, "Write the trail to this file instead of standard output");
   report_cmd->add_option("--set", report.sets,
                          "Replace the definition of NAME by VALUE for this run only, e.g. --set \"d=10 mm\"")
       ->type_name("NAME=VALUE")
       ->allow_extra_args(false);
+  report_cmd
+      ->add_option("--case", report.case_name,
+                   "Evaluate this load case alone, as if the worksheet were written with its replacements")
+      ->type_name("NAME");
   report_cmd->add_option("--digits", report.digits, "Significant digits in human formats (1 to 15)")
       ->check(wholeNumberIn(1, 15))
       ->default_str("4");
@@ -104,6 +108,8 @@ int main(int argc, char** argv) {
   check_cmd->add_option("--set", check.sets, "Replace NAME by VALUE in every file, e.g. --set \"f=0.18\"")
       ->type_name("NAME=VALUE")
       ->allow_extra_args(false);
+  check_cmd->add_option("--case", check.case_name, "Evaluate this load case alone (default: every case)")
+      ->type_name("NAME");
   check_cmd->add_flag("--quiet,-q", check.quiet, "No summary line, only the problems");
 
   std::string fn_name, fn_format = "text";

@@ -4,10 +4,7 @@
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
 #include "engine/cli/worksheet_input.h"
-#include "engine/report/html_renderer.h"
-#include "engine/report/json_renderer.h"
-#include "engine/report/markdown_renderer.h"
-#include "engine/report/text_renderer.h"
+#include "engine/report/formats.h"
 #include "engine/report/trail.h"
 #include "engine/util/safe_write.h"
 
@@ -16,6 +13,7 @@ namespace calctrail {
 int runReport(const ReportArgs& args) {
   CalcOptions options;
   options.sets = args.sets;
+  options.case_name = args.case_name;
   auto calc = loadWorksheet(args.file, options);
   for (const Diagnostic& d : calc->diags.list()) std::cerr << d.render();
   if (calc->hasErrors()) {
@@ -23,22 +21,25 @@ int runReport(const ReportArgs& args) {
               << "; no trail written\n";
     return kExitError;
   }
+  // A load case that cannot be calculated is a worksheet error (exit 2), but
+  // the trail is still written: it shows the nominal and the other cases, and
+  // marks that case as not calculated (docs/cases.md).
+  for (const CaseRun& run : calc->cases)
+    for (const Diagnostic& d : run.errors.list()) std::cerr << d.render();
+  const int status = calc->caseErrors() ? kExitError : kExitOk;
   const Trail trail = buildTrail(*calc, args.digits);
-  const std::string text = args.format == "json"   ? renderJson(*calc, trail)
-                           : args.format == "md"   ? renderMarkdown(trail)
-                           : args.format == "html" ? renderHtml(trail)
-                                                   : renderText(trail);
+  const std::string text = renderReport(trail, args.format);
   if (args.output.empty() || args.output == "-") {
     std::fwrite(text.data(), 1, text.size(), stdout);
     std::fflush(stdout);
-    return kExitOk;
+    return status;
   }
   std::string error;
   if (!writeOutputFile(args.output, text, {args.file}, &error)) {
     std::cerr << args.output << ":1:1: error: " << error << "\n";
     return kExitError;
   }
-  return kExitOk;
+  return status;
 }
 
 }  // namespace calctrail

@@ -91,7 +91,6 @@ std::string trimmed(const std::string& s, size_t* b, size_t* e) {
 }  // namespace
 
 bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::string& origin) {
-  const Model& m = *model_;
   auto file = std::make_shared<SourceFile>(origin, assignment);
   const size_t eq = assignment.find('=');
   if (eq == std::string::npos) {
@@ -102,22 +101,40 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
   size_t b = 0, e = eq;
   const std::string name = trimmed(assignment, &b, &e);
   const uint32_t nb = static_cast<uint32_t>(b), ne = static_cast<uint32_t>(e);
+  if (!model_->find(name).valid() || ownBinding(model_->find(name)))
+    return bindExpr(name, nb, ne, nullptr, file, diags, "--set");
+  ExprParser parser(*file, static_cast<uint32_t>(eq + 1), static_cast<uint32_t>(assignment.size()), diags);
+  ExprPtr expr = parser.parseWhole();
+  if (!expr) return false;
+  return bindExpr(name, nb, ne, std::move(expr), file, diags, "--set");
+}
+
+bool Inputs::replace(const std::string& name, uint32_t name_begin, uint32_t name_end, const Expr& expr,
+                     std::shared_ptr<const SourceFile> file, Diagnostics* diags, const std::string& who) {
+  return bindExpr(name, name_begin, name_end, cloneExpr(expr), std::move(file), diags, who);
+}
+
+// The checks and the binding shared by set() and replace(); `expr` is null
+// only when the name is unknown or already bound here (reported first, as
+// before the expression is read).
+bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr expr,
+                      std::shared_ptr<const SourceFile> file, Diagnostics* diags, const std::string& who) {
+  const Model& m = *model_;
+  const bool from_set = who == "--set";
   const Slot slot = m.find(name);
   if (!slot.valid()) {
     std::vector<std::string> names;
     for (const Quantity& q : m.sheet().quantities) names.push_back(q.name);
-    std::string msg = "--set: the worksheet defines no quantity `" + name + "`";
+    std::string msg = who + ": the worksheet defines no quantity `" + name + "`";
     auto near = nearestWords(name, names);
     if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
     diags->error(*file, nb, std::max(ne, nb + 1), msg);
     return false;
   }
   if (ownBinding(slot)) {
-    diags->error(*file, nb, ne, "--set gives `" + name + "` twice");
+    diags->error(*file, nb, ne, who + " gives `" + name + "` twice");
     return false;
   }
-  ExprParser parser(*file, static_cast<uint32_t>(eq + 1), static_cast<uint32_t>(assignment.size()), diags);
-  ExprPtr expr = parser.parseWhole();
   if (!expr) return false;
 
   bool unknown = false;
@@ -135,19 +152,30 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
   const Quantity& q = m.quantity(slot);
   const SlotInfo& info = m.slot(slot);
   const Dimension dim = quantityDimension(expr->dim);
-  if (q.display) {
+  if (q.display && from_set) {
     if (!fitsDeclaredUnit(q, m.file(), dim, diags)) return false;
+  } else if (q.display) {
+    // The worksheet's own message, but at the replacement that is wrong.
+    Diagnostics why;
+    if (!fitsDeclaredUnit(q, m.file(), dim, &why)) {
+      std::string msg = why.list().front().message;
+      const size_t at = msg.find("its formula gives");
+      if (at != std::string::npos) msg.replace(at, 17, "the value given is");
+      diags->error(*file, expr->begin, expr->end, who + ": " + msg);
+      return false;
+    }
   } else if (info.has_dim && dim != info.dim) {
     // Every formula that reads it was checked with the worksheet's dimension.
     diags->error(*file, expr->begin, expr->end,
-                 "--set: `" + name + "` is " + info.dim.describe() +
+                 who + ": `" + name + "` is " + info.dim.describe() +
                      " in the worksheet, but the value given is " + dim.describe());
     return false;
   }
 
   Binding bnd;
   bnd.slot = slot;
-  bnd.text = assignment.substr(eq + 1);
+  bnd.text = file->bytes().substr(expr->begin, expr->end - expr->begin);
+  if (from_set) bnd.text = file->bytes().substr(file->bytes().find('=') + 1);
   bnd.program = compileProgram(*expr, m.sheet(), m.library());
   if (bnd.program.text.size() > kMaxProgramLength) {
     diags->error(*file, expr->begin, expr->end, tooLongMessage("`" + name + "`", bnd.program.text.size()));
@@ -156,12 +184,16 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
   bnd.reads_slots = !bnd.program.inputs.empty();
   if (!bnd.reads_slots) {
     // A value: calculated once, now, by the same arithmetic as every formula.
-    double v = NAN;
-    try {
-      Evaluator once;
-      v = once.run(bnd.program, {});
-    } catch (const std::exception&) {
-      v = NAN;
+    // A lone literal is read as the evaluation reads it (Program::constant):
+    // no parser to set up for the common case of a value.
+    double v = bnd.program.is_constant ? bnd.program.constant : NAN;
+    if (!bnd.program.is_constant) {
+      try {
+        Evaluator once;
+        v = once.run(bnd.program, {});
+      } catch (const std::exception&) {
+        v = NAN;
+      }
     }
     if (!std::isfinite(v)) {
       EvalFault fault;
@@ -169,7 +201,7 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
           *expr, [](const Expr&) { return NAN; }, &fault, m.library());
       const Expr& at = fault.node ? *fault.node : *expr;
       diags->error(*file, at.begin, at.end,
-                   "`" + name + "` cannot be calculated: " +
+                   (from_set ? std::string() : who + ": ") + "`" + name + "` cannot be calculated: " +
                        (fault.node ? fault.message : std::string("the value is not a finite number")));
       return false;
     }
@@ -183,7 +215,7 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
     std::vector<Slot> order;
     if (!computeOrder(&order)) {
       diags->error(*file, nb, ne,
-                   "--set: `" + name + "` would depend on its own value through the quantities it reads");
+                   who + ": `" + name + "` would depend on its own value through the quantities it reads");
       own_.pop_back();
       return false;
     }

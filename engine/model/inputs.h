@@ -45,6 +45,14 @@ class Inputs {
   // named `origin` that holds the text; returns false then, and binds nothing.
   bool set(const std::string& assignment, Diagnostics* diags, const std::string& origin = "--set");
 
+  // Binds a replacement written in a worksheet, as a load case writes it:
+  // the quantity `name`, written at bytes [name_begin, name_end) of `file`,
+  // replaced by `expr` (parsed from `file`; copied). The checks are set()'s;
+  // every message begins with `who` ("case `overload`") and points into `file`,
+  // a wrong dimension at the replacement itself.
+  bool replace(const std::string& name, uint32_t name_begin, uint32_t name_end, const Expr& expr,
+               std::shared_ptr<const SourceFile> file, Diagnostics* diags, const std::string& who);
+
   // Binds an SI value (a sweep point, a solver's trial) with no text: the
   // slot must be valid. Binding the same slot again replaces the value.
   void bind(Slot slot, double si);
@@ -63,6 +71,8 @@ class Inputs {
 
  private:
   Binding* ownBinding(Slot slot);
+  bool bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr expr,
+                std::shared_ptr<const SourceFile> file, Diagnostics* diags, const std::string& who);
   bool computeOrder(std::vector<Slot>* order) const;
 
   const Model* model_;

@@ -1,5 +1,6 @@
 #include "engine/report/formats.h"
 
+#include "engine/report/csv_renderer.h"
 #include "engine/report/html_renderer.h"
 #include "engine/report/json_renderer.h"
 #include "engine/report/markdown_renderer.h"
@@ -14,6 +15,7 @@ const std::vector<ReportFormat>& reportFormats() {
       {"md", "pull requests", static_cast<ReportRenderer>(&renderMarkdown)},
       {"html", "print to PDF", static_cast<ReportRenderer>(&renderHtml)},
       {"json", "tools", static_cast<ReportRenderer>(&renderJson)},
+      {"csv", "spreadsheets", static_cast<ReportRenderer>(&renderCsv)},
   };
   return formats;
 }

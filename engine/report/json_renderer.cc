@@ -21,7 +21,85 @@ void writeCall(JsonWriter& w, const TrailCall& c) {
   w.endObject();
 }
 
-void writeStep(JsonWriter& w, const TrailStep& s) {
+// "cases": {"nominal": {...}, "overload": {...}}: the contract's fields per case.
+void writeStepCases(JsonWriter& w, const Trail& t, const TrailStep& s) {
+  w.key("varies").value(s.varies);
+  w.key("cases").beginObject();
+  for (size_t k = 0; k < s.cases.size(); ++k) {
+    const TrailCaseValue& v = s.cases[k];
+    w.key(t.cases[k].name).beginObject();
+    w.key("value");
+    if (v.ok)
+      w.value(v.value.value);
+    else
+      w.null();
+    w.key("unit").value(s.unit_written);
+    w.key("si");
+    if (v.ok)
+      w.value(v.value.si);
+    else
+      w.null();
+    w.key("formula").value(v.formula);
+    w.key("result").value(v.ok ? valueText(v.value) : "");
+    w.key("description").value(s.description);
+    w.key("ok").value(v.ok);
+    w.key("replaced").value(v.replaced);
+    w.endObject();
+  }
+  w.endObject();
+}
+
+void writeCheckCases(JsonWriter& w, const Trail& t, const TrailCheck& c) {
+  w.key("governing");
+  if (c.governing >= 0)
+    w.value(t.cases[c.governing].name);
+  else
+    w.null();
+  w.key("cases").beginObject();
+  for (size_t k = 0; k < c.cases.size(); ++k) {
+    const TrailCaseCheck& r = c.cases[k];
+    w.key(t.cases[k].name).beginObject();
+    w.key("passed").value(r.passed);
+    w.key("ok").value(r.ok);
+    w.key("lhs").value(r.lhs.value);
+    w.key("rhs").value(r.rhs.value);
+    w.key("unit").value(c.unit);
+    w.key("lhs_text").value(r.ok ? valueText(r.lhs) : "");
+    w.key("rhs_text").value(r.ok ? valueText(r.rhs) : "");
+    w.key("lhs_si").value(r.lhs.si);
+    w.key("rhs_si").value(r.rhs.si);
+    w.key("margin");
+    if (r.ok)
+      w.value(r.margin.value);
+    else
+      w.null();
+    w.key("margin_si");
+    if (r.ok)
+      w.value(r.margin.si);
+    else
+      w.null();
+    w.key("governing").value(static_cast<int>(k) == c.governing);
+    w.endObject();
+  }
+  w.endObject();
+}
+
+void writeCase(JsonWriter& w, const TrailCase& c) {
+  w.beginObject();
+  w.key("name").value(c.name);
+  w.key("description").value(c.description);
+  w.key("line").value(c.line);
+  w.key("replacements").value(c.replacements);
+  w.key("ok").value(c.ok);
+  w.key("checks_passed").value(c.passed);
+  w.key("checks_failed").value(c.failed);
+  w.key("errors").beginArray();
+  for (const std::string& e : c.errors) w.value(e);
+  w.endArray();
+  w.endObject();
+}
+
+void writeStep(JsonWriter& w, const Trail& t, const TrailStep& s) {
   w.beginObject();
   w.key("name").value(s.name);
   w.key("value").value(s.result.value);
@@ -45,10 +123,11 @@ void writeStep(JsonWriter& w, const TrailStep& s) {
   w.key("warnings").beginArray();
   for (const std::string& m : s.warnings) w.value(m);
   w.endArray();
+  if (!t.cases.empty()) writeStepCases(w, t, s);
   w.endObject();
 }
 
-void writeCheck(JsonWriter& w, const TrailCheck& c) {
+void writeCheck(JsonWriter& w, const Trail& t, const TrailCheck& c) {
   w.beginObject();
   w.key("name").value(c.name);
   w.key("passed").value(c.passed);
@@ -74,6 +153,7 @@ void writeCheck(JsonWriter& w, const TrailCheck& c) {
   w.key("warnings").beginArray();
   for (const std::string& m : c.warnings) w.value(m);
   w.endArray();
+  if (!t.cases.empty()) writeCheckCases(w, t, c);
   w.endObject();
 }
 
@@ -100,6 +180,9 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   w.key("modified_notice").value(modifiedNotice(t));
   w.key("digits").value(t.digits);
   w.key("title").value(t.title);
+  // The load cases appear only in a worksheet that has some (or with --case),
+  // so the JSON of one without is what it always was.
+  if (!t.shown_case.empty()) w.key("case").value(t.shown_case);
   w.key("metadata").beginObject();
   for (const auto& [k, v] : t.meta) w.key(k).value(v);
   w.endObject();
@@ -108,17 +191,26 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
     if (s.input) w.value(s.name);
   w.endArray();
   w.key("quantities").beginArray();
-  for (const TrailStep& s : t.steps) writeStep(w, s);
+  for (const TrailStep& s : t.steps) writeStep(w, t, s);
   w.endArray();
   w.key("checks").beginArray();
-  for (const TrailCheck& c : t.checks) writeCheck(w, c);
+  for (const TrailCheck& c : t.checks) writeCheck(w, t, c);
   w.endArray();
+  if (!t.cases.empty()) {
+    w.key("cases").beginArray();
+    for (const TrailCase& c : t.cases) writeCase(w, c);
+    w.endArray();
+  }
   w.key("summary").beginObject();
   w.key("checks_passed").value(t.passed);
   w.key("checks_failed").value(t.failed);
   w.key("verdict").value(verdictSentence(t));
   w.key("warnings").value(static_cast<int>(t.warnings.size()));
   w.key("warnings_at_steps").value(t.warnings_at_steps);
+  if (!t.cases.empty()) {
+    w.key("checks_failed_in_cases").value(t.failed_in_cases);
+    w.key("cases_failed").value(t.cases_failed);
+  }
   w.endObject();
   w.key("warnings").beginArray();
   for (const std::string& s : t.warnings) w.value(s);

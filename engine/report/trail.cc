@@ -487,6 +487,90 @@ std::string methodOf(const FunctionDecl& f) {
   return method + " (the row found is shown at each step; every row: docs/functions.md)";
 }
 
+// How far a check is from failing, in SI: positive when it holds.
+double marginOf(Comparison op, double lhs, double rhs) {
+  return op == Comparison::Less || op == Comparison::LessEqual ? rhs - lhs : lhs - rhs;
+}
+
+// A difference of two values shown in `unit`: no offset (a margin of 5 degC is 5 K).
+TrailValue difference(double si, const Unit& unit, int digits) {
+  const double v = si / unit.factor;
+  return {v, si, roundNumber(v, digits), unit.pretty()};
+}
+
+TrailCaseCheck caseCheck(const Check& c, const CheckResult& r, const Unit& unit, int digits) {
+  TrailCaseCheck cc;
+  cc.ok = r.ok;
+  cc.passed = r.ok && r.passed;
+  cc.lhs = r.ok ? literalOrValue(*c.lhs, r.lhs, unit, digits) : rounded(r.lhs, unit, digits);
+  cc.rhs = r.ok ? literalOrValue(*c.rhs, r.rhs, unit, digits) : rounded(r.rhs, unit, digits);
+  cc.margin = difference(r.ok ? marginOf(c.op, r.lhs, r.rhs) : 0.0, unit, digits);
+  return cc;
+}
+
+// The columns of the load cases: per step a value per case, per check the
+// result per case and the governing case (least margin; the first on a tie).
+void addCases(const Calculation& calc, int digits, Trail* t) {
+  const Sheet& sheet = calc.sheet;
+  t->shown_case = calc.shown_case;
+  if (calc.cases.empty()) return;
+  TrailCase nominal;
+  nominal.name = kNominalCase;
+  t->cases.push_back(nominal);
+  std::vector<const Results*> results = {&calc.results};
+  for (const CaseRun& run : calc.cases) {
+    TrailCase tc;
+    tc.name = run.def->name;
+    tc.description = run.def->description;
+    tc.line = run.def->line;
+    for (const CaseReplacement& r : run.def->replacements)
+      tc.replacements += (tc.replacements.empty() ? "" : ", ") + r.name + " = " + renderExpr(*r.expr);
+    tc.ok = run.ok();
+    for (const Diagnostic& d : run.errors.list()) tc.errors.push_back(d.headline());
+    t->cases_failed += !tc.ok;
+    t->cases.push_back(std::move(tc));
+    results.push_back(&run.results);
+  }
+  for (TrailStep& step : t->steps) {
+    const QuantityState& s = calc.quantities[step.index];
+    const Slot slot(static_cast<uint32_t>(step.index));
+    for (size_t k = 0; k < results.size(); ++k) {
+      TrailCaseValue v;
+      const Results& r = *results[k];
+      v.ok = k == 0 ? s.ok : calc.cases[k - 1].ok() && r.ok(slot);
+      v.value = rounded(v.ok ? r.value(slot) : 0.0, s.display, digits);
+      v.formula = step.formula;
+      if (k > 0)
+        for (const Binding& b : calc.cases[k - 1].inputs->own())
+          if (b.slot == slot && b.expr) {
+            v.replaced = true;
+            v.formula = renderExpr(*b.expr);
+          }
+      if (k > 0 && (v.replaced || v.ok != step.cases[0].ok || v.value.si != step.cases[0].value.si))
+        step.varies = true;
+      step.cases.push_back(std::move(v));
+    }
+  }
+  for (TrailCheck& tc : t->checks) {
+    const Check& c = sheet.checks[tc.index];
+    const Unit& unit = calc.checks[tc.index].display;
+    double least = 0.0;
+    for (size_t k = 0; k < results.size(); ++k) {
+      const bool ran = k == 0 || calc.cases[k - 1].ok();
+      CheckResult r = ran ? results[k]->checks[tc.index] : CheckResult();
+      if (k == 0 && !calc.model->checks()[tc.index].has_dim) r = CheckResult();
+      TrailCaseCheck cc = caseCheck(c, r, unit, digits);
+      if (cc.ok && (tc.governing < 0 || cc.margin.si < least)) {
+        tc.governing = static_cast<int>(k);
+        least = cc.margin.si;
+      }
+      if (ran) (cc.passed ? t->cases[k].passed : t->cases[k].failed)++;
+      if (k > 0 && ran && !cc.passed) ++t->failed_in_cases;
+      tc.cases.push_back(std::move(cc));
+    }
+  }
+}
+
 }  // namespace
 
 Trail buildTrail(const Calculation& calc, int digits) {
@@ -558,7 +642,10 @@ Trail buildTrail(const Calculation& calc, int digits) {
   for (TrailStep& s : t.steps) {
     // Where the value comes from: given in the worksheet, set on the command
     // line, calculated, or calculated with the cited library methods.
-    s.origin = s.overridden ? "set on the command line" : s.input ? "given" : "calculated";
+    const std::string& by_case = sheet.quantities[s.index].override_case;
+    s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
+               : s.input    ? "given"
+                            : "calculated";
     if (!calc.quantities[s.index].ok) continue;
     const Expr& expr = *sheet.quantities[s.index].expr;
     std::vector<const Expr*> calls;
@@ -685,6 +772,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     t.cautions.push_back(c->text);
     t.caution_ids.push_back(c->id);
   }
+  addCases(calc, digits, &t);
   return t;
 }
 

@@ -92,6 +92,18 @@ struct TrailFunction {
   std::vector<std::string> used_by;  // the quantities that call it, once each, in order
 };
 
+// A quantity's value in one load case, in the step's unit.
+struct TrailCaseValue {
+  /// The case calculated it (false: the case failed; its errors say why).
+  bool ok = false;
+  /// The case replaces the quantity's formula (with `formula`).
+  bool replaced = false;
+  /// The value, rounded for people, in the step's unit.
+  TrailValue value;
+  /// The formula in force in this case: the replacement, or the worksheet's.
+  std::string formula;
+};
+
 struct TrailStep {        // one quantity
   int index = 0;          // into the sheet's quantities
   std::string name;
@@ -130,6 +142,23 @@ struct TrailStep {        // one quantity
   const Expr* substituted_expr = nullptr;
   std::shared_ptr<const Expr> substituted_owner;
   std::vector<TrailBinding> bindings;  // substituted_expr's names (and nested calls) and their values
+  /// Per load case (Trail::cases, the nominal first); empty when there are none.
+  std::vector<TrailCaseValue> cases;
+  /// Some case replaces it or gives it another value than the nominal.
+  bool varies = false;
+};
+
+// A check in one load case.
+struct TrailCaseCheck {
+  /// Both sides evaluated in this case.
+  bool ok = false;
+  /// The condition holds in this case.
+  bool passed = false;
+  /// The sides, in the check's unit (literals as written).
+  TrailValue lhs, rhs;
+  /// How far the condition is from failing: rhs - lhs for < and <=, lhs - rhs
+  /// for > and >=, in the check's unit; negative when it fails.
+  TrailValue margin;
 };
 
 struct TrailCheck {
@@ -155,6 +184,30 @@ struct TrailCheck {
   // Both sides as trees, for typeset formats; owned by the Calculation.
   const Expr* lhs_expr = nullptr;
   const Expr* rhs_expr = nullptr;
+  /// Per load case (Trail::cases, the nominal first); empty when there are none.
+  std::vector<TrailCaseCheck> cases;
+  /// The case with the least margin (into Trail::cases), the one that governs
+  /// the design; -1 when there are no cases or none evaluated the check.
+  int governing = -1;
+};
+
+// A load case as the trail shows it.
+struct TrailCase {
+  /// "nominal" (the worksheet as written) first, then the worksheet's cases.
+  std::string name;
+  /// The text after `#` on the case line.
+  std::string description;
+  /// The line of the `case` statement; 0 for the nominal.
+  int line = 0;
+  /// The replacements as written canonically: "f = 0.15, f_c = 0.15"; "" for the nominal.
+  std::string replacements;
+  /// Every quantity and check was calculated; false: `errors` say why, and
+  /// the case's values and checks are missing.
+  bool ok = true;
+  /// FILE:LINE:COL: error: case `overload`: ... (one per problem).
+  std::vector<std::string> errors;
+  /// Checks that pass and that fail (or could not be evaluated) in this case.
+  int passed = 0, failed = 0;
 };
 
 struct TrailBlock {       // document order: headings, narrative, steps, checks
@@ -182,6 +235,12 @@ struct Trail {
   std::vector<std::string> cautions;  // the catalogue's entries that apply, each once (cautions.h)
   std::vector<std::string> caution_ids;  // their identities, in the same order
   int passed = 0, failed = 0;
+  /// Every load case, the nominal first; empty when the worksheet has none (or with --case).
+  std::vector<TrailCase> cases;
+  /// --case NAME: the one case these values are of; "" for the worksheet as written.
+  std::string shown_case;
+  /// Checks that fail (or could not be evaluated) in some case, and cases that failed to calculate.
+  int failed_in_cases = 0, cases_failed = 0;
 };
 
 Trail buildTrail(const Calculation& calc, int digits);

@@ -53,6 +53,9 @@ std::string summaryLine(const SheetDiff& d) {
   add(d.checks_removed.size(), "check removed", "checks removed");
   add(d.new_warnings.size(), "new warning", "new warnings");
   add(d.meta.size(), "metadata change", "metadata changes");
+  add(d.cases_added.size(), "case added", "cases added");
+  add(d.cases_removed.size(), "case removed", "cases removed");
+  add(d.cases.size(), "case with changes", "cases with changes");
   return fmt::format("{}", fmt::join(parts, ", "));
 }
 
@@ -173,6 +176,22 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
                       m.new_value.empty() ? "(none)" : m.new_value});
     fmt::format_to(out, "\nMetadata changed:\n{}", table(rows, "  "));
   }
+
+  if (!d.cases_added.empty() || !d.cases_removed.empty()) {
+    std::vector<std::vector<std::string>> rows;
+    for (const std::string& c : d.cases_added) rows.push_back({"added", c});
+    for (const std::string& c : d.cases_removed) rows.push_back({"removed", c});
+    fmt::format_to(out, "\nLoad cases added and removed:\n{}", table(rows, "  "));
+  }
+  for (const CaseDiff& c : d.cases) {
+    fmt::format_to(out, "\nIn case {}:\n", c.name);
+    if (c.not_compared) fmt::format_to(out, "  not compared: the case cannot be calculated on one side\n");
+    for (const CheckFlip& f : c.flipped)
+      fmt::format_to(out, "  !! CHECK FLIPPED  {}: {} -> {}  {}: {}\n", f.now.name, state(!f.now.passed),
+                     state(f.now.passed), f.now.condition,
+                     checkValues(f.now.op, f.now.lhs, f.now.rhs, f.now.unit, digits));
+    if (!c.moved.empty()) fmt::format_to(out, "  Results moved:\n{}", valueRows(c.moved));
+  }
   return fmt::to_string(buffer);
 }
 
@@ -255,6 +274,21 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     fmt::format_to(out, "\n#### Metadata changed\n\n| Key | Old | New |\n|---|---|---|\n");
     for (const MetaChange& m : d.meta)
       fmt::format_to(out, "| {} | {} | {} |\n", m.key, mdCell(m.old_value), mdCell(m.new_value));
+  }
+
+  if (!d.cases_added.empty() || !d.cases_removed.empty()) {
+    fmt::format_to(out, "\n#### Load cases added and removed\n\n| | Case |\n|---|---|\n");
+    for (const std::string& c : d.cases_added) fmt::format_to(out, "| added | {} |\n", mdCode(c));
+    for (const std::string& c : d.cases_removed) fmt::format_to(out, "| removed | {} |\n", mdCode(c));
+  }
+  for (const CaseDiff& c : d.cases) {
+    fmt::format_to(out, "\n#### In case {}\n\n", mdCode(c.name));
+    if (c.not_compared) fmt::format_to(out, "Not compared: the case cannot be calculated on one side.\n");
+    for (const CheckFlip& f : c.flipped)
+      fmt::format_to(out, "> **Check flipped: {} {} \u2192 {}** ({})\n", mdCode(f.now.name),
+                     state(!f.now.passed), state(f.now.passed),
+                     mdCell(checkValues(f.now.op, f.now.lhs, f.now.rhs, f.now.unit, digits)));
+    valueTable("Results moved in case " + c.name, "Result", c.moved);
   }
   return fmt::to_string(buffer);
 }
@@ -370,6 +404,35 @@ std::string renderDiffJson(const SheetDiff& d) {
     w.endObject();
   }
   w.endArray();
+  if (d.has_cases) {  // only where a side has load cases: the diff of others is as it was
+    w.key("cases_added").beginArray();
+    for (const std::string& c : d.cases_added) w.value(c);
+    w.endArray();
+    w.key("cases_removed").beginArray();
+    for (const std::string& c : d.cases_removed) w.value(c);
+    w.endArray();
+    w.key("cases").beginArray();
+    for (const CaseDiff& c : d.cases) {
+      w.beginObject();
+      w.key("name").value(c.name);
+      w.key("compared").value(!c.not_compared);
+      w.key("checks_flipped").beginArray();
+      for (const CheckFlip& f : c.flipped) {
+        w.beginObject();
+        writeCheck(w, f.now);
+        w.key("was_passed").value(!f.now.passed);
+        w.key("old_lhs").value(f.old_unit.fromSI(f.old_lhs));
+        w.key("old_rhs").value(f.old_unit.fromSI(f.old_rhs));
+        w.endObject();
+      }
+      w.endArray();
+      w.key("results_moved").beginArray();
+      for (const ValueChange& v : c.moved) writeValueChange(w, v);
+      w.endArray();
+      w.endObject();
+    }
+    w.endArray();
+  }
   w.endObject();
   return w.str();
 }

@@ -18,6 +18,21 @@ void canonicalizeSheet(Sheet* sheet) {
     canonicalizeUnits(c.lhs.get());
     canonicalizeUnits(c.rhs.get());
   }
+  for (LoadCase& c : sheet->cases)
+    for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
+}
+
+std::string caseLine(const LoadCase& c) {
+  std::string out = "case " + c.name + ":";
+  for (size_t i = 0; i < c.replacements.size(); ++i)
+    out += (i ? ", " : " ") + c.replacements[i].name + " = " + renderExpr(*c.replacements[i].expr);
+  return out;
+}
+
+const CaseRun* findRun(const Calculation& calc, const std::string& name) {
+  for (const CaseRun& r : calc.cases)
+    if (r.def->name == name) return &r;
+  return nullptr;
 }
 
 QuantityEntry entryOf(const Calculation& calc, int i) {
@@ -75,14 +90,93 @@ bool movedBeyond(double was, double now, double rtol) {
 
 bool SheetDiff::somethingMoved() const {
   const bool input_moved = std::any_of(inputs.begin(), inputs.end(), [](const ValueChange& v) { return v.moved; });
+  const bool case_moved = std::any_of(cases.begin(), cases.end(), [](const CaseDiff& c) {
+    return !c.flipped.empty() || !c.moved.empty() || c.not_compared;
+  });
   return !flipped.empty() || input_moved || !moved.empty() || !added.empty() || !removed.empty() ||
-         !checks_added.empty() || !checks_removed.empty();
+         !checks_added.empty() || !checks_removed.empty() || !cases_added.empty() || !cases_removed.empty() ||
+         case_moved;
 }
 
 bool SheetDiff::empty() const {
   return flipped.empty() && inputs.empty() && formulas.empty() && moved.empty() && added.empty() &&
-         removed.empty() && checks_added.empty() && checks_removed.empty() && new_warnings.empty() && meta.empty();
+         removed.empty() && checks_added.empty() && checks_removed.empty() && new_warnings.empty() &&
+         meta.empty() && cases_added.empty() && cases_removed.empty() && cases.empty();
 }
+
+namespace {
+
+// Each case both sides define, value by value and check by check, against
+// itself on the old side; cases added and removed; case lines rewritten.
+void diffCases(const Calculation& o, const Calculation& n, double rtol, SheetDiff* d) {
+  d->has_cases = !o.sheet.cases.empty() || !n.sheet.cases.empty();
+  for (const LoadCase& c : n.sheet.cases) {
+    const int j = o.sheet.findCase(c.name);
+    if (j < 0) {
+      d->cases_added.push_back(caseLine(c));
+      continue;
+    }
+    const std::string was = caseLine(o.sheet.cases[j]), now = caseLine(c);
+    if (was != now) d->formulas.push_back({"case " + c.name, false, was, now});
+    const CaseRun* ro = findRun(o, c.name);
+    const CaseRun* rn = findRun(n, c.name);
+    if (!ro || !rn) continue;
+    CaseDiff cd;
+    cd.name = c.name;
+    if (!ro->ok() || !rn->ok()) {
+      cd.not_compared = ro->ok() != rn->ok();
+      if (cd.not_compared) d->cases.push_back(std::move(cd));
+      continue;
+    }
+    for (size_t i = 0; i < n.sheet.quantities.size(); ++i) {
+      const Quantity& q = n.sheet.quantities[i];
+      const int oi = o.sheet.find(q.name);
+      if (oi < 0) continue;
+      const QuantityState& s = n.quantities[i];
+      const QuantityState& os = o.quantities[oi];
+      ValueChange v;
+      v.name = q.name;
+      v.description = q.description;
+      v.old_si = ro->results.values[oi];
+      v.new_si = rn->results.values[i];
+      v.unit = s.display;
+      v.old_unit = os.display;
+      v.same_dimension = os.dim == s.dim;
+      v.relative =
+          v.same_dimension ? relativeChange(v.old_si, v.new_si) : std::numeric_limits<double>::quiet_NaN();
+      v.moved = !v.same_dimension || movedBeyond(v.old_si, v.new_si, rtol);
+      v.old_formula = canonicalDefinition(o.sheet.quantities[oi]);
+      v.new_formula = canonicalDefinition(q);
+      if (v.moved) cd.moved.push_back(v);
+    }
+    for (size_t k = 0; k < n.sheet.checks.size(); ++k) {
+      const int ok = findCheck(o.sheet, n.sheet.checks[k].name);
+      if (ok < 0) continue;
+      const CheckResult& rnow = rn->results.checks[k];
+      const CheckResult& rwas = ro->results.checks[ok];
+      if (rnow.passed == rwas.passed) continue;
+      CheckFlip f;
+      f.now = checkEntryOf(n, static_cast<int>(k));
+      f.now.passed = rnow.passed;
+      f.now.lhs = rnow.lhs;
+      f.now.rhs = rnow.rhs;
+      f.old_lhs = rwas.lhs;
+      f.old_rhs = rwas.rhs;
+      f.old_unit = o.checks[ok].display;
+      cd.flipped.push_back(f);
+    }
+    std::stable_sort(cd.moved.begin(), cd.moved.end(), [](const ValueChange& a, const ValueChange& b) {
+      const double ka = sortKey(a), kb = sortKey(b);
+      if (ka != kb) return ka > kb;
+      return a.name < b.name;
+    });
+    if (!cd.moved.empty() || !cd.flipped.empty()) d->cases.push_back(std::move(cd));
+  }
+  for (const LoadCase& c : o.sheet.cases)
+    if (n.sheet.findCase(c.name) < 0) d->cases_removed.push_back(caseLine(c));
+}
+
+}  // namespace
 
 SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double rtol) {
   canonicalizeSheet(&old_calc->sheet);
@@ -178,6 +272,7 @@ SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double 
     if (ka != kb) return ka > kb;
     return a.name < b.name;
   });
+  diffCases(o, n, rtol, &d);
   return d;
 }
 

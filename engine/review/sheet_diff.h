@@ -59,6 +59,19 @@ struct MetaChange {
   std::string key, old_value, new_value;
 };
 
+// What moved in one load case that both sides define, its values against
+// its own values on the old side.
+struct CaseDiff {
+  /// The case's name.
+  std::string name;
+  /// Checks whose result in this case flipped.
+  std::vector<CheckFlip> flipped;
+  /// Quantities whose value in this case moved beyond rtol, largest relative change first.
+  std::vector<ValueChange> moved;
+  /// The case could not be calculated on a side: its values are not compared.
+  bool not_compared = false;
+};
+
 struct SheetDiff {
   std::string old_name, new_name;
   double rtol = 0.0;
@@ -70,6 +83,10 @@ struct SheetDiff {
   std::vector<CheckEntry> checks_added, checks_removed;
   std::vector<std::string> new_warnings;  // FILE:LINE:COL: warning: ... of the new side
   std::vector<MetaChange> meta;
+  // Load cases (their changed lines are in `formulas`, named "case NAME"):
+  bool has_cases = false;                          // either side has load cases
+  std::vector<std::string> cases_added, cases_removed;  // "case NAME: ..." canonical lines
+  std::vector<CaseDiff> cases;                     // cases on both sides where something moved
 
   // A number moved: a check flipped, an input or a result moved beyond rtol,
   // or a quantity or check came or went. Decides the exit status of `diff`.

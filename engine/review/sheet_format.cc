@@ -112,6 +112,26 @@ bool sameExpr(const Expr& a, const Expr& b) {
   return true;
 }
 
+// `case NAME: a = EXPR, b = EXPR`, units spelled canonically.
+std::string canonicalCaseLine(const LoadCase& c) {
+  std::string out = "case " + c.name + ":";
+  for (size_t i = 0; i < c.replacements.size(); ++i)
+    out += (i ? ", " : " ") + c.replacements[i].name + " = " + renderExpr(*c.replacements[i].expr);
+  return out;
+}
+
+std::string caseMismatch(const LoadCase& ca, const LoadCase& cb) {
+  if (ca.name != cb.name) return "another case name";
+  if (ca.replacements.size() != cb.replacements.size()) return "other replacements";
+  for (size_t i = 0; i < ca.replacements.size(); ++i) {
+    const CaseReplacement& ra = ca.replacements[i];
+    const CaseReplacement& rb = cb.replacements[i];
+    if (ra.name != rb.name || !sameExpr(*ra.expr, *rb.expr)) return "other replacements";
+  }
+  if (ca.description != cb.description) return "another description";
+  return "";
+}
+
 // Statements without the blank lines at the start and end of the file.
 std::pair<size_t, size_t> innerRange(const Sheet& s) {
   size_t b = 0, e = s.statements.size();
@@ -151,6 +171,8 @@ std::string statementMismatch(const Sheet& a, const Sheet& b, const Statement& s
       if (ca.description != cb.description) return "another description";
       return "";
     }
+    case Statement::CaseStmt:
+      return caseMismatch(a.cases[sa.index], b.cases[sb.index]);
   }
   return "";
 }
@@ -199,6 +221,8 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
     canonicalizeUnits(c.lhs.get());
     canonicalizeUnits(c.rhs.get());
   }
+  for (LoadCase& c : sheet.cases)
+    for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
 
   const auto [first, last] = innerRange(sheet);
   std::vector<Line> lines;
@@ -231,6 +255,12 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
       case Statement::CheckStmt: {
         const Check& c = sheet.checks[st.index];
         line.code = canonicalCondition(c);
+        line.description = c.description;
+        break;
+      }
+      case Statement::CaseStmt: {
+        const LoadCase& c = sheet.cases[st.index];
+        line.code = canonicalCaseLine(c);
         line.description = c.description;
         break;
       }

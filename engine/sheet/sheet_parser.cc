@@ -118,6 +118,7 @@ class LineParser {
     const char nc = next < end ? s[next] : '\0';
     const bool definition_follows = nc == '=' || nc == '[';
     if (word == "check" && !definition_follows && nc != ':') return parseCheck(st, line, next, end);
+    if (word == "case" && !definition_follows) return parseCase(st, line, p, next, end);
     if ((word == "section" || word == "note") && !definition_follows && nc != ':') {
       st->kind = word == "section" ? Statement::Section : Statement::Note;
       st->text = trim(std::string_view(s).substr(next, end - next));
@@ -302,6 +303,126 @@ class LineParser {
     st->index = static_cast<int>(sheet_->checks.size());
     check_index_.emplace(c.name, st->index);
     sheet_->checks.push_back(std::move(c));
+    return true;
+  }
+
+  // A name as a case writes it: a name, or dotted names into an instance (`left.f`).
+  uint32_t scanDottedName(uint32_t at, uint32_t end) const {
+    uint32_t p = scanName(at, end);
+    while (p > at && p + 1 < end && file_.bytes()[p] == '.') {
+      const uint32_t next = scanName(p + 1, end);
+      if (next == p + 1) break;
+      p = next;
+    }
+    return p;
+  }
+
+  // The ends of the comma-separated parts of [from, end): commas inside
+  // parentheses (`max(a, b)`) or brackets belong to their expression.
+  std::vector<uint32_t> topLevelCommas(uint32_t from, uint32_t end) const {
+    const std::string& s = file_.bytes();
+    std::vector<uint32_t> commas;
+    int depth = 0;
+    for (uint32_t p = from; p < end; ++p) {
+      if (s[p] == '(' || s[p] == '[') ++depth;
+      if ((s[p] == ')' || s[p] == ']') && depth > 0) --depth;
+      if (s[p] == ',' && depth == 0) commas.push_back(p);
+    }
+    commas.push_back(end);
+    return commas;
+  }
+
+  // `case NAME: Q1 = EXPR, Q2 = EXPR  # description`. Every part is parsed
+  // and reported on its own, so one run shows every problem of the line.
+  bool parseCase(Statement* st, int line, uint32_t keyword, uint32_t p, uint32_t end) {
+    const std::string& s = file_.bytes();
+    LoadCase c;
+    c.line = line;
+    const uint32_t name_end = scanName(p, end);
+    if (name_end == p) {
+      diags_->error(file_, p < end ? p : keyword, (p < end ? p : keyword) + 1,
+                    "a load case needs a name: `case overload: F = 1.25 * F_rated`");
+      return false;
+    }
+    c.name = s.substr(p, name_end - p);
+    c.name_begin = p;
+    c.name_end = name_end;
+    const uint32_t colon = skipSpace(name_end, end);
+    if (colon >= end || s[colon] != ':') {
+      diags_->error(file_, colon < end ? colon : name_end, (colon < end ? colon : name_end) + 1,
+                    "expected `:` after the case name `" + c.name + "`");
+      return false;
+    }
+    bool ok = true;
+    if (c.name == kNominalCase) {
+      diags_->error(
+          file_, p, name_end,
+          "`nominal` is the worksheet as written, without replacements; give the case another name");
+      ok = false;
+    } else if (sheet_->findCase(c.name) >= 0) {
+      diags_->error(file_, p, name_end,
+                    "the case `" + c.name + "` is defined twice; the first is on line " +
+                        std::to_string(sheet_->cases[sheet_->findCase(c.name)].line));
+      ok = false;
+    }
+    const uint32_t body_end = splitDescription(colon + 1, end, &c.description);
+    if (skipSpace(colon + 1, body_end) == body_end) {
+      diags_->error(file_, colon, colon + 1,
+                    "the case `" + c.name + "` needs replacements after `:`, as in `f = 0.2, F = 30 kN`");
+      return false;
+    }
+    uint32_t from = colon + 1;
+    for (uint32_t part_end : topLevelCommas(colon + 1, body_end)) {
+      ok &= parseReplacement(&c, from, part_end);
+      from = part_end + 1;
+    }
+    if (!ok) return false;
+    st->kind = Statement::CaseStmt;
+    st->index = static_cast<int>(sheet_->cases.size());
+    sheet_->cases.push_back(std::move(c));
+    return true;
+  }
+
+  // One `NAME = EXPR` of a case, in [from, end).
+  bool parseReplacement(LoadCase* c, uint32_t from, uint32_t end) {
+    const std::string& s = file_.bytes();
+    const uint32_t p = skipSpace(from, end);
+    const std::string in_case = " in the case `" + c->name + "`";
+    if (p == end) {
+      // At the comma that leaves the part empty.
+      const uint32_t at = s[from - 1] == ',' ? from - 1 : end;
+      diags_->error(file_, at, at + 1,
+                    "an empty replacement" + in_case + ": write `NAME = VALUE` between commas");
+      return false;
+    }
+    const uint32_t name_end = scanDottedName(p, end);
+    if (name_end == p) {
+      diags_->error(file_, p, p + 1, "expected the name of a quantity to replace" + in_case);
+      return false;
+    }
+    CaseReplacement r;
+    r.name = s.substr(p, name_end - p);
+    r.name_begin = p;
+    r.name_end = name_end;
+    const uint32_t eq = skipSpace(name_end, end);
+    if (eq >= end || s[eq] != '=') {
+      const uint32_t at = eq < end ? eq : name_end;
+      diags_->error(file_, at, at + 1, "expected `=` after `" + r.name + "`" + in_case);
+      return false;
+    }
+    if (skipSpace(eq + 1, end) == end) {
+      diags_->error(file_, eq, eq + 1, "`" + r.name + " =` needs a value or a formula" + in_case);
+      return false;
+    }
+    ExprParser parser(file_, eq + 1, end, diags_);
+    r.expr = parser.parseWhole();
+    if (!r.expr) return false;
+    for (const CaseReplacement& other : c->replacements) {
+      if (other.name != r.name) continue;
+      diags_->error(file_, p, name_end, "the case `" + c->name + "` replaces `" + r.name + "` twice");
+      return false;
+    }
+    c->replacements.push_back(std::move(r));
     return true;
   }
 

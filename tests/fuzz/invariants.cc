@@ -294,6 +294,8 @@ std::vector<std::string> meaningOf(Sheet* sheet) {
     canonicalizeUnits(c.lhs.get());
     canonicalizeUnits(c.rhs.get());
   }
+  for (LoadCase& c : sheet->cases)
+    for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
   std::vector<std::string> lines;
   for (const Statement& st : sheet->statements) {
     std::string line;
@@ -308,6 +310,13 @@ std::vector<std::string> meaningOf(Sheet* sheet) {
         const Quantity& q = sheet->quantities[st.index];
         line = "define " + q.name + " | " + canonicalDefinition(q) + " | " + renderExpr(*q.expr) + " | " +
                renderExpr(*q.expr, nullptr, true) + " | " + q.section + " | # " + q.description;
+        break;
+      }
+      case Statement::CaseStmt: {
+        const LoadCase& c = sheet->cases[st.index];
+        line = "case " + c.name;
+        for (const CaseReplacement& r : c.replacements) line += " | " + r.name + " = " + renderExpr(*r.expr);
+        line += " | # " + c.description;
         break;
       }
       case Statement::CheckStmt: {
