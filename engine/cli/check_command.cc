@@ -8,9 +8,11 @@ namespace calctrail {
 
 int runCheck(const CheckArgs& args) {
   int files_with_errors = 0, files_failing = 0, failed_checks = 0, total_checks = 0;
+  TemplateCache templates;  // a template that many sheets use is read and parsed once per run
   for (const std::string& file : args.files) {
     CalcOptions options;
     options.sets = args.sets;
+    options.templates = &templates;
     auto calc = Calculation::fromFile(file, options);
     if (calc->hasErrors()) {
       ++files_with_errors;
@@ -25,12 +27,15 @@ int runCheck(const CheckArgs& args) {
       ++total_checks;
       if (s.passed) continue;
       ++failed_here;
-      const SourcePos pos = calc->sheet.file->position(c.name_begin);
-      std::cout << file << ":" << pos.line << ":" << pos.column << ": error: check `" << c.name
+      // An instance's check is written in its template.
+      const SourceFile& where = calc->sheet.checkFile(k);
+      const SourcePos pos = where.position(c.name_begin);
+      std::cout << (c.file ? where.path() : file) << ":" << pos.line << ":" << pos.column
+                << ": error: check `" << c.name
                 << "` fails: " << formatQuantity(s.lhs, s.display, 4) << " " << comparisonText(c.op) << " "
                 << formatQuantity(s.rhs, s.display, 4) << " is false";
       if (!c.description.empty()) std::cout << " (" << c.description << ")";
-      std::cout << "\n";
+      std::cout << calc->sheet.instanceNote(c.instance) << "\n";
     }
     failed_checks += failed_here;
     if (failed_here) ++files_failing;

@@ -136,7 +136,7 @@ bool Inputs::set(const std::string& assignment, Diagnostics* diags, const std::s
   const SlotInfo& info = m.slot(slot);
   const Dimension dim = quantityDimension(expr->dim);
   if (q.display) {
-    if (!fitsDeclaredUnit(q, m.file(), dim, diags)) return false;
+    if (!fitsDeclaredUnit(q, m.sheet().quantityFile(slot.index()), dim, diags)) return false;
   } else if (info.has_dim && dim != info.dim) {
     // Every formula that reads it was checked with the worksheet's dimension.
     diags->error(*file, expr->begin, expr->end,

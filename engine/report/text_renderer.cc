@@ -47,7 +47,11 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "{}", underline(t.title.empty() ? "Calculation trail" : t.title, '='));
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "{}{}\n", pad(key, 10), value);
   fmt::format_to(out, "{}{}\n", pad("file", 10), t.path);
-  fmt::format_to(out, "{}{}\n\n", pad("sha256", 10), t.sha256);
+  fmt::format_to(out, "{}{}\n", pad("sha256", 10), t.sha256);
+  for (size_t k = 1; k < t.files.size(); ++k)  // the templates, each with its hash
+    fmt::format_to(out, "{}{}\n{}{}\n", pad("template", 10), t.files[k].path, pad("sha256", 10),
+                   t.files[k].sha256);
+  fmt::format_to(out, "\n");
 
   // The verdict first: a failed check must be impossible to miss.
   fmt::format_to(out, "{}", verdictWords(t, VerdictForm::Headline));

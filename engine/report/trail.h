@@ -79,6 +79,11 @@ struct TrailStep {        // one quantity
   // The formula as a tree, for typeset formats (MathML). Owned by the
   // Calculation the trail was built from: valid while that lives.
   const Expr* expr = nullptr;
+  /// The instance it belongs to (into Trail::instances); -1 for the main sheet's own.
+  int instance = -1;
+  /// The name within its instance ("T_raise" for "left.T_raise"); `name` for the main sheet's.
+  /// Its formula is written in the names of the scope it stands in, so with local names.
+  std::string local_name;
 };
 
 struct TrailCheck {
@@ -96,9 +101,34 @@ struct TrailCheck {
   // Both sides as trees, for typeset formats; owned by the Calculation.
   const Expr* lhs_expr = nullptr;
   const Expr* rhs_expr = nullptr;
+  /// The instance it belongs to (into Trail::instances); -1 for the main sheet's own.
+  int instance = -1;
+};
+
+struct TrailFile {        // a file the calculation read
+  std::string path;       // relative to the main sheet's folder; the sheet itself by its name
+  std::string sha256;
+};
+
+struct TrailInstanceParam {
+  std::string name;       // the parameter's name in its template: "F"
+  int step = 0;           // into steps: its value, unit and description
+  std::string binding;    // the binding as written in the using sheet ("F_total / 2"); "" at its default
+};
+
+struct TrailInstance {    // a template used as an instance: its own part of the trail
+  std::string name;       // dotted: "left", "drive.left"
+  std::string title;      // the template's title, "" when it has none
+  std::string path;       // the template file, relative to the main sheet's folder
+  int parent = -1;        // the instance whose template uses this one; -1 for the main sheet
+  std::string heading;    // "Instance left: Trapezoidal screw stage (templates/trapezoidal-screw.calc)"
+  std::vector<TrailInstanceParam> params;
+  std::vector<int> steps, checks;  // its own, in its template's order
 };
 
 struct TrailBlock {       // document order: headings, narrative, steps, checks
+  // An instance's part follows the main sheet's blocks: its heading as a
+  // Section, its parameters as a Note, then its steps and checks.
   enum Kind { Section, Note, Step, CheckRef } kind = Step;
   std::string text;       // Section title, Note paragraph
   int index = 0;          // into steps or checks
@@ -109,6 +139,8 @@ struct Trail {
   std::vector<std::pair<std::string, std::string>> meta;  // key order of the format
   std::string path;
   std::string sha256;
+  std::vector<TrailFile> files;   // every file read, the sheet first, then each template once
+  std::vector<TrailInstance> instances;  // in the order they were brought in (a nested one after its user)
   int digits = 4;
   std::vector<TrailStep> steps;   // every quantity, document order
   std::vector<TrailCheck> checks;

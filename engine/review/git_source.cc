@@ -106,21 +106,44 @@ ProcessResult runProcess(const std::vector<std::string>& argv) {
 }
 
 bool readSide(const std::string& spec, std::string* bytes, std::string* error) {
+  std::unique_ptr<FileSource> source;
+  std::string path;
+  return readSide(spec, bytes, error, &source, &path);
+}
+
+bool readSide(const std::string& spec, std::string* bytes, std::string* error,
+              std::unique_ptr<FileSource>* source, std::string* path) {
   struct stat st;
+  source->reset();
+  *path = spec;
   const size_t colon = spec.find(':');
   if (stat(spec.c_str(), &st) == 0 || colon == std::string::npos) return readFile(spec, bytes, error);
   const std::string rev = spec.substr(0, colon);
-  const std::string path = spec.substr(colon + 1);
-  if (path.empty()) {
+  *path = spec.substr(colon + 1);
+  if (path->empty()) {
     *error = "`" + spec + "` names no file: write REV:PATH, as in HEAD~1:worksheets/gate.calc";
     return false;
   }
-  if (path.rfind("./", 0) == 0 || path.rfind("../", 0) == 0 || path.rfind('/', 0) == 0)
+  if (path->rfind("./", 0) == 0 || path->rfind("../", 0) == 0 || path->rfind('/', 0) == 0) {
+    *source = std::make_unique<GitRevisionSource>(rev, path->rfind('/', 0) != 0);
     return catBlob(spec, bytes, error);
-  if (catBlob(rev + ":./" + path, bytes, error)) return true;
+  }
+  if (catBlob(rev + ":./" + *path, bytes, error)) {
+    *source = std::make_unique<GitRevisionSource>(rev, true);
+    return true;
+  }
   std::string root_error;
-  if (catBlob(spec, bytes, &root_error)) return true;
+  if (catBlob(spec, bytes, &root_error)) {
+    *source = std::make_unique<GitRevisionSource>(rev, false);
+    return true;
+  }
   return false;  // the reading relative to the current directory explains best
+}
+
+bool GitRevisionSource::read(const std::string& path, std::string* bytes, std::string* error) const {
+  // A leading `/` in REV:/x is not git's; such a side names paths from the root.
+  const std::string p = path.rfind('/', 0) == 0 ? path.substr(1) : path;
+  return catBlob(rev_ + ":" + (cwd_relative_ ? "./" : "") + p, bytes, error);
 }
 
 }  // namespace calctrail

@@ -2,8 +2,11 @@
 // the git repository of the current directory (REV:PATH).
 #pragma once
 
+#include <memory>
 #include <string>
 #include <vector>
+
+#include "engine/template/file_source.h"
 
 namespace calctrail {
 
@@ -16,6 +19,29 @@ namespace calctrail {
 //     then relative to the repository root, as git prints paths.
 // False with a one-line reason in *error when the side cannot be read.
 bool readSide(const std::string& spec, std::string* bytes, std::string* error);
+
+// The files of one git revision (`git cat-file blob REV:PATH`), for the
+// templates of a `REV:PATH` side: a diff reads every template as it was at
+// REV, so a change to a template shows in every sheet that uses it.
+class GitRevisionSource final : public FileSource {
+ public:
+  // `cwd_relative`: paths are relative to the current directory (read as
+  // REV:./PATH), else to the repository root (REV:PATH).
+  GitRevisionSource(std::string rev, bool cwd_relative) : rev_(std::move(rev)), cwd_relative_(cwd_relative) {}
+  bool read(const std::string& path, std::string* bytes, std::string* error) const override;
+  bool realPath(const std::string&, std::string*) const override { return false; }  // blobs, no links
+  std::string id() const override { return "git " + rev_ + (cwd_relative_ ? " ./" : " /"); }
+
+ private:
+  std::string rev_;
+  bool cwd_relative_;
+};
+
+// readSide, and where the side's templates are to be read: *source is left
+// null for a file on disk, else set to the revision's files, with the
+// sheet's path in them in *path.
+bool readSide(const std::string& spec, std::string* bytes, std::string* error,
+              std::unique_ptr<FileSource>* source, std::string* path);
 
 struct ProcessResult {
   bool started = false;  // false: the program could not be run at all
