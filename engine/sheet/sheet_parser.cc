@@ -402,15 +402,16 @@ class LineParser {
       }
       if (!parseBindings(&u, with_end, body_end)) return false;
     }
-    for (const Use& other : sheet_->uses) {
-      if (other.instance != u.instance) continue;
+    auto first = use_index_.find(u.instance);
+    if (first != use_index_.end()) {
       diags_->error(file_, u.instance_begin, u.instance_end,
                     "the instance `" + u.instance + "` is used twice; the first is on line " +
-                        std::to_string(other.line));
+                        std::to_string(sheet_->uses[first->second].line));
       return false;
     }
     st->kind = Statement::UseStmt;
     st->index = static_cast<int>(sheet_->uses.size());
+    use_index_.emplace(u.instance, st->index);
     sheet_->uses.push_back(std::move(u));
     return true;
   }
@@ -515,6 +516,7 @@ class LineParser {
   Diagnostics* diags_;
   std::string section_;
   std::unordered_map<std::string, int> check_index_;  // check name -> position, for duplicates
+  std::unordered_map<std::string, int> use_index_;    // instance name -> position in uses, for duplicates
 };
 
 }  // namespace

@@ -76,7 +76,8 @@ class Expander {
                 "too; write the path relative to this file, as in `templates/screw.calc`");
       return;
     }
-    const std::string read = joinPath(parentPath(u.read_path), use.path);
+    std::string read = joinPath(parentPath(u.read_path), use.path);
+    if (read.empty()) read = ".";  // `use . as x`: the folder itself, which is no template
     const std::string rel = joinPath(u.rel_dir, use.path);
     auto looped = std::find(chain_.begin(), chain_.end(), read);
     if (looped != chain_.end()) {
