@@ -3,6 +3,7 @@
 #include "engine/model/evaluate.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/util/edit_distance.h"
+#include "engine/template/template_loader.h"
 #include "engine/util/sha256.h"
 
 namespace calctrail {
@@ -43,15 +44,35 @@ int Calculation::failedChecks() const {
 
 void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& options) {
   sheet = parseSheet(std::move(file), &diags);
+  TemplateCache own_cache;
+  expandTemplates(&sheet, options.source_path.empty() ? path : options.source_path, sha256,
+                  options.source ? *options.source : diskSource(),
+                  options.templates ? options.templates : &own_cache, &diags);
   model = Model::borrow(&sheet, &diags);
   bindShownCase(options.case_name);
   inputs = std::make_unique<Inputs>(*model, shown_layer_.get());
   for (const std::string& set : options.sets) inputs->set(set, &diags);
   bindCases(!options.case_name.empty());
+  // A template run on its own: a parameter without a default needs --set.
+  // (An instance's is reported at its `use` line.)
+  for (size_t i = 0; i < sheet.quantities.size(); ++i) {
+    const Quantity& q = sheet.quantities[i];
+    if (!q.required || q.instance >= 0 || inputs->find(Slot(static_cast<uint32_t>(i)))) continue;
+    diags.error(*sheet.file, q.name_begin, q.name_end,
+                "the parameter `" + q.name + "` has no default: give it a value with --set \"" + q.name +
+                    "=...\", or use this worksheet as a template (`use ... with " + q.name + " = ...`)");
+  }
   if (!diags.hasErrors()) {
     Evaluation evaluation(*model);  // one context: the cases re-use the nominal's programs
     results = evaluation.evaluate(*inputs);
-    for (const Fault& f : results.faults) diags.error(*f.file, f.begin, f.end, f.message);
+    for (const Fault& f : results.faults) {
+      // Inside an instance, the fault names the `use` line that brought it in.
+      std::string note;
+      if (f.site == Fault::Site::Quantity && f.file == &sheet.exprFile(f.index))
+        note = sheet.instanceNote(sheet.quantities[f.index].expr_instance);
+      if (f.site == Fault::Site::Check) note = sheet.instanceNote(sheet.checks[f.index].instance);
+      diags.error(*f.file, f.begin, f.end, f.message + note);
+    }
     evaluateCases(&evaluation);
   }
   fillStates();

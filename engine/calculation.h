@@ -19,6 +19,8 @@
 #include "engine/model/results.h"
 #include "engine/sheet/diagnostics.h"
 #include "engine/sheet/sheet.h"
+#include "engine/template/file_source.h"
+#include "engine/template/template_cache.h"
 #include "engine/units/unit.h"
 
 namespace calctrail {
@@ -28,6 +30,12 @@ struct CalcOptions {
   // --case: evaluate this load case alone, as if the worksheet were written
   // with its replacements ("" or "nominal": the worksheet as written).
   std::string case_name;
+  /// Templates read so far in this run, shared by every sheet it calculates; null: a cache of its own.
+  TemplateCache* templates = nullptr;
+  /// Where the sheet's templates are read (a git revision for `diff REV:PATH`); null: the disk.
+  const FileSource* source = nullptr;
+  /// The sheet's path in `source`, which its templates are relative to; "": the display path.
+  std::string source_path;
 };
 
 struct QuantityState {
@@ -72,7 +80,8 @@ class Calculation {
   static std::unique_ptr<Calculation> fromText(const std::string& display_path, std::string bytes,
                                                const CalcOptions& options = {});
 
-  // The sheet as the trail shows it: a --set quantity carries its --set
+  // The sheet as the trail shows it, its templates expanded into it
+  // (Sheet::instances, Sheet::files): a --set quantity carries its --set
   // formula, with Quantity::overridden and override_text.
   Sheet sheet;
   std::vector<QuantityState> quantities;
@@ -80,7 +89,7 @@ class Calculation {
   std::unique_ptr<DependencyGraph> graph;
   std::vector<int> order;  // evaluation order
   Diagnostics diags;
-  std::string sha256;      // of the worksheet bytes as read
+  std::string sha256;      // of the worksheet bytes as read (each template's: sheet.files)
   std::string path;
 
   // The stages (null when the file could not be read). The model borrows `sheet`.

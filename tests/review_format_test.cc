@@ -113,13 +113,15 @@ TEST_CASE("fmt round trip on every worksheet of the repository", "[review][fmt]"
   for (const std::string& file : files) {
     INFO(file);
     const std::string original = readFile(repoPath(file));
-    auto before = Calculation::fromText(file, original);
+    CalcOptions options;
+    options.source_path = repoPath(file);  // its templates are read beside it, wherever the test runs
+    auto before = Calculation::fromText(file, original, options);
     INFO(diagnostics(*before));
     REQUIRE(!before->hasErrors());
     const std::string once = fmt(original);
     REQUIRE(!once.empty());
     CHECK(fmt(once) == once);  // idempotent
-    auto after = Calculation::fromText(file, once);
+    auto after = Calculation::fromText(file, once, options);
     INFO(diagnostics(*after));
     REQUIRE(!after->hasErrors());
     expectSameNumbers(*before, *after);

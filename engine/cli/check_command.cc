@@ -9,10 +9,12 @@ namespace calctrail {
 
 int runCheck(const CheckArgs& args) {
   int files_with_errors = 0, files_failing = 0, failed_checks = 0, total_checks = 0;
+  TemplateCache templates;  // a template that many sheets use is read and parsed once per run
   for (const std::string& file : args.files) {
     CalcOptions options;
     options.sets = args.sets;
     options.case_name = args.case_name;
+    options.templates = &templates;
     auto calc = loadWorksheet(file, options);
     if (calc->hasErrors()) {
       ++files_with_errors;
@@ -31,12 +33,15 @@ int runCheck(const CheckArgs& args) {
         ++total_checks;
         if (r.passed) continue;
         ++failed_here;
-        const SourcePos pos = calc->sheet.file->position(c.name_begin);
-        std::cout << calc->path << ":" << pos.line << ":" << pos.column << ": error: check `" << c.name << "` fails"
+        // An instance's check is written in its template.
+        const SourceFile& where = calc->sheet.checkFile(k);
+        const SourcePos pos = where.position(c.name_begin);
+        std::cout << (c.file ? where.path() : calc->path) << ":" << pos.line << ":" << pos.column
+                  << ": error: check `" << c.name << "` fails"
                   << (in_case.empty() ? "" : " in case " + in_case) << ": " << formatQuantity(r.lhs, unit, 4)
                   << " " << comparisonText(c.op) << " " << formatQuantity(r.rhs, unit, 4) << " is false";
         if (!c.description.empty()) std::cout << " (" << c.description << ")";
-        std::cout << "\n";
+        std::cout << calc->sheet.instanceNote(c.instance) << "\n";
       }
     };
     report(calc->shown_case, calc->results.checks);

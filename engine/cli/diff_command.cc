@@ -14,16 +14,21 @@ namespace calctrail {
 namespace {
 // A side that cannot be read becomes a calculation holding that one error,
 // named as the user wrote the side, so both kinds of failure print alike.
+// A REV:PATH side reads its templates at REV too.
 std::unique_ptr<Calculation> loadSide(const std::string& spec) {
-  std::string bytes;
+  std::string bytes, path;
   ReadError error;
-  if (!readSide(spec, &bytes, &error)) {
+  std::unique_ptr<FileSource> source;
+  if (!readSide(spec, &bytes, &error, &source, &path)) {
     auto calc = std::make_unique<Calculation>();
     calc->path = spec;
     calc->diags.add(readErrorDiagnostic(spec, error));
     return calc;
   }
-  return Calculation::fromText(spec, std::move(bytes));
+  CalcOptions options;
+  options.source = source.get();
+  options.source_path = path;
+  return Calculation::fromText(spec, std::move(bytes), options);
 }
 }  // namespace
 

@@ -111,7 +111,8 @@ void Evaluation::evaluateSlot(Slot slot, Results* results) {
   }
   if (!std::isfinite(v)) {
     const Quantity& q = model_.quantity(slot);
-    fault(Fault::Site::Quantity, i, b ? *b->expr : model_.formulaExpr(slot), b ? *b->file : model_.file(),
+    fault(Fault::Site::Quantity, i, b ? *b->expr : model_.formulaExpr(slot),
+          b ? *b->file : model_.exprFile(slot),
           "`" + q.name + "` cannot be calculated: ", internal, results);
     return;
   }
@@ -136,7 +137,7 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
       v = NAN;
     }
     if (!std::isfinite(v)) {
-      fault(Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.file(),
+      fault(Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
             "the check `" + c.name + "` cannot be evaluated: ", "", results);
       return;
     }

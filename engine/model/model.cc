@@ -97,12 +97,45 @@ Slot Model::find(const std::string& name) const {
 }
 
 namespace {
-std::vector<std::string> quantityNames(const Sheet& sheet) {
+// The names a formula written in `scope` (an instance, or -1 for the main
+// sheet) can read, as it writes them: an instance's own without its prefix.
+std::vector<std::string> quantityNames(const Sheet& sheet, int scope) {
   std::vector<std::string> names;
-  names.reserve(sheet.quantities.size());
-  for (const Quantity& q : sheet.quantities) names.push_back(q.name);
+  if (scope < 0) {
+    names.reserve(sheet.quantities.size());
+    for (const Quantity& q : sheet.quantities) names.push_back(q.name);
+    return names;
+  }
+  const std::string prefix = sheet.instances[static_cast<size_t>(scope)].name + ".";
+  for (const Quantity& q : sheet.quantities)
+    if (q.name.compare(0, prefix.size(), prefix) == 0) names.push_back(q.name.substr(prefix.size()));
   return names;
 }
+
+// The diagnostics of one formula inside an instance carry the `use` line that
+// brought it in; the main sheet's go straight through.
+class NotedDiagnostics {
+ public:
+  NotedDiagnostics(Diagnostics* diags, const Sheet& sheet, int instance)
+      : diags_(diags), sheet_(sheet), instance_(instance) {}
+  ~NotedDiagnostics() {
+    if (local_.list().empty()) return;
+    const std::string note = sheet_.instanceNote(instance_);
+    for (Diagnostic d : local_.list()) {
+      d.message += note;
+      diags_->add(std::move(d));
+    }
+  }
+  NotedDiagnostics(const NotedDiagnostics&) = delete;
+  NotedDiagnostics& operator=(const NotedDiagnostics&) = delete;
+  Diagnostics* get() { return instance_ < 0 ? diags_ : &local_; }
+
+ private:
+  Diagnostics* diags_;
+  const Sheet& sheet_;
+  int instance_;
+  Diagnostics local_;
+};
 
 bool isLibraryFunction(const std::vector<FunctionDecl>& library, const std::string& name) {
   for (const FunctionDecl& d : library)
@@ -143,28 +176,39 @@ void Model::resolveNames(Diagnostics* diags) {
   // Suggestions cost a pass over every name: built on the first unknown name,
   // kept per distinct name, and given for the first few dozen names only, so
   // a sheet full of unknown names still reports in linear time.
-  std::vector<std::string> names;
+  // Per scope (the main sheet, or an instance), as the scope writes them.
+  std::unordered_map<int, std::vector<std::string>> names;
   std::unordered_map<std::string, std::string> messages;
   const std::vector<std::string> no_names;
-  auto unknown = [&](const SourceFile& file, const Expr& e) {
-    auto it = messages.find(e.text);
+  // A formula written in an instance names its own quantities without the
+  // instance's prefix: so does the message, and its suggestions.
+  auto unknown = [&](const SourceFile& file, const Expr& e, int scope) {
+    const std::string key = std::to_string(scope) + '\n' + e.text;
+    auto it = messages.find(key);
     if (it == messages.end()) {
-      if (names.empty()) names = quantityNames(*sheet_);
-      it =
-          messages
-              .emplace(e.text, unknownNameMessage(e.text, messages.size() < 50 ? names : no_names, *library_))
-              .first;
+      auto scope_names = names.find(scope);
+      if (scope_names == names.end()) scope_names = names.emplace(scope, quantityNames(*sheet_, scope)).first;
+      const std::string local = sheet_->localName(scope, e.text);
+      it = messages
+               .emplace(key, unknownNameMessage(local, messages.size() < 50 ? scope_names->second : no_names,
+                                                *library_))
+               .first;
     }
-    diags->error(file, e.begin, e.end, it->second);
+    NotedDiagnostics noted(diags, *sheet_, scope);
+    noted.get()->error(file, e.begin, e.end, it->second);
   };
   for (int i = 0; i < n; ++i) {
     const Quantity& q = sheet_->quantities[i];
+    if (!q.expr) {  // a required parameter: a given value once bound
+      slots_[i].input = true;
+      continue;
+    }
     bool any_name = false;
     forEachName(*q.expr, [&](const Expr& e) {
       any_name = true;
       const int j = sheet_->find(e.text);
       if (j < 0) {
-        unknown(*sheet_->file, e);
+        unknown(sheet_->exprFile(i), e, q.expr_instance);
         unresolved_[i] = 1;
       } else {
         graph_->addUse(i, j);
@@ -172,10 +216,11 @@ void Model::resolveNames(Diagnostics* diags) {
     });
     slots_[i].input = !any_name && !hasCall(*q.expr);
   }
-  for (const Check& c : sheet_->checks) {
+  for (size_t k = 0; k < sheet_->checks.size(); ++k) {
+    const Check& c = sheet_->checks[k];
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
       forEachName(*side, [&](const Expr& e) {
-        if (sheet_->find(e.text) < 0) unknown(*sheet_->file, e);
+        if (sheet_->find(e.text) < 0) unknown(sheet_->checkFile(k), e, c.instance);
       });
     }
   }
@@ -202,7 +247,9 @@ void Model::orderAndFindCycles(Diagnostics* diags) {
       msg = "a cycle: " + loop + " (" + std::to_string(cycle.size()) +
             " quantities depend on each other; each needs the others' values first)";
     }
-    diags->error(*sheet_->file, first.name_begin, first.name_end, msg);
+    NotedDiagnostics noted(diags, *sheet_, first.instance);
+    noted.get()->error(sheet_->quantityFile(static_cast<size_t>(cycle[0])), first.name_begin, first.name_end,
+                       msg);
   }
 }
 
@@ -214,16 +261,30 @@ void Model::checkDimensions(Diagnostics* diags) {
     Quantity& q = sheet_->quantities[i];
     SlotInfo& s = slots_[i];
     if (unresolved_[i]) continue;  // reported already: keep it and its users quiet
-    DimensionChecker checker(*sheet_->file, diags, *sheet_, dims_, known_, *library_);
+    if (!q.expr) {
+      // A required parameter: its unit is its dimension; its value comes from
+      // a binding or --set (an error otherwise, reported by whoever runs it).
+      s.dim = quantityDimension(q.display->dim);
+      s.has_dim = true;
+      s.declared = true;
+      s.display = *q.display;
+      dims_[i] = s.dim;
+      known_[i] = 1;
+      continue;
+    }
+    NotedDiagnostics formula_diags(diags, *sheet_, q.expr_instance);
+    DimensionChecker checker(sheet_->exprFile(i), formula_diags.get(), *sheet_, dims_, known_, *library_);
     if (!checker.check(*q.expr)) continue;
     s.dim = quantityDimension(q.expr->dim);
+    if (q.bound && !bindingFits(i, s.dim, formula_diags.get())) continue;
     s.has_dim = true;
     dims_[i] = s.dim;
     known_[i] = 1;
+    NotedDiagnostics own_diags(diags, *sheet_, q.instance);
     if (q.display) {
       s.declared = true;
       s.display = *q.display;
-      if (!fitsDeclaredUnit(q, *sheet_->file, s.dim, diags)) {
+      if (!fitsDeclaredUnit(q, sheet_->quantityFile(i), s.dim, own_diags.get())) {
         known_[i] = 0;
         s.has_dim = false;
       }
@@ -231,9 +292,28 @@ void Model::checkDimensions(Diagnostics* diags) {
       const Unit* written = unitAsWritten(*q.expr);
       s.display = written ? *written : preferredUnit(s.dim);
       const std::string w = strayAngleWarning(q.name, s.dim);
-      if (!w.empty()) diags->warning(*sheet_->file, q.name_begin, q.name_end, w);
+      if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w);
     }
   }
+}
+
+bool Model::bindingFits(uint32_t i, const Dimension& dim, Diagnostics* diags) const {
+  const Quantity& q = sheet_->quantities[i];
+  const Instance& inst = sheet_->instances[static_cast<size_t>(q.instance)];
+  const std::string param = sheet_->localName(q.instance, q.name);
+  std::string wanted;
+  if (q.display) {
+    const UnitFit fit = fitUnit(dim, q.display->dim);
+    if (fit == UnitFit::Exact || fit == UnitFit::AngleDropped) return true;
+    wanted = "declared in [" + q.unit_written + "], " + q.display->dim.describe();
+  } else {
+    if (!q.param_dim || *q.param_dim == dim) return true;
+    wanted = q.param_dim->describe() + " (the dimension of its default)";
+  }
+  diags->error(sheet_->exprFile(i), q.expr->begin, q.expr->end,
+               "the binding of `" + param + "` in the instance `" + inst.name + "` gives " + dim.describe() +
+                   ", but the parameter `" + param + "` of " + inst.path + " is " + wanted);
+  return false;
 }
 
 void Model::checkChecks(Diagnostics* diags) {
@@ -244,19 +324,21 @@ void Model::checkChecks(Diagnostics* diags) {
     for (const Expr* side : {c.lhs.get(), c.rhs.get()})
       forEachName(*side, [&](const Expr& e) { unknown |= sheet_->find(e.text) < 0; });
     if (unknown) continue;
-    DimensionChecker checker(*sheet_->file, diags, *sheet_, dims_, known_, *library_);
+    NotedDiagnostics noted(diags, *sheet_, c.instance);
+    const SourceFile& file = sheet_->checkFile(k);
+    DimensionChecker checker(file, noted.get(), *sheet_, dims_, known_, *library_);
     if (!checker.check(*c.lhs) || !checker.check(*c.rhs)) continue;
     bool incompatible;
     const std::string warning = compareForSum(c.lhs->dim, c.rhs->dim, &incompatible);
     const uint32_t op_end = c.op_begin + static_cast<uint32_t>(std::string(comparisonText(c.op)).size());
     if (incompatible) {
-      diags->error(
-          *sheet_->file, c.op_begin, op_end,
+      noted.get()->error(
+          file, c.op_begin, op_end,
           "the check `" + c.name + "` compares " + c.lhs->dim.describe() + " with " + c.rhs->dim.describe());
       continue;
     }
     if (!warning.empty())
-      diags->warning(*sheet_->file, c.op_begin, op_end, "the check `" + c.name + "` " + warning);
+      noted.get()->warning(file, c.op_begin, op_end, "the check `" + c.name + "` " + warning);
     s.has_dim = true;
     s.dim = c.lhs->dim;
     // Show both sides in the unit of the quantity (or literal) the check names first.
@@ -279,10 +361,12 @@ void Model::compile(Diagnostics* diags) {
     SlotInfo& s = slots_[slot.index()];
     if (!s.has_dim) continue;
     const Quantity& q = sheet_->quantities[slot.index()];
+    if (!q.expr) continue;  // a required parameter: no formula of its own
     Program p = compileProgram(*q.expr, *sheet_, *library_);
     if (p.text.size() > kMaxProgramLength) {
-      diags->error(*sheet_->file, q.expr->begin, q.expr->end,
-                   tooLongMessage("`" + q.name + "`", p.text.size()));
+      NotedDiagnostics noted(diags, *sheet_, q.expr_instance);
+      noted.get()->error(sheet_->exprFile(slot.index()), q.expr->begin, q.expr->end,
+                         tooLongMessage("`" + q.name + "`", p.text.size()));
       continue;
     }
     s.formula = std::move(p);
@@ -297,8 +381,9 @@ void Model::compile(Diagnostics* diags) {
     for (const auto& side : {std::make_pair(&s.lhs, c.lhs.get()), std::make_pair(&s.rhs, c.rhs.get())}) {
       if (side.first->text.size() <= kMaxProgramLength) continue;
       // The same limit as a formula's, said the same way (not "not a finite number").
-      diags->error(*sheet_->file, side.second->begin, side.second->end,
-                   tooLongMessage("a side of the check `" + c.name + "`", side.first->text.size()));
+      NotedDiagnostics noted(diags, *sheet_, c.instance);
+      noted.get()->error(sheet_->checkFile(k), side.second->begin, side.second->end,
+                         tooLongMessage("a side of the check `" + c.name + "`", side.first->text.size()));
       fits = false;
     }
     if (!fits) {

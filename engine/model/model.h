@@ -78,8 +78,12 @@ class Model {
   const Quantity& quantity(Slot s) const { return sheet_->quantities[s.index()]; }
   // The formula of a slot as the model compiled it.
   const Expr& formulaExpr(Slot s) const { return *exprs_[s.index()]; }
-  // The file every formula and check points into (the worksheet).
+  // The main worksheet's file.
   const SourceFile& file() const { return *sheet_->file; }
+  // The file a slot's formula points into (a template's, for an instance's
+  // quantity; the using file's, for a bound parameter), and a check's.
+  const SourceFile& exprFile(Slot s) const { return sheet_->exprFile(s.index()); }
+  const SourceFile& checkFile(size_t k) const { return sheet_->checkFile(k); }
 
   // Every slot that can be evaluated, dependencies first (stable: ties in sheet order).
   const std::vector<Slot>& order() const { return order_; }
@@ -112,6 +116,8 @@ class Model {
   void orderAndFindCycles(Diagnostics* diags);
   void checkDimensions(Diagnostics* diags);
   void checkChecks(Diagnostics* diags);
+  // A bound parameter's binding has the parameter's dimension; else reports it at the binding.
+  bool bindingFits(uint32_t i, const Dimension& dim, Diagnostics* diags) const;
   void compile(Diagnostics* diags);
 
   std::unique_ptr<Sheet> owned_;  // the sheet, when the model owns it

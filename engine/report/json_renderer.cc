@@ -157,6 +157,27 @@ void writeCheck(JsonWriter& w, const Trail& t, const TrailCheck& c) {
   w.endObject();
 }
 
+void writeInstance(JsonWriter& w, const Trail& t, const TrailInstance& i) {
+  w.beginObject();
+  w.key("name").value(i.name);
+  w.key("template").value(i.path);
+  w.key("title").value(i.title);
+  w.key("parameters").beginArray();
+  for (const TrailInstanceParam& p : i.params) {
+    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    w.beginObject();
+    w.key("name").value(p.name);
+    w.key("quantity").value(s.name);
+    w.key("binding").value(p.binding);
+    w.key("value").value(s.result.value);
+    w.key("unit").value(s.unit_written);
+    w.key("si").value(s.result.si);
+    w.endObject();
+  }
+  w.endArray();
+  w.endObject();
+}
+
 }  // namespace
 
 void renderJson(const Trail& t, fmt::memory_buffer& out) {
@@ -178,6 +199,17 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   }
   w.endArray();
   w.key("modified_notice").value(modifiedNotice(t));
+  w.key("files").beginArray();  // the sheet, then each template: the hashes that identify the numbers
+  for (const TrailFile& f : t.files) {
+    w.beginObject();
+    w.key("path").value(f.path);
+    w.key("sha256").value(f.sha256);
+    w.endObject();
+  }
+  w.endArray();
+  w.key("instances").beginArray();
+  for (const TrailInstance& i : t.instances) writeInstance(w, t, i);
+  w.endArray();
   w.key("digits").value(t.digits);
   w.key("title").value(t.title);
   // The load cases appear only in a worksheet that has some (or with --case),

@@ -92,6 +92,9 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "{}{}\n", pad(key, 10), value);
   fmt::format_to(out, "{}{}\n", pad("file", 10), t.path);
   fmt::format_to(out, "{}{}\n", pad("sha256", 10), t.sha256);
+  for (size_t k = 1; k < t.files.size(); ++k)  // the templates, each with its hash
+    fmt::format_to(out, "{}{}\n{}{}\n", pad("template", 10), t.files[k].path, pad("sha256", 10),
+                   t.files[k].sha256);
   // Next to the hash: the hash alone no longer identifies these numbers.
   if (!t.modified_by.empty()) fmt::format_to(out, "{}by {}\n", pad("MODIFIED", 10), replacementList(t));
   fmt::format_to(out, "{}{}\n", pad("generator", 10), t.generator);

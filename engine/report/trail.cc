@@ -571,6 +571,40 @@ void addCases(const Calculation& calc, int digits, Trail* t) {
   }
 }
 
+// Each instance as a part of its own after the main sheet's blocks: a
+// heading naming the instance, its template's title and file; its
+// parameters with their bound values and bindings; then its steps and checks.
+void addInstances(const Sheet& sheet, Trail* t) {
+  for (const Instance& inst : sheet.instances) {
+    TrailInstance ti;
+    ti.name = inst.name;
+    ti.title = inst.title;
+    ti.path = inst.path;
+    ti.parent = inst.parent;
+    ti.heading = "Instance " + inst.name + ": " +
+                 (inst.title.empty() ? std::string("template") : inst.title) + " (" + inst.path + ")";
+    std::string params;
+    for (const InstanceParam& p : inst.params) {
+      const TrailStep& s = t->steps[static_cast<size_t>(p.quantity)];
+      TrailInstanceParam tp{s.local_name, p.quantity, p.binding};
+      params += (params.empty() ? "" : "; ") + tp.name + " = ";
+      const std::string value = valueText(s.given ? *s.given : s.result);
+      if (!p.binding.empty() && p.binding != value) params += p.binding + " = ";
+      params += value;
+      if (s.overridden) params += " (set on the command line)";
+      else if (p.binding.empty()) params += " (default)";
+      ti.params.push_back(std::move(tp));
+    }
+    ti.steps = inst.quantities;
+    ti.checks = inst.checks;
+    t->blocks.push_back({TrailBlock::Section, ti.heading, 0});
+    if (!params.empty()) t->blocks.push_back({TrailBlock::Note, "Parameters: " + params + ".", 0});
+    for (int q : ti.steps) t->blocks.push_back({TrailBlock::Step, "", q});
+    for (int c : ti.checks) t->blocks.push_back({TrailBlock::CheckRef, "", c});
+    t->instances.push_back(std::move(ti));
+  }
+}
+
 }  // namespace
 
 Trail buildTrail(const Calculation& calc, int digits) {
@@ -580,6 +614,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
   t.path = calc.path;
   t.sha256 = calc.sha256;
   t.generator = std::string("calctrail ") + CALCTRAIL_VERSION;
+  for (const SheetFile& f : sheet.files) t.files.push_back({f.path, f.sha256});
+  if (t.files.empty()) t.files.push_back({calc.path, calc.sha256});
   t.title = sheet.meta.get("title");
   for (const std::string& key : Metadata::keys()) {
     if (key == "title") continue;
@@ -604,8 +640,13 @@ Trail buildTrail(const Calculation& calc, int digits) {
     step.line = q.line;
     step.input = s.input;
     step.overridden = q.overridden;
-    step.formula = renderExpr(*q.expr);
-    step.pretty = renderExpr(*q.expr, nullptr, true);
+    step.instance = q.instance;
+    step.local_name = sheet.localName(q.instance, q.name);
+    // In the names of the scope the formula is written in (a --set one in the main sheet's).
+    const int scope = q.overridden ? -1 : q.expr_instance;
+    const NameRenderer local = [&](const Expr& n) { return sheet.localName(scope, n.text); };
+    step.formula = renderExpr(*q.expr, scope < 0 ? nullptr : local);
+    step.pretty = renderExpr(*q.expr, scope < 0 ? nullptr : local, true);
     step.expr = q.expr.get();
     step.ok = s.ok;
     // Substituted is filled below, once every given value is known.
@@ -685,7 +726,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     tc.section = c.section;
     tc.line = c.line;
     tc.op = comparisonText(c.op);
-    tc.condition = conditionText(c);
+    tc.instance = c.instance;
+    tc.condition = conditionText(c);  // dotted names: the check summary lists every instance's
     tc.lhs_expr = c.lhs.get();
     tc.rhs_expr = c.rhs.get();
     tc.unit = s.display.text;
@@ -723,6 +765,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
   }
   flushNote();
+  addInstances(sheet, &t);
   // A warning in the worksheet is flagged at the step (or check) on its line.
   for (const Diagnostic& d : calc.diags.list()) {
     if (d.severity != Severity::Warning) continue;

@@ -142,6 +142,11 @@ struct TrailStep {        // one quantity
   const Expr* substituted_expr = nullptr;
   std::shared_ptr<const Expr> substituted_owner;
   std::vector<TrailBinding> bindings;  // substituted_expr's names (and nested calls) and their values
+  /// The instance it belongs to (into Trail::instances); -1 for the main sheet's own.
+  int instance = -1;
+  /// The name within its instance ("T_raise" for "left.T_raise"); `name` for the main sheet's.
+  /// Its formula is written in the names of the scope it stands in, so with local names.
+  std::string local_name;
   /// Per load case (Trail::cases, the nominal first); empty when there are none.
   std::vector<TrailCaseValue> cases;
   /// Some case replaces it or gives it another value than the nominal.
@@ -189,6 +194,8 @@ struct TrailCheck {
   /// The case with the least margin (into Trail::cases), the one that governs
   /// the design; -1 when there are no cases or none evaluated the check.
   int governing = -1;
+  /// The instance it belongs to (into Trail::instances); -1 for the main sheet's own.
+  int instance = -1;
 };
 
 // A load case as the trail shows it.
@@ -210,7 +217,30 @@ struct TrailCase {
   int passed = 0, failed = 0;
 };
 
+struct TrailFile {        // a file the calculation read
+  std::string path;       // relative to the main sheet's folder; the sheet itself by its name
+  std::string sha256;
+};
+
+struct TrailInstanceParam {
+  std::string name;       // the parameter's name in its template: "F"
+  int step = 0;           // into steps: its value, unit and description
+  std::string binding;    // the binding as written in the using sheet ("F_total / 2"); "" at its default
+};
+
+struct TrailInstance {    // a template used as an instance: its own part of the trail
+  std::string name;       // dotted: "left", "drive.left"
+  std::string title;      // the template's title, "" when it has none
+  std::string path;       // the template file, relative to the main sheet's folder
+  int parent = -1;        // the instance whose template uses this one; -1 for the main sheet
+  std::string heading;    // "Instance left: Trapezoidal screw stage (templates/trapezoidal-screw.calc)"
+  std::vector<TrailInstanceParam> params;
+  std::vector<int> steps, checks;  // its own, in its template's order
+};
+
 struct TrailBlock {       // document order: headings, narrative, steps, checks
+  // An instance's part follows the main sheet's blocks: its heading as a
+  // Section, its parameters as a Note, then its steps and checks.
   enum Kind { Section, Note, Step, CheckRef } kind = Step;
   std::string text;       // Section title, Note paragraph
   int index = 0;          // into steps or checks
@@ -222,6 +252,8 @@ struct Trail {
   std::string path;
   std::string sha256;
   std::string generator;  // "calctrail 1.2.0": the program that made the report
+  std::vector<TrailFile> files;   // every file read, the sheet first, then each template once
+  std::vector<TrailInstance> instances;  // in the order they were brought in (a nested one after its user)
   int digits = 4;
   // Every --set replacement of this run, in worksheet order: when there is
   // one, the numbers are the file's AS MODIFIED, and every format says so.

@@ -80,7 +80,8 @@ bool catBlob(const std::string& object, std::string* bytes, std::string* error, 
   return true;
 }
 
-bool readGitSide(const std::string& spec, std::string* bytes, std::string* error) {
+// *cwd_relative: which reading found the blob (REV:./PATH, or REV:PATH from the root).
+bool readGitSide(const std::string& spec, std::string* bytes, std::string* error, bool* cwd_relative) {
   const size_t colon = spec.find(':');
   const std::string rev = spec.substr(0, colon);
   const std::string path = spec.substr(colon + 1);
@@ -89,11 +90,13 @@ bool readGitSide(const std::string& spec, std::string* bytes, std::string* error
     return false;
   }
   bool stop = false;
+  *cwd_relative = path.rfind('/', 0) != 0;
   if (path.rfind("./", 0) == 0 || path.rfind("../", 0) == 0 || path.rfind('/', 0) == 0)
     return catBlob(spec, bytes, error, &stop);
   if (catBlob(rev + ":./" + path, bytes, error, &stop)) return true;
   if (stop) return false;
   std::string root_error;
+  *cwd_relative = false;
   if (catBlob(spec, bytes, &root_error, &stop)) return true;
   if (stop) *error = root_error;
   return false;  // otherwise the reading relative to the current directory explains best
@@ -190,13 +193,27 @@ ProcessResult runProcess(const std::vector<std::string>& argv, const ProcessLimi
   return result;
 }
 
-bool readSide(const std::string& spec, std::string* bytes, ReadError* error) {
+bool readSide(const std::string& spec, std::string* bytes, ReadError* error,
+              std::unique_ptr<FileSource>* source, std::string* path) {
   struct stat st;
+  if (source) source->reset();
+  if (path) *path = spec;
   if (stat(spec.c_str(), &st) == 0 || spec.find(':') == std::string::npos)
     return readFile(spec, bytes, error);
   *error = {};
-  if (!readGitSide(spec, bytes, &error->message)) return false;
+  bool cwd_relative = true;
+  if (!readGitSide(spec, bytes, &error->message, &cwd_relative)) return false;
+  const size_t colon = spec.find(':');
+  if (source) *source = std::make_unique<GitRevisionSource>(spec.substr(0, colon), cwd_relative);
+  if (path) *path = spec.substr(colon + 1);
   return checkSourceLimits(*bytes, "the file", error);
+}
+
+bool GitRevisionSource::read(const std::string& path, std::string* bytes, std::string* error) const {
+  // A leading `/` in REV:/x is not git's; such a side names paths from the root.
+  const std::string p = path.rfind('/', 0) == 0 ? path.substr(1) : path;
+  bool timed_out = false;
+  return catBlob(rev_ + ":" + (cwd_relative_ ? "./" : "") + p, bytes, error, &timed_out);
 }
 
 }  // namespace calctrail

@@ -4,10 +4,12 @@
 
 #include <cstddef>
 #include <cstdint>
+#include <memory>
 #include <string>
 #include <vector>
 
 #include "engine/sheet/source_file.h"
+#include "engine/template/file_source.h"
 
 namespace calctrail {
 
@@ -24,13 +26,36 @@ constexpr double kGitTimeoutSeconds = 30;
 //     then relative to the repository root, as git prints paths.
 // Both kinds keep to the limits of readFile, and git to its time limit.
 // False with a one-line reason in *error when the side cannot be read.
-bool readSide(const std::string& spec, std::string* bytes, ReadError* error);
+//
+// With `source` and `path`: where the side's templates are to be read too:
+// *source is left null for a file on disk, else set to the revision's files,
+// with the sheet's path in them in *path.
+bool readSide(const std::string& spec, std::string* bytes, ReadError* error,
+              std::unique_ptr<FileSource>* source = nullptr, std::string* path = nullptr);
 
 struct ProcessLimits {
   double timeout_seconds = 0;       // the child's process group is killed after this long; 0: no limit
   size_t max_output = SIZE_MAX;     // ... or once standard output passes this many bytes
   size_t max_error = size_t{1} << 16;  // bytes of standard error kept; the rest is read and dropped
 };
+
+// The files of one git revision (`git cat-file blob REV:PATH`), for the
+// templates of a `REV:PATH` side: a diff reads every template as it was at
+// REV, so a change to a template shows in every sheet that uses it.
+class GitRevisionSource final : public FileSource {
+ public:
+  // `cwd_relative`: paths are relative to the current directory (read as
+  // REV:./PATH), else to the repository root (REV:PATH).
+  GitRevisionSource(std::string rev, bool cwd_relative) : rev_(std::move(rev)), cwd_relative_(cwd_relative) {}
+  bool read(const std::string& path, std::string* bytes, std::string* error) const override;
+  bool realPath(const std::string&, std::string*) const override { return false; }  // blobs, no links
+  std::string id() const override { return "git " + rev_ + (cwd_relative_ ? " ./" : " /"); }
+
+ private:
+  std::string rev_;
+  bool cwd_relative_;
+};
+
 
 struct ProcessResult {
   bool started = false;           // false: the program could not be run at all

@@ -156,11 +156,25 @@ std::string statementMismatch(const Sheet& a, const Sheet& b, const Statement& s
       const Quantity& qa = a.quantities[sa.index];
       const Quantity& qb = b.quantities[sb.index];
       if (qa.name != qb.name) return "another name";
+      if (qa.param != qb.param || qa.required != qb.required) return "another kind of parameter";
       if (static_cast<bool>(qa.display) != static_cast<bool>(qb.display) ||
           (qa.display && !sameUnit(*qa.display, *qb.display)))
         return "another display unit";
       if (qa.description != qb.description) return "another description";
+      if (!qa.expr && !qb.expr) return "";  // two required parameters
       if (!qa.expr || !qb.expr || !sameExpr(*qa.expr, *qb.expr)) return "another formula";
+      return "";
+    }
+    case Statement::UseStmt: {
+      const Use& ua = a.uses[sa.index];
+      const Use& ub = b.uses[sb.index];
+      if (ua.path != ub.path || ua.instance != ub.instance) return "another template or instance";
+      if (ua.description != ub.description) return "another description";
+      if (ua.bindings.size() != ub.bindings.size()) return "other bindings";
+      for (size_t k = 0; k < ua.bindings.size(); ++k)
+        if (ua.bindings[k].param != ub.bindings[k].param ||
+            !sameExpr(*ua.bindings[k].expr, *ub.bindings[k].expr))
+          return "other bindings";
       return "";
     }
     case Statement::CheckStmt: {
@@ -179,13 +193,25 @@ std::string statementMismatch(const Sheet& a, const Sheet& b, const Statement& s
 
 }  // namespace
 
-void canonicalizeUnits(Expr* e) { canonicalize(e, false); }
+void canonicalizeUnits(Expr* e) {
+  if (e) canonicalize(e, false);
+}
 
 std::string canonicalDefinition(const Quantity& q) {
-  std::string out = q.name;
+  std::string out = q.param ? "param " + q.name : q.name;
   if (q.display || !q.unit_written.empty()) out += " [" + displayUnitText(q) + "]";
+  if (!q.expr) return out;  // a required parameter
   out += " = ";
   out += renderExpr(*q.expr);
+  return out;
+}
+
+std::string canonicalUse(const Use& u) {
+  // Quotes only where a bare path would not read back: blanks, `#`, or a leading quote.
+  const bool quoted = u.path.find_first_of(" \t#") != std::string::npos || u.path[0] == '"';
+  std::string out = "use " + (quoted ? "\"" + u.path + "\"" : u.path) + " as " + u.instance;
+  for (size_t k = 0; k < u.bindings.size(); ++k)
+    out += (k ? ", " : " with ") + u.bindings[k].param + " = " + renderExpr(*u.bindings[k].expr);
   return out;
 }
 
@@ -223,6 +249,8 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
   }
   for (LoadCase& c : sheet.cases)
     for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
+  for (Use& u : sheet.uses)
+    for (UseBinding& b : u.bindings) canonicalizeUnits(b.expr.get());
 
   const auto [first, last] = innerRange(sheet);
   std::vector<Line> lines;
@@ -250,6 +278,12 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
         const Quantity& q = sheet.quantities[st.index];
         line.code = canonicalDefinition(q);
         line.description = q.description;
+        break;
+      }
+      case Statement::UseStmt: {
+        const Use& u = sheet.uses[st.index];
+        line.code = canonicalUse(u);
+        line.description = u.description;
         break;
       }
       case Statement::CheckStmt: {

@@ -25,10 +25,13 @@ constexpr int kDescriptionColumnStep = 8;
 // A spelling is changed only when it reads back to the identical unit.
 void canonicalizeUnits(Expr* e);
 
-// "NAME [UNIT] = EXPR" and "check NAME: LHS OP RHS", canonical, without the
+// "NAME [UNIT] = EXPR" ("param NAME [UNIT] = EXPR", "param NAME [UNIT]" for a
+// parameter) and "check NAME: LHS OP RHS", canonical, without the
 // description. Call canonicalizeUnits on the expressions first.
 std::string canonicalDefinition(const Quantity& q);
 std::string canonicalCondition(const Check& c);
+// "use PATH as INSTANCE with P = EXPR, ..." (the path in quotes where it needs them).
+std::string canonicalUse(const Use& u);
 
 // The canonical text of a worksheet. The sheet must have parsed without
 // errors; on a parse error the diagnostics land in `diags` and "" is

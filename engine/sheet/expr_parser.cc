@@ -75,6 +75,11 @@ uint32_t ExprParser::scanName(uint32_t at) const {
       ++at;
       continue;
     }
+    // An instance's quantity: `left.T_raise` (docs/templates.md).
+    if (c == '.' && isNameStart(at + 1)) {
+      ++at;
+      continue;
+    }
     if (static_cast<unsigned char>(c) >= 0x80) {
       size_t n;
       if (isGreekLetter(decodeUtf8(src_.substr(0, end_), at, &n))) {

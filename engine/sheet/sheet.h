@@ -16,6 +16,7 @@
 namespace calctrail {
 
 struct Quantity {
+  /// The name; an instance's quantity carries its instance's dotted prefix ("left.T_raise").
   std::string name;
   uint32_t name_begin = 0, name_end = 0;
   std::string unit_written;       // display unit as written in [ ], "" if none
@@ -30,6 +31,24 @@ struct Quantity {
   // The file `expr` points into: the worksheet, or a --set text when overridden.
   std::shared_ptr<SourceFile> override_file;
   std::string section;            // the heading it stands under, "" before any
+
+  // Templates (docs/templates.md).
+  /// Declared with `param`: a given value at its default, replaceable by a `use ... with` binding.
+  bool param = false;
+  /// A `param` without a default (`param F [N]`): `expr` is null until a binding or --set gives one.
+  bool required = false;
+  /// Bound by the `with` of the `use` line: `expr` is the binding, written in the using file.
+  bool bound = false;
+  /// The instance the quantity belongs to (into Sheet::instances); -1 for the main sheet's own.
+  int instance = -1;
+  /// The instance whose file `expr` is written in: `instance`, or for a binding the using one.
+  int expr_instance = -1;
+  /// The file the name, unit and line point into; null for the main sheet's own quantities.
+  std::shared_ptr<SourceFile> file;
+  /// The file `expr` points into when not `file` (a binding); null otherwise.
+  std::shared_ptr<SourceFile> expr_file;
+  /// For a bound `param NAME = EXPR`: the dimension of the template's default, which the binding must have.
+  std::optional<Dimension> param_dim;
 };
 
 enum class Comparison { Less, LessEqual, Greater, GreaterEqual };
@@ -44,6 +63,75 @@ struct Check {
   std::string description;
   int line = 0;
   std::string section;
+  /// The instance the check belongs to (into Sheet::instances); -1 for the main sheet's own.
+  int instance = -1;
+  /// The file the check points into; null for the main sheet's own checks.
+  std::shared_ptr<SourceFile> file;
+};
+
+// One binding of a `use` line: `F = F_total / screws`.
+struct UseBinding {
+  /// The template's parameter, as written.
+  std::string param;
+  /// Byte range of the parameter's name in the using file.
+  uint32_t name_begin = 0, name_end = 0;
+  /// The bound expression, in the using sheet's names.
+  ExprPtr expr;
+};
+
+// A `use PATH as INSTANCE [with P = EXPR, ...]` line.
+struct Use {
+  /// The path as written, without its quotes; relative to the file that writes the line.
+  std::string path;
+  /// Byte range of the path (quotes included) in the using file.
+  uint32_t path_begin = 0, path_end = 0;
+  /// The instance's name.
+  std::string instance;
+  /// Byte range of the instance's name.
+  uint32_t instance_begin = 0, instance_end = 0;
+  /// The bindings after `with`, in the order written.
+  std::vector<UseBinding> bindings;
+  /// Text after `#`.
+  std::string description;
+  int line = 0;
+  /// The heading it stands under, "" before any.
+  std::string section;
+};
+
+// A file a calculation read: the sheet, then each template once.
+struct SheetFile {
+  /// Relative to the main sheet's folder ("templates/screw.calc"); the main sheet by its own name.
+  std::string path;
+  /// SHA-256 of the bytes as read, in hex.
+  std::string sha256;
+};
+
+// A parameter of an instance as bound, for the trail.
+struct InstanceParam {
+  /// The parameter's slot in the expanded sheet (into Sheet::quantities).
+  int quantity = -1;
+  /// The binding as written ("F_total / screws"); empty when the default stands.
+  std::string binding;
+};
+
+// One instance brought in by a `use` line, expanded into the sheet.
+struct Instance {
+  /// The full dotted name: "left", or "drive.left" for an instance inside the instance `drive`.
+  std::string name;
+  /// The template's path relative to the main sheet's folder.
+  std::string path;
+  /// The template's `title:`, "" when it has none.
+  std::string title;
+  /// The instance that writes the `use` line (into Sheet::instances); -1 for the main sheet.
+  int parent = -1;
+  /// Index of the `use` line in the using sheet's `uses`, when parent is -1 (for document order).
+  int use_index = -1;
+  /// Where the `use` line is: for diagnostics, "in the instance `left` used at FILE:LINE:COL".
+  std::string context;
+  /// The parameters, in the template's order.
+  std::vector<InstanceParam> params;
+  /// Its quantities and checks in the expanded sheet (nested instances' not included).
+  std::vector<int> quantities, checks;
 };
 
 // One `NAME = EXPR` of a load case: a replacement with the meaning of --set.
@@ -76,10 +164,11 @@ constexpr const char* kNominalCase = "nominal";
 
 // One line of the file, in order, for the trail and for canonical formatting.
 struct Statement {
-  enum Kind { Blank, Comment, Meta, Section, Note, Define, CheckStmt, Invalid, CaseStmt };
+  // A `param` line is a Define (its quantity has Quantity::param); a `use` line is UseStmt.
+  enum Kind { Blank, Comment, Meta, Section, Note, Define, CheckStmt, Invalid, CaseStmt, UseStmt };
   Kind kind = Blank;
   int line = 0;
-  int index = -1;     // into quantities, checks or cases, for Define, CheckStmt and CaseStmt
+  int index = -1;     // into quantities, checks, cases or uses, for Define, CheckStmt, CaseStmt, UseStmt
   std::string text;   // Comment, Meta value, Section title, Note text
   std::string key;    // Meta key
 };
@@ -99,6 +188,38 @@ struct Sheet {
   std::vector<Check> checks;
   std::vector<LoadCase> cases;  // in document order
   std::unordered_map<std::string, int> index;  // quantity name -> position
+  /// The `use` lines of this file, in order.
+  std::vector<Use> uses;
+  /// Filled by the template loader: the instances expanded into `quantities` and `checks`.
+  std::vector<Instance> instances;
+  /// Filled by the template loader: every file read, the sheet first.
+  std::vector<SheetFile> files;
+
+  // The file quantity i's expr points into, and check k's.
+  const SourceFile& exprFile(size_t i) const {
+    const Quantity& q = quantities[i];
+    return q.expr_file ? *q.expr_file : q.file ? *q.file : *file;
+  }
+  const SourceFile& quantityFile(size_t i) const {
+    return quantities[i].file ? *quantities[i].file : *file;
+  }
+  const SourceFile& checkFile(size_t k) const { return checks[k].file ? *checks[k].file : *file; }
+
+  // What a diagnostic inside `instance` adds to its message: " (in the instance
+  // `left` used at lift.calc:7:5)", the whole chain for a nested one; "" for -1.
+  std::string instanceNote(int instance) const {
+    return instance < 0 ? std::string() : " (" + instances[static_cast<size_t>(instance)].context + ")";
+  }
+  // `name` as written in the scope of `instance`: "left.T_raise" inside the
+  // instance `left` is "T_raise"; in the main sheet (-1) it stays as it is.
+  std::string localName(int instance, const std::string& name) const {
+    if (instance < 0) return name;
+    const std::string& prefix = instances[static_cast<size_t>(instance)].name;
+    if (name.size() > prefix.size() && name.compare(0, prefix.size(), prefix) == 0 &&
+        name[prefix.size()] == '.')
+      return name.substr(prefix.size() + 1);
+    return name;
+  }
 
   int find(const std::string& name) const {
     auto it = index.find(name);

@@ -119,6 +119,9 @@ class LineParser {
     const bool definition_follows = nc == '=' || nc == '[';
     if (word == "check" && !definition_follows && nc != ':') return parseCheck(st, line, next, end);
     if (word == "case" && !definition_follows) return parseCase(st, line, p, next, end);
+    const bool statement_word = !definition_follows && nc != ':';
+    if (word == "param" && statement_word) return parseParam(st, line, p, word_end, next, end);
+    if (word == "use" && statement_word) return parseUse(st, line, p, word_end, next, end);
     if ((word == "section" || word == "note") && !definition_follows && nc != ':') {
       st->kind = word == "section" ? Statement::Section : Statement::Note;
       st->text = trim(std::string_view(s).substr(next, end - next));
@@ -205,6 +208,29 @@ class LineParser {
     return true;
   }
 
+  // The display unit in [ ] at *at: fills q's unit members and moves *at past the `]` and blanks.
+  bool parseDisplayUnit(Quantity* q, uint32_t* at, uint32_t body_end) {
+    const std::string& s = file_.bytes();
+    const size_t close = std::string_view(s).substr(0, body_end).find(']', *at);
+    if (close == std::string::npos) {
+      diags_->error(file_, *at, *at + 1, "this `[` is never closed: the display unit ends with `]`");
+      return false;
+    }
+    q->unit_begin = *at + 1;
+    q->unit_end = static_cast<uint32_t>(close);
+    q->unit_written = s.substr(q->unit_begin, q->unit_end - q->unit_begin);
+    Unit unit;
+    UnitError err;
+    if (!parseUnit(q->unit_written, &unit, &err)) {
+      const uint32_t e = q->unit_begin + static_cast<uint32_t>(std::min(err.offset, q->unit_written.size()));
+      diags_->error(file_, e, std::max(e + 1, q->unit_end), err.message);
+      return false;
+    }
+    q->display = std::move(unit);
+    *at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
+    return true;
+  }
+
   bool parseDefinition(Statement* st, int line, const std::string& name, uint32_t p, uint32_t word_end,
                        uint32_t next, uint32_t end) {
     const std::string& s = file_.bytes();
@@ -217,23 +243,7 @@ class LineParser {
     const uint32_t body_end = splitDescription(next, end, &q.description);
     uint32_t at = next;
     if (s[at] == '[') {
-      const size_t close = std::string_view(s).substr(0, body_end).find(']', at);
-      if (close == std::string::npos) {
-        diags_->error(file_, at, at + 1, "this `[` is never closed: the display unit ends with `]`");
-        return false;
-      }
-      q.unit_begin = at + 1;
-      q.unit_end = static_cast<uint32_t>(close);
-      q.unit_written = s.substr(q.unit_begin, q.unit_end - q.unit_begin);
-      Unit unit;
-      UnitError err;
-      if (!parseUnit(q.unit_written, &unit, &err)) {
-        const uint32_t e = q.unit_begin + static_cast<uint32_t>(std::min(err.offset, q.unit_written.size()));
-        diags_->error(file_, e, std::max(e + 1, q.unit_end), err.message);
-        return false;
-      }
-      q.display = std::move(unit);
-      at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
+      if (!parseDisplayUnit(&q, &at, body_end)) return false;
       if (at >= body_end || s[at] != '=') {
         diags_->error(file_, at < body_end ? at : q.unit_end, (at < body_end ? at : q.unit_end) + 1,
                       "expected `=` after the display unit [" + q.unit_written + "]");
@@ -252,17 +262,213 @@ class LineParser {
     ExprParser parser(file_, expr_begin, body_end, diags_);
     q.expr = parser.parseWhole();
     if (!q.expr) return false;
-    auto existing = sheet_->index.find(name);
+    return addQuantity(st, std::move(q));
+  }
+
+  bool addQuantity(Statement* st, Quantity q) {
+    auto existing = sheet_->index.find(q.name);
     if (existing != sheet_->index.end()) {
-      diags_->error(file_, p, word_end,
-                    "`" + name + "` is defined twice; the first definition is on line " +
+      diags_->error(file_, q.name_begin, q.name_end,
+                    "`" + q.name + "` is defined twice; the first definition is on line " +
                         std::to_string(sheet_->quantities[existing->second].line));
       return false;
     }
     st->kind = Statement::Define;
     st->index = static_cast<int>(sheet_->quantities.size());
-    sheet_->index.emplace(name, st->index);
+    sheet_->index.emplace(q.name, st->index);
     sheet_->quantities.push_back(std::move(q));
+    return true;
+  }
+
+  // `param NAME [UNIT]`, `param NAME [UNIT] = EXPR`, `param NAME = EXPR` (docs/format.md, Templates).
+  bool parseParam(Statement* st, int line, uint32_t kw, uint32_t kw_end, uint32_t p, uint32_t end) {
+    const std::string& s = file_.bytes();
+    const uint32_t name_end = scanName(p, end);
+    if (name_end == p || s[p] == '#') {
+      diags_->error(file_, kw, kw_end, "a parameter needs a name: `param F [N]`, `param F [N] = 10 kN` or "
+                                       "`param f = 0.1`");
+      return false;
+    }
+    const std::string name = s.substr(p, name_end - p);
+    const uint32_t next = skipSpace(name_end, end);
+    std::string description;
+    const uint32_t body_end = splitDescription(next, end, &description);
+    const bool has_default =
+        std::string_view(s).substr(next, body_end - next).find('=') != std::string_view::npos;
+    if (has_default) {
+      if (s[next] != '=' && s[next] != '[') {
+        diags_->error(file_, next, next + 1, "expected `=` or `[unit]` after the parameter `" + name + "`");
+        return false;
+      }
+      if (!parseDefinition(st, line, name, p, name_end, next, end)) return false;
+      Quantity& q = sheet_->quantities.back();
+      q.param = true;
+      if (!q.display) {
+        bool reads = false;
+        forEachName(*q.expr, [&](const Expr&) { reads = true; });
+        if (reads) {
+          diags_->error(file_, q.expr->begin, q.expr->end,
+                        "the parameter `" + name + "` takes its dimension from its default, which then "
+                        "reads no quantity; declare its unit: `param " + name + " [UNIT] = ...`");
+          return false;
+        }
+      }
+      return true;
+    }
+    if (next == body_end || s[next] != '[') {
+      diags_->error(file_, p, name_end, "the parameter `" + name + "` needs a unit or a default: `param " +
+                                            name + " [N]`, `param " + name + " [N] = 10 kN` or `param " +
+                                            name + " = 0.1`");
+      return false;
+    }
+    Quantity q;
+    q.name = name;
+    q.name_begin = p;
+    q.name_end = name_end;
+    q.line = line;
+    q.section = section_;
+    q.description = std::move(description);
+    q.param = true;
+    q.required = true;
+    uint32_t at = next;
+    if (!parseDisplayUnit(&q, &at, body_end)) return false;
+    if (at < body_end) {
+      diags_->error(file_, at, at + 1, "expected `=` or the end of the line after `param " + name + " [" +
+                                           q.unit_written + "]`");
+      return false;
+    }
+    if (name == "pi") {
+      diags_->error(file_, p, name_end, "`pi` is the constant 3.14159...; choose another name");
+      return false;
+    }
+    return addQuantity(st, std::move(q));
+  }
+
+  // `use PATH as INSTANCE [with P1 = EXPR, P2 = EXPR]`; PATH may be in double quotes.
+  bool parseUse(Statement* st, int line, uint32_t kw, uint32_t kw_end, uint32_t p, uint32_t end) {
+    const std::string& s = file_.bytes();
+    const std::string form = "`use templates/screw.calc as left` or `use \"my templates/screw.calc\" as "
+                             "left with F = F_total / 2`";
+    Use u;
+    u.line = line;
+    u.section = section_;
+    u.path_begin = p;
+    uint32_t at = p;
+    if (at < end && s[at] == '"') {
+      const size_t close = std::string_view(s).substr(0, end).find('"', at + 1);
+      if (close == std::string::npos) {
+        diags_->error(file_, at, at + 1, "this `\"` is never closed: a quoted path ends with `\"`");
+        return false;
+      }
+      u.path = s.substr(at + 1, close - at - 1);
+      at = static_cast<uint32_t>(close) + 1;
+    } else {
+      while (at < end && !isSpace(s[at]) && s[at] != '#') ++at;
+      u.path = s.substr(p, at - p);
+    }
+    u.path_end = at;
+    if (u.path.empty()) {
+      diags_->error(file_, kw, kw_end, "`use` needs the path of a template: " + form);
+      return false;
+    }
+    const uint32_t body_end = splitDescription(at, end, &u.description);
+    at = skipSpace(at, body_end);
+    const uint32_t as_end = scanName(at, body_end);
+    if (s.compare(at, as_end - at, "as") != 0) {
+      diags_->error(file_, at < body_end ? at : u.path_end - 1, (at < body_end ? at : u.path_end - 1) + 1,
+                    "expected `as INSTANCE` after the path of the template: " + form);
+      return false;
+    }
+    at = skipSpace(as_end, body_end);
+    const uint32_t name_end = scanName(at, body_end);
+    if (name_end == at) {
+      diags_->error(file_, at < body_end ? at : as_end - 1, (at < body_end ? at : as_end - 1) + 1,
+                    "`as` needs the name of the instance: " + form);
+      return false;
+    }
+    u.instance = s.substr(at, name_end - at);
+    u.instance_begin = at;
+    u.instance_end = name_end;
+    if (u.instance == "pi") {
+      diags_->error(file_, at, name_end, "`pi` is the constant 3.14159...; choose another name");
+      return false;
+    }
+    at = skipSpace(name_end, body_end);
+    if (at < body_end) {
+      const uint32_t with_end = scanName(at, body_end);
+      if (s.compare(at, with_end - at, "with") != 0 || with_end == at) {
+        diags_->error(file_, at, at + 1, "expected `with P = EXPR, ...` or the end of the line after `as " +
+                                             u.instance + "`");
+        return false;
+      }
+      if (!parseBindings(&u, with_end, body_end)) return false;
+    }
+    auto first = use_index_.find(u.instance);
+    if (first != use_index_.end()) {
+      diags_->error(file_, u.instance_begin, u.instance_end,
+                    "the instance `" + u.instance + "` is used twice; the first is on line " +
+                        std::to_string(sheet_->uses[first->second].line));
+      return false;
+    }
+    st->kind = Statement::UseStmt;
+    st->index = static_cast<int>(sheet_->uses.size());
+    use_index_.emplace(u.instance, st->index);
+    sheet_->uses.push_back(std::move(u));
+    return true;
+  }
+
+  // `P1 = EXPR, P2 = EXPR` from `from` to `end`: split at the commas outside parentheses.
+  bool parseBindings(Use* u, uint32_t from, uint32_t end) {
+    const std::string& s = file_.bytes();
+    uint32_t piece = from;
+    bool ok = true;
+    for (;;) {
+      uint32_t q = piece;
+      int depth = 0;
+      while (q < end && !(depth == 0 && s[q] == ',')) {
+        if (s[q] == '(') ++depth;
+        if (s[q] == ')') --depth;
+        ++q;
+      }
+      ok = parseBinding(u, piece, q) && ok;
+      if (q >= end) break;
+      piece = q + 1;
+    }
+    return ok;
+  }
+
+  bool parseBinding(Use* u, uint32_t b, uint32_t e) {
+    const std::string& s = file_.bytes();
+    const uint32_t p = skipSpace(b, e);
+    const uint32_t name_end = scanName(p, e);
+    if (name_end == p) {
+      diags_->error(file_, p < e ? p : b, (p < e ? p : b) + 1,
+                    "expected a parameter's name, as in `with F = F_total / 2, f = 0.1`");
+      return false;
+    }
+    const uint32_t eq = skipSpace(name_end, e);
+    if (eq >= e || s[eq] != '=') {
+      diags_->error(file_, eq < e ? eq : name_end - 1, (eq < e ? eq : name_end - 1) + 1,
+                    "expected `=` after the parameter `" + s.substr(p, name_end - p) + "`");
+      return false;
+    }
+    if (skipSpace(eq + 1, e) == e) {
+      diags_->error(file_, eq, eq + 1, "the parameter `" + s.substr(p, name_end - p) + "` needs a value");
+      return false;
+    }
+    UseBinding bnd;
+    bnd.param = s.substr(p, name_end - p);
+    bnd.name_begin = p;
+    bnd.name_end = name_end;
+    for (const UseBinding& other : u->bindings) {
+      if (other.param != bnd.param) continue;
+      diags_->error(file_, p, name_end, "the parameter `" + bnd.param + "` is bound twice");
+      return false;
+    }
+    ExprParser parser(file_, eq + 1, e, diags_);
+    bnd.expr = parser.parseWhole();
+    if (!bnd.expr) return false;
+    u->bindings.push_back(std::move(bnd));
     return true;
   }
 
@@ -431,6 +637,7 @@ class LineParser {
   Diagnostics* diags_;
   std::string section_;
   std::unordered_map<std::string, int> check_index_;  // check name -> position, for duplicates
+  std::unordered_map<std::string, int> use_index_;    // instance name -> position in uses, for duplicates
 };
 
 }  // namespace
@@ -452,6 +659,15 @@ Sheet parseSheet(std::shared_ptr<SourceFile> file, Diagnostics* diags) {
   sheet.quantities.reserve(static_cast<size_t>(lines));
   sheet.index.reserve(static_cast<size_t>(lines));
   for (int line = 1; line <= lines; ++line) parser.parseLine(line);
+  // An instance's name stands for its quantities (`left.T_raise`): no quantity of the file may take it.
+  for (const Use& u : sheet.uses) {
+    const int q = sheet.find(u.instance);
+    if (q < 0) continue;
+    diags->error(f, u.instance_begin, u.instance_end,
+                 "the instance `" + u.instance + "` has the name of the quantity `" + u.instance +
+                     "` defined on line " + std::to_string(sheet.quantities[q].line) +
+                     "; rename one of them");
+  }
   return sheet;
 }
 

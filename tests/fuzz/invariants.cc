@@ -290,6 +290,8 @@ std::string checkJson(const Calculation& calc, const std::string& text) {
 // sheet with its canonical text.
 std::vector<std::string> meaningOf(Sheet* sheet) {
   for (Quantity& q : sheet->quantities) canonicalizeUnits(q.expr.get());
+  for (Use& u : sheet->uses)
+    for (UseBinding& b : u.bindings) canonicalizeUnits(b.expr.get());
   for (Check& c : sheet->checks) {
     canonicalizeUnits(c.lhs.get());
     canonicalizeUnits(c.rhs.get());
@@ -308,8 +310,15 @@ std::vector<std::string> meaningOf(Sheet* sheet) {
       case Statement::Note: line = "note " + st.text; break;
       case Statement::Define: {
         const Quantity& q = sheet->quantities[st.index];
-        line = "define " + q.name + " | " + canonicalDefinition(q) + " | " + renderExpr(*q.expr) + " | " +
-               renderExpr(*q.expr, nullptr, true) + " | " + q.section + " | # " + q.description;
+        const std::string expr = q.expr ? renderExpr(*q.expr) : "";  // none for a required parameter
+        const std::string pretty = q.expr ? renderExpr(*q.expr, nullptr, true) : "";
+        line = "define " + q.name + " | " + canonicalDefinition(q) + " | " + expr + " | " + pretty + " | " +
+               q.section + " | # " + q.description;
+        break;
+      }
+      case Statement::UseStmt: {
+        const Use& u = sheet->uses[st.index];
+        line = "use " + canonicalUse(u) + " | " + u.section + " | # " + u.description;
         break;
       }
       case Statement::CaseStmt: {
