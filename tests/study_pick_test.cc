@@ -64,7 +64,8 @@ TEST_CASE("pick: the smallest trapezoidal size equals a brute force over the tab
     break;
   }
   REQUIRE(expected > 0);
-  const test::Run r = test::runCli("pick worksheets/twin-screw-lift.calc --vary d --from trapezoidal -f json");
+  const test::Run r =
+      test::runCli("pick worksheets/twin-screw-lift.calc --vary d --from trapezoidal -f json");
   INFO(r.err);
   REQUIRE(r.status == 0);
   const Json j = parsed(r.out);
@@ -94,7 +95,7 @@ TEST_CASE("pick: from a list, by an expression, and nothing passing", "[study][p
   const Json lj = parsed(list.out);
   CHECK(lj["from"].string == "list");
   CHECK(lj["chosen"]["value"].number == 25);  // sigma = 20.4 MPa; 20 mm gives 31.8 MPa
-  REQUIRE(lj["tried"].array.size() == 2);      // ascending, stopping at the first that passes
+  REQUIRE(lj["tried"].array.size() == 2);     // ascending, stopping at the first that passes
   CHECK(lj["tried"][0]["failed"][0].string == "strength");
   const test::Run by = test::runCli(base + " --from '30 mm, 20 mm, 25 mm' --by cost -f json");
   REQUIRE(by.status == 0);

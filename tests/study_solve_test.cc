@@ -50,7 +50,8 @@ TEST_CASE("solve: the load whose raise torque is given equals the closed-form in
   auto c = test::calc(kScrew);
   REQUIRE_FALSE(c->hasErrors());
   const double per_newton = test::si(*c, "T") / test::si(*c, "F");  // T is linear in F
-  const test::Run r = test::runCli("solve " + file + " --vary F --between '1 kN..100 kN' --target 'T = 75 [N*m]' -f json");
+  const test::Run r =
+      test::runCli("solve " + file + " --vary F --between '1 kN..100 kN' --target 'T = 75 [N*m]' -f json");
   INFO(r.err);
   REQUIRE(r.status == 0);
   const Json j = parsed(r.out);
@@ -68,30 +69,34 @@ TEST_CASE("solve: the load whose raise torque is given equals the closed-form in
   CHECK((hi - lo) <= 8 * std::numeric_limits<double>::epsilon() * F);
   CHECK(j["checks"]["strength"].boolean);
   // The text says the same.
-  const test::Run t = test::runCli("solve " + file + " --vary F --between '1 kN..100 kN' --target 'T = 75 [N*m]'");
+  const test::Run t =
+      test::runCli("solve " + file + " --vary F --between '1 kN..100 kN' --target 'T = 75 [N*m]'");
   CHECK(t.out.find("such that T = 75 [N*m]:") != std::string::npos);
   CHECK(t.out.find("every check passes") != std::string::npos);
 }
 
 TEST_CASE("solve: a check failing at the solved value exits 1", "[study][solve]") {
   const std::string file = sheetFile(kScrew);
-  const test::Run r = test::runCli("solve " + file + " --vary F --between '1 kN..200 kN' --target 'T = 290 [N*m]' -f json");
+  const test::Run r =
+      test::runCli("solve " + file + " --vary F --between '1 kN..200 kN' --target 'T = 290 [N*m]' -f json");
   CHECK(r.status == 1);
   CHECK_FALSE(parsed(r.out)["checks"]["strength"].boolean);
 }
 
 TEST_CASE("solve: the capacity is the closed-form limit, named by its check", "[study][solve]") {
   const std::string file = sheetFile(kScrew);
-  const test::Run r = test::runCli("solve " + file + " --vary F --between '1 kN..200 kN' --capacity max -f json");
+  const test::Run r =
+      test::runCli("solve " + file + " --vary F --between '1 kN..200 kN' --capacity max -f json");
   INFO(r.err);
   REQUIRE(r.status == 0);
   const Json j = parsed(r.out);
   CHECK(j["limiting_check"].string == "strength");
   CHECK(j["si"].number == Approx(120e6 * 700e-6).epsilon(1e-13));  // sigma = F / A = 120 MPa
-  CHECK(j["si"].number <= 84000.0 * (1 + 1e-15));                // on the passing side
+  CHECK(j["si"].number <= 84000.0 * (1 + 1e-15));                  // on the passing side
   CHECK(j["checks"]["strength"].boolean);
   // The torque limits first with a smaller area allowance: A = 2000 mm^2.
-  const test::Run t = test::runCli("solve " + file + " --set 'A=2000 [mm^2]' --vary F --between '1 kN..400 kN' "
+  const test::Run t = test::runCli("solve " + file +
+                                   " --set 'A=2000 [mm^2]' --vary F --between '1 kN..400 kN' "
                                    "--capacity max -f json");
   REQUIRE(t.status == 0);
   const Json tj = parsed(t.out);
@@ -100,13 +105,15 @@ TEST_CASE("solve: the capacity is the closed-form limit, named by its check", "[
   CHECK(tj["si"].number == Approx(300 / (test::si(*c, "T") / test::si(*c, "F"))).epsilon(1e-12));
   CHECK(tj["set"][0].string == "A=2000 [mm^2]");
   // The smallest area for which every check passes, at the nominal load: A = F / 120 MPa.
-  const test::Run a = test::runCli("solve " + file + " --vary A --between '10 [mm^2]..5000 [mm^2]' --capacity min -f json");
+  const test::Run a =
+      test::runCli("solve " + file + " --vary A --between '10 [mm^2]..5000 [mm^2]' --capacity min -f json");
   REQUIRE(a.status == 0);
   const Json aj = parsed(a.out);
   CHECK(aj["limiting_check"].string == "strength");
   CHECK(aj["si"].number == Approx(10e3 / 120e6).epsilon(1e-12));
   // Every check passing up to the bracket's end: that end, and no check named.
-  const test::Run end = test::runCli("solve " + file + " --vary F --between '1 kN..50 kN' --capacity max -f json");
+  const test::Run end =
+      test::runCli("solve " + file + " --vary F --between '1 kN..50 kN' --capacity max -f json");
   REQUIRE(end.status == 0);
   CHECK(parsed(end.out)["si"].number == 50000);
   CHECK(parsed(end.out)["limiting_check"].type == Json::Null);
@@ -114,7 +121,8 @@ TEST_CASE("solve: the capacity is the closed-form limit, named by its check", "[
 
 TEST_CASE("solve: no root or nothing passing exits 1 with the values at both ends", "[study][solve]") {
   const std::string file = sheetFile(kScrew);
-  const test::Run r = test::runCli("solve " + file + " --vary F --between '1 kN..2 kN' --target 'T = 75 [N*m]' -f json");
+  const test::Run r =
+      test::runCli("solve " + file + " --vary F --between '1 kN..2 kN' --target 'T = 75 [N*m]' -f json");
   CHECK(r.status == 1);
   const Json j = parsed(r.out);
   CHECK_FALSE(j["solved"].boolean);
@@ -123,16 +131,19 @@ TEST_CASE("solve: no root or nothing passing exits 1 with the values at both end
   const double per_newton = test::si(*c, "T") / test::si(*c, "F");
   CHECK(j["at_lo"]["lhs"]["si"].number == Approx(1000 * per_newton).epsilon(1e-13));
   CHECK(j["at_hi"]["lhs"]["si"].number == Approx(2000 * per_newton).epsilon(1e-13));
-  const test::Run t = test::runCli("solve " + file + " --vary F --between '1 kN..2 kN' --target 'T = 75 [N*m]'");
+  const test::Run t =
+      test::runCli("solve " + file + " --vary F --between '1 kN..2 kN' --target 'T = 75 [N*m]'");
   CHECK(t.out.find("not reached in the bracket") != std::string::npos);
-  const test::Run none = test::runCli("solve " + file + " --vary F --between '90 kN..100 kN' --capacity max -f json");
+  const test::Run none =
+      test::runCli("solve " + file + " --vary F --between '90 kN..100 kN' --capacity max -f json");
   CHECK(none.status == 1);
   CHECK(parsed(none.out)["failing_at_lo"][0].string == "strength");
 }
 
 TEST_CASE("solve: a target met twice warns that the result is not monotone", "[study][solve]") {
   const std::string file = sheetFile("x = 1 m\ny [m^2] = (x - 5 m)^2\n");
-  const test::Run r = test::runCli("solve " + file + " --vary x --between '0 m..10 m' --target 'y = 4 [m^2]' -f json");
+  const test::Run r =
+      test::runCli("solve " + file + " --vary x --between '0 m..10 m' --target 'y = 4 [m^2]' -f json");
   INFO(r.err);
   REQUIRE(r.status == 0);
   const Json j = parsed(r.out);
@@ -142,11 +153,14 @@ TEST_CASE("solve: a target met twice warns that the result is not monotone", "[s
   CHECK(r.err.find("warning: `y` is not monotone in `x`") != std::string::npos);
 }
 
-TEST_CASE("solve: a value in the bracket where the sheet cannot be calculated is an error", "[study][solve]") {
+TEST_CASE("solve: a value in the bracket where the sheet cannot be calculated is an error",
+          "[study][solve]") {
   const std::string file = sheetFile("x = 5 m\ny [m] = sqrt((x - 3 m) * 1 m)\n");
   const test::Run r = test::runCli("solve " + file + " --vary x --between '1 m..10 m' --target 'y = 2 m'");
   CHECK(r.status == 2);
-  CHECK(r.err.find("s.calc:2:9: error: at x = 1.00000 m: `y` cannot be calculated: sqrt of a negative value") != std::string::npos);
+  CHECK(
+      r.err.find("s.calc:2:9: error: at x = 1.00000 m: `y` cannot be calculated: sqrt of a negative value") !=
+      std::string::npos);
   CHECK(r.out.empty());
 }
 
@@ -157,9 +171,11 @@ TEST_CASE("solve: bad studies are errors, exit 2", "[study][solve][diagnostics]"
   };
   const Case cases[] = {
       {" --vary T --between '1 N*m..2 N*m' --capacity max", "`T` is calculated from other quantities"},
-      {" --vary F --between '1 kN..2 kN' --target 'T = 75 kN'", "the target compares `T`, torque or energy (N*m), "
-                                                                "with `75 kN`, force (N)"},
-      {" --vary F --between '1 kN..2 m' --capacity max", "`F` is force (N) in the worksheet, but `2 m` is length (mm)"},
+      {" --vary F --between '1 kN..2 kN' --target 'T = 75 kN'",
+       "the target compares `T`, torque or energy (N*m), "
+       "with `75 kN`, force (N)"},
+      {" --vary F --between '1 kN..2 m' --capacity max",
+       "`F` is force (N) in the worksheet, but `2 m` is length (mm)"},
       {" --vary F --between '2 kN..1 kN' --capacity max", "the bracket is empty"},
       {" --vary F --between '1 kN' --capacity max", "--between takes LO..HI"},
       {" --vary F --between '1 kN..2 kN'", "either --target"},

@@ -41,7 +41,9 @@ std::map<std::string, double> reportValues(const std::string& set) {
   return out;
 }
 
-bool sameBits(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }
+bool sameBits(double a, double b) {
+  return std::memcmp(&a, &b, sizeof a) == 0;
+}
 
 StudyRange range(const Calculation& c, const std::string& text, int steps = 11, bool log = false) {
   Diagnostics diags;
@@ -58,8 +60,9 @@ StudyRange range(const Calculation& c, const std::string& text, int steps = 11, 
 
 TEST_CASE("sweep: a point equals the --set run of the same value, bit for bit", "[study][sweep]") {
   const std::string show = "F,T_screw,T_motor,P_motor,P_rated,n_yield,n_buckle,pv,t_lift";
-  const test::Run r = test::runCli(std::string("sweep ") + kTwin + " --vary 'm_load=3600 kg, 4200 kg, 5100 kg' --show " +
-                                   show + " --format json");
+  const test::Run r =
+      test::runCli(std::string("sweep ") + kTwin + " --vary 'm_load=3600 kg, 4200 kg, 5100 kg' --show " +
+                   show + " --format json");
   INFO(r.err);
   REQUIRE(r.status == 0);
   const Json j = parsed(r.out);
@@ -79,8 +82,10 @@ TEST_CASE("sweep: a point equals the --set run of the same value, bit for bit", 
                                    " --vary 'L_col=500 mm..800 mm' --steps 4 --show n_buckle --format json");
   REQUIRE(e.status == 0);
   const Json ej = parsed(e.out);
-  CHECK(sameBits(ej["points"][0]["results"]["n_buckle"]["si"].number, reportValues("L_col=500 mm").at("n_buckle")));
-  CHECK(sameBits(ej["points"][3]["results"]["n_buckle"]["si"].number, reportValues("L_col=800 mm").at("n_buckle")));
+  CHECK(sameBits(ej["points"][0]["results"]["n_buckle"]["si"].number,
+                 reportValues("L_col=500 mm").at("n_buckle")));
+  CHECK(sameBits(ej["points"][3]["results"]["n_buckle"]["si"].number,
+                 reportValues("L_col=800 mm").at("n_buckle")));
 }
 
 TEST_CASE("sweep: every point equals a whole evaluation, for any number of threads", "[study][sweep]") {
@@ -96,7 +101,8 @@ TEST_CASE("sweep: every point equals a whole evaluation, for any number of threa
   const SweepTable threaded = runSweep(m, *c->inputs, c->results, spec);
   REQUIRE(serial.size() == 301);
   REQUIRE(threaded.results.size() == serial.results.size());
-  CHECK(std::memcmp(threaded.results.data(), serial.results.data(), serial.results.size() * sizeof(double)) == 0);
+  CHECK(std::memcmp(threaded.results.data(), serial.results.data(), serial.results.size() * sizeof(double)) ==
+        0);
   CHECK(threaded.check_states == serial.check_states);
   // Against evaluate() of a fresh Inputs layer binding the same SI value.
   for (size_t p = 0; p < serial.size(); p += 37) {
@@ -107,7 +113,8 @@ TEST_CASE("sweep: every point equals a whole evaluation, for any number of threa
       INFO("point " << p << ", " << m.quantity(Slot(i)).name);
       CHECK(sameBits(serial.result(p, i), whole.values[i]));
     }
-    for (size_t k = 0; k < m.checks().size(); ++k) CHECK(serial.check(p, k) == (whole.checks[k].passed ? 1 : 0));
+    for (size_t k = 0; k < m.checks().size(); ++k)
+      CHECK(serial.check(p, k) == (whole.checks[k].passed ? 1 : 0));
   }
 }
 
@@ -156,7 +163,8 @@ TEST_CASE("sweep: text, CSV and SVG show the values, the units and the failing c
   const test::Run csv = test::runCli(base + " --format csv");
   REQUIRE(csv.status == 0);
   CHECK(csv.out ==
-        "L [m],W [J],limit,error\n1,2000,pass,\n1.25,2500,pass,\n1.5,3000,pass,\n1.75,3500,fail,\n2,4000,fail,\n");
+        "L [m],W "
+        "[J],limit,error\n1,2000,pass,\n1.25,2500,pass,\n1.5,3000,pass,\n1.75,3500,fail,\n2,4000,fail,\n");
   const test::Run svg = test::runCli(base + " --format svg");
   REQUIRE(svg.status == 0);
   CHECK(svg.out.rfind("<svg ", 0) == 0);
@@ -166,7 +174,8 @@ TEST_CASE("sweep: text, CSV and SVG show the values, the units and the failing c
   CHECK(svg.out.find("a check fails (limit)") != std::string::npos);
   CHECK(svg.out.find("</svg>\n") == svg.out.size() - 7);
   // Two inputs: one line per value of the second, named in the legend.
-  const test::Run grid = test::runCli("sweep '" + dir + "/s.calc' --vary 'L=1 m..2 m' --vary 'F=1 kN, 2 kN' --show W -f svg");
+  const test::Run grid =
+      test::runCli("sweep '" + dir + "/s.calc' --vary 'L=1 m..2 m' --vary 'F=1 kN, 2 kN' --show W -f svg");
   REQUIRE(grid.status == 0);
   CHECK(grid.out.find(">F = 1.000 kN</text>") != std::string::npos);
   CHECK(grid.out.find(">F = 2.000 kN</text>") != std::string::npos);
@@ -175,15 +184,18 @@ TEST_CASE("sweep: text, CSV and SVG show the values, the units and the failing c
 TEST_CASE("sweep: shards run by GNU parallel merge into the table one run gives", "[study][sweep][shard]") {
   REQUIRE(std::system("parallel --version >/dev/null 2>&1") == 0);  // Debian package `parallel`
   const std::string dir = test::tempDir();
-  const std::string sweep = std::string("sweep ") + test::repoPath(kTwin) +
-                            " --vary 'm_load=2000 kg..9000 kg' --vary 'L_col=500 mm, 650 mm, 900 mm' --steps 15"
-                            " --show P_motor,n_buckle";
+  const std::string sweep =
+      std::string("sweep ") + test::repoPath(kTwin) +
+      " --vary 'm_load=2000 kg..9000 kg' --vary 'L_col=500 mm, 650 mm, 900 mm' --steps 15"
+      " --show P_motor,n_buckle";
   const test::Run whole = test::runCli(sweep + " --format json -o '" + dir + "/whole.json'");
   REQUIRE(whole.status == 0);
-  const std::string cmd = "cd '" + dir + "' && parallel --halt now,fail=1 \"'" + std::string(CALCTRAIL_BINARY) +
-                          "' " + sweep + " --format json --shard {}/4 -o shard{}.json\" ::: 1 2 3 4";
+  const std::string cmd = "cd '" + dir + "' && parallel --halt now,fail=1 \"'" +
+                          std::string(CALCTRAIL_BINARY) + "' " + sweep +
+                          " --format json --shard {}/4 -o shard{}.json\" ::: 1 2 3 4";
   REQUIRE(std::system(cmd.c_str()) == 0);
-  const std::string shards = dir + "/shard1.json " + dir + "/shard2.json " + dir + "/shard3.json " + dir + "/shard4.json";
+  const std::string shards =
+      dir + "/shard1.json " + dir + "/shard2.json " + dir + "/shard3.json " + dir + "/shard4.json";
   const Json one = parsed(test::readFile(dir + "/shard3.json"));
   CHECK(one["points"].array.size() == 11);  // 45 points, every 4th from the 3rd
   CHECK(one["points"][0]["index"].number == 2);
@@ -204,12 +216,15 @@ TEST_CASE("sweep: shards run by GNU parallel merge into the table one run gives"
 }
 
 TEST_CASE("sweep: a point that cannot be calculated is shown and named, exit 2", "[study][sweep]") {
-  const test::Run r = test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show p,n_buckle");
+  const test::Run r =
+      test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show p,n_buckle");
   CHECK(r.status == 2);
-  CHECK(r.err.find("twin-screw-lift.calc:32:16: error: at d = 45.00 mm: `p` cannot be calculated: `trap_pitch`") !=
+  CHECK(r.err.find(
+            "twin-screw-lift.calc:32:16: error: at d = 45.00 mm: `p` cannot be calculated: `trap_pitch`") !=
         std::string::npos);
   CHECK(r.out.find("At d = 45.00 mm: error:") != std::string::npos);
-  const test::Run j = test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show p -f json");
+  const test::Run j =
+      test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show p -f json");
   const Json doc = parsed(j.out);
   CHECK(doc["points"][1]["results"]["p"]["si"].type == Json::Null);
   CHECK(doc["points"][1]["checks"]["buckling"].type == Json::Null);
@@ -227,7 +242,8 @@ TEST_CASE("sweep: bad studies are errors, exit 2", "[study][sweep][diagnostics]"
       {" --vary 'F=1 kN..2 kN' --show P_motor",
        "--vary:1:1: error: `F` is calculated from other quantities, not a given value"},
       {" --vary 'm_lod=1 kg..2 kg' --show P_motor", "no quantity `m_lod`; did you mean `m_load`?"},
-      {" --vary 'm_load=1 kN..2 kN' --show P_motor", "`m_load` is mass (kg) in the worksheet, but `1 kN` is force (N)"},
+      {" --vary 'm_load=1 kN..2 kN' --show P_motor",
+       "`m_load` is mass (kg) in the worksheet, but `1 kN` is force (N)"},
       {" --vary 'm_load=2 kg..2 kg' --show P_motor", "it holds one value"},
       {" --vary 'm_load=1 kg..2 kg' --steps 1 --show P_motor", "a range needs 2 points or more"},
       {" --vary 'm_load=1 kg..' --show P_motor", "a range needs a value at both ends"},

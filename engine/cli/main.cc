@@ -115,7 +115,9 @@ int main(int argc, char** argv) {
     cmd->add_option("--set", a->sets, "Replace the definition of NAME by VALUE for this run only")
         ->type_name("NAME=VALUE")
         ->allow_extra_args(false);
-    cmd->add_option("--format,-f", a->format, "Output format")->check(CLI::IsMember(formats))->default_str("text");
+    cmd->add_option("--format,-f", a->format, "Output format")
+        ->check(CLI::IsMember(formats))
+        ->default_str("text");
     cmd->add_option("-o,--output", a->output, "Write to this file instead of standard output");
     cmd->add_option("--digits", a->digits, "Significant digits in text output (1 to 15)")
         ->check(CLI::Range(1, 15))
@@ -124,7 +126,7 @@ int main(int argc, char** argv) {
 
   SweepArgs sweep;
   CLI::App* sweep_cmd = app.add_subcommand(
-      "sweep", "Evaluate a worksheet over a range or list of one input (or a grid of two): results and checks");
+      "sweep", "Evaluate a worksheet over a range or list of one input (or a grid of two): results, checks");
   sweep_cmd->add_option("FILE", sweep.study.file, "The worksheet (.calc)");
   sweep_cmd->add_option("--vary", sweep.vary, "NAME=FROM..TO or NAME=V1, V2, ... (twice for a grid)")
       ->type_name("NAME=RANGE")
@@ -133,11 +135,12 @@ int main(int argc, char** argv) {
       ->check(CLI::Range(0, 100000000))
       ->default_str("11");
   sweep_cmd->add_flag("--log", sweep.log, "Logarithmic steps");
-  sweep_cmd->add_option("--show", sweep.show, "The results to record: NAME[,NAME...]")->allow_extra_args(false);
+  sweep_cmd->add_option("--show", sweep.show, "The results to record: NAME[,NAME...]")
+      ->allow_extra_args(false);
   sweep_cmd->add_option("--shard", sweep.shard, "Compute only shard K of N (every N-th point from the K-th)")
       ->type_name("K/N");
   sweep_cmd->add_option("-j,--jobs", sweep.jobs, "Threads (default: one per core)");
-  sweep_cmd->add_option("--merge", sweep.merge, "Merge the JSON of the shards of one sweep (no FILE, no --vary)")
+  sweep_cmd->add_option("--merge", sweep.merge, "Merge the JSON of the shards of a sweep (no FILE or --vary)")
       ->type_name("SHARD.json...");
   study_options(sweep_cmd, &sweep.study, {"text", "csv", "json", "svg"});
   sweep_cmd->footer(
@@ -150,7 +153,7 @@ int main(int argc, char** argv) {
 
   SolveArgs solve;
   CLI::App* solve_cmd = app.add_subcommand(
-      "solve", "Find the value of an input that meets a target, or the largest/smallest for which every check passes");
+      "solve", "Find the input that meets a target, or the largest/smallest for which every check passes");
   solve_cmd->add_option("FILE", solve.study.file, "The worksheet (.calc)")->required();
   solve_cmd->add_option("--vary", solve.vary, "The input to solve for (a given value)")->required();
   solve_cmd->add_option("--between", solve.between, "The bracket LO..HI, with units")->required();
@@ -166,7 +169,7 @@ int main(int argc, char** argv) {
 
   SensitivityArgs sens;
   CLI::App* sens_cmd = app.add_subcommand(
-      "sensitivity", "Rank the given values by their effect on a result (elasticity), and the checks they flip");
+      "sensitivity", "Rank the given values by their effect on a result (elasticity), and checks they flip");
   sens_cmd->add_option("FILE", sens.study.file, "The worksheet (.calc)")->required();
   sens_cmd->add_option("--of", sens.of, "The quantity studied")->required();
   study_options(sens_cmd, &sens.study, {"text", "json"});

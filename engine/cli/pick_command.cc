@@ -29,7 +29,8 @@ int runPickCommand(const PickArgs& args) {
   Diagnostics diags;
   StudyInput input;
   const SourceFile vary_file("--vary", args.vary);
-  if (!resolveStudyInput(m, *calc->inputs, vary_file, 0, static_cast<uint32_t>(args.vary.size()), &diags, &input)) {
+  if (!resolveStudyInput(m, *calc->inputs, vary_file, 0, static_cast<uint32_t>(args.vary.size()), &diags,
+                         &input)) {
     printDiagnostics(diags);
     return kExitError;
   }
@@ -62,7 +63,8 @@ int runPickCommand(const PickArgs& args) {
     printDiagnostics(diags);
     return kExitError;
   }
-  const PickOutcome out = runPick(m, *calc->inputs, calc->results, input, candidates, args.by.empty() ? nullptr : &by);
+  const PickOutcome out =
+      runPick(m, *calc->inputs, calc->results, input, candidates, args.by.empty() ? nullptr : &by);
   PickSpec spec{input, from, args.by.empty() ? nullptr : &by};
   const StudySource src = studySource(*calc, args.study);
   const std::string text = args.study.format == "json" ? renderPickJson(src, spec, out)

@@ -30,8 +30,9 @@ int runSensitivityCommand(const SensitivityArgs& args) {
   }
   const SensitivityOutcome out = runSensitivity(m, *calc->inputs, calc->results, of);
   const StudySource src = studySource(*calc, args.study);
-  const std::string text = args.study.format == "json" ? renderSensitivityJson(src, m, out)
-                                                       : renderSensitivityText(src, m, out, args.study.digits);
+  const std::string text = args.study.format == "json"
+                               ? renderSensitivityJson(src, m, out)
+                               : renderSensitivityText(src, m, out, args.study.digits);
   if (!writeStudyOutput(args.study, text)) return kExitError;
   return calc->results.failedChecks() ? kExitCheckFailed : kExitOk;
 }

@@ -39,7 +39,8 @@ int runSolveCommand(const SolveArgs& args) {
               : args.capacity == "min" ? SolveMode::CapacityMin
                                        : SolveMode::Target;
   const SourceFile vary_file("--vary", args.vary);
-  bool ok = resolveStudyInput(m, base, vary_file, 0, static_cast<uint32_t>(args.vary.size()), &diags, &spec.input);
+  bool ok =
+      resolveStudyInput(m, base, vary_file, 0, static_cast<uint32_t>(args.vary.size()), &diags, &spec.input);
   if (ok) ok = parseBracket(m, spec.input, args.between, "--between", &diags, &spec.lo, &spec.hi);
   if (spec.mode == SolveMode::Target) {
     auto file = std::make_shared<const SourceFile>("--target", args.target);
@@ -51,7 +52,8 @@ int runSolveCommand(const SolveArgs& args) {
     } else {
       const uint32_t e = static_cast<uint32_t>(eq);
       const bool l = compileStudyExpr(m, file, 0, e, &diags, &spec.lhs);
-      const bool r = compileStudyExpr(m, file, e + 1, static_cast<uint32_t>(args.target.size()), &diags, &spec.rhs);
+      const bool r =
+          compileStudyExpr(m, file, e + 1, static_cast<uint32_t>(args.target.size()), &diags, &spec.rhs);
       if (l && r && spec.lhs.dim != spec.rhs.dim) {
         diags.error(*file, spec.lhs.expr->begin, spec.rhs.expr->end,
                     "the target compares `" + spec.lhs.text + "`, " + spec.lhs.dim.describe() + ", with `" +
@@ -73,7 +75,8 @@ int runSolveCommand(const SolveArgs& args) {
   const SolveOutcome out = runSolve(m, base, calc->results, spec);
   if (out.status == SolveStatus::EvalFailed) {
     Diagnostics faults;
-    const std::string at = "at " + spec.input.name + " = " + formatQuantity(out.fault_at, spec.input.unit, 6) + ": ";
+    const std::string at =
+        "at " + spec.input.name + " = " + formatQuantity(out.fault_at, spec.input.unit, 6) + ": ";
     if (out.fault.file)
       faults.error(*out.fault.file, out.fault.begin, out.fault.end, at + out.fault.message);
     else
@@ -82,10 +85,13 @@ int runSolveCommand(const SolveArgs& args) {
     std::cerr << "solve: the worksheet cannot be calculated everywhere in the bracket; narrow --between\n";
     return kExitError;
   }
-  for (const std::string& w : out.warnings) std::cerr << args.study.file << ": warning: " << w << "\n";
+  // Text output says it in place; for JSON, people read it here.
+  if (args.study.format != "text")
+    for (const std::string& w : out.warnings) std::cerr << args.study.file << ": warning: " << w << "\n";
   const StudySource src = studySource(*calc, args.study);
-  const std::string text = args.study.format == "json" ? renderSolveJson(src, m, spec, out)
-                                                       : renderSolveText(src, m, spec, out, args.study.digits);
+  const std::string text = args.study.format == "json"
+                               ? renderSolveJson(src, m, spec, out)
+                               : renderSolveText(src, m, spec, out, args.study.digits);
   if (!writeStudyOutput(args.study, text)) return kExitError;
   if (out.status == SolveStatus::NotReached) return kExitCheckFailed;
   return out.results.failedChecks() ? kExitCheckFailed : kExitOk;

@@ -40,6 +40,8 @@ bool writeStudyOutput(const StudyArgs& args, const std::string& text) {
   return true;
 }
 
-SourceFile optionSource(const std::string& option, const std::string& text) { return SourceFile(option, text); }
+SourceFile optionSource(const std::string& option, const std::string& text) {
+  return SourceFile(option, text);
+}
 
 }  // namespace calctrail

@@ -75,8 +75,8 @@ int runSweepCommand(const SweepArgs& args) {
   }
   SweepSpec spec;
   if (!args.shard.empty() && !parseShard(args.shard, &spec.shard, &spec.shards)) {
-    std::cerr << "calctrail: error: --shard takes K/N with 1 <= K <= N, as in --shard 2/4 (got `" << args.shard
-              << "`)\n";
+    std::cerr << "calctrail: error: --shard takes K/N with 1 <= K <= N, as in --shard 2/4 (got `"
+              << args.shard << "`)\n";
     return kExitError;
   }
   auto calc = loadStudySheet(args.study);
@@ -103,7 +103,8 @@ int runSweepCommand(const SweepArgs& args) {
       const std::string name = list.substr(nb, ne - nb);
       const Slot s = m.find(name);
       if (name.empty()) {
-        diags.error(file, static_cast<uint32_t>(nb), static_cast<uint32_t>(nb + 1), "a name is missing in --show");
+        diags.error(file, static_cast<uint32_t>(nb), static_cast<uint32_t>(nb + 1),
+                    "a name is missing in --show");
       } else if (!s.valid()) {
         std::string msg = "the worksheet defines no quantity `" + name + "`";
         const auto near = nearestWords(name, names);
@@ -142,7 +143,8 @@ int runSweepCommand(const SweepArgs& args) {
     faults.error(*f.file, f.begin, f.end, "at " + at + ": " + f.message);
   }
   printDiagnostics(faults);
-  if (more) std::cerr << "... and " << more << " more point" << (more == 1 ? "" : "s") << " cannot be calculated\n";
+  if (more)
+    std::cerr << "... and " << more << " more point" << (more == 1 ? "" : "s") << " cannot be calculated\n";
   if (!writeStudyOutput(args.study, render(t, args.study))) return kExitError;
   return t.anyError() ? kExitError : kExitOk;
 }

@@ -56,7 +56,9 @@ class Reader {
       if (pos_ >= s_.size()) return fail("an unfinished escape");
       c = s_[pos_++];
       switch (c) {
-        case '"': case '\\': case '/': out->push_back(c); break;
+        case '"':
+        case '\\':
+        case '/': out->push_back(c); break;
         case 'b': out->push_back('\b'); break;
         case 'f': out->push_back('\f'); break;
         case 'n': out->push_back('\n'); break;
@@ -96,7 +98,10 @@ class Reader {
         out->array.emplace_back();
         if (!value(&out->array.back(), depth + 1)) return false;
         space();
-        if (pos_ < s_.size() && s_[pos_] == ',') { ++pos_; continue; }
+        if (pos_ < s_.size() && s_[pos_] == ',') {
+          ++pos_;
+          continue;
+        }
         if (pos_ < s_.size() && s_[pos_] == ']') return ++pos_, true;
         return fail("`,` or `]` expected");
       }
@@ -116,7 +121,10 @@ class Reader {
         out->object.emplace_back(std::move(key), JsonValue());
         if (!value(&out->object.back().second, depth + 1)) return false;
         space();
-        if (pos_ < s_.size() && s_[pos_] == ',') { ++pos_; continue; }
+        if (pos_ < s_.size() && s_[pos_] == ',') {
+          ++pos_;
+          continue;
+        }
         if (pos_ < s_.size() && s_[pos_] == '}') return ++pos_, true;
         return fail("`,` or `}` expected");
       }

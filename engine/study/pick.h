@@ -34,8 +34,9 @@ struct PickOutcome {
   int chosen = -1;
 };
 
-// `by` null: the smallest passing value; else the passing value with the least `by` (ties: the smaller value).
-PickOutcome runPick(const Model& model, const Inputs& base, const Results& base_results, const StudyInput& input,
-                    std::vector<double> candidates, const StudyExpr* by);
+// `by` null: the smallest passing value; else the passing value with the least `by` (ties: the smaller
+// value).
+PickOutcome runPick(const Model& model, const Inputs& base, const Results& base_results,
+                    const StudyInput& input, std::vector<double> candidates, const StudyExpr* by);
 
 }  // namespace calctrail

@@ -64,8 +64,9 @@ InputSensitivity oneInput(const Model& m, const Inputs& base, const Results& bas
       }
     }
   }
-  std::stable_sort(s.flips.begin(), s.flips.end(),
-                   [](const CheckFlip& a, const CheckFlip& b) { return std::fabs(a.change) < std::fabs(b.change); });
+  std::stable_sort(s.flips.begin(), s.flips.end(), [](const CheckFlip& a, const CheckFlip& b) {
+    return std::fabs(a.change) < std::fabs(b.change);
+  });
   return s;
 }
 
@@ -80,10 +81,11 @@ SensitivityOutcome runSensitivity(const Model& m, const Inputs& base, const Resu
     if (in == of) continue;
     out.inputs.push_back(oneInput(m, base, base_results, of, in, o));
   }
-  std::stable_sort(out.inputs.begin(), out.inputs.end(), [](const InputSensitivity& a, const InputSensitivity& b) {
-    if (a.ok != b.ok) return a.ok;
-    return a.ok && std::fabs(a.elasticity) > std::fabs(b.elasticity);
-  });
+  std::stable_sort(out.inputs.begin(), out.inputs.end(),
+                   [](const InputSensitivity& a, const InputSensitivity& b) {
+                     if (a.ok != b.ok) return a.ok;
+                     return a.ok && std::fabs(a.elasticity) > std::fabs(b.elasticity);
+                   });
   return out;
 }
 

@@ -58,7 +58,7 @@ struct SensitivityOutcome {
 };
 
 // `of` must have a nonzero value in `base_results` (the caller reports that).
-SensitivityOutcome runSensitivity(const Model& model, const Inputs& base, const Results& base_results, Slot of,
-                                  const SensitivityOptions& options = {});
+SensitivityOutcome runSensitivity(const Model& model, const Inputs& base, const Results& base_results,
+                                  Slot of, const SensitivityOptions& options = {});
 
 }  // namespace calctrail

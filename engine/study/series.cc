@@ -20,7 +20,8 @@ Unit unitOf(const char* text) {
 
 const std::vector<StudySeries>& studySeries() {
   static const std::vector<StudySeries> all = {
-      {"trapezoidal", "ISO 2904 metric trapezoidal nominal diameters", unitOf("mm"), &fn::trapezoidalDiameters()},
+      {"trapezoidal", "ISO 2904 metric trapezoidal nominal diameters", unitOf("mm"),
+       &fn::trapezoidalDiameters()},
       {"acme", "ASME B1.5 general-purpose Acme nominal diameters", unitOf("in"), &fn::acmeDiameters()},
       {"motor_outputs", "rated outputs of IEC induction motors", unitOf("kW"), &fn::ratedMotorOutputs()},
   };

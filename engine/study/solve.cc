@@ -47,7 +47,9 @@ std::vector<std::string> failingChecks(const Model& m, const Results& r) {
 // TOMS 748 to within a few units in the last place: the root is then as
 // exact as the arithmetic of the sheet allows.
 using Tolerance = boost::math::tools::eps_tolerance<double>;
-Tolerance tolerance() { return Tolerance(std::numeric_limits<double>::digits - 2); }
+Tolerance tolerance() {
+  return Tolerance(std::numeric_limits<double>::digits - 2);
+}
 constexpr std::uintmax_t kMaxIterations = 200;
 
 class Solver {
@@ -124,11 +126,12 @@ class Solver {
     }
     const std::string what = "`" + spec_.lhs.text + "`";
     if (rises && falls)
-      out_.warnings.push_back(what + " is not monotone in `" + spec_.input.name + "` over the bracket (it rises " +
-                              "and falls between the " + std::to_string(xs.size()) + " points sampled)" +
-                              (changes.size() > 1 ? "; it meets the target " + std::to_string(changes.size()) +
-                                                        " times: the value nearest LO is given"
-                                                  : ""));
+      out_.warnings.push_back(
+          what + " is not monotone in `" + spec_.input.name + "` over the bracket (it rises " +
+          "and falls between the " + std::to_string(xs.size()) + " points sampled)" +
+          (changes.size() > 1 ? "; it meets the target " + std::to_string(changes.size()) +
+                                    " times: the value nearest LO is given"
+                              : ""));
     if (changes.empty()) {
       out_.status = SolveStatus::NotReached;
       return;
@@ -154,19 +157,19 @@ class Solver {
     const std::vector<double> xs = samplePoints();
     std::vector<char> pass(xs.size());
     for (size_t i = 0; i < xs.size(); ++i) pass[i] = allPass(at(xs[i]));
-    int changes = 0;
-    for (size_t i = 0; i + 1 < xs.size(); ++i) changes += pass[i] != pass[i + 1];
+    int runs = 0;  // stretches of passing samples
+    for (size_t i = 0; i < xs.size(); ++i) runs += pass[i] && (i == 0 || !pass[i - 1]);
     if (std::none_of(pass.begin(), pass.end(), [](char p) { return p != 0; })) {
       out_.status = SolveStatus::NotReached;
       out_.failing_lo = failingChecks(m_, at(xs.front()));
       out_.failing_hi = failingChecks(m_, at(xs.back()));
       return;
     }
-    if (changes > 1)
-      out_.warnings.push_back("the checks change state " + std::to_string(changes) + " times across the bracket " +
-                              "(sampled at " + std::to_string(xs.size()) + " points): every check passes in " +
-                              "more than one part of it; the " + (max ? "largest" : "smallest") +
-                              " passing value is given");
+    if (runs > 1)
+      out_.warnings.push_back("every check passes in " + std::to_string(runs) +
+                              " separate parts of the bracket " + "(sampled at " + std::to_string(xs.size()) +
+                              " points), so the result is not " + "monotone in `" + spec_.input.name +
+                              "`; the " + (max ? "largest" : "smallest") + " passing value is given");
     // The passing sample nearest the end sought, and its neighbour beyond.
     size_t k = max ? xs.size() - 1 : 0;
     while (!pass[k]) k = max ? k - 1 : k + 1;
@@ -229,7 +232,8 @@ class Solver {
 
 }  // namespace
 
-SolveOutcome runSolve(const Model& m, const Inputs& base, const Results& base_results, const SolveSpec& spec) {
+SolveOutcome runSolve(const Model& m, const Inputs& base, const Results& base_results,
+                      const SolveSpec& spec) {
   Solver solver(m, base, base_results, spec);
   return solver.run();
 }

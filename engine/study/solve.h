@@ -33,9 +33,9 @@ struct SolveSpec {
 };
 
 enum class SolveStatus {
-  Solved,         // value found
-  NotReached,     // no root in the bracket / no value passes every check (exit 1)
-  EvalFailed,     // the sheet cannot be calculated at some value tried (exit 2)
+  Solved,      // value found
+  NotReached,  // no root in the bracket / no value passes every check (exit 1)
+  EvalFailed,  // the sheet cannot be calculated at some value tried (exit 2)
 };
 
 struct SolveOutcome {

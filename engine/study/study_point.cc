@@ -17,6 +17,8 @@ const Results& StudyPoint::at(const std::vector<Slot>& slots, const double* si) 
   return results_;
 }
 
-const Fault* firstFault(const Results& r) { return r.faults.empty() ? nullptr : &r.faults.front(); }
+const Fault* firstFault(const Results& r) {
+  return r.faults.empty() ? nullptr : &r.faults.front();
+}
 
 }  // namespace calctrail

@@ -57,7 +57,9 @@ bool valueList(const Model& m, const StudyInput& input, const SourceFile& file, 
   return ok;
 }
 
-std::string valueText(double si, const Unit& unit) { return formatQuantity(si, unit, 4); }
+std::string valueText(double si, const Unit& unit) {
+  return formatQuantity(si, unit, 4);
+}
 
 }  // namespace
 
@@ -82,7 +84,8 @@ bool resolveStudyInput(const Model& m, const Inputs& inputs, const SourceFile& f
   if (!isGivenValue(m, inputs, slot)) {
     std::vector<std::string> given;
     for (Slot s : upstreamInputs(m, inputs, slot)) given.push_back(m.quantity(s).name);
-    std::string msg = "`" + name + "` is calculated from other quantities, not a given value; a study varies " +
+    std::string msg = "`" + name +
+                      "` is calculated from other quantities, not a given value; a study varies " +
                       "given values";
     if (!given.empty()) msg += ": for `" + name + "`, one of " + quotedList(given);
     diags->error(file, begin, end, msg);
@@ -102,9 +105,9 @@ bool parseStudyValue(const Model& m, const StudyInput& input, const SourceFile& 
   bool reads = false;
   forEachName(*expr, [&](const Expr& x) {
     if (!reads)
-      diags->error(file, x.begin, x.end,
-                   "a value of a study is a literal with a unit (`20 mm`), not a formula reading `" + x.text +
-                       "`");
+      diags->error(
+          file, x.begin, x.end,
+          "a value of a study is a literal with a unit (`20 mm`), not a formula reading `" + x.text + "`");
     reads = true;
   });
   if (reads) return false;
@@ -170,8 +173,9 @@ bool parseVary(const Model& m, const Inputs& inputs, const std::string& text, in
   if (!ok_from || !ok_to) return false;
   if (steps < 2) {
     diags->error(file, fb, te,
-                 "--steps " + std::to_string(steps) + ": a range needs 2 points or more (--steps counts both "
-                 "ends; the default is 11)");
+                 "--steps " + std::to_string(steps) +
+                     ": a range needs 2 points or more (--steps counts both "
+                     "ends; the default is 11)");
     return false;
   }
   if (from == to) {
@@ -227,8 +231,8 @@ bool parseBracket(const Model& m, const StudyInput& input, const std::string& te
   return true;
 }
 
-bool parseValueList(const Model& m, const StudyInput& input, const std::string& text, const std::string& origin,
-                    Diagnostics* diags, std::vector<double>* out) {
+bool parseValueList(const Model& m, const StudyInput& input, const std::string& text,
+                    const std::string& origin, Diagnostics* diags, std::vector<double>* out) {
   const SourceFile file(origin, text);
   out->clear();
   return valueList(m, input, file, 0, static_cast<uint32_t>(text.size()), diags, out);

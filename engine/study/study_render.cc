@@ -11,6 +11,7 @@
 #include "engine/study/series.h"
 #include "engine/study/svg_plot.h"
 #include "engine/util/json_writer.h"
+#include "engine/util/text_width.h"
 
 namespace calctrail {
 
@@ -45,7 +46,8 @@ void sourceJson(JsonWriter& w, const std::string& study, const std::string& path
   w.endArray();
 }
 
-std::string sourceText(const std::string& path, const std::string& sha, const std::vector<std::string>& sets) {
+std::string sourceText(const std::string& path, const std::string& sha,
+                       const std::vector<std::string>& sets) {
   std::string s = path + " (SHA-256 " + sha + ")\n";
   if (!sets.empty()) {
     s += "CHANGED BY --set for this run (the hash alone does not identify these numbers):";
@@ -55,23 +57,25 @@ std::string sourceText(const std::string& path, const std::string& sha, const st
   return s;
 }
 
-std::string stateText(signed char s) { return s < 0 ? "-" : s ? "pass" : "FAIL"; }
+std::string stateText(signed char s) {
+  return s < 0 ? "-" : s ? "pass" : "FAIL";
+}
 
 // A table of cells: columns right-aligned where `right` says, two spaces apart.
 std::string table(const std::vector<std::vector<std::string>>& rows, const std::vector<char>& right) {
-  std::vector<size_t> width;
+  std::vector<size_t> width;  // in columns on the screen: N·m is 3 wide, 4 bytes
   for (const auto& r : rows)
     for (size_t c = 0; c < r.size(); ++c) {
       if (width.size() <= c) width.push_back(0);
-      width[c] = std::max(width[c], r[c].size());
+      width[c] = std::max(width[c], static_cast<size_t>(displayWidth(r[c])));
     }
   fmt::memory_buffer out;
   auto it = std::back_inserter(out);
   for (const auto& r : rows) {
     std::string line;
     for (size_t c = 0; c < r.size(); ++c) {
-      const std::string pad(width[c] - r[c].size(), ' ');
-      line += (c ? "  " : "  ") + (c < right.size() && right[c] ? pad + r[c] : r[c] + pad);
+      const std::string pad(width[c] - static_cast<size_t>(displayWidth(r[c])), ' ');
+      line += "  " + (c < right.size() && right[c] ? pad + r[c] : r[c] + pad);
     }
     while (!line.empty() && line.back() == ' ') line.pop_back();
     fmt::format_to(it, "{}\n", line);
@@ -95,7 +99,9 @@ std::string pointName(const SweepTable& t, size_t p, int digits) {
 
 }  // namespace
 
-std::string sourceLines(const StudySource& src) { return sourceText(src.path, src.sha256, src.sets); }
+std::string sourceLines(const StudySource& src) {
+  return sourceText(src.path, src.sha256, src.sets);
+}
 
 // ---------------------------------------------------------------------------
 // Sweep
@@ -117,7 +123,8 @@ std::string renderSweepText(const SweepTable& t, int digits) {
   int failing_points = 0;
   for (size_t p = 0; p < t.size(); ++p) {
     std::vector<std::string> r;
-    for (size_t j = 0; j < t.vary.size(); ++j) r.push_back(formatNumber(t.vary[j].unit.fromSI(t.input(p, j)), digits));
+    for (size_t j = 0; j < t.vary.size(); ++j)
+      r.push_back(formatNumber(t.vary[j].unit.fromSI(t.input(p, j)), digits));
     for (size_t j = 0; j < t.show.size(); ++j) {
       const double v = t.result(p, j);
       r.push_back(std::isfinite(v) ? formatNumber(t.show[j].unit.fromSI(v), digits) : "-");
@@ -155,7 +162,8 @@ std::string renderSweepCsv(const SweepTable& t) {
   out += "\n";
   for (size_t p = 0; p < t.size(); ++p) {
     std::string line;
-    for (size_t j = 0; j < t.vary.size(); ++j) line += formatExact(t.vary[j].unit.fromSI(t.input(p, j))) + ",";
+    for (size_t j = 0; j < t.vary.size(); ++j)
+      line += formatExact(t.vary[j].unit.fromSI(t.input(p, j))) + ",";
     for (size_t j = 0; j < t.show.size(); ++j) {
       const double v = t.result(p, j);
       line += (std::isfinite(v) ? formatExact(t.show[j].unit.fromSI(v)) : std::string()) + ",";
@@ -262,7 +270,8 @@ std::string renderSweepSvg(const SweepTable& t) {
       if (t.vary.size() > 1)
         line.label = t.vary[1].name + " = " + formatQuantity(t.input(points[0], 1), t.vary[1].unit, 4);
       std::vector<size_t> order = points;
-      std::stable_sort(order.begin(), order.end(), [&](size_t a, size_t b) { return t.input(a, 0) < t.input(b, 0); });
+      std::stable_sort(order.begin(), order.end(),
+                       [&](size_t a, size_t b) { return t.input(a, 0) < t.input(b, 0); });
       for (size_t p : order) {
         line.x.push_back(t.vary[0].unit.fromSI(t.input(p, 0)));
         const double v = t.result(p, j);
@@ -285,7 +294,8 @@ std::string renderSweepSvg(const SweepTable& t) {
     const PlotLine& l = plot.panels[0].lines[0];
     for (size_t k = 0; k < l.x.size(); ++k) {
       if (!l.fails[k]) continue;
-      const double a = k ? (l.x[k - 1] + l.x[k]) / 2 : l.x[k], b = k + 1 < l.x.size() ? (l.x[k] + l.x[k + 1]) / 2 : l.x[k];
+      const double a = k ? (l.x[k - 1] + l.x[k]) / 2 : l.x[k],
+                   b = k + 1 < l.x.size() ? (l.x[k] + l.x[k + 1]) / 2 : l.x[k];
       if (!plot.shaded.empty() && plot.shaded.back().second >= a)
         plot.shaded.back().second = b;
       else
@@ -295,7 +305,8 @@ std::string renderSweepSvg(const SweepTable& t) {
   if (!failing.empty()) {
     std::string names;
     for (const std::string& f : failing) names += (names.empty() ? "" : ", ") + f;
-    plot.shaded_label = std::string(t.vary.size() == 1 ? "shaded" : "ringed") + ": a check fails (" + names + ")";
+    plot.shaded_label =
+        std::string(t.vary.size() == 1 ? "shaded" : "ringed") + ": a check fails (" + names + ")";
   }
   return renderSvg(plot);
 }
@@ -333,15 +344,17 @@ std::string renderSolveText(const StudySource& src, const Model& m, const SolveS
   if (spec.mode == SolveMode::Target) {
     s += x + " between " + bracket + " such that " + spec.lhs.text + " = " + spec.rhs.text + ":\n";
     if (out.status == SolveStatus::NotReached) {
-      s += "  not reached in the bracket: at " + x + " = " + shown(spec.lo, u, digits) + ", " + spec.lhs.text +
-           " = " + shown(out.lhs_at_lo, spec.lhs.display, digits) + "; at " + x + " = " + shown(spec.hi, u, digits) +
-           ", " + spec.lhs.text + " = " + shown(out.lhs_at_hi, spec.lhs.display, digits) + " (target " +
+      s += "  not reached in the bracket: at " + x + " = " + shown(spec.lo, u, digits) + ", " +
+           spec.lhs.text + " = " + shown(out.lhs_at_lo, spec.lhs.display, digits) + "; at " + x + " = " +
+           shown(spec.hi, u, digits) + ", " + spec.lhs.text + " = " +
+           shown(out.lhs_at_hi, spec.lhs.display, digits) + " (target " +
            shown(out.rhs_at_lo, spec.lhs.display, digits) + ")\n";
     } else if (out.status == SolveStatus::Solved) {
       s += "  " + x + " = " + shown(out.value, u, digits) + "  (" + spec.lhs.text + " = " +
            shown(out.lhs, spec.lhs.display, digits) + "; TOMS 748, " + std::to_string(out.evaluations) +
-           " evaluations, root within " + shown(out.bracket_lo, u, 12) + " .. " + shown(out.bracket_hi, u, 12) +
-           ")\n";
+           " evaluations, last bracket " +
+           fmt::format("{:.1e}", (out.bracket_hi - out.bracket_lo) / std::fabs(out.value)) +
+           " of the value wide)\n";
       s += "  at this value " + checksLine(m, out.results) + "\n";
     }
   } else {
@@ -350,14 +363,15 @@ std::string renderSolveText(const StudySource& src, const Model& m, const SolveS
          " for which every check passes:\n";
     if (out.status == SolveStatus::NotReached) {
       s += "  none: every value sampled fails a check (at " + shown(spec.lo, u, digits) + ": " +
-           joined(out.failing_lo) + "; at " + shown(spec.hi, u, digits) + ": " + joined(out.failing_hi) + ")\n";
+           joined(out.failing_lo) + "; at " + shown(spec.hi, u, digits) + ": " + joined(out.failing_hi) +
+           ")\n";
     } else if (out.status == SolveStatus::Solved) {
       s += "  " + x + " = " + shown(out.value, u, digits);
       if (out.limiting_check.empty())
         s += ", the end of the bracket: no check limits it there (widen the bracket to find the limit)\n";
       else
-        s += ", limited by the check `" + out.limiting_check + "` (it fails just " + (max ? "above" : "below") +
-             ", at " + shown(max ? out.bracket_hi : out.bracket_lo, u, 12) + ")\n";
+        s += ", limited by the check `" + out.limiting_check + "` (it fails just " +
+             (max ? "above" : "below") + ")\n";
     }
   }
   for (const std::string& w : out.warnings) s += "warning: " + w + "\n";
@@ -453,7 +467,9 @@ const char* direction(const InputSensitivity& s) {
   return s.elasticity > 0 ? "increase" : "decrease";
 }
 
-std::string percent(double change) { return fmt::format("{:+.0f} %", change * 100); }
+std::string percent(double change) {
+  return fmt::format("{:+.0f} %", change * 100);
+}
 
 }  // namespace
 
@@ -463,14 +479,16 @@ std::string renderSensitivityText(const StudySource& src, const Model& m, const 
   const Unit& u = m.slot(out.of).display;
   std::string s = "Sensitivity " + sourceLines(src) + "\n";
   s += "of " + q.name + " = " + shown(out.value, u, digits) + " to the " + std::to_string(out.inputs.size()) +
-       " given values it depends on, largest effect first.\n" +
-       "Elasticity: the % change of " + q.name + " for a 1 % change of the input (central differences).\n\n";
+       " given values it depends on, largest effect first.\n" + "Elasticity: the % change of " + q.name +
+       " for a 1 % change of the input (central differences).\n\n";
   std::vector<std::vector<std::string>> rows;
-  rows.push_back({"input", "value", "elasticity", "to raise " + q.name, "checks that change state within +-10 %"});
+  rows.push_back(
+      {"input", "value", "elasticity", "to raise " + q.name, "checks that change state within +-10 %"});
   for (const InputSensitivity& in : out.inputs) {
     std::string flips;
     for (const CheckFlip& f : in.flips)
-      flips += (flips.empty() ? "" : "; ") + f.check + (f.passes ? " passes" : " fails") + " at " + percent(f.change);
+      flips += (flips.empty() ? "" : "; ") + f.check + (f.passes ? " passes" : " fails") + " at " +
+               percent(f.change);
     if (in.fails_at != 0)
       flips += (flips.empty() ? "" : "; ") + std::string("no value at ") + percent(in.fails_at);
     if (!in.ok) flips = in.error + (flips.empty() ? "" : "; " + flips);
@@ -535,12 +553,13 @@ std::string renderPickText(const StudySource& src, const PickSpec& spec, const P
   const Unit& u = spec.input.unit;
   std::string s = "Pick " + sourceLines(src) + "\n";
   const StudySeries* series = findSeries(spec.from);
-  s += spec.input.name + " from " + (series ? spec.from + " (" + series->description + ")" : "the values given") +
-       ": the " + (spec.by ? "one with the least " + spec.by->text : std::string("smallest")) +
+  s += spec.input.name + " from " +
+       (series ? spec.from + " (" + series->description + ")" : "the values given") + ": the " +
+       (spec.by ? "one with the least " + spec.by->text : std::string("smallest")) +
        " for which every check passes.\n";
   if (out.chosen >= 0)
-    s += "  chosen: " + spec.input.name + " = " + shown(out.tried[static_cast<size_t>(out.chosen)].value, u, digits) +
-         "\n";
+    s += "  chosen: " + spec.input.name + " = " +
+         shown(out.tried[static_cast<size_t>(out.chosen)].value, u, digits) + "\n";
   else
     s += "  none of the " + std::to_string(out.tried.size()) + " candidates passes every check\n";
   s += "\n";
@@ -550,7 +569,9 @@ std::string renderPickText(const StudySource& src, const PickSpec& spec, const P
   rows[0].push_back("result");
   for (size_t i = 0; i < out.tried.size(); ++i) {
     const PickCandidate& c = out.tried[i];
-    std::string r = !c.error.empty() ? "error: " + c.error : c.passed ? "passes" : "fails: " + joined(c.failed);
+    std::string r = !c.error.empty() ? "error: " + c.error
+                    : c.passed       ? "passes"
+                                     : "fails: " + joined(c.failed);
     if (static_cast<int>(i) == out.chosen) r += "  <- chosen";
     std::vector<std::string> row{shown(c.value, u, digits)};
     if (spec.by) row.push_back(std::isfinite(c.by) ? shown(c.by, spec.by->display, digits) : "-");

@@ -17,14 +17,16 @@ constexpr double kWidth = 720, kLeft = 80, kRight = 160, kTop = 40, kPanel = 220
 const char* const kColours[] = {"#1f77b4", "#ff7f0e", "#2ca02c", "#9467bd", "#8c564b",
                                 "#e377c2", "#7f7f7f", "#bcbd22", "#17becf", "#d62728"};
 
-std::string tick(double v) { return formatNumber(v, 3); }
+std::string tick(double v) {
+  return formatNumber(v, 3);
+}
 
 struct Axis {
   double lo = 0, hi = 1;
   bool log = false;
   double map(double v, double a, double b) const {  // v to pixels between a and b
-    const double t = log ? (std::log10(v) - std::log10(lo)) / (std::log10(hi) - std::log10(lo))
-                         : (v - lo) / (hi - lo);
+    const double t =
+        log ? (std::log10(v) - std::log10(lo)) / (std::log10(hi) - std::log10(lo)) : (v - lo) / (hi - lo);
     return a + (b - a) * t;
   }
 };
@@ -107,12 +109,13 @@ std::string renderSvg(const Plot& plot) {
                      "fill-opacity=\"0.15\"/>\n",
                      l, top, std::max(0.0, r - l), kPanel);
     }
-    fmt::format_to(it, "<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"none\" stroke=\"black\"/>\n",
+    fmt::format_to(it,
+                   "<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"none\" stroke=\"black\"/>\n",
                    x0, top, plot_w, kPanel);
     for (double v : yt) {
       const double py = y.map(v, bottom, top);
-      fmt::format_to(it, "<line x1=\"{}\" y1=\"{:.2f}\" x2=\"{}\" y2=\"{:.2f}\" stroke=\"#dddddd\"/>\n", x0, py,
-                     x1, py);
+      fmt::format_to(it, "<line x1=\"{}\" y1=\"{:.2f}\" x2=\"{}\" y2=\"{:.2f}\" stroke=\"#dddddd\"/>\n", x0,
+                     py, x1, py);
       fmt::format_to(it, "<text x=\"{}\" y=\"{:.2f}\" text-anchor=\"end\">{}</text>\n", x0 - 6, py + 4,
                      escapeXml(tick(v)));
     }
@@ -126,8 +129,8 @@ std::string renderSvg(const Plot& plot) {
     }
     for (double v : xt) {
       const double px = x.map(v, x0, x1);
-      fmt::format_to(it, "<line x1=\"{:.2f}\" y1=\"{}\" x2=\"{:.2f}\" y2=\"{}\" stroke=\"#dddddd\"/>\n", px, top,
-                     px, bottom);
+      fmt::format_to(it, "<line x1=\"{:.2f}\" y1=\"{}\" x2=\"{:.2f}\" y2=\"{}\" stroke=\"#dddddd\"/>\n", px,
+                     top, px, bottom);
       fmt::format_to(it, "<text x=\"{:.2f}\" y=\"{}\" text-anchor=\"middle\">{}</text>\n", px, bottom + 16,
                      escapeXml(tick(v)));
     }
@@ -152,13 +155,15 @@ std::string renderSvg(const Plot& plot) {
       fmt::format_to(it, "<path d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.5\"/>\n", path, colour);
       for (size_t k = 0; k < line.x.size(); ++k) {
         if (k >= line.fails.size() || !line.fails[k] || !std::isfinite(line.y[k])) continue;
-        fmt::format_to(it, "<circle cx=\"{:.2f}\" cy=\"{:.2f}\" r=\"3.5\" fill=\"none\" stroke=\"#d62728\"/>\n",
+        fmt::format_to(it,
+                       "<circle cx=\"{:.2f}\" cy=\"{:.2f}\" r=\"3.5\" fill=\"none\" stroke=\"#d62728\"/>\n",
                        x.map(line.x[k], x0, x1), y.map(line.y[k], bottom, top));
       }
       if (!line.label.empty()) {
         const double ly = top + 14 + 16 * static_cast<double>(li);
-        fmt::format_to(it, "<line x1=\"{}\" y1=\"{:.2f}\" x2=\"{}\" y2=\"{:.2f}\" stroke=\"{}\" stroke-width=\"2\"/>\n",
-                       x1 + 10, ly - 4, x1 + 28, ly - 4, colour);
+        fmt::format_to(
+            it, "<line x1=\"{}\" y1=\"{:.2f}\" x2=\"{}\" y2=\"{:.2f}\" stroke=\"{}\" stroke-width=\"2\"/>\n",
+            x1 + 10, ly - 4, x1 + 28, ly - 4, colour);
         fmt::format_to(it, "<text x=\"{}\" y=\"{:.2f}\">{}</text>\n", x1 + 32, ly, escapeXml(line.label));
       }
     }

@@ -53,7 +53,8 @@ bool readSweepJson(const std::string& text, SweepTable* t, std::string* error) {
   JsonValue doc;
   if (!parseJsonText(text, &doc, error)) return false;
   const JsonValue* study = member(doc, "study", JsonValue::String);
-  if (!study || study->string != "sweep") return fail(error, "not the JSON of a sweep (no \"study\": \"sweep\")");
+  if (!study || study->string != "sweep")
+    return fail(error, "not the JSON of a sweep (no \"study\": \"sweep\")");
   *t = SweepTable();
   const JsonValue* sheet = member(doc, "sheet", JsonValue::Object);
   const JsonValue* path = sheet ? member(*sheet, "path", JsonValue::String) : nullptr;
@@ -113,7 +114,8 @@ bool readSweepJson(const std::string& text, SweepTable* t, std::string* error) {
     if (!wholeNumber(p.find("index"), &index) || index >= total || index % n != k - 1)
       return fail(error, "a point's \"index\" is missing or not of shard " + std::to_string(k) + "/" +
                              std::to_string(n));
-    if (!t->index.empty() && index <= t->index.back()) return fail(error, "the points are not in index order");
+    if (!t->index.empty() && index <= t->index.back())
+      return fail(error, "the points are not in index order");
     t->index.push_back(index);
     auto values = [&](const char* key, const std::vector<SweepColumn>& cols, std::vector<double>* out,
                       bool required) {
@@ -162,11 +164,13 @@ bool mergeSweeps(std::vector<SweepTable> shards, SweepTable* out, std::string* e
       return fail(error, "the shards split the sweep differently (into " + std::to_string(first.shards) +
                              " and " + std::to_string(s.shards) + ")");
     if (seen[static_cast<size_t>(s.shard - 1)]++)
-      return fail(error, "shard " + std::to_string(s.shard) + "/" + std::to_string(s.shards) + " is given twice");
+      return fail(error,
+                  "shard " + std::to_string(s.shard) + "/" + std::to_string(s.shards) + " is given twice");
   }
   for (size_t k = 0; k < seen.size(); ++k)
     if (!seen[k])
-      return fail(error, "shard " + std::to_string(k + 1) + "/" + std::to_string(first.shards) + " is missing");
+      return fail(error,
+                  "shard " + std::to_string(k + 1) + "/" + std::to_string(first.shards) + " is missing");
 
   SweepTable t;
   t.sheet_path = first.sheet_path;
