@@ -255,6 +255,8 @@ TEST_CASE("sweep: bad studies are errors, exit 2", "[study][sweep][diagnostics]"
       {" --vary 'm_load=1 kg..2 kg' --show P_motor --shard 3/2", "--shard takes K/N"},
       {" --vary 'm_load=1 kg..2 kg' --vary 'm_load=1 kg, 3 kg' --show P_motor", "`m_load` is varied twice"},
       {" --vary 'm_load=1 kg..2 kg' --show P_motor --format html", "html not in"},
+      {" --vary 'm_load=1 kg..2 kg' --vary 'L_col=1 m..2 m' --steps 10000000 --show P_motor",
+       "at most 10000000 points a run"},
   };
   for (const Case& c : cases) {
     const test::Run r = test::runCli(w + c.args);

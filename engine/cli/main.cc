@@ -132,7 +132,7 @@ int main(int argc, char** argv) {
       ->type_name("NAME=RANGE")
       ->allow_extra_args(false);
   sweep_cmd->add_option("--steps", sweep.steps, "Points of a range, both ends included")
-      ->check(CLI::Range(0, 100000000))
+      ->check(CLI::Range(0, 10000000))
       ->default_str("11");
   sweep_cmd->add_flag("--log", sweep.log, "Logarithmic steps");
   sweep_cmd->add_option("--show", sweep.show, "The results to record: NAME[,NAME...]")

@@ -120,6 +120,15 @@ int runSweepCommand(const SweepArgs& args) {
     printDiagnostics(diags);
     return kExitError;
   }
+  // The table of one run is held in memory: bound it before anything is allocated for it.
+  constexpr double kMaxPoints = 1e7;
+  double total = 1;
+  for (const StudyRange& r : spec.vary) total *= static_cast<double>(r.values.size());
+  if (total / spec.shards > kMaxPoints) {
+    std::cerr << "calctrail: error: the sweep has " << total << " points, " << total / spec.shards
+              << " in this run; at most 10000000 points a run (split it with --shard K/N)\n";
+    return kExitError;
+  }
   spec.log = args.log;
   spec.jobs = args.jobs ? args.jobs : std::max(1u, std::thread::hardware_concurrency());
   SweepTable t = runSweep(m, *calc->inputs, calc->results, spec);
