@@ -64,7 +64,7 @@ InputSensitivity oneInput(const Model& m, const Inputs& base, const Results& bas
       }
     }
   }
-  std::stable_sort(s.flips.begin(), s.flips.end(), [](const CheckFlip& a, const CheckFlip& b) {
+  std::stable_sort(s.flips.begin(), s.flips.end(), [](const SensitivityFlip& a, const SensitivityFlip& b) {
     return std::fabs(a.change) < std::fabs(b.change);
   });
   return s;

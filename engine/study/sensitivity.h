@@ -23,7 +23,7 @@ struct SensitivityOptions {
   int flip_steps = 10;
 };
 
-struct CheckFlip {
+struct SensitivityFlip {
   /// The check's name.
   std::string check;
   /// The relative change of the input at the first sample where its state differs from the nominal one
@@ -43,7 +43,7 @@ struct InputSensitivity {
   double elasticity = 0;
   std::string error;
   /// The checks that change state within +-flip_range, nearest first per side.
-  std::vector<CheckFlip> flips;
+  std::vector<SensitivityFlip> flips;
   /// A relative change within +-flip_range at which the sheet cannot be calculated (0: none); its message.
   double fails_at = 0;
   std::string fails_message;

@@ -249,7 +249,7 @@ std::string renderSweepJson(const SweepTable& t) {
 }
 
 std::string renderSweepSvg(const SweepTable& t) {
-  Plot plot;
+  LinePlot plot;
   plot.title = "Sweep of " + t.sheet_path + (t.sets.empty() ? "" : " (changed by --set)");
   plot.x_label = header(t.vary[0].name, t.vary[0].unit);
   plot.log_x = t.log;
@@ -486,7 +486,7 @@ std::string renderSensitivityText(const StudySource& src, const Model& m, const 
       {"input", "value", "elasticity", "to raise " + q.name, "checks that change state within +-10 %"});
   for (const InputSensitivity& in : out.inputs) {
     std::string flips;
-    for (const CheckFlip& f : in.flips)
+    for (const SensitivityFlip& f : in.flips)
       flips += (flips.empty() ? "" : "; ") + f.check + (f.passes ? " passes" : " fails") + " at " +
                percent(f.change);
     if (in.fails_at != 0)
@@ -526,7 +526,7 @@ std::string renderSensitivityJson(const StudySource& src, const Model& m, const 
     else
       w.value(in.error);
     w.key("flips").beginArray();
-    for (const CheckFlip& f : in.flips) {
+    for (const SensitivityFlip& f : in.flips) {
       w.beginObject();
       w.key("check").value(f.check);
       w.key("change").value(f.change);

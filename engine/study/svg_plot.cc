@@ -57,7 +57,7 @@ std::vector<double> niceTicks(double lo, double hi, int count) {
   return out;
 }
 
-std::string renderSvg(const Plot& plot) {
+std::string renderSvg(const LinePlot& plot) {
   fmt::memory_buffer out;
   auto it = std::back_inserter(out);
   const double plot_w = kWidth - kLeft - kRight;

@@ -25,7 +25,7 @@ struct PlotPanel {
   std::vector<PlotLine> lines;
 };
 
-struct Plot {
+struct LinePlot {
   /// Above the panels.
   std::string title;
   /// Below the x axis, under the last panel ("m_load [kg]").
@@ -38,7 +38,7 @@ struct Plot {
   bool log_x = false;
 };
 
-std::string renderSvg(const Plot& plot);
+std::string renderSvg(const LinePlot& plot);
 
 // Up to about `count` round tick values covering [lo, hi] (steps of 1, 2 or 5 times a power of ten).
 std::vector<double> niceTicks(double lo, double hi, int count);

@@ -27,7 +27,7 @@ void runChunk(const Model& m, const Inputs& base, const Results& base_results, c
   const size_t nv = spec.vary.size(), ns = spec.show.size(), nc = m.checks().size();
   std::vector<Slot> slots;
   for (const StudyRange& r : spec.vary) slots.push_back(r.input.slot);
-  double x[2] = {0, 0};
+  std::vector<double> x(nv, 0.0);
   for (size_t p = begin; p < end; ++p) {
     uint64_t rest = t->index[p];
     for (size_t j = nv; j-- > 0;) {  // the last input varies fastest
@@ -35,7 +35,7 @@ void runChunk(const Model& m, const Inputs& base, const Results& base_results, c
       x[j] = spec.vary[j].values[rest % n];
       rest /= n;
     }
-    const Results& r = point.at(slots, x);
+    const Results& r = point.at(slots, x.data());
     for (size_t j = 0; j < nv; ++j) t->inputs[p * nv + j] = x[j];
     for (size_t j = 0; j < ns; ++j) t->results[p * ns + j] = r.value(spec.show[j]);
     const Fault* f = firstFault(r);
