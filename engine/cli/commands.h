@@ -49,6 +49,53 @@ int runFmt(const FmtArgs& args);
 
 int runTextconv(const std::string& file, int digits);
 
+// Design studies (engine/study/, docs/studies.md): what every study takes.
+struct StudyArgs {
+  std::string file;
+  std::vector<std::string> sets;  // "NAME=VALUE" from --set, in order
+  std::string case_name;          // --case: the load case studied ("": the worksheet as written)
+  std::string format = "text";
+  std::string output;             // -o: a file instead of standard output
+  int digits = 4;                 // significant digits in text output
+};
+
+struct SweepArgs {
+  StudyArgs study;
+  std::vector<std::string> vary;   // "NAME=FROM..TO" or "NAME=V1, V2, ..."; one or two
+  int steps = 11;                  // points of a range, both ends included
+  bool log = false;                // logarithmic steps
+  std::vector<std::string> show;   // results to record ("a,b" or repeated)
+  std::string shard;               // "K/N": this run computes every N-th point from the K-th
+  unsigned jobs = 0;               // threads; 0: one per core
+  std::vector<std::string> merge;  // shard JSON files to merge instead of running
+};
+int runSweepCommand(const SweepArgs& args);
+
+struct SolveArgs {
+  StudyArgs study;
+  std::string vary;      // the input solved for
+  std::string between;   // "LO..HI"
+  std::string target;    // "EXPR = EXPR"
+  std::string capacity;  // "max" or "min"
+  int samples = 41;      // points the bracket is sampled at first
+};
+int runSolveCommand(const SolveArgs& args);
+
+struct SensitivityArgs {
+  StudyArgs study;
+  std::string of;  // the quantity studied
+};
+int runSensitivityCommand(const SensitivityArgs& args);
+
+struct PickArgs {
+  StudyArgs study;
+  std::string vary;  // the input picked for
+  std::string from;  // a series name or "V1, V2, ..."
+  bool smallest = false;
+  std::string by;    // an expression to minimise instead
+};
+int runPickCommand(const PickArgs& args);
+
 // writeOutputFile (engine/util/safe_write.h) with no input to refuse; a command
 // that reads worksheets passes them to writeOutputFile instead.
 bool writeFileAtomically(const std::string& path, const std::string& text, std::string* error);

@@ -172,6 +172,85 @@ int main(int argc, char** argv) {
       "  git config diff.calctrail.textconv \"calctrail textconv\"\n"
       "  echo '*.calc diff=calctrail' >> .gitattributes");
 
+  // Design studies (docs/studies.md): one block per command.
+  auto study_options = [](CLI::App* cmd, StudyArgs* a, std::vector<std::string> formats) {
+    cmd->add_option("--set", a->sets, "Replace the definition of NAME by VALUE for this run only")
+        ->type_name("NAME=VALUE")
+        ->allow_extra_args(false);
+    cmd->add_option("--case", a->case_name, "Study this load case (its replacements under --set)")
+        ->type_name("NAME");
+    cmd->add_option("--format,-f", a->format, "Output format")
+        ->check(CLI::IsMember(formats))
+        ->default_str("text");
+    cmd->add_option("-o,--output", a->output, "Write to this file instead of standard output");
+    cmd->add_option("--digits", a->digits, "Significant digits in text output (1 to 15)")
+        ->check(CLI::Range(1, 15))
+        ->default_str("4");
+  };
+
+  SweepArgs sweep;
+  CLI::App* sweep_cmd = app.add_subcommand(
+      "sweep", "Evaluate a worksheet over a range or list of one input (or a grid of two): results, checks");
+  sweep_cmd->add_option("FILE", sweep.study.file, "The worksheet (.calc)");
+  sweep_cmd->add_option("--vary", sweep.vary, "NAME=FROM..TO or NAME=V1, V2, ... (twice for a grid)")
+      ->type_name("NAME=RANGE")
+      ->allow_extra_args(false);
+  sweep_cmd->add_option("--steps", sweep.steps, "Points of a range, both ends included")
+      ->check(CLI::Range(0, 10000000))
+      ->default_str("11");
+  sweep_cmd->add_flag("--log", sweep.log, "Logarithmic steps");
+  sweep_cmd->add_option("--show", sweep.show, "The results to record: NAME[,NAME...]")
+      ->allow_extra_args(false);
+  sweep_cmd->add_option("--shard", sweep.shard, "Compute only shard K of N (every N-th point from the K-th)")
+      ->type_name("K/N");
+  sweep_cmd->add_option("-j,--jobs", sweep.jobs, "Threads (default: one per core)");
+  sweep_cmd->add_option("--merge", sweep.merge, "Merge the JSON of the shards of a sweep (no FILE or --vary)")
+      ->type_name("SHARD.json...");
+  study_options(sweep_cmd, &sweep.study, {"text", "csv", "json", "svg"});
+  sweep_cmd->footer(
+      "\nExit status: 0 every point calculated (checks failing at some points are shown, not an error);\n"
+      "2 a point cannot be calculated, or the worksheet or the command line has errors.\n"
+      "Examples:\n"
+      "  calctrail sweep gate.calc --vary \"d=20 mm..60 mm\" --steps 9 --show T_raise,P_motor\n"
+      "  calctrail sweep lift.calc --vary \"m_load=3 t..6 t\" --show P_motor --shard 1/2 -f json > a.json\n"
+      "  calctrail sweep --merge a.json b.json --format csv");
+
+  SolveArgs solve;
+  CLI::App* solve_cmd = app.add_subcommand(
+      "solve", "Find the input that meets a target, or the largest/smallest for which every check passes");
+  solve_cmd->add_option("FILE", solve.study.file, "The worksheet (.calc)")->required();
+  solve_cmd->add_option("--vary", solve.vary, "The input to solve for (a given value)")->required();
+  solve_cmd->add_option("--between", solve.between, "The bracket LO..HI, with units")->required();
+  solve_cmd->add_option("--target", solve.target, "An equation EXPR = EXPR, as in \"T_motor = 12 [N*m]\"");
+  solve_cmd->add_option("--capacity", solve.capacity, "max or min: the extreme value passing every check")
+      ->check(CLI::IsMember({"max", "min"}));
+  solve_cmd->add_option("--samples", solve.samples, "Points the bracket is sampled at before solving")
+      ->check(CLI::Range(3, 100000))
+      ->default_str("41");
+  study_options(solve_cmd, &solve.study, {"text", "json"});
+  solve_cmd->footer("\nExit status: 0 solved (every check passes there); 1 no root in the bracket, nothing\n"
+                    "passes, or a check fails at the value found; 2 errors.");
+
+  SensitivityArgs sens;
+  CLI::App* sens_cmd = app.add_subcommand(
+      "sensitivity", "Rank the given values by their effect on a result (elasticity), and checks they flip");
+  sens_cmd->add_option("FILE", sens.study.file, "The worksheet (.calc)")->required();
+  sens_cmd->add_option("--of", sens.of, "The quantity studied")->required();
+  study_options(sens_cmd, &sens.study, {"text", "json"});
+  sens_cmd->footer("\nExit status: 0 done; 1 a check fails at the nominal point; 2 errors.");
+
+  PickArgs pick;
+  CLI::App* pick_cmd = app.add_subcommand(
+      "pick", "Choose the smallest standard size (or the least --by result) for which every check passes");
+  pick_cmd->add_option("FILE", pick.study.file, "The worksheet (.calc)")->required();
+  pick_cmd->add_option("--vary", pick.vary, "The input picked for (a given value)")->required();
+  pick_cmd->add_option("--from", pick.from, "A series (trapezoidal, acme, motor_outputs) or \"V1, V2, ...\"")
+      ->required();
+  pick_cmd->add_flag("--smallest", pick.smallest, "The smallest value that passes (the default)");
+  pick_cmd->add_option("--by", pick.by, "The passing value with the least result of EXPR instead");
+  study_options(pick_cmd, &pick.study, {"text", "json"});
+  pick_cmd->footer("\nExit status: 0 a value passes; 1 none does; 2 errors.");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -193,6 +272,10 @@ int main(int argc, char** argv) {
     if (diff_cmd->parsed()) return runDiff(diff);
     if (fmt_cmd->parsed()) return runFmt(fmt_args);
     if (textconv_cmd->parsed()) return runTextconv(textconv_file, textconv_digits);
+    if (sweep_cmd->parsed()) return runSweepCommand(sweep);
+    if (solve_cmd->parsed()) return runSolveCommand(solve);
+    if (sens_cmd->parsed()) return runSensitivityCommand(sens);
+    if (pick_cmd->parsed()) return runPickCommand(pick);
   } catch (const std::exception& e) {
     std::cerr << "calctrail: internal error: " << e.what() << "\n";
     return kExitError;
