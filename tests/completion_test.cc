@@ -37,7 +37,7 @@ std::string complete(const std::string& line, const std::string& dir = "") {
 }  // namespace
 
 TEST_CASE("completion: commands, from the program's own help", "[completion]") {
-  CHECK(complete("''") == "report\ncheck\nfunctions\nunits\ndiff\nfmt\ntextconv\n");
+  CHECK(complete("''") == "report\ncheck\nfunctions\nunits\ndiff\nfmt\ntextconv\nlsp\n");
   CHECK(complete("rep") == "report\n");
   CHECK(complete("t") == "textconv\n");
   CHECK(complete("-") == "--help\n--version\n");

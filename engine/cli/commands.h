@@ -47,6 +47,9 @@ int runFmt(const FmtArgs& args);
 
 int runTextconv(const std::string& file, int digits);
 
+// The language server over standard input and output (engine/lsp/, docs/editors/lsp.md).
+int runLsp();
+
 // writeOutputFile (engine/util/safe_write.h) with no input to refuse; a command
 // that reads worksheets passes them to writeOutputFile instead.
 bool writeFileAtomically(const std::string& path, const std::string& text, std::string* error);

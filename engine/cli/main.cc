@@ -166,6 +166,11 @@ int main(int argc, char** argv) {
       "  git config diff.calctrail.textconv \"calctrail textconv\"\n"
       "  echo '*.calc diff=calctrail' >> .gitattributes");
 
+  CLI::App* lsp_cmd = app.add_subcommand(
+      "lsp", "Serve the Language Server Protocol on standard input and output (docs/editors/lsp.md)");
+  lsp_cmd->footer("\nEditors start it themselves: diagnostics, values on hover and as inlay hints, definition,\n"
+                  "references, rename, completion and formatting as one types.");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -187,6 +192,7 @@ int main(int argc, char** argv) {
     if (diff_cmd->parsed()) return runDiff(diff);
     if (fmt_cmd->parsed()) return runFmt(fmt_args);
     if (textconv_cmd->parsed()) return runTextconv(textconv_file, textconv_digits);
+    if (lsp_cmd->parsed()) return runLsp();
   } catch (const std::exception& e) {
     std::cerr << "calctrail: internal error: " << e.what() << "\n";
     return kExitError;
