@@ -524,6 +524,27 @@ TEST_CASE("lsp inlay hints: values and check verdicts, updated as one types", "[
   CHECK(c.result("textDocument/inlayHint", params) == json::array());
 }
 
+TEST_CASE("lsp inlay hints: the client is asked to refresh them after a change", "[lsp][inlayHint]") {
+  Client c(false);
+  c.result("initialize", {{"capabilities", {{"workspace", {{"inlayHint", {{"refreshSupport", true}}}}}}}});
+  c.open(kSheet);
+  c.change(2, json::array({change(0, 4, 0, 6, "30")}));
+  int refreshes = 0;
+  for (const json& m : c.notifications) refreshes += m["method"] == "workspace/inlayHint/refresh";
+  CHECK(refreshes == 2);  // after the open and after the change
+  const json& last = c.notifications.back();
+  CHECK(last["method"] == "workspace/inlayHint/refresh");
+  REQUIRE(last.contains("id"));
+  // The client's answer needs no reply of ours.
+  const size_t n = c.responses.size();
+  c.sendRaw(lsp::dump({{"jsonrpc", "2.0"}, {"id", last["id"]}, {"result", nullptr}}));
+  CHECK(c.responses.size() == n);
+  // Without the capability, no such request.
+  Client plain;
+  plain.open(kSheet);
+  for (const json& m : plain.notifications) CHECK(m["method"] != "workspace/inlayHint/refresh");
+}
+
 TEST_CASE("lsp formatting: calctrail fmt as one edit", "[lsp][formatting]") {
   Client c;
   const std::string messy = "F=20 kN # load\nd   =  40 mm\nA [mm^2] = pi*d^2/4\n";
