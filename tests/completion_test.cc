@@ -37,7 +37,7 @@ std::string complete(const std::string& line, const std::string& dir = "") {
 }  // namespace
 
 TEST_CASE("completion: commands, from the program's own help", "[completion]") {
-  CHECK(complete("''") == "report\ncheck\nfunctions\nunits\ndiff\nfmt\ntextconv\nsweep\nsolve\nsensitivity\npick\n");
+  CHECK(complete("''") == "report\ncheck\nfunctions\nunits\ndiff\nfmt\ntextconv\nsweep\nsolve\nsensitivity\npick\nlsp\n");
   CHECK(complete("rep") == "report\n");
   CHECK(complete("t") == "textconv\n");
   CHECK(complete("-") == "--help\n--version\n");

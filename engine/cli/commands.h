@@ -96,6 +96,9 @@ struct PickArgs {
 };
 int runPickCommand(const PickArgs& args);
 
+// The language server over standard input and output (engine/lsp/, docs/editors/lsp.md).
+int runLsp();
+
 // writeOutputFile (engine/util/safe_write.h) with no input to refuse; a command
 // that reads worksheets passes them to writeOutputFile instead.
 bool writeFileAtomically(const std::string& path, const std::string& text, std::string* error);

@@ -251,6 +251,11 @@ int main(int argc, char** argv) {
   study_options(pick_cmd, &pick.study, {"text", "json"});
   pick_cmd->footer("\nExit status: 0 a value passes; 1 none does; 2 errors.");
 
+  CLI::App* lsp_cmd = app.add_subcommand(
+      "lsp", "Serve the Language Server Protocol on standard input and output (docs/editors/lsp.md)");
+  lsp_cmd->footer("\nEditors start it themselves: diagnostics, values on hover and as inlay hints, definition,\n"
+                  "references, rename, completion and formatting as one types.");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -276,6 +281,7 @@ int main(int argc, char** argv) {
     if (solve_cmd->parsed()) return runSolveCommand(solve);
     if (sens_cmd->parsed()) return runSensitivityCommand(sens);
     if (pick_cmd->parsed()) return runPickCommand(pick);
+    if (lsp_cmd->parsed()) return runLsp();
   } catch (const std::exception& e) {
     std::cerr << "calctrail: internal error: " << e.what() << "\n";
     return kExitError;

@@ -1,0 +1,101 @@
+#include "engine/lsp/navigation.h"
+
+#include <cctype>
+
+#include "engine/lsp/protocol_json.h"
+#include "engine/util/utf8.h"
+
+namespace calctrail::lsp {
+
+namespace {
+
+// The quantity named at `offset`: a definition or a use of a defined name.
+const Symbol* quantityAt(const Analysis& a, uint32_t offset) {
+  if (!a.calc) return nullptr;
+  const Symbol* s = a.at(offset);
+  if (!s || (s->kind != Symbol::QuantityDef && s->kind != Symbol::QuantityUse) || s->index < 0)
+    return nullptr;
+  return s;
+}
+
+// Words a statement starts with, and the constant: never a quantity's name.
+bool isReserved(const std::string& name) {
+  for (const char* w : {"pi", "check", "section", "note", "param", "use", "case"})
+    if (name == w) return true;
+  return false;
+}
+
+}  // namespace
+
+bool isValidName(const std::string& name) {
+  if (name.empty()) return false;
+  for (size_t i = 0; i < name.size();) {
+    const unsigned char c = static_cast<unsigned char>(name[i]);
+    if (c < 0x80) {
+      const bool ok = std::isalpha(c) || (i > 0 && (std::isdigit(c) || c == '_'));
+      if (!ok) return false;
+      ++i;
+      continue;
+    }
+    if (findInvalidUtf8(std::string_view(name).substr(i, 4)) == 0) return false;
+    size_t n = 0;
+    if (!isGreekLetter(decodeUtf8(name, i, &n))) return false;
+    i += n;
+  }
+  return true;
+}
+
+nlohmann::json definition(const Analysis& a, const Document& doc, uint32_t offset) {
+  const Symbol* s = quantityAt(a, offset);
+  if (!s) return nullptr;
+  const Quantity& q = a.calc->sheet.quantities[s->index];
+  return location(doc.uri(), rangeOf(doc, q.name_begin, q.name_end));
+}
+
+nlohmann::json references(const Analysis& a, const Document& doc, uint32_t offset, bool with_declaration) {
+  nlohmann::json out = nlohmann::json::array();
+  const Symbol* s = quantityAt(a, offset);
+  if (!s) return out;
+  for (const Symbol* use : a.occurrences(s->index)) {
+    if (use->kind == Symbol::QuantityDef && !with_declaration) continue;
+    out.push_back(location(doc.uri(), rangeOf(doc, use->begin, use->end)));
+  }
+  return out;
+}
+
+nlohmann::json prepareRename(const Analysis& a, const Document& doc, uint32_t offset) {
+  const Symbol* s = quantityAt(a, offset);
+  if (!s) return nullptr;
+  return {{"range", toJson(rangeOf(doc, s->begin, s->end))}, {"placeholder", s->name}};
+}
+
+RenameResult rename(const Analysis& a, const Document& doc, uint32_t offset, const std::string& new_name) {
+  RenameResult r;
+  const Symbol* s = quantityAt(a, offset);
+  if (!s) return r;
+  if (!isValidName(new_name)) {
+    r.error = "`" + new_name + "` is not a name: a letter, then letters, digits or `_`";
+    return r;
+  }
+  if (isReserved(new_name)) {
+    r.error = "`" + new_name + "` is a reserved word of the worksheet format";
+    return r;
+  }
+  const int other = a.calc->sheet.find(new_name);
+  if (other >= 0 && other != s->index) {
+    r.error = "`" + new_name + "` is already defined on line " +
+              std::to_string(a.calc->sheet.quantities[other].line);
+    return r;
+  }
+  if (findFunction(new_name)) {
+    r.error = "`" + new_name + "` is the name of a library function";
+    return r;
+  }
+  nlohmann::json edits = nlohmann::json::array();
+  for (const Symbol* use : a.occurrences(s->index))
+    edits.push_back({{"range", toJson(rangeOf(doc, use->begin, use->end))}, {"newText", new_name}});
+  r.edit = {{"changes", {{doc.uri(), edits}}}};
+  return r;
+}
+
+}  // namespace calctrail::lsp
