@@ -42,6 +42,7 @@ void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& optio
   if (!diags.hasErrors()) {
     results = evaluate(*model, *inputs);
     for (const Fault& f : results.faults) diags.error(*f.file, f.begin, f.end, f.message);
+    for (const Fault& w : results.warnings) diags.warning(*w.file, w.begin, w.end, w.message);
   }
   fillStates();
   diags.sort();
