@@ -73,6 +73,7 @@ void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& optio
       if (f.site == Fault::Site::Check) note = sheet.instanceNote(sheet.checks[f.index].instance);
       diags.error(*f.file, f.begin, f.end, f.message + note);
     }
+    for (const Fault& w : results.warnings) diags.warning(*w.file, w.begin, w.end, w.message);
     evaluateCases(&evaluation);
   }
   fillStates();

@@ -16,6 +16,19 @@ namespace calctrail::fn {
 
 namespace {
 
+constexpr double kMaxModulus = 1200e9;
+const char* const kModulusWhy =
+    "screw and shaft metals: magnesium and aluminium alloys 45 to 72 GPa, bronzes and titanium 100 to 120 GPa, "
+    "cast irons 100 to 170 GPa, steels 190 to 215 GPa (handbook tables, from memory)";
+
+// No solid exceeds the modulus of diamond, about 1200 GPa: a larger E is a slip of units.
+double modulus(const double* a, int i) {
+  const double E = positive(a, i, "modulus of elasticity E", Show::Modulus);
+  if (!(E <= kMaxModulus))
+    fail(i, "modulus of elasticity E = " + show(E, Show::Modulus) +
+                " is above that of any solid (diamond, about 1200 GPa): a slip of units?");
+  return E;
+}
 
 // A round section of diameter dr: radius of gyration dr/4.
 struct Column {
@@ -33,7 +46,7 @@ Column column(const double* a, int first) {
   c.C = positive(a, first + 2, "end-condition constant C", Show::Plain);
   if (!(c.C <= 4.0))
     fail(first + 2, "end-condition constant C = " + num(c.C) + " must be <= 4 (both ends fixed, theoretical)");
-  c.E = positive(a, first + 3, "modulus of elasticity E", Show::Modulus);
+  c.E = modulus(a, first + 3);
   return c;
 }
 
@@ -61,11 +74,31 @@ double slenderness(const double* a) {
 double transitionSlenderness(const double* a) {
   const double C = positive(a, 0, "end-condition constant C", Show::Plain);
   if (!(C <= 4.0)) fail(0, "end-condition constant C = " + num(C) + " must be <= 4 (both ends fixed, theoretical)");
-  const double E = positive(a, 1, "modulus of elasticity E", Show::Modulus);
+  const double E = modulus(a, 1);
   return result(transitionOf(C, E, yield(a, 2, E)));
 }
 
 double eulerLoad(const double* a) { return result(column(a, 0).euler()); }
+
+// Euler's load holds above the transition slenderness, that is where the
+// Euler stress stays below half the yield strength. euler_load has no Sy, so
+// it doubts every column whose Euler stress exceeds half the yield strength of
+// a mild screw steel (Sy/E = 0.001, about 207 MPa at 207 GPa): there Euler's
+// load is too high for such a material.
+constexpr double kLowYieldRatio = 0.001;
+
+std::string adviseEuler(const double* a, int, int* arg) {
+  const double dr = a[0], L = a[1], C = a[2], E = a[3];
+  const double s = 4.0 * L / dr;
+  const double sigma = C * kPi * kPi * E / (s * s);
+  if (!(sigma > kLowYieldRatio * E / 2)) return "";
+  *arg = 1;
+  return "the Euler stress C*pi^2*E/(L/k)^2 = " + show(sigma, Show::Stress) + " at L/k = " + num(s) +
+         " is above half the yield strength of a mild screw steel: Euler's load holds only for Sy >= " +
+         show(2 * sigma, Show::Stress) + " (above the transition slenderness); for a weaker material the column "
+         "is intermediate and Euler's load too high (3.7 % at 0.9 of the transition slenderness, 2.3 times at "
+         "half of it): use buckling_load(dr, L, C, E, Sy), which chooses";
+}
 
 double johnsonLoad(const double* a) {
   const Column c = column(a, 0);
@@ -110,8 +143,12 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
   const FunctionArg dr = arg("dr", length(), "minor (root) diameter of the screw, the column's diameter");
   const FunctionArg L = arg("L", length(), "column length: between the nut and the thrust bearing or support");
   const FunctionArg C = arg("C", none(), "end-condition constant (1/K^2 with K the effective-length factor)");
-  const FunctionArg E = arg("E", stress(), "modulus of elasticity");
-  const FunctionArg Sy = arg("Sy", stress(), "yield strength");
+  const FunctionArg E = usually(arg("E", stress(), "modulus of elasticity"), 40e9, 250e9, Show::Modulus,
+                                kModulusWhy);
+  const FunctionArg Sy = usually(arg("Sy", stress(), "yield strength"), 100e6, 2000e6, Show::Stress,
+                                 "screw metals: annealed bronze and aluminium alloys from about 100 MPa, "
+                                 "structural steels 235 to 355 MPa, quenched and tempered alloy steels to "
+                                 "about 1500 MPa (EN 10025-2, EN 10083-3 minimum values, from memory)");
   const std::string cl(kCLimit);
   {
     FunctionDecl d;
@@ -136,7 +173,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = none();
     d.result_unit = "1";
     d.formula = "sqrt(2*pi^2*C*E/Sy)";
-    d.limits = cl + "; E > 0, 0 < Sy < E";
+    d.limits = cl + "; 0 < E <= 1200 GPa, 0 < Sy < E";
     d.source = kSource;
     d.caution = kCaution;
     d.example = {1, 207e9, 500e6};
@@ -151,12 +188,15 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "C*pi^2*E*(pi*dr^4/64)/L^2";
-    d.limits = "dr > 0, L > 0, " + cl + ", E > 0. Valid above the transition slenderness only: "
-               "below it Euler overestimates the load (use buckling_load, which chooses)";
+    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
+               "below it Euler overestimates the load (use buckling_load, which chooses). Without Sy the "
+               "transition is unknown: a call whose Euler stress exceeds half the yield strength of a mild "
+               "screw steel (0.0005*E) is a warning";
     d.source = kSource;
     d.caution = std::string(kCaution) + " Below the transition slenderness Euler's load is unsafe.";
     d.example = {0.0375, 1.5, 1, 207e9};
     d.eval = eulerLoad;
+    d.advise = adviseEuler;
     out.push_back(std::move(d));
   }
   {
@@ -167,7 +207,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "pi*dr^2/4 * (Sy - (2*Sy*L/(pi*dr))^2/(C*E))";
-    d.limits = "dr > 0, L > 0, " + cl + ", E > 0, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
+    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
                "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error";
     d.source = kSource;
     d.caution = kCaution;
@@ -184,7 +224,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result_unit = "kN";
     d.formula = "johnson_load when L/(dr/4) <= sqrt(2*pi^2*C*E/Sy), else euler_load";
     d.formula_is_expression = false;
-    d.limits = "dr > 0, L > 0, " + cl + ", E > 0, 0 < Sy < E";
+    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E";
     d.source = kSource;
     d.caution = kCaution;
     d.example = {0.0375, 1.5, 1, 207e9, 500e6};
@@ -200,7 +240,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result_unit = "1";
     d.formula = "buckling_load(dr, L, C, E, Sy) / F";
     d.formula_is_expression = false;
-    d.limits = "F > 0, dr > 0, L > 0, " + cl + ", E > 0, 0 < Sy < E";
+    d.limits = "F > 0, dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E";
     d.source = kSource;
     d.caution = kCaution;
     d.example = {22000, 0.0375, 1.5, 1, 207e9, 500e6};

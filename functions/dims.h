@@ -11,6 +11,8 @@ namespace calctrail::dims {
 inline Dimension none() { return Dimension(); }
 inline Dimension length() { return Dimension::exponents(1, 0, 0); }
 inline Dimension perLength() { return Dimension::exponents(-1, 0, 0); }
+inline Dimension mass() { return Dimension::exponents(0, 1, 0); }
+inline Dimension inertia() { return Dimension::exponents(2, 1, 0); }
 inline Dimension force() { return Dimension::exponents(1, 1, -2); }
 inline Dimension torque() { return Dimension::exponents(2, 1, -2); }
 inline Dimension stress() { return Dimension::exponents(-1, 1, -2); }

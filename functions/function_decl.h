@@ -3,6 +3,7 @@
 // is written twice: the listing and the docs are generated from these.
 #pragma once
 
+#include <cmath>
 #include <stdexcept>
 #include <string>
 #include <string_view>
@@ -20,6 +21,16 @@ struct FunctionArg {
   // length per angle such as [mm/rev]. eval() always receives metres per
   // revolution.
   bool per_revolution = false;
+  // The range met in practice, in SI values, from the materials or the practice
+  // the argument stands for: a call outside it is evaluated, with a warning at
+  // the call (a value off by 1000 is a slip of units). Infinite: no bound.
+  double usual_min = -HUGE_VAL, usual_max = HUGE_VAL;
+  // The unit the warning and the docs show the range in ("GPa"), and its SI value.
+  std::string usual_unit;
+  double usual_factor = 1.0;
+  // What the range stands for, with its source ("steels 190 to 215 GPa ...").
+  std::string usual_why;
+  bool hasUsualRange() const { return usual_min > -HUGE_VAL || usual_max < HUGE_VAL; }
 };
 
 // Thrown by FunctionDecl::eval when an input is outside the validity limits.
@@ -37,6 +48,12 @@ struct FunctionDecl {
   std::string name;      // short, in the words of the trade: "torque_raise"
   std::string summary;   // one line for listings
   std::vector<FunctionArg> args;
+  // The last `repeat` arguments form a group that may be given again any number
+  // of times (stages of a train, steps of a duty cycle): `overall_ratio(i1, i2,
+  // ...)`. The declared args are the shortest call; a repeated argument is
+  // named after its declared one with the group's number ("F3", "n3"). 0: a
+  // fixed number of arguments.
+  int repeat = 0;
   Dimension result;
   // The result is a lead (length per revolution): eval() returns metres per
   // revolution and the engine stores it as length per angle, so that
@@ -59,6 +76,32 @@ struct FunctionDecl {
   // SI values in (per-revolution args in metres per revolution), SI value out.
   // Throws DomainError outside the validity limits. Never returns NaN or inf.
   double (*eval)(const double* args) = nullptr;
+  // With repeat > 0: the same, for any number n of arguments (the declared ones,
+  // then whole groups); eval() is this with n = args.size().
+  double (*eval_n)(const double* args, int n) = nullptr;
+  // A doubt about a call that is within every argument's limits and usual
+  // range, taken together (a column shorter than Euler's formula holds for):
+  // "" when none, else the warning; *arg the argument to point at, or -1. Runs
+  // on every call, so it builds no text unless there is a doubt.
+  std::string (*advise)(const double* args, int n, int* arg) = nullptr;
+
+  // The number of arguments a call with `n` arguments has valid: the declared
+  // count, or with repeat > 0 that plus whole groups.
+  bool takes(int n) const {
+    const int fixed = static_cast<int>(args.size());
+    if (repeat == 0) return n == fixed;
+    return n >= fixed && (n - fixed) % repeat == 0;
+  }
+  // The declaration of argument k of a call (k may be past args.size() in a
+  // repeated group).
+  const FunctionArg& argAt(int k) const {
+    const int fixed = static_cast<int>(args.size());
+    if (k < fixed || repeat == 0) return args[static_cast<size_t>(k)];
+    return args[static_cast<size_t>(fixed - repeat + (k - fixed) % repeat)];
+  }
+  // The name of argument k of a call: "F3" for the third step of a group whose
+  // declared names end in 1 and 2 ("F1", "n1", "q1", "F2", ...).
+  std::string argName(int k) const;
 };
 
 namespace fn {
@@ -70,6 +113,17 @@ inline FunctionArg arg(const char* name, Dimension dim, const char* description,
   x.description = description;
   x.per_revolution = per_rev;
   return x;
+}
+// The same argument with a usual range (SI values), shown in `unit` (SI value
+// `factor`), and what the range stands for.
+inline FunctionArg usual(FunctionArg a, double lo, double hi, const char* unit, double factor,
+                         const char* why) {
+  a.usual_min = lo;
+  a.usual_max = hi;
+  a.usual_unit = unit;
+  a.usual_factor = factor;
+  a.usual_why = why;
+  return a;
 }
 }  // namespace fn
 

@@ -7,6 +7,7 @@
 
 #include "engine/util/json_writer.h"
 #include "functions/function_library.h"
+#include "functions/plausibility.h"
 
 namespace calctrail {
 
@@ -18,7 +19,30 @@ std::string signature(const FunctionDecl& d) {
     if (k) s += ", ";
     s += d.args[k].name;
   }
+  if (d.repeat > 0) s += ", ...";  // a repeated group: any number more like the last
   return s + ")";
+}
+
+// "any number of further stages like the last (i3, ...)", or "".
+std::string repeatText(const FunctionDecl& d) {
+  if (d.repeat == 0) return "";
+  std::string group;
+  for (int k = 0; k < d.repeat; ++k) group += (k ? ", " : "") + d.argName(static_cast<int>(d.args.size()) + k);
+  return d.repeat == 1 ? "any number of further arguments like the last (" + group + ", ...)"
+                       : "any number of further groups of " + std::to_string(d.repeat) + " like the last (" +
+                             group + ", ...)";
+}
+
+// The usual ranges of the arguments that have one, "; "-separated, or "".
+std::string usualText(const FunctionDecl& d) {
+  std::string s;
+  for (const FunctionArg& a : d.args) {
+    const std::string t = usualRangeText(a);
+    if (t.empty()) continue;
+    if (!s.empty()) s += "; ";
+    s += t;
+  }
+  return s;
 }
 
 // A lead or pitch is carried as length per angle by the engine.
@@ -83,9 +107,11 @@ void appendDetail(std::string& out, const FunctionDecl& d) {
     for (const FunctionArg& a : d.args)
       out += "    " + pad(a.name, name_w) + "  " + pad(dimText(a.dim, a.per_revolution), dim_w) + "  " +
              a.description + "\n";
+    if (d.repeat > 0) out += "    then " + repeatText(d) + "\n";
   }
   out += std::string(d.formula_is_expression ? "  Formula: " : "  Method:  ") + d.formula + "\n";
   out += "  Limits:  " + d.limits + "\n";
+  if (!usualText(d).empty()) out += "  Warns outside the usual range: " + usualText(d) + "\n";
   out += "  Source:  " + d.source + "\n";
   if (!d.caution.empty()) out += "  Caution: " + d.caution + "\n";
 }
@@ -122,10 +148,11 @@ void appendJson(std::string& out, const FunctionDecl& d) {
     jsonField(out, "dimension_name", dimName(a.dim, a.per_revolution));
     jsonField(out, "unit", siUnit(a.dim, a.per_revolution));
     jsonBool(out, "per_revolution", a.per_revolution);
+    jsonField(out, "usual_range", usualRangeText(a));
     jsonField(out, "description", a.description, false);
     out += "}";
   }
-  out += "], \"result\": {";
+  out += "], \"repeat\": " + std::to_string(d.repeat) + ", \"result\": {";
   jsonField(out, "dimension", d.result.siSymbol());
   jsonField(out, "dimension_name", dimName(d.result, d.result_per_revolution));
   jsonField(out, "unit", d.result_unit);
@@ -235,12 +262,14 @@ std::string functionsMarkdown() {
           out += "| `" + a.name + "` | " + dimText(a.dim, a.per_revolution) + " | " +
                  siUnit(a.dim, a.per_revolution) + " | " + cell(a.description) + " |\n";
         out += "\n";
+        if (d.repeat > 0) out += "Then " + repeatText(d) + ".\n\n";
       }
       if (d.formula_is_expression)
         out += "Formula: `" + d.formula + "`\n\n";
       else
         out += "Method: " + d.formula + ".\n\n";
       out += "Limits: " + d.limits + ".\n\n";
+      if (!usualText(d).empty()) out += "Warns outside the usual range: " + usualText(d) + ".\n\n";
       out += "Source: " + d.source + ".\n";
       if (!d.caution.empty()) out += "\n> Caution: " + d.caution + "\n";
     }

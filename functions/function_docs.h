@@ -15,7 +15,8 @@ std::string functionsText(std::string_view name = {});
 
 // A JSON array with one object per function (all of them, or the one named):
 // name, group, signature, summary, args [{name, dimension, dimension_name,
-// unit, per_revolution, description}], result {dimension, dimension_name,
+// unit, per_revolution, usual_range, description}], repeat (the size of the
+// repeated trailing group, 0 for none), result {dimension, dimension_name,
 // unit, si_unit, per_revolution}, formula, formula_is_expression, limits,
 // source, caution. Unknown name: "".
 std::string functionsJson(std::string_view name = {});

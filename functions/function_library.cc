@@ -1,5 +1,6 @@
 #include "functions/function_library.h"
 
+#include <cctype>
 #include <functional>
 
 namespace calctrail {
@@ -16,7 +17,8 @@ const Library& library() {
     Library l;
     using Adder = fn::GroupText (*)(std::vector<FunctionDecl>&);
     const Adder adders[] = {fn::addThreads, fn::addPowerScrews, fn::addCollars, fn::addStresses,
-                            fn::addColumns, fn::addBallScrews,  fn::addGears,   fn::addMotors};
+                            fn::addColumns, fn::addBallScrews,  fn::addGears,   fn::addMotors,
+                            fn::addServo};
     for (Adder add : adders) {
       FunctionGroup g;
       g.first = l.decls.size();
@@ -41,6 +43,17 @@ const FunctionDecl* findFunction(std::string_view name) {
   for (const FunctionDecl& d : functionLibrary())
     if (d.name == name) return &d;
   return nullptr;
+}
+
+std::string FunctionDecl::argName(int k) const {
+  const int fixed = static_cast<int>(args.size());
+  if (k < fixed || repeat == 0) return args[static_cast<size_t>(k)].name;
+  // The declared name of the group's last repetition, split into stem and number.
+  const std::string& last = argAt(k).name;
+  size_t digits = last.size();
+  while (digits > 0 && std::isdigit(static_cast<unsigned char>(last[digits - 1]))) --digits;
+  const int number = digits < last.size() ? std::stoi(last.substr(digits)) : 1;
+  return last.substr(0, digits) + std::to_string(number + 1 + (k - fixed) / repeat);
 }
 
 const FunctionGroup* groupOf(const FunctionDecl& decl) {

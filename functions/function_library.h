@@ -39,6 +39,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out);
 GroupText addBallScrews(std::vector<FunctionDecl>& out);
 GroupText addGears(std::vector<FunctionDecl>& out);
 GroupText addMotors(std::vector<FunctionDecl>& out);
+GroupText addServo(std::vector<FunctionDecl>& out);
 }  // namespace fn
 
 }  // namespace calctrail

@@ -15,11 +15,12 @@ namespace calctrail::fn {
 namespace {
 
 
-// Rated outputs of IEC frame induction motors, kW: the outputs IEC 60072-1
-// assigns to frame sizes 56 to 315, as the makers' ranges follow them
-// (common practice, from memory; the standard's intermediate values omitted).
+// Rated outputs of induction motors, kW: the preferred outputs of IEC 60072-1,
+// which EN 50347 assigns to the frame sizes 56 to 315 up to 200 kW (from
+// memory); above 200 kW the IEC 60072-1 series continues in larger frames.
 const double kRatedKw[] = {0.06, 0.09, 0.12, 0.18, 0.25, 0.37, 0.55, 0.75, 1.1, 1.5, 2.2, 3,  4,   5.5, 7.5,
-                           11,   15,   18.5, 22,   30,   37,   45,   55,   75,  90,  110, 132, 160, 200};
+                           11,   15,   18.5, 22,   30,   37,   45,   55,   75,  90,  110, 132, 160, 200,
+                           250,  315,  355,  400,  450,  500,  560,  630,  710, 800, 900, 1000};
 
 double screwsTorque(const double* a) {
   const double T = nonNegative(a, 0, "torque per screw T_screw", Show::Torque);
@@ -150,15 +151,17 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
   {
     FunctionDecl d;
     d.name = "standard_motor_power";
-    d.summary = "The next standard rated output at or above a required power (IEC frame motors)";
+    d.summary = "The next standard rated output at or above a required power (IEC 60072-1 series)";
     d.args = {arg("P", power(), "required power at the motor shaft")};
     d.result = power();
     d.result_unit = "kW";
     d.formula = "smallest rated output >= P from the series " + ratedText();
     d.formula_is_expression = false;
-    d.limits = "0 < P <= 200 kW; above it the table ends and this is an error";
-    d.source = "IEC 60072-1 rated outputs as assigned to IEC frame sizes 56 to 315 and followed by the motor "
-               "makers' ranges; common practice, from memory (intermediate outputs of the standard omitted)";
+    d.limits = "0 < P <= 1000 kW; above it the table ends and this is an error. Up to 200 kW the outputs have "
+               "standard frame sizes (EN 50347); above, the frame is the maker's";
+    d.source = "Rated outputs from the preferred series of IEC 60072-1 (dimensions and output series for "
+               "rotating electrical machines); their assignment to the frame sizes 56 to 315 of three-phase "
+               "induction motors is EN 50347, which the motor makers' ranges follow (from memory)";
     d.example = {1200};
     d.eval = standardMotorPower;
     out.push_back(std::move(d));

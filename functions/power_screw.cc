@@ -112,6 +112,11 @@ double selfLockingMargin(const double* a) {
 
 double screwBackdriveEfficiency(const double* a) {
   const Thread t = thread(a, 0);
+  // Self-locking: the load cannot turn the screw, and the formula's negative value is no efficiency.
+  if (t.lowerNumerator() > 0)
+    fail(-1, "self-locking, back-driving efficiency not defined: f = " + num(t.f) + " > tan(lambda)*cos(alpha) = " +
+                 num(t.l * std::cos(t.alpha) / (kPi * t.dm)) +
+                 ", so the load cannot turn the screw; self_locking_margin gives the margin");
   return result(kPi * t.dm * -t.lowerNumerator() / (t.l * t.lowerDenominator()));
 }
 
@@ -127,6 +132,10 @@ double backdriveForce(const double* a) {
 
 double startingFriction(const double* a) {
   const double f = friction(a, 0, "running friction f");
+  // The result is a friction coefficient too, and no metal pair of the trade exceeds 1.
+  if (!(f <= 0.75))
+    fail(0, "running friction f = " + num(f) + " must be <= 0.75: its starting value 4/3*f = " + num(f * 4.0 / 3.0) +
+                " would exceed 1, above any metal pair of the trade (a slip of a decimal point?)");
   return result(f * 4.0 / 3.0);
 }
 
@@ -281,12 +290,14 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
   {
     FunctionDecl d;
     d.name = "screw_backdrive_efficiency";
-    d.summary = "Back-driving efficiency of a thread (the load turning the screw); <= 0 means self-locking";
+    d.summary = "Back-driving efficiency of a thread that is not self-locking (the load turning the screw)";
     d.args = {dm, l, f, alpha};
     d.result = none();
     d.result_unit = "%";
     d.formula = "pi*dm*(l - pi*f*dm/cos(alpha)) / (l*(pi*dm + f*l/cos(alpha)))";
-    d.limits = "dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg; the result may be negative (self-locking)";
+    d.limits = "dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg; the thread must not be self-locking "
+               "(f <= tan(lambda)*cos(alpha)): a self-locking thread is an error (self-locking, back-driving "
+               "efficiency not defined), never a negative efficiency; self_locking_margin tells which";
     d.source = kSource;
     d.caution = kLockCaution;
     d.example = {0.030, 0.008, 0.08, 0};
@@ -318,9 +329,12 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.result = none();
     d.result_unit = "1";
     d.formula = "4/3*f";
-    d.limits = "0 <= f <= 1. Common practice only: measured pairs range from about 1.25 to 1.7 times";
+    d.limits = "0 <= f <= 0.75, so that the starting value stays <= 1. Common practice only: the pairs of the "
+               "source table start at 1.25 to 1.67 times their running value";
     d.source = "Common practice: starting friction about one third above running friction, as the thrust-collar "
-               "friction table of Shigley's Mechanical Engineering Design (Sec. 8-2) shows (from memory)";
+               "friction coefficients of Shigley's Mechanical Engineering Design, Table 8-6, show: running/"
+               "starting 0.12/0.17 soft steel on cast iron, 0.09/0.15 hard steel on cast iron, 0.08/0.10 soft "
+               "steel on bronze, 0.06/0.08 hard steel on bronze, ratios 1.25 to 1.67 (from memory of the table)";
     d.caution = "Use the starting value for the breakaway torque of a motor and the running value, at its low end, "
                 "for self-locking.";
     d.example = {0.06};

@@ -2,7 +2,10 @@
 // (ISO 2904 / DIN 103) and square threads. The worksheet language has numbers
 // only, so each form has its own functions (acme_..., trap_..., square_...)
 // rather than a form code.
+#include <cctype>
 #include <cmath>
+#include <cstdio>
+#include <cstdlib>
 #include <string>
 #include <vector>
 
@@ -75,8 +78,6 @@ double trapClearanceMm(double p_mm) {
   return 1.0;
 }
 
-std::string inches(double m) { return num(m / kInch) + " in"; }
-
 // "1-1/4 in and 1-3/8 in", or the one end of the series.
 template <typename Row, typename Size, typename Label>
 std::string nearest(const Row* rows, std::size_t n, double d, Size size, Label label) {
@@ -87,15 +88,55 @@ std::string nearest(const Row* rows, std::size_t n, double d, Size size, Label l
   return "";
 }
 
+// The value (in the unit of the table) with 4 significant digits, or as many
+// more (up to 17) as it takes not to read as one of the table's sizes: 40.004
+// mm, never "40 mm" for a value that is not 40 mm.
+template <typename Row, typename Size>
+std::string distinctValue(double v, const Row* rows, std::size_t n, Size size_in_unit) {
+  char buf[40];
+  for (int digits = 4; digits <= 17; ++digits) {
+    std::snprintf(buf, sizeof buf, "%.*g", digits, v);
+    const double read = std::strtod(buf, nullptr);
+    bool like_a_size = false;
+    for (std::size_t k = 0; k < n; ++k) like_a_size |= read == size_in_unit(rows[k]);
+    if (!like_a_size) break;
+  }
+  return buf;
+}
+
+// "4 um", "0.35 mm": a small distance in the unit that reads best.
+std::string distance(double m) {
+  return m < 1e-3 ? num(m * 1e6) + " um" : num(m * 1e3) + " mm";
+}
+
+// Within 1 % of a size: how far off and the fix ("is 4 um above the size 40 mm;
+// write `40 mm`"); "" when no size is that near.
+template <typename Row, typename Size, typename Label, typename Written>
+std::string nearMiss(const Row* rows, std::size_t n, double v, Size size, Label label, Written written,
+                     const char* what) {
+  for (std::size_t k = 0; k < n; ++k) {
+    const double s = size(rows[k]);
+    if (std::fabs(v - s) > 0.01 * s) continue;
+    return std::string("it is ") + distance(std::fabs(v - s)) + (v > s ? " above" : " below") + " the " + what +
+           " " + label(rows[k]) + "; write `" + written(rows[k]) + "`";
+  }
+  return "";
+}
+
 const AcmeRow& acmeRow(const double* a) {
   const double d = positive(a, 0, "nominal diameter d", Show::Length);
   for (const AcmeRow& r : kAcme)
     if (std::fabs(d - r.d_in * kInch) <= kMatch) return r;
   const auto size = [](const AcmeRow& r) { return r.d_in * kInch; };
   const auto label = [](const AcmeRow& r) { return std::string(r.label) + " in"; };
-  fail(0, "nominal diameter d = " + inches(d) + " (" + show(d, Show::Length) +
-              ") is not a size of the ASME B1.5 general-purpose Acme series; " +
-              nearest(kAcme, std::size(kAcme), d, size, label));
+  const auto written = [](const AcmeRow& r) { return num(r.d_in) + " in"; };
+  const auto in_inches = [](const AcmeRow& r) { return r.d_in; };
+  const auto in_mm = [](const AcmeRow& r) { return r.d_in * 25.4; };
+  const std::string near = nearMiss(kAcme, std::size(kAcme), d, size, label, written, "size");
+  fail(0, "nominal diameter d = " + distinctValue(d / kInch, kAcme, std::size(kAcme), in_inches) + " in (" +
+              distinctValue(d / kMm, kAcme, std::size(kAcme), in_mm) +
+              " mm) is not a size of the ASME B1.5 general-purpose Acme series; " +
+              (near.empty() ? nearest(kAcme, std::size(kAcme), d, size, label) : near));
 }
 
 const TrapRow& trapRow(const double* a) {
@@ -104,9 +145,11 @@ const TrapRow& trapRow(const double* a) {
     if (std::fabs(d - r.d_mm * kMm) <= kMatch) return r;
   const auto size = [](const TrapRow& r) { return r.d_mm * kMm; };
   const auto label = [](const TrapRow& r) { return num(r.d_mm) + " mm"; };
-  fail(0, "nominal diameter d = " + show(d, Show::Length) +
-              " is not a size of the ISO 2904 trapezoidal series; " +
-              nearest(kTrap, std::size(kTrap), d, size, label));
+  const auto in_mm = [](const TrapRow& r) { return r.d_mm; };
+  const std::string near = nearMiss(kTrap, std::size(kTrap), d, size, label, label, "size");
+  fail(0, "nominal diameter d = " + distinctValue(d / kMm, kTrap, std::size(kTrap), in_mm) +
+              " mm is not a size of the ISO 2904 trapezoidal series; " +
+              (near.empty() ? nearest(kTrap, std::size(kTrap), d, size, label) : near));
 }
 
 // The pitch of a trapezoidal thread, checked against the ISO 2904 pitches
@@ -117,42 +160,69 @@ double trapPitchMm(const double* a) {
     if (std::fabs(p - s * kMm) <= kMatch) return s;
   const auto size = [](const double& s) { return s * kMm; };
   const auto label = [](const double& s) { return num(s) + " mm"; };
-  std::string near = nearest(kTrapPitches, std::size(kTrapPitches), p, size, label);
-  const std::string prefix = "nearest standard sizes: ";
-  if (near.compare(0, prefix.size(), prefix) == 0) near = "nearest standard pitches: " + near.substr(prefix.size());
-  fail(1, "pitch p = " + show(p, Show::Lead) + " is not an ISO 2904 trapezoidal pitch; " + near);
+  const auto in_mm = [](const double& s) { return s; };
+  std::string near = nearMiss(kTrapPitches, std::size(kTrapPitches), p, size, label, label, "pitch");
+  if (near.empty()) {
+    near = nearest(kTrapPitches, std::size(kTrapPitches), p, size, label);
+    const std::string prefix = "nearest standard sizes: ";
+    if (near.compare(0, prefix.size(), prefix) == 0)
+      near = "nearest standard pitches: " + near.substr(prefix.size());
+  }
+  fail(1, "pitch p = " + distinctValue(p / kMm, kTrapPitches, std::size(kTrapPitches), in_mm) +
+              " mm/rev is not an ISO 2904 trapezoidal pitch; " + near);
 }
 
-// Major diameter and pitch of a thread whose basic depth is p/2 (square,
-// Acme, trapezoidal): the minor diameter d - p must stay positive.
-void majorAndPitch(const double* a, const char* form) {
+bool isTrapPitch(double p) {
+  for (double s : kTrapPitches)
+    if (std::fabs(p - s * kMm) <= kMatch) return true;
+  return false;
+}
+
+// "a trapezoidal thread", "an Acme thread".
+std::string withArticle(const char* word) {
+  const char c = static_cast<char>(std::tolower(static_cast<unsigned char>(word[0])));
+  return std::string(c == 'a' || c == 'e' || c == 'i' || c == 'o' || c == 'u' ? "an " : "a ") + word;
+}
+
+// Major diameter and pitch of a thread (square, Acme, trapezoidal, stub Acme,
+// buttress): the minor diameter must stay positive, so the pitch is below the
+// diameter. `call` is the function's name, for the fix of swapped arguments;
+// `iso_pitch`: a swapped call must also find an ISO 2904 pitch.
+void majorAndPitch(const double* a, const char* form, const char* call, bool iso_pitch = false) {
   const double d = positive(a, 0, "major diameter d", Show::Length);
   const double p = positive(a, 1, "pitch p", Show::Lead);
-  if (!(p < d))
-    fail(1, std::string("pitch p = ") + show(p, Show::Lead) + " must be smaller than the major diameter d = " +
-                show(d, Show::Length) + " of a " + form + " thread");
+  if (p < d) return;
+  // Each argument named by its position and the value it received: the worksheet's own names may differ.
+  std::string msg = std::string("argument 2 (pitch p) = ") + show(p, Show::Length) +
+                    " must be smaller than argument 1 (major diameter d) = " + show(d, Show::Length) + " of " +
+                    withArticle(form) + " thread";
+  const bool swap_fits = d < p && (!iso_pitch || isTrapPitch(d));
+  if (swap_fits)
+    msg += "; the two look swapped: " + std::string(call) + "(d, p) takes the major diameter first, so write " +
+           call + "(" + show(p, Show::Length) + ", " + show(d, Show::Length) + ")";
+  fail(swap_fits ? -1 : 1, msg);
 }
 
 double acmeTpi(const double* a) { return acmeRow(a).tpi / kInch; }
 double acmePitch(const double* a) { return kInch / acmeRow(a).tpi; }
 double acmePitchDia(const double* a) {
-  majorAndPitch(a, "Acme");
+  majorAndPitch(a, "Acme", "acme_pitch_dia");
   return result(a[0] - a[1] / 2);
 }
 double acmeMinorDia(const double* a) {
-  majorAndPitch(a, "Acme");
+  majorAndPitch(a, "Acme", "acme_minor_dia");
   return result(a[0] - a[1]);
 }
 double acmeFlankAngle(const double*) { return 14.5 * kPi / 180.0; }
 
 double trapPitch(const double* a) { return trapRow(a).preferred * kMm; }
 double trapPitchDia(const double* a) {
-  majorAndPitch(a, "trapezoidal");
+  majorAndPitch(a, "trapezoidal", "trap_pitch_dia", true);
   trapPitchMm(a);
   return result(a[0] - a[1] / 2);
 }
 double trapMinorDia(const double* a) {
-  majorAndPitch(a, "trapezoidal");
+  majorAndPitch(a, "trapezoidal", "trap_minor_dia", true);
   const double p_mm = trapPitchMm(a);
   const double d3 = a[0] - a[1] - 2.0 * trapClearanceMm(p_mm) * kMm;
   if (!(d3 > 0))
@@ -163,14 +233,53 @@ double trapMinorDia(const double* a) {
 double trapFlankAngle(const double*) { return 15.0 * kPi / 180.0; }
 
 double squarePitchDia(const double* a) {
-  majorAndPitch(a, "square");
+  majorAndPitch(a, "square", "square_pitch_dia");
   return result(a[0] - a[1] / 2);
 }
 double squareMinorDia(const double* a) {
-  majorAndPitch(a, "square");
+  majorAndPitch(a, "square", "square_minor_dia");
   return result(a[0] - a[1]);
 }
 double squareFlankAngle(const double*) { return 0.0; }
+
+// Stub Acme (ASME B1.8): basic thread height 0.3p, 29 deg included angle.
+double stubAcmePitchDia(const double* a) {
+  majorAndPitch(a, "Stub Acme", "stub_acme_pitch_dia");
+  return result(a[0] - 0.3 * a[1]);
+}
+double stubAcmeMinorDia(const double* a) {
+  majorAndPitch(a, "Stub Acme", "stub_acme_minor_dia");
+  return result(a[0] - 0.6 * a[1]);
+}
+
+// Buttress, 7 deg load flank and 45 deg trailing flank (ASME B1.9): sharp-V
+// height H = p/(tan 7 deg + tan 45 deg) = 0.89064p, basic height of engagement
+// h = 0.6p, so the pitch line lies 0.3p below the major diameter.
+double buttressPitchDia(const double* a) {
+  majorAndPitch(a, "buttress", "buttress_pitch_dia");
+  return result(a[0] - 0.6 * a[1]);
+}
+double buttressMinorDia(const double* a) {
+  majorAndPitch(a, "buttress", "buttress_minor_dia");
+  const double d1 = a[0] - 1.2 * a[1];
+  if (!(d1 > 0))
+    fail(1, "argument 2 (pitch p) = " + show(a[1], Show::Length) + " leaves no minor diameter of the buttress "
+            "thread d - 1.2*p for argument 1 (major diameter d) = " + show(a[0], Show::Length));
+  return result(d1);
+}
+double buttressFlankAngle(const double*) { return 7.0 * kPi / 180.0; }
+
+// ISO 2904 nut (internal thread): minor diameter D1 = d - p (no clearance at
+// the nut's crest) and major diameter D4 = d + 2*ac.
+double trapNutMinorDia(const double* a) {
+  majorAndPitch(a, "trapezoidal", "trap_nut_minor_dia", true);
+  trapPitchMm(a);
+  return result(a[0] - a[1]);
+}
+double trapNutMajorDia(const double* a) {
+  majorAndPitch(a, "trapezoidal", "trap_nut_major_dia", true);
+  return result(a[0] + 2.0 * trapClearanceMm(trapPitchMm(a)) * kMm);
+}
 
 double threadLead(const double* a) {
   const double p = positive(a, 0, "pitch p", Show::Lead);
@@ -202,6 +311,12 @@ const char* kAcmeSource =
 const char* kTrapSource =
     "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions "
     "(from memory)";
+const char* kStubSource =
+    "ASME B1.8 (Stub Acme screw threads): basic thread height 0.3p, 29 deg included angle, the preferred "
+    "diameter-pitch combinations of the general-purpose Acme series (from memory)";
+const char* kButtressSource =
+    "ASME B1.9 (buttress inch screw threads, 7 deg/45 deg form with 0.6p basic height): basic pitch diameter "
+    "D - 0.6p, basic height of thread engagement 0.6p, sharp-V height 0.89064p (from memory)";
 const char* kSquareSource =
     "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
     "Mechanical Engineering Design, Fig. 8-3) and Machinery's Handbook: depth p/2; "
@@ -388,6 +503,110 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
   }
   {
     FunctionDecl d;
+    d.name = "stub_acme_pitch_dia";
+    d.summary = "Basic pitch diameter of a Stub Acme thread (ASME B1.8): major diameter less 0.3 pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - 0.3*p";
+    d.limits = "d > 0, 0 < p < d. The Stub Acme sizes are the general-purpose Acme diameters and pitches "
+               "(acme_pitch); the flank angle is the Acme one (acme_flank_angle)";
+    d.source = kStubSource;
+    d.example = {kInch, 0.2 * kInch};
+    d.eval = stubAcmePitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "stub_acme_minor_dia";
+    d.summary = "Basic minor diameter of a Stub Acme thread (ASME B1.8): major diameter less 0.6 pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - 0.6*p";
+    d.limits = "d > 0, 0 < p < d. Basic size: the minor diameter of a class 2G external thread is smaller by "
+               "its allowance and tolerance (ASME B1.8 tables, not held here)";
+    d.source = kStubSource;
+    d.example = {kInch, 0.2 * kInch};
+    d.eval = stubAcmeMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "buttress_pitch_dia";
+    d.summary = "Basic pitch diameter of a 7/45 deg buttress thread (ASME B1.9): major diameter less 0.6 pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - 0.6*p";
+    d.limits = "d > 0, 0 < p < d. No size series is held here: ASME B1.9 recommends pitches per diameter "
+               "range; take the pitch from it";
+    d.source = kButtressSource;
+    d.example = {2 * kInch, kInch / 8};
+    d.eval = buttressPitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "buttress_minor_dia";
+    d.summary = "Basic minor diameter of a 7/45 deg buttress thread (ASME B1.9): major diameter less 1.2 pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - 1.2*p";
+    d.limits = "d > 0, 0 < p < d/1.2. Basic size: the root radius and the allowance of the class reduce it "
+               "(ASME B1.9 tables, not held here)";
+    d.source = kButtressSource;
+    d.example = {2 * kInch, kInch / 8};
+    d.eval = buttressMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "buttress_flank_angle";
+    d.summary = "Load flank angle of a buttress thread (ASME B1.9): 7 deg, the flank the torque functions take";
+    d.result = angle();
+    d.result_unit = "deg";
+    d.formula = "7*pi/180";
+    d.limits = "none (a constant of the form). The load must press on the 7 deg flank; a load on the 45 deg "
+               "flank is not what the form is for";
+    d.source = kButtressSource;
+    d.eval = buttressFlankAngle;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_nut_minor_dia";
+    d.summary = "Minor diameter D1 of the internal (nut) metric trapezoidal thread: major diameter less the pitch";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "d - p";
+    d.limits = "d > 0, 0 < p < d; p must be an ISO 2904 pitch (1.5 to 44 mm). Basic size: a nut of tolerance "
+               "class 7H has a larger minor diameter (the tolerance values are not held here)";
+    d.source = kTrapSource;
+    d.example = {0.040, 0.007};
+    d.eval = trapNutMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_nut_major_dia";
+    d.summary = "Major diameter D4 of the internal (nut) metric trapezoidal thread, root clearance included";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "D4 = d + 2*ac, with the root clearance ac = 0.15 mm for p = 1.5 mm, 0.25 mm for p = 2 to 5 mm, "
+                "0.5 mm for p = 6 to 12 mm, 1 mm for p = 14 to 44 mm";
+    d.formula_is_expression = false;
+    d.limits = "d > 0, 0 < p < d; p must be an ISO 2904 pitch (1.5 to 44 mm) because ac depends on it";
+    d.source = kTrapSource;
+    d.example = {0.040, 0.007};
+    d.eval = trapNutMajorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
     d.name = "thread_lead";
     d.summary = "Lead of a thread: axial advance per revolution, the pitch times the number of starts";
     d.args = {pitch, arg("starts", none(), "number of starts (1 single, 2 double, ...)")};
@@ -403,7 +622,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
   }
   return {"Threads",
           "Standard series and basic dimensions of the thread forms used on power screws. Each form has its own "
-          "functions (acme_..., trap_..., square_...), since a worksheet passes numbers only. The flank angle is "
+          "functions (acme_..., stub_acme_..., trap_..., square_..., buttress_...), since a worksheet passes "
+          "numbers only. The flank angle is "
           "half the included angle, measured in the axial plane, as the torque functions take it. A size that is "
           "not in a series is an error that names the nearest standard sizes."};
 }

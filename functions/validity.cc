@@ -25,6 +25,9 @@ Shown unitOf(Show how) {
     case Show::Speed: return {2.0 * kPi / 60.0, " rpm"};
     case Show::Power: return {1e3, " kW"};
     case Show::Density: return {1.0, " kg/m^3"};
+    case Show::Mass: return {1.0, " kg"};
+    case Show::Inertia: return {1.0, " kg*m^2"};
+    case Show::Time: return {1.0, " s"};
   }
   return {1.0, ""};
 }
@@ -41,6 +44,12 @@ std::string num(double v) {
 std::string show(double si, Show how) {
   const Shown s = unitOf(how);
   return num(si / s.factor) + s.unit;
+}
+
+FunctionArg usually(FunctionArg a, double lo, double hi, Show how, const char* why) {
+  const Shown s = unitOf(how);
+  const std::string unit = s.unit[0] == ' ' ? s.unit + 1 : s.unit;
+  return usual(std::move(a), lo, hi, unit.c_str(), s.factor, why);
 }
 
 void fail(int arg, const std::string& message) { throw DomainError(arg, message); }

@@ -13,12 +13,16 @@
 namespace calctrail::fn {
 
 // How a value is shown in a message.
-enum class Show { Plain, Force, Length, Lead, Torque, Stress, Modulus, Angle, Speed, Power, Density };
+enum class Show { Plain, Force, Length, Lead, Torque, Stress, Modulus, Angle, Speed, Power, Density, Mass, Inertia, Time };
 
 // "6400 N", "33.02 mm", "14.5 deg", "1450 rpm": four significant digits.
 std::string show(double si, Show how);
 // Four significant digits, no unit.
 std::string num(double v);
+
+// An argument with the range met in practice (SI values), shown as `how`
+// shows it; outside it a call gives a warning (functions/plausibility.h).
+FunctionArg usually(FunctionArg a, double lo, double hi, Show how, const char* why);
 
 [[noreturn]] void fail(int arg, const std::string& message);
 

@@ -98,3 +98,29 @@ TEST_CASE("columns: end constant, strength and modulus out of range", "[function
   CHECK_THAT(errorOf("transition_slenderness", {1, -E, Sy}), Catch::Contains("modulus of elasticity E"));
   CHECK_THAT(errorOf("buckling_safety", {0, d, L, 1, E, Sy}), Catch::Contains("axial load F = 0 N must be > 0"));
 }
+
+TEST_CASE("plausibility: euler_load below the transition slenderness warns and points to buckling_load",
+          "[functions][columns][plausibility]") {
+  // Shigley's round-column example: (l/k)1 = 90.4 for Sy = 500 MPa, E = 207 GPa, C = 1 (from memory).
+  const double transition = call("transition_slenderness", {1, E, Sy});
+  CHECK(transition == Approx(90.4).margin(0.05));
+  for (double share : {0.9, 0.5}) {
+    const double Lx = share * transition * d / 4;  // L/k = share * (l/k)1
+    INFO("at " << share << " of the transition");
+    const std::string doubt = calctrail::test::doubtsOf("euler_load", {d, Lx, 1, E});
+    CHECK_THAT(doubt, Catch::Contains("use buckling_load(dr, L, C, E, Sy)"));
+    CHECK_THAT(doubt, Catch::Contains("Euler's load holds only for Sy >="));
+    // Independent: what the warning is about, Euler against Johnson there: 3.7 % high at 0.9, 2.3 times at 0.5.
+    const double ratio = call("euler_load", {d, Lx, 1, E}) / call("buckling_load", {d, Lx, 1, E, Sy});
+    CHECK(ratio == Approx(share == 0.9 ? 1.037 : 2.286).epsilon(1e-3));
+  }
+  // The example's own column, l/k = 160, is long: no doubt.
+  CHECK(calctrail::test::doubtsOf("euler_load", {d, L, 1, E}).empty());
+}
+
+TEST_CASE("plausibility: moduli and yield strengths off by 1000", "[functions][columns][plausibility]") {
+  CHECK_THAT(calctrail::test::doubtsOf("buckling_load", {d, L, 1, 207 * MPa, 0.5 * MPa}),
+             Catch::Contains("E = 0.207 GPa is outside the usual range 40 to 250 GPa") &&
+                 Catch::Contains("Sy = 0.5 MPa is outside the usual range"));
+  CHECK_THAT(errorOf("euler_load", {d, L, 1, 207e12}), Catch::Contains("above that of any solid"));
+}

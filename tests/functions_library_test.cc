@@ -23,6 +23,7 @@
 #include "engine/sheet/expr_parser.h"
 #include "functions/function_decl.h"
 #include "functions/function_library.h"
+#include "functions/plausibility.h"
 
 namespace {
 
@@ -165,6 +166,54 @@ TEST_CASE("library: every declaration is complete", "[functions][library]") {
     }
   }
   CHECK(functionLibrary().size() >= 60);
+}
+
+TEST_CASE("library: a repeated argument group is declared whole and evaluates any number of groups",
+          "[functions][library]") {
+  int repeated = 0;
+  for (const FunctionDecl& d : functionLibrary()) {
+    INFO("function " << d.name);
+    CHECK(d.repeat >= 0);
+    CHECK(d.repeat <= static_cast<int>(d.args.size()));
+    CHECK((d.repeat > 0) == (d.eval_n != nullptr));
+    if (d.repeat == 0) continue;
+    ++repeated;
+    const int n = static_cast<int>(d.args.size());
+    CHECK(d.takes(n));
+    CHECK(d.takes(n + d.repeat));
+    CHECK_FALSE(d.takes(n - 1));
+    if (d.repeat > 1) CHECK_FALSE(d.takes(n + 1));
+    // eval() is eval_n() over the declared arguments.
+    CHECK(d.eval(d.example.data()) == d.eval_n(d.example.data(), n));
+    // The names of further groups follow the declared numbering: i3 after i1, i2.
+    const std::string last = d.args.back().name;
+    CHECK(d.argName(n + d.repeat - 1) == last.substr(0, last.size() - 1) + "3");
+    // The group repeated with its own values twice over gives the same result for these means and products
+    // only where the function is a mean; the evaluation itself must succeed and be finite.
+    std::vector<double> more = d.example;
+    for (int k = 0; k < d.repeat; ++k) more.push_back(d.example[static_cast<size_t>(n - d.repeat + k)]);
+    CHECK(std::isfinite(d.eval_n(more.data(), static_cast<int>(more.size()))));
+  }
+  CHECK(repeated >= 4);  // overall_ratio, overall_efficiency, cubic_mean_load, rms_torque
+}
+
+TEST_CASE("library: every usual range is a range, and the declared example raises no doubt",
+          "[functions][library][plausibility]") {
+  for (const FunctionDecl& d : functionLibrary()) {
+    INFO("function " << d.name);
+    for (const calctrail::FunctionArg& a : d.args) {
+      INFO("argument " << a.name);
+      CHECK(a.usual_min <= a.usual_max);
+      if (a.hasUsualRange()) {
+        CHECK(!a.usual_why.empty());
+        CHECK(isPrintableAscii(a.usual_why));
+        CHECK(a.usual_factor > 0);
+      }
+    }
+    if (d.args.empty()) continue;
+    CHECK(calctrail::doubtsOf(d, d.example.data(), static_cast<int>(d.example.size())).empty());
+    CHECK_FALSE(calctrail::isDoubtful(d, d.example.data(), static_cast<int>(d.example.size())));
+  }
 }
 
 TEST_CASE("library: results that feed a safety decision carry a caution", "[functions][library]") {

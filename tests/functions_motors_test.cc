@@ -3,6 +3,7 @@
 // in N*m and rpm), energy balance, and rows of the IEC output series.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 #include <vector>
@@ -77,8 +78,22 @@ TEST_CASE("standard_motor_power: IEC 60072-1 rated outputs 0.06 ... 200 kW (comm
   }
 }
 
+TEST_CASE("standard_motor_power: IEC 60072-1 outputs past 200 kW, 250 ... 1000 kW (from memory)",
+          "[functions][motors]") {
+  CHECK(call("standard_motor_power", {201 * kW}) == Approx(250 * kW));
+  CHECK(call("standard_motor_power", {330 * kW}) == Approx(355 * kW));
+  CHECK(call("standard_motor_power", {950 * kW}) == Approx(1000 * kW));
+  // Independent: each step of the series above 200 kW is at most 1.26 (the R10 ratio of preferred numbers).
+  double last = 200 * kW;
+  for (double p = 201; p <= 1000; p += 7) {
+    const double rated = call("standard_motor_power", {p * kW});
+    if (rated > last) CHECK(rated / last <= 1.261);
+    last = std::max(last, rated);
+  }
+}
+
 TEST_CASE("standard_motor_power: above the table is an error", "[functions][motors][limits]") {
-  CHECK_THAT(errorOf("standard_motor_power", {250 * kW}), Catch::Contains("above 200 kW"));
+  CHECK_THAT(errorOf("standard_motor_power", {1200 * kW}), Catch::Contains("above 1000 kW"));
   CHECK_THAT(errorOf("standard_motor_power", {0}), Catch::Contains("must be > 0"));
 }
 

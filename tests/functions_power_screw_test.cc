@@ -143,7 +143,9 @@ TEST_CASE("screw_backdrive_efficiency: reproduces Shigley Example 8-1's -0.466 N
   CHECK(call("screw_backdrive_efficiency", {dm, l, 0.05, 15 * deg}) ==
         Approx(call("worm_backdrive_efficiency", {lam, 15 * deg, 0.05})));
   CHECK(call("screw_backdrive_efficiency", {dm, l, 0, 0}) == Approx(1.0));
-  CHECK(call("screw_backdrive_efficiency", {dm, l, 0.2, 0}) < 0);  // self-locking
+  // Self-locking: the formula's negative value is no efficiency, and the error says so.
+  CHECK_THAT(errorOf("screw_backdrive_efficiency", {dm, l, 0.2, 0}),
+             Catch::Contains("self-locking, back-driving efficiency not defined"));
 }
 
 TEST_CASE("backdrive_force: inverse of Shigley Example 8-1's lowering torque (from memory)",
@@ -198,4 +200,13 @@ TEST_CASE("power screws: loads, diameters, leads and flank angles out of range",
   CHECK_THAT(errorOf("torque_raise", {F, dm, l, f, 60 * deg}),
              Catch::Contains("flank angle alpha = 60 deg must be <= 45 deg"));
   CHECK_THAT(errorOf("backdrive_force", {-1, dm, l, 0, 0}), Catch::Contains("must be >= 0"));
+}
+
+TEST_CASE("plausibility: starting_friction(0.9) is an error, not 1.2", "[functions][power_screw][plausibility]") {
+  CHECK_THAT(errorOf("starting_friction", {0.9}),
+             Catch::Contains("running friction f = 0.9 must be <= 0.75: its starting value 4/3*f = 1.2 would exceed 1"));
+  // Independent: at the limit the starting value is the library's own bound f = 1, which torque_raise accepts.
+  const double f_start = call("starting_friction", {0.75});
+  CHECK(f_start == Approx(1.0));
+  CHECK_NOTHROW(call("torque_raise", {F, dm, l, f_start, 0}));
 }

@@ -25,7 +25,9 @@ constexpr double rpm = 2 * kPi / 60;
 constexpr double F = 6400, dm = 30 * mm, dr = 28 * mm, p = 4 * mm, T = 26.18;
 
 using calctrail::test::call;
+using calctrail::test::doubtsOf;
 using calctrail::test::errorOf;
+constexpr double deg = kPi / 180;
 
 }  // namespace
 
@@ -114,4 +116,83 @@ TEST_CASE("stresses: inputs out of range", "[functions][stresses][limits]") {
   CHECK_THAT(errorOf("nut_threads_needed", {F, dm, p, -1 * MPa}),
              Catch::Contains("allowable bearing pressure p_allow = -1 MPa must be > 0"));
   CHECK_THAT(errorOf("nut_pv", {F, dm, p, 6, 8 * mm, -10 * rpm}), Catch::Contains("screw speed n = -10 rpm must be >= 0"));
+}
+
+TEST_CASE("thread_shear_area_screw and _nut: Machinery's Handbook shear areas for 60 deg threads, 1/2-13 UNC "
+          "class 2A/2B (from memory: Kn max 0.434 in, Es min 0.4435 in, Ds min 0.4876 in, En max 0.4565 in)",
+          "[functions][stresses]") {
+  const double in = 0.0254, n = 13, Le = 0.5 * in;
+  const double Kn = 0.434 * in, Es = 0.4435 * in, Ds = 0.4876 * in, En = 0.4565 * in;
+  // As printed: As = pi*n*Le*Kn*(1/(2n) + 0.57735*(Es - Kn)), An = pi*n*Le*Ds*(1/(2n) + 0.57735*(Ds - En)).
+  const double As = kPi * n / in * Le * Kn * (in / (2 * n) + 0.57735 * (Es - Kn));
+  const double An = kPi * n / in * Le * Ds * (in / (2 * n) + 0.57735 * (Ds - En));
+  CHECK(call("thread_shear_area_screw", {Kn, Es, in / n, 30 * deg}) * Le == Approx(As).epsilon(1e-5));
+  CHECK(call("thread_shear_area_nut", {Ds, En, in / n, 30 * deg}) * Le == Approx(An).epsilon(1e-5));
+}
+
+TEST_CASE("thread_shear_area_screw: the width of the profile measured at D1, and Shigley's square thread",
+          "[functions][stresses]") {
+  // Independent: a symmetrical trapezoidal profile drawn point by point (flanks at 15 deg, p/2 wide at the
+  // pitch line), its width measured at the diameter D1 by stepping along the radius.
+  const double pitch = 7 * mm, d2 = 36.5 * mm, D1 = 33 * mm, a = 15 * deg;  // Tr 40x7
+  double width = pitch / 2;
+  const int steps = 100000;
+  const double dy = (d2 - D1) / 2 / steps;
+  for (int k = 0; k < steps; ++k) width += 2 * std::tan(a) * dy;  // each flank moves out tan(a) per unit depth
+  CHECK(call("thread_shear_area_screw", {D1, d2, pitch, a}) == Approx(kPi * D1 * width / pitch).epsilon(1e-9));
+  // Square thread (Shigley Sec. 8-2): one thread is sheared over pi*dr*p/2; per unit length pi*dr/2.
+  CHECK(call("thread_shear_area_screw", {dr, dm, p, 0}) == Approx(kPi * dr / 2));
+  CHECK(call("thread_shear_area_nut", {32 * mm, dm, p, 0}) == Approx(kPi * 32 * mm / 2));
+}
+
+TEST_CASE("thread_strip_stress: Shigley Example 8-1's root shear 20.7 MPa is 3/2 of the mean over one thread "
+          "carrying 0.38 F (from memory)",
+          "[functions][stresses]") {
+  const double A = call("thread_shear_area_screw", {dr, dm, p, 0});
+  CHECK(1.5 * call("thread_strip_stress", {0.38 * F, A, p}) / MPa == Approx(20.7).margin(0.05));
+  CHECK(1.5 * call("thread_strip_stress", {0.38 * F, A, p}) == Approx(call("thread_root_shear", {F, dr, p, 0.38})));
+}
+
+TEST_CASE("thread_engagement_needed: inverse of thread_strip_stress, and a bronze nut on a steel screw is checked on "
+          "the nut side",
+          "[functions][stresses]") {
+  // Tr 40x7: screw sheared at D1 = 33 mm, nut at d = 40 mm (ISO 2904 basic dimensions).
+  const double a = 15 * deg, Fx = 60000;
+  const double A_screw = call("thread_shear_area_screw", {33 * mm, 36.5 * mm, 7 * mm, a});
+  const double A_nut = call("thread_shear_area_nut", {40 * mm, 36.5 * mm, 7 * mm, a});
+  CHECK(A_nut > A_screw);  // the nut's threads are wider at their root cylinder
+  // Allowables (common practice, invented for the test): steel screw 120 MPa, bronze nut 40 MPa.
+  const double Le_screw = call("thread_engagement_needed", {Fx, A_screw, 120 * MPa});
+  const double Le_nut = call("thread_engagement_needed", {Fx, A_nut, 40 * MPa});
+  CHECK(Le_nut > Le_screw);  // the softer nut governs
+  CHECK(call("thread_strip_stress", {Fx, A_nut, Le_nut}) == Approx(40 * MPa));
+  CHECK_THAT(errorOf("thread_shear_area_screw", {37 * mm, 36.5 * mm, 7 * mm, a}),
+             Catch::Contains("must be smaller than the pitch diameter"));
+}
+
+TEST_CASE("plausibility: thread_bearing_pressure with 0.2 engaged threads warns", "[functions][plausibility]") {
+  CHECK_THAT(doubtsOf("thread_bearing_pressure", {F, dm, p, 0.2}),
+             Catch::Contains("nt = 0.2 is outside the usual range 1 to 40"));
+  CHECK(doubtsOf("thread_bearing_pressure", {F, dm, p, 6}).empty());
+}
+
+TEST_CASE("plausibility: an allowable pressure of 5000 MPa is an error, 150 MPa a warning", "[functions][plausibility]") {
+  CHECK_THAT(errorOf("nut_threads_needed", {F, dm, p, 5000 * MPa}),
+             Catch::Contains("above the compressive yield strength of any screw or nut steel"));
+  CHECK_THAT(errorOf("nut_length_needed", {F, dm, 5000 * MPa}), Catch::Contains("3000 MPa"));
+  CHECK_THAT(doubtsOf("nut_threads_needed", {F, dm, p, 150 * MPa}),
+             Catch::Contains("p_allow = 150 MPa is outside the usual range 0.5 to 30 MPa"));
+  // 10 kPa for 10 MPa: off by 1000.
+  CHECK_THAT(doubtsOf("nut_length_needed", {F, dm, 0.01 * MPa}), Catch::Contains("off by a factor of about 1000"));
+}
+
+TEST_CASE("plausibility: a lead smaller than the pitch is an error in nut_pv, a lead finer than any thread a "
+          "warning in sliding_speed",
+          "[functions][plausibility]") {
+  CHECK_THAT(errorOf("nut_pv", {F, dm, 8 * mm, 6, 4 * mm, 100 * rpm}),
+             Catch::Contains("lead l = 4 mm/rev is smaller than the pitch p = 8 mm/rev"));
+  CHECK_THAT(doubtsOf("sliding_speed", {36.5 * mm, 0.5 * mm, 100 * rpm}),
+             Catch::Contains("finer than any standard pitch for the mean diameter dm = 36.5 mm"));
+  CHECK(doubtsOf("sliding_speed", {36.5 * mm, 7 * mm, 100 * rpm}).empty());
+  CHECK_THAT(doubtsOf("nut_pv", {F, 295 * mm, 0.5 * mm, 6, 0.5 * mm, 100 * rpm}), Catch::Contains("finer than"));
 }

@@ -90,7 +90,9 @@ TEST_CASE("acme_minor_dia: ASME B1.5 basic minor diameter, 1-5 (from memory)", "
 }
 
 TEST_CASE("acme_minor_dia: a pitch not below the diameter is an error", "[functions][threads][limits]") {
-  CHECK_THAT(errorOf("acme_minor_dia", {0.25 * in, 0.3 * in}), Catch::Contains("must be smaller than the major diameter"));
+  CHECK_THAT(errorOf("acme_minor_dia", {0.25 * in, 0.3 * in}),
+             Catch::Contains("argument 2 (pitch p) = 7.62 mm must be smaller than argument 1 (major diameter d) = "
+                             "6.35 mm of an Acme thread"));
 }
 
 TEST_CASE("acme_flank_angle: ASME B1.5 29 deg included angle", "[functions][threads]") {
@@ -179,4 +181,92 @@ TEST_CASE("thread_lead: Shigley's Example 8-1, double thread of 4 mm pitch has a
 TEST_CASE("thread_lead: starts must be a whole number", "[functions][threads][limits]") {
   CHECK_THAT(errorOf("thread_lead", {4 * mm, 1.5}), Catch::Contains("number of starts = 1.5 must be a whole number"));
   CHECK_THAT(errorOf("thread_lead", {4 * mm, 0}), Catch::Contains("must be > 0"));
+}
+
+TEST_CASE("stub_acme_pitch_dia and stub_acme_minor_dia: ASME B1.8 basic height 0.3p, 1-5 gives 0.94 in and 0.88 in "
+          "(from memory)",
+          "[functions][threads]") {
+  CHECK(call("stub_acme_pitch_dia", {1 * in, 0.2 * in}) / in == Approx(0.94));
+  CHECK(call("stub_acme_minor_dia", {1 * in, 0.2 * in}) / in == Approx(0.88));
+  // Independent: the stub thread is 0.6 of the general-purpose depth (0.3p against 0.5p) on either side.
+  for (double d : {0.5, 1.25, 3.0}) {
+    const double p = 1.0 / call("acme_tpi", {d * in});
+    const double stub = d * in - call("stub_acme_minor_dia", {d * in, p});
+    const double full = d * in - call("acme_minor_dia", {d * in, p});
+    CHECK(stub / full == Approx(0.6));
+  }
+}
+
+TEST_CASE("buttress_pitch_dia and buttress_minor_dia: ASME B1.9 7/45 deg form, 2-8 gives 1.925 in and 1.85 in "
+          "(from memory)",
+          "[functions][threads]") {
+  CHECK(call("buttress_pitch_dia", {2 * in, in / 8}) / in == Approx(1.925));
+  CHECK(call("buttress_minor_dia", {2 * in, in / 8}) / in == Approx(1.85));
+  CHECK(call("buttress_flank_angle", {}) == Approx(7 * deg));
+  // Independent: the profile from its flank angles. The sharp V of flanks at 7 and 45 deg has the height
+  // H = p/(tan 7 + tan 45) = 0.89064p (the standard's figure); the pitch line, where thread and groove are
+  // both p/2 wide, is H/2 below the sharp crest; the crest is truncated so that the basic height is 0.6p,
+  // equally at crest and root: so the pitch line is H/2 - (H - 0.6p)/2 = 0.3p below the major diameter.
+  const double p = in / 8;
+  const double H = p / (std::tan(7 * deg) + std::tan(45 * deg));
+  CHECK(H / p == Approx(0.89064).epsilon(1e-5));
+  const double below_major = H / 2 - (H - 0.6 * p) / 2;
+  CHECK(call("buttress_pitch_dia", {2 * in, p}) == Approx(2 * in - 2 * below_major));
+  // Width at the pitch line by bisection on the profile: the thread is p/2 wide there.
+  const auto width = [&](double depth_below_crest) { return depth_below_crest * (std::tan(7 * deg) + 1.0); };
+  CHECK(width(H / 2) == Approx(p / 2));
+  CHECK_THAT(errorOf("buttress_minor_dia", {2 * in, 1.8 * in}), Catch::Contains("leaves no minor diameter"));
+}
+
+TEST_CASE("trap_nut_minor_dia and trap_nut_major_dia: ISO 2904 Tr 40x7 D1 = 33, D4 = 41 mm, Tr 20x4 D1 = 16, "
+          "D4 = 20.5 mm (from memory)",
+          "[functions][threads]") {
+  CHECK(call("trap_nut_minor_dia", {40 * mm, 7 * mm}) / mm == Approx(33));
+  CHECK(call("trap_nut_major_dia", {40 * mm, 7 * mm}) / mm == Approx(41));
+  CHECK(call("trap_nut_minor_dia", {20 * mm, 4 * mm}) / mm == Approx(16));
+  CHECK(call("trap_nut_major_dia", {20 * mm, 4 * mm}) / mm == Approx(20.5));
+  // Independent: screw and nut threads have the same depth H4 = h3 = p/2 + ac, so D4 - D1 = d - d3.
+  for (double p : {2.0, 3.0, 7.0, 10.0, 16.0}) {
+    const double d = 80 * mm;
+    INFO("pitch " << p << " mm");
+    CHECK(call("trap_nut_major_dia", {d, p * mm}) - call("trap_nut_minor_dia", {d, p * mm}) ==
+          Approx(d - call("trap_minor_dia", {d, p * mm})));
+  }
+}
+
+TEST_CASE("threads: a near miss of a size says how far off and the fix", "[functions][threads][limits]") {
+  // 40.004 mm is within 1 % of 40 mm: printed with the digits that tell it apart, then the distance.
+  CHECK(errorOf("trap_pitch", {40.004 * mm}) ==
+        "nominal diameter d = 40.004 mm is not a size of the ISO 2904 trapezoidal series; it is 4 um above the "
+        "size 40 mm; write `40 mm`");
+  CHECK_THAT(errorOf("trap_pitch", {39.9 * mm}), Catch::Contains("d = 39.9 mm") &&
+                                                    Catch::Contains("it is 100 um below the size 40 mm"));
+  // Far from any size: the neighbours, as before.
+  CHECK_THAT(errorOf("trap_pitch", {41 * mm}), Catch::Contains("nearest standard sizes: 40 mm and 42 mm"));
+  // Never a value rounded onto a real size: 4 digits print 40.0011 as "40", 5 digits tell it apart.
+  CHECK_THAT(errorOf("trap_pitch", {40.0011 * mm}), Catch::Contains("d = 40.001 mm is not a size"));
+  CHECK_THAT(errorOf("acme_tpi", {1.0004 * in}),
+             Catch::Contains("d = 1.0004 in (25.41 mm)") && Catch::Contains("it is 10.16 um above the size 1 in; "
+                                                                             "write `1 in`"));
+  CHECK_THAT(errorOf("trap_minor_dia", {40 * mm, 7.02 * mm}),
+             Catch::Contains("pitch p = 7.02 mm/rev is not an ISO 2904 trapezoidal pitch; it is 20 um above the "
+                             "pitch 7 mm; write `7 mm`"));
+}
+
+TEST_CASE("threads: swapped arguments are named by position and value, and the swap is suggested",
+          "[functions][threads][limits]") {
+  CHECK(errorOf("trap_pitch_dia", {7 * mm, 40 * mm}) ==
+        "argument 2 (pitch p) = 40 mm must be smaller than argument 1 (major diameter d) = 7 mm of a trapezoidal "
+        "thread; the two look swapped: trap_pitch_dia(d, p) takes the major diameter first, so write "
+        "trap_pitch_dia(40 mm, 7 mm)");
+  try {
+    call("trap_pitch_dia", {7 * mm, 40 * mm});
+  } catch (const DomainError& e) {
+    CHECK(e.arg() == -1);  // the whole call, so the trail names both quantities
+  }
+  // A swap that would not satisfy the limits is not suggested: 41 mm is no ISO 2904 pitch.
+  CHECK_THAT(errorOf("trap_pitch_dia", {41 * mm, 41 * mm}), !Catch::Contains("swapped"));
+  CHECK_THAT(errorOf("trap_pitch_dia", {7.5 * mm, 41 * mm}), !Catch::Contains("swapped"));
+  CHECK_THAT(errorOf("acme_pitch_dia", {0.2 * in, 1 * in}), Catch::Contains("of an Acme thread; the two look "
+                                                                            "swapped"));
 }

@@ -25,6 +25,7 @@ const LibraryCall* LibraryCallStore::intern(const LibraryCall& call) {
   for (const LibraryCall& c : calls_)
     if (c == call) return &c;
   calls_.push_back(call);
+  calls_.back().doubts = &doubts_;
   return &calls_.back();
 }
 

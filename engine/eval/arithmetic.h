@@ -33,12 +33,16 @@ inline constexpr size_t kMaxProgramLength = 19000;
 // Stable storage for the call-site data muparser passes back to a library
 // callback (the function and its per-revolution conversions). One per
 // evaluation context; never shared between threads.
+// It also counts the doubtful calls made through it (library_call.h).
 class LibraryCallStore {
  public:
   const LibraryCall* intern(const LibraryCall& call);
+  // Doubtful calls made through the interned calls so far.
+  uint64_t doubtfulCalls() const { return doubts_.count; }
 
  private:
   std::deque<LibraryCall> calls_;
+  DoubtCounter doubts_;
 };
 
 class ArithmeticParser {

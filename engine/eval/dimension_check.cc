@@ -366,18 +366,28 @@ bool DimensionChecker::checkCall(Expr& e) {
     diags_->error(file_, e.begin, e.begin + static_cast<uint32_t>(e.text.size()), msg);
     return false;
   }
-  if (n != static_cast<int>(f->args.size())) {
+  if (!f->takes(n)) {
     std::string names;
     for (size_t i = 0; i < f->args.size(); ++i) names += (i ? ", " : "") + f->args[i].name;
-    return fail(e, "`" + f->name + "` takes " + std::to_string(f->args.size()) + " arguments (" + names +
-                       "), not " + std::to_string(n));
+    const size_t fixed = f->args.size();
+    if (f->repeat == 0)
+      return fail(e, "`" + f->name + "` takes " + std::to_string(fixed) + " arguments (" + names + "), not " +
+                         std::to_string(n));
+    std::string group;
+    for (int k = 0; k < f->repeat; ++k)
+      group += (k ? ", " : "") + f->argName(static_cast<int>(fixed) + k);
+    return fail(e, "`" + f->name + "` takes " + names + ", then any number of further " +
+                       (f->repeat == 1 ? "arguments like the last (" + group + ", ...)"
+                                       : "groups of " + std::to_string(f->repeat) + " like the last (" +
+                                             group + ", ...)") +
+                       "; here " + std::to_string(n) + " arguments");
   }
   for (int i = 0; i < n; ++i) {
-    const FunctionArg& arg = f->args[i];
-    const Dimension& got = e.args[i]->dim;
+    const FunctionArg& arg = f->argAt(i);
+    const Dimension& got = e.args[static_cast<size_t>(i)]->dim;
     if (got == arg.dim) continue;
     if (arg.per_revolution && got == arg.dim / kAngle) continue;  // [mm/rev]
-    std::string msg = "argument " + std::to_string(i + 1) + " of `" + f->name + "` (" + arg.name + ", " +
+    std::string msg = "argument " + std::to_string(i + 1) + " of `" + f->name + "` (" + f->argName(i) + ", " +
                       arg.description + ") must be " + words(arg.dim);
     if (arg.per_revolution) msg += " or a length per revolution";
     msg += ", not " + words(got);
@@ -388,7 +398,7 @@ bool DimensionChecker::checkCall(Expr& e) {
         msg += "; the two differ only by an angle: a number of turns is an angle, divide it by `1 [rev]` "
                "(and write a lead per revolution as [mm/rev])";
     }
-    return fail(*e.args[i], msg);
+    return fail(*e.args[static_cast<size_t>(i)], msg);
   }
   e.dim = f->result_per_revolution ? f->result / kAngle : f->result;
   return true;

@@ -5,6 +5,7 @@
 
 #include "engine/eval/math_functions.h"
 #include "engine/util/math_constants.h"
+#include "functions/plausibility.h"
 
 namespace calctrail {
 
@@ -20,6 +21,7 @@ struct Interpreter {
   const NameValue& value_of;
   EvalFault* fault;
   const std::vector<FunctionDecl>& library;
+  std::vector<CallDoubt>* doubts = nullptr;  // collected when not null
 
   double failAt(const Expr& e, std::string message) {
     if (!fault->node) {
@@ -95,8 +97,17 @@ struct Interpreter {
     std::vector<Dimension> dims;
     for (const ExprPtr& a : e.args) dims.push_back(a->dim);
     try {
-      const double r = LibraryCall::at(*f, dims)(args.data(), static_cast<int>(args.size()));
+      const LibraryCall c = LibraryCall::at(*f, dims);
+      const int n = static_cast<int>(args.size());
+      const double r = c(args.data(), n);
       if (!std::isfinite(r)) return failAt(e, "`" + f->name + "` gives no finite value for these inputs");
+      if (doubts) {
+        std::vector<double> passed;
+        for (Doubt& d : doubtsOf(*f, c.converted(args.data(), n, &passed), n)) {
+          const Expr* at = d.arg >= 0 && d.arg < n ? e.args[static_cast<size_t>(d.arg)].get() : &e;
+          doubts->push_back({at, "`" + f->name + "`: " + d.message});
+        }
+      }
       return r;
     } catch (const DomainError& err) {
       const Expr& at = err.arg() >= 0 && err.arg() < static_cast<int>(e.args.size()) ? *e.args[err.arg()] : e;
@@ -112,6 +123,15 @@ double evalTree(const Expr& e, const NameValue& value_of, EvalFault* fault,
   Interpreter in{value_of, fault, library};
   const double v = in.eval(e);
   return fault->node ? NAN : v;
+}
+
+std::vector<CallDoubt> doubtsInTree(const Expr& e, const NameValue& value_of,
+                                    const std::vector<FunctionDecl>& library) {
+  std::vector<CallDoubt> out;
+  EvalFault fault;
+  Interpreter in{value_of, &fault, library, &out};
+  in.eval(e);
+  return out;
 }
 
 }  // namespace calctrail

@@ -28,4 +28,16 @@ using NameValue = std::function<double(const Expr& name_node)>;
 double evalTree(const Expr& e, const NameValue& value_of, EvalFault* fault,
                 const std::vector<FunctionDecl>& library = functionLibrary());
 
+struct CallDoubt {
+  /// Where to point: the argument to blame, or the call.
+  const Expr* at = nullptr;
+  /// The warning: "`critical_speed`: density rho = 78.5 kg/m^3 is outside ...".
+  std::string message;
+};
+
+// Every doubtful library call in `e` (functions/plausibility.h), in the order
+// they are evaluated, found by evaluating `e` with the interpreter.
+std::vector<CallDoubt> doubtsInTree(const Expr& e, const NameValue& value_of,
+                                    const std::vector<FunctionDecl>& library = functionLibrary());
+
 }  // namespace calctrail

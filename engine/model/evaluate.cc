@@ -86,6 +86,25 @@ void Evaluation::fault(Fault::Site site, uint32_t index, const Expr& expr, const
   results->faults.push_back({site, index, &file, at.begin, at.end, std::move(msg)});
 }
 
+namespace {
+// The compiled arithmetic counted a doubtful library call: the interpreter
+// says which call and why, with its position in the formula.
+void addDoubts(const Model& model, const std::vector<double>& values, Fault::Site site, uint32_t index,
+               const Expr& expr, const SourceFile& file, Results* results) {
+  const Sheet& sheet = model.sheet();
+  for (CallDoubt& d :
+       doubtsInTree(expr, [&](const Expr& e) { return values[sheet.find(e.text)]; }, model.library()))
+    results->warnings.push_back({site, index, &file, d.at->begin, d.at->end, std::move(d.message)});
+}
+
+// Quantities by slot, then checks by index: the same order whichever part was re-run.
+void sortWarnings(std::vector<Fault>* w) {
+  std::stable_sort(w->begin(), w->end(), [](const Fault& a, const Fault& b) {
+    return a.site != b.site ? a.site == Fault::Site::Quantity : a.index < b.index;
+  });
+}
+}  // namespace
+
 void Evaluation::evaluateSlot(Slot slot, Results* results) {
   const uint32_t i = slot.index();
   values_[i] = NAN;
@@ -102,6 +121,7 @@ void Evaluation::evaluateSlot(Slot slot, Results* results) {
     if (!std::isfinite(values_[j])) return;  // a quantity it reads failed: one cause, one error
   double v = NAN;
   std::string internal;
+  const uint64_t doubtful = calls_.doubtfulCalls();
   try {
     v = b ? runScratch(p) : run(i, p);
   } catch (const DomainError&) {
@@ -117,6 +137,9 @@ void Evaluation::evaluateSlot(Slot slot, Results* results) {
     return;
   }
   values_[i] = v;
+  if (calls_.doubtfulCalls() != doubtful)
+    addDoubts(model_, values_, Fault::Site::Quantity, i, b ? *b->expr : model_.formulaExpr(slot),
+              b ? *b->file : model_.file(), results);
 }
 
 void Evaluation::evaluateCheck(size_t k, Results* results) {
@@ -131,6 +154,7 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
   double side[2];
   for (int j = 0; j < 2; ++j) {
     double v = NAN;
+    const uint64_t doubtful = calls_.doubtfulCalls();
     try {
       v = run(first_id + static_cast<size_t>(j), *programs[j]);
     } catch (const std::exception&) {
@@ -142,6 +166,9 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
       return;
     }
     side[j] = v;
+    if (calls_.doubtfulCalls() != doubtful)
+      addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.file(),
+                results);
   }
   r.ok = true;
   r.lhs = side[0];
@@ -163,6 +190,7 @@ Results Evaluation::evaluate(const Inputs& inputs) {
   if (results.faults.empty())
     for (size_t k = 0; k < model_.checks().size(); ++k) evaluateCheck(k, &results);
   unbindInputs();
+  sortWarnings(&results.warnings);
   results.values = values_;
   return results;
 }
@@ -193,6 +221,17 @@ void Evaluation::evaluateCone(const Inputs& inputs, Results* results) {
   }
   const std::vector<Slot>& cone = coneOf(inputs);
   std::memcpy(values_.data(), results->values.data(), values_.size() * sizeof(double));
+  // The cone's warnings are found again; the others stand.
+  std::vector<char> rerun(model_.slotCount(), 0), rerun_check(model_.checks().size(), 0);
+  for (Slot s : cone) rerun[s.index()] = 1;
+  for (size_t k : cone_checks_) rerun_check[k] = 1;
+  std::vector<Fault>& w = results->warnings;
+  w.erase(std::remove_if(w.begin(), w.end(),
+                         [&](const Fault& f) {
+                           return f.site == Fault::Site::Quantity ? rerun[f.index] != 0
+                                                                  : rerun_check[f.index] != 0;
+                         }),
+          w.end());
   bindInputs(inputs);
   for (Slot s : cone) evaluateSlot(s, results);
   unbindInputs();
@@ -200,9 +239,13 @@ void Evaluation::evaluateCone(const Inputs& inputs, Results* results) {
   if (!results->faults.empty()) {
     // As evaluate(): no check is evaluated once a quantity has failed.
     std::fill(results->checks.begin(), results->checks.end(), CheckResult());
+    w.erase(std::remove_if(w.begin(), w.end(), [](const Fault& f) { return f.site == Fault::Site::Check; }),
+            w.end());
+    sortWarnings(&w);
     return;
   }
   for (size_t k : cone_checks_) evaluateCheck(k, results);
+  sortWarnings(&w);
 }
 
 Results evaluate(const Model& model, const Inputs& inputs) {

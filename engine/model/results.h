@@ -45,6 +45,10 @@ struct Results {
   std::vector<CheckResult> checks;
   /// Every fault, quantities in evaluation order, then checks in sheet order.
   std::vector<Fault> faults;
+  /// A doubtful library call (an argument outside the range met in practice,
+  /// functions/plausibility.h) in a formula that was calculated: the same
+  /// fields as a fault, the message a warning. Quantities by slot, then checks.
+  std::vector<Fault> warnings;
 
   bool ok(Slot s) const { return std::isfinite(values[s.index()]); }
   double value(Slot s) const { return values[s.index()]; }

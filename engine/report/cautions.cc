@@ -55,6 +55,26 @@ const std::vector<Caution>& cautionCatalogue() {
        "A screw run near its critical speed whips: keep the working speed at most about 80 % of it, with the "
        "longest unsupported length of the stroke.",
        false},
+      {"thread-stripping",
+       "Stripping is sudden: the thread shears along its whole engagement at once. Check the softer part on "
+       "its own side: a bronze nut strips before a steel screw.",
+       false},
+      {"ball-screw-static",
+       "A load above C0a dents the raceways (brinelling): the peak of a crash or an emergency stop "
+       "counts, not the mean load.",
+       false},
+      {"brake-dynamic",
+       "A brake that holds the static load may not stop a falling one: check the dynamic braking "
+       "torque and the stopping distance too.",
+       false},
+      {"peak-torque",
+       "Size the peak torque for the worst case: the highest load, the shortest ramp, and friction "
+       "at its high value.",
+       false},
+      {"rms-torque",
+       "The RMS torque judges heating over a cycle much shorter than the motor's thermal time "
+       "constant; a long peak heats the winding on its own.",
+       false},
   };
   return c;
 }
@@ -114,6 +134,26 @@ std::vector<const Caution*> cautionsForFunctionText(std::string_view text) {
       {"A screw run near its critical speed whips: keep the working speed at most about 80 % of it, with the "
        "longest unsupported length of the stroke.",
        {"critical-speed"}},
+      {"Stripping is sudden: the thread shears along its whole engagement at once. Check the softer part on "
+       "its own side: a bronze nut strips before a steel screw.",
+       {"thread-stripping"}},
+      {"A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.",
+       {"ball-screw-life"}},
+      {"A worm that locks at standstill may not lock when running (friction falls with sliding "
+       "speed) or under vibration: a held load needs a brake.",
+       {"self-locking"}},
+      {"A load above C0a dents the raceways (brinelling): the peak of a crash or an emergency stop "
+       "counts, not the mean load.",
+       {"ball-screw-static"}},
+      {"A brake that holds the static load may not stop a falling one: check the dynamic braking "
+       "torque and the stopping distance too.",
+       {"brake-dynamic"}},
+      {"Size the peak torque for the worst case: the highest load, the shortest ramp, and friction "
+       "at its high value.",
+       {"peak-torque"}},
+      {"The RMS torque judges heating over a cycle much shorter than the motor's thermal time "
+       "constant; a long peak heats the winding on its own.",
+       {"rms-torque"}},
   };
   std::vector<const Caution*> out;
   for (const Mapping& m : map) {

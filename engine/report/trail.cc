@@ -270,6 +270,13 @@ const std::vector<LookupTable>& lookupTables() {
            series.resize(series.size() - 3);
          return listHolds(series, "the series ", kw) ? kw + " kW, IEC 60072-1 series" : std::string();
        }},
+      {"ball_screw_reliability_factor", "",
+       [](const std::vector<double>& a, double r, const FunctionDecl& f) {
+         const std::string row = rowNumber(a[0] * 100) + " % " + (r == 1 ? "a1 = " : "") + rowNumber(r);
+         return f.formula.find(row) != std::string::npos
+                    ? "R = " + rowNumber(a[0] * 100) + " %: a1 = " + rowNumber(r) + ", ISO 3408-5 table"
+                    : std::string();
+       }},
   };
   return tables;
 }
