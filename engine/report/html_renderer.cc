@@ -68,12 +68,12 @@ tr.fail td { font-weight: bold; }
 .warn { margin: 0.2em 0; font-weight: bold; }
 .modified { border: 2.5pt solid #000; padding: 0.4em 0.6em; margin: 0.6em 0; font-weight: bold; }
 code.name { font-size: 0.75em; margin-left: 0.4em; }
-.fn { font-size: 0.88em; margin: 0.2em 0 0.2em 1.5em; text-indent: -1.5em; break-inside: avoid; }
+.fn { font-size: 0.84em; margin: 0.2em 0 0.2em 1.5em; text-indent: -1.5em; break-inside: avoid; }
 .fn code.sig { font-weight: bold; }
 .fn .used, .fn .limits { font-style: italic; }
 .fn math { text-indent: 0; math-style: normal; }
 .fn mfrac > * { math-style: normal; }
-ol.sources { font-size: 0.85em; padding-left: 2em; margin: 0.3em 0; }
+ol.sources { font-size: 0.8em; padding-left: 2em; margin: 0.3em 0; }
 table.checks { font-size: 0.92em; }
 .source { font-style: italic; }
 .cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.3em; margin-top: 1em; break-inside: avoid;
