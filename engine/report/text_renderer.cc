@@ -63,6 +63,69 @@ void whereLine(std::back_insert_iterator<fmt::memory_buffer> out, const TrailCal
   for (size_t k = 1; k < parts.size(); ++k) fmt::format_to(out, "          = {}\n", parts[k]);
 }
 
+// The load cases: each with what it replaces; a case that could not be
+// calculated says why.
+void caseList(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  fmt::format_to(out, "{}", heading("LOAD CASES"));
+  int w = 0;
+  for (const TrailCase& c : t.cases) w = std::max(w, width(c.name));
+  for (const TrailCase& c : t.cases) {
+    std::string line = "  " + pad(c.name, w) + "  " +
+                       (c.replacements.empty() ? std::string("the worksheet as written") : c.replacements);
+    if (!c.description.empty()) line += "  (" + c.description + ")";
+    fmt::format_to(out, "{}\n", line);
+    for (const std::string& e : c.errors) fmt::format_to(out, "{}", wrap("NOT CALCULATED: " + e, "    "));
+  }
+  fmt::format_to(out, "\n");
+}
+
+// A value that some case changes: one line per case, nominal first, so that
+// a diff shows which case moved.
+void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailStep& s,
+                const std::string& indent) {
+  int w = 0;
+  for (const TrailCase& c : t.cases) w = std::max(w, width(c.name));
+  for (size_t k = 0; k < s.cases.size() && k < t.cases.size(); ++k) {
+    const TrailCaseValue& v = s.cases[k];
+    std::string line = indent + pad(t.cases[k].name, w) + "  " + (v.ok ? valueText(v.value) : "not calculated");
+    if (v.replaced) line += "  (replaced: " + v.formula + ")";
+    fmt::format_to(out, "{}\n", line);
+  }
+}
+
+// The checks in every case: a row per check, a column per case with
+// pass/FAIL and the margin; `*` marks the governing case (least margin).
+void caseChecks(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  fmt::format_to(out, "{}", heading("CHECKS BY LOAD CASE  (* governing: least margin)"));
+  int name_w = 0;
+  for (const TrailCheck& c : t.checks) name_w = std::max(name_w, width(c.name));
+  std::vector<std::vector<std::string>> cells(t.checks.size());
+  std::vector<int> col_w(t.cases.size());
+  for (size_t k = 0; k < t.cases.size(); ++k) col_w[k] = width(t.cases[k].name);
+  for (size_t i = 0; i < t.checks.size(); ++i) {
+    const TrailCheck& c = t.checks[i];
+    for (size_t k = 0; k < t.cases.size(); ++k) {
+      std::string cell = "-";
+      if (k < c.cases.size() && c.cases[k].ok)
+        cell = std::string(c.cases[k].passed ? "pass " : "FAIL ") + valueText(c.cases[k].margin);
+      if (static_cast<int>(k) == c.governing) cell += " *";
+      col_w[k] = std::max(col_w[k], width(cell));
+      cells[i].push_back(cell);
+    }
+  }
+  std::string head = "  " + pad("", name_w);
+  for (size_t k = 0; k < t.cases.size(); ++k) head += "  " + pad(t.cases[k].name, col_w[k]);
+  while (!head.empty() && head.back() == ' ') head.pop_back();
+  fmt::format_to(out, "{}\n", head);
+  for (size_t i = 0; i < t.checks.size(); ++i) {
+    std::string row = "  " + pad(t.checks[i].name, name_w);
+    for (size_t k = 0; k < t.cases.size(); ++k) row += "  " + pad(cells[i][k], col_w[k]);
+    while (!row.empty() && row.back() == ' ') row.pop_back();
+    fmt::format_to(out, "{}\n", row);
+  }
+  fmt::format_to(out, "\n");
+}
+
 void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
   auto meta = [&](const std::string& key) {
     for (const auto& [k, v] : t.meta)
@@ -106,6 +169,8 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   if (!t.warnings.empty()) fmt::format_to(out, "{}", wrap(warningSummary(t), ""));
   fmt::format_to(out, "\n");
 
+  if (!t.cases.empty()) caseList(out, t);
+
   // Inputs, grouped under their sections.
   fmt::format_to(out, "{}", heading("INPUTS"));
   auto shown = [](const TrailStep& s) { return valueText(s.given ? *s.given : s.result); };
@@ -129,6 +194,7 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
     if (!notes.empty()) line += "  " + notes;
     while (!line.empty() && line.back() == ' ') line.pop_back();
     fmt::format_to(out, "{}\n", line);
+    if (s.varies) caseValues(out, t, s, "      ");
     for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
   }
   fmt::format_to(out, "\n");
@@ -154,6 +220,7 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
       // under LIBRARY FUNCTIONS USED.
       if (s.single_call) fmt::format_to(out, "{}= {}\n", indent, lineText(s.calls[0].substituted));
       fmt::format_to(out, "{}= {}\n", indent, resultText(s));
+      if (s.varies) caseValues(out, t, s, indent + "  ");
       for (const TrailCall& c : s.calls)
         if (!c.whole) whereLine(out, c);
       for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
@@ -175,6 +242,7 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
         fmt::format_to(out, "{}", wrap("WARNING: " + m, std::string(static_cast<size_t>(w) + 10, ' ')));
     }
     fmt::format_to(out, "\n");
+    if (!t.cases.empty()) caseChecks(out, t);
   }
 
   if (!t.functions.empty()) {

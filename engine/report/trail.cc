@@ -24,22 +24,49 @@ std::string conditionText(const Check& c) {
   return renderExpr(*c.lhs) + " " + comparisonText(c.op) + " " + renderExpr(*c.rhs);
 }
 
+namespace {
+// A check fails when it fails in the case shown or in any load case; a case
+// that could not be calculated fails every check it could not evaluate.
+bool failsSomewhere(const TrailCheck& c) {
+  if (!c.passed) return true;
+  for (const TrailCaseCheck& k : c.cases)
+    if (!k.passed) return true;
+  return false;
+}
+}  // namespace
+
 std::string verdictState(const Trail& t) {
   if (t.checks.empty()) return "NO CHECKS";
-  return t.failed == 0 ? "PASS" : "FAIL";
+  for (const TrailCheck& c : t.checks)
+    if (failsSomewhere(c)) return "FAIL";
+  return t.cases_failed > 0 ? "FAIL" : "PASS";
 }
 
 std::string verdictSentence(const Trail& t) {
   const std::string state = verdictState(t);
   if (t.checks.empty()) return state + ": this worksheet has no design checks";
-  if (t.failed == 0)
-    return t.checks.size() == 1 ? state + ": the 1 check passes"
-                                : fmt::format("{}: all {} checks pass", state, t.checks.size());
   std::vector<std::string> names;
-  for (const TrailCheck& c : t.checks)
-    if (!c.passed) names.push_back(c.name);
-  return fmt::format("{}: {} of {} {} {}: {}", state, t.failed, t.checks.size(),
-                     t.checks.size() == 1 ? "check" : "checks", t.failed == 1 ? "fails" : "fail",
+  for (const TrailCheck& c : t.checks) {
+    if (!failsSomewhere(c)) continue;
+    std::string name = c.name;
+    if (c.passed && !t.cases.empty()) {  // fails only in load cases: name them
+      std::vector<std::string> in;
+      for (size_t k = 0; k < c.cases.size() && k < t.cases.size(); ++k)
+        if (!c.cases[k].passed) in.push_back(t.cases[k].name);
+      name += fmt::format(" (in case {})", fmt::join(in, ", "));
+    }
+    names.push_back(name);
+  }
+  const std::string cases = t.cases.empty() ? "" : fmt::format(" in {} load cases", t.cases.size());
+  if (names.empty()) {
+    if (t.cases_failed > 0)
+      return fmt::format("{}: {} of {} load cases could not be calculated", state, t.cases_failed,
+                         t.cases.size());
+    return t.checks.size() == 1 ? state + ": the 1 check passes" + cases
+                                : fmt::format("{}: all {} checks pass{}", state, t.checks.size(), cases);
+  }
+  return fmt::format("{}: {} of {} {} {}: {}", state, names.size(), t.checks.size(),
+                     t.checks.size() == 1 ? "check" : "checks", names.size() == 1 ? "fails" : "fail",
                      fmt::join(names, ", "));
 }
 
