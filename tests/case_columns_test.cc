@@ -56,3 +56,23 @@ TEST_CASE("cases: all cases passing says so in the verdict", "[cases][report]") 
   const Trail t = buildTrail(*c, 4);
   CHECK(verdictSentence(t) == "PASS: the 1 check passes in 2 load cases");
 }
+
+TEST_CASE("cases: Markdown and HTML show a column per case for checks and changed values", "[cases][report]") {
+  auto c = calc(kSheet);
+  const Trail t = buildTrail(*c, 4);
+  const std::string md = renderReport(t, "md");
+  CHECK(md.find("| Check | `nominal` | `dry` | `over` |\n|---|---|---|---|\n"
+                "| `torque` | pass 10.00 N·m | **FAIL** -10.00 N·m (governing) | pass 6.000 N·m |\n") !=
+        std::string::npos);
+  CHECK(md.find("| `T` | 20.00 N·m | **40.00 N·m** | **24.00 N·m** |  |\n") != std::string::npos);
+  CHECK(md.find("### Checks by load case") < md.find("## Inputs"));
+  const std::string html = renderReport(t, "html");
+  CHECK(html.find("<h3>Checks by load case</h3>") < html.find("<h2>Inputs</h2>"));
+  CHECK(html.find("<td class=\"value\"><span class=\"fail-mark\">FAIL</span> ") != std::string::npos);
+  CHECK(html.find("<h3>Values by load case</h3>") != std::string::npos);
+  // A sheet without cases has none of it.
+  auto plain = calc("F = 10 kN\ncheck load: F <= 20 kN\n");
+  const Trail p = buildTrail(*plain, 4);
+  CHECK(renderReport(p, "md").find("load case") == std::string::npos);
+  CHECK(renderReport(p, "html").find("load case") == std::string::npos);
+}

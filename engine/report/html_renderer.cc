@@ -328,6 +328,52 @@ std::string measureCell(const TrailCheck& c) {
 
 // The verdict and every check, first: a failed check must be impossible to
 // miss, so it is marked in words and weight, never by colour alone.
+// The load cases side by side: every check per case (pass/FAIL and the
+// margin, the governing case marked), then every value a case changes, one
+// column per case, nominal first.
+void casesTables(Out out, const Trail& t) {
+  fmt::format_to(out, "<h3>Checks by load case</h3>\n<table class=\"checks cases\">\n<thead><tr><th>Check</th>");
+  for (const TrailCase& k : t.cases) fmt::format_to(out, "<th><code>{}</code></th>", esc(k.name));
+  fmt::format_to(out, "</tr></thead>\n<tbody>\n");
+  for (const TrailCheck& c : t.checks) {
+    fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(c.name));
+    for (size_t k = 0; k < t.cases.size(); ++k) {
+      std::string cell = "not calculated";
+      if (k < c.cases.size() && c.cases[k].ok)
+        cell = (c.cases[k].passed ? std::string("pass ") : std::string("<span class=\"fail-mark\">FAIL</span> ")) +
+               human(c.cases[k].margin);
+      if (static_cast<int>(k) == c.governing) cell += " <strong>(governing)</strong>";
+      fmt::format_to(out, "<td class=\"value\">{}</td>", cell);
+    }
+    fmt::format_to(out, "</tr>\n");
+  }
+  fmt::format_to(out, "</tbody>\n</table>\n<p>Load cases: ");
+  for (size_t k = 0; k < t.cases.size(); ++k) {
+    const TrailCase& c = t.cases[k];
+    fmt::format_to(out, "{}<code>{}</code> ({})", k ? "; " : "", esc(c.name),
+                   c.replacements.empty() ? std::string("the worksheet as written") : esc(c.replacements));
+    for (const std::string& e : c.errors) fmt::format_to(out, " <strong>NOT CALCULATED:</strong> {}", esc(e));
+  }
+  fmt::format_to(out, ".</p>\n<h3>Values by load case</h3>\n<table class=\"cases\">\n<thead><tr><th>Quantity</th>");
+  for (const TrailCase& k : t.cases) fmt::format_to(out, "<th><code>{}</code></th>", esc(k.name));
+  fmt::format_to(out, "</tr></thead>\n<tbody>\n");
+  for (const TrailStep& s : t.steps) {
+    if (!s.varies) continue;
+    fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(s.name));
+    for (size_t k = 0; k < t.cases.size(); ++k) {
+      if (k >= s.cases.size() || !s.cases[k].ok) {
+        fmt::format_to(out, "<td>not calculated</td>");
+        continue;
+      }
+      const bool differs = k > 0 && s.cases[k].value.si != s.cases[0].value.si;
+      fmt::format_to(out, differs ? "<td class=\"value\"><strong>{}</strong></td>" : "<td class=\"value\">{}</td>",
+                     human(s.cases[k].value));
+    }
+    fmt::format_to(out, "</tr>\n");
+  }
+  fmt::format_to(out, "</tbody>\n</table>\n");
+}
+
 void checksSummary(Out out, const Trail& t) {
   fmt::format_to(out, "<section class=\"verdict {}\">\n<h2>Design checks</h2>\n",
                  verdictState(t) == "FAIL" ? "has-fail" : "all-pass");
@@ -353,7 +399,9 @@ void checksSummary(Out out, const Trail& t) {
         out, "<td><code>{}</code></td><td>{}</td><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n",
         esc(c.name), conditionMath(c), checkValues(c), esc(measureCell(c)), note);
   }
-  fmt::format_to(out, "</tbody>\n</table>\n</section>\n");
+  fmt::format_to(out, "</tbody>\n</table>\n");
+  if (!t.cases.empty()) casesTables(out, t);
+  fmt::format_to(out, "</section>\n");
 }
 
 // A quantity's symbol, and its name as written where the symbol is not

@@ -71,6 +71,33 @@ void checksSummary(std::back_insert_iterator<fmt::memory_buffer> out, const Trai
     }
   }
   fmt::format_to(out, "\n");
+  if (t.cases.empty()) return;
+  // Every check in every load case: pass/FAIL and the margin; the governing
+  // case (least margin) is marked.
+  fmt::format_to(out, "### Checks by load case\n\n| Check |");
+  for (const TrailCase& k : t.cases) fmt::format_to(out, " {} |", code(k.name));
+  fmt::format_to(out, "\n|---|");
+  for (size_t k = 0; k < t.cases.size(); ++k) fmt::format_to(out, "---|");
+  fmt::format_to(out, "\n");
+  for (const TrailCheck& c : t.checks) {
+    fmt::format_to(out, "| {} |", code(c.name));
+    for (size_t k = 0; k < t.cases.size(); ++k) {
+      std::string cell = "not calculated";
+      if (k < c.cases.size() && c.cases[k].ok)
+        cell = (c.cases[k].passed ? "pass " : "**FAIL** ") + human(c.cases[k].margin);
+      if (static_cast<int>(k) == c.governing) cell += " (governing)";
+      fmt::format_to(out, " {} |", cell);
+    }
+    fmt::format_to(out, "\n");
+  }
+  fmt::format_to(out, "\nLoad cases: ");
+  for (size_t k = 0; k < t.cases.size(); ++k) {
+    const TrailCase& c = t.cases[k];
+    fmt::format_to(out, "{}{} ({})", k ? "; " : "", code(c.name),
+                   c.replacements.empty() ? std::string("the worksheet as written") : text(c.replacements));
+    for (const std::string& e : c.errors) fmt::format_to(out, " **NOT CALCULATED:** {}", text(e));
+  }
+  fmt::format_to(out, ".\n\n");
 }
 
 std::string resultText(const TrailStep& s) {
@@ -160,10 +187,32 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   bool any_result = false;
   for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
   if (any_result) {
-    fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
-    for (const TrailStep& s : t.steps)
-      if (!s.input)
-        fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
+    if (t.cases.empty()) {
+      fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
+      for (const TrailStep& s : t.steps)
+        if (!s.input)
+          fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
+    } else {
+      // One value column per load case, nominal first; a bold value differs from the nominal.
+      fmt::format_to(out, "## Results\n\n| Quantity |");
+      for (const TrailCase& k : t.cases) fmt::format_to(out, " {} |", code(k.name));
+      fmt::format_to(out, " Description |\n|---|");
+      for (size_t k = 0; k <= t.cases.size(); ++k) fmt::format_to(out, "---|");
+      fmt::format_to(out, "\n");
+      for (const TrailStep& s : t.steps) {
+        if (s.input && !s.varies) continue;
+        fmt::format_to(out, "| {} |", code(s.name));
+        for (size_t k = 0; k < t.cases.size(); ++k) {
+          if (k >= s.cases.size() || !s.cases[k].ok) {
+            fmt::format_to(out, " not calculated |");
+            continue;
+          }
+          const bool differs = k > 0 && s.cases[k].value.si != s.cases[0].value.si;
+          fmt::format_to(out, differs ? " **{}** |" : " {} |", human(s.cases[k].value));
+        }
+        fmt::format_to(out, " {} |\n", text(s.description));
+      }
+    }
     fmt::format_to(out, "\n");
   }
 
