@@ -38,6 +38,15 @@ TEST_CASE("golden: twin-screw lift table, text trail", "[golden]") {
 
 // The JSON holds every number at full precision: these goldens pin the
 // machine format byte for byte, as the others pin the human ones.
+TEST_CASE("golden: bearing press (load cases), text trail", "[golden][cases]") {
+  compareGolden("report worksheets/bearing-press.calc", "bearing-press.txt");
+}
+
+TEST_CASE("golden: platform lift (one template used twice), text and JSON trails", "[golden][json]") {
+  compareGolden("report worksheets/platform-lift.calc", "platform-lift.txt");
+  compareGolden("report worksheets/platform-lift.calc --format json", "platform-lift.json");
+}
+
 TEST_CASE("golden: canal gate hoist, JSON trail", "[golden][json]") {
   compareGolden("report worksheets/canal-gate-hoist.calc --format json", "canal-gate-hoist.json");
 }

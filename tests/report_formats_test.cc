@@ -27,7 +27,9 @@ namespace {
 // so that no machine path reaches a golden file.
 std::unique_ptr<Calculation> demo(const std::string& name) {
   const std::string display = "worksheets/" + name + ".calc";
-  auto c = Calculation::fromText(display, readFile(repoPath(display)));
+  CalcOptions options;
+  options.source_path = repoPath(display);  // its templates, from wherever the tests run
+  auto c = Calculation::fromText(display, readFile(repoPath(display)), options);
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   return c;
@@ -87,8 +89,23 @@ TEST_CASE("golden: twin-screw lift, Markdown and HTML trails", "[report][golden]
   compareGolden(renderHtml(t), "twin-screw-lift.html");
 }
 
+TEST_CASE("golden: bearing press (load cases), Markdown and HTML trails", "[report][golden][cases]") {
+  auto c = demo("bearing-press");
+  const Trail t = buildTrail(*c, 4);
+  compareGolden(renderMarkdown(t), "bearing-press.md");
+  compareGolden(renderHtml(t), "bearing-press.html");
+}
+
+TEST_CASE("golden: platform lift (one template used twice), Markdown and HTML trails", "[report][golden]") {
+  auto c = demo("platform-lift");
+  const Trail t = buildTrail(*c, 4);
+  compareGolden(renderMarkdown(t), "platform-lift.md");
+  compareGolden(renderHtml(t), "platform-lift.html");
+}
+
 TEST_CASE("golden files carry no machine path", "[report]") {
-  for (const char* name : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift"}) {
+  for (const char* name :
+       {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press", "platform-lift"}) {
     for (const char* ext : {".txt", ".md", ".html", ".json"}) {
       const std::string f = std::string(name) + ext;
       const std::string text = readFile(repoPath("tests/golden/" + f));
