@@ -137,18 +137,7 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
   }
   if (!expr) return false;
 
-  bool unknown = false;
-  std::vector<std::string> names;
-  forEachName(*expr, [&](const Expr& x) {
-    if (m.find(x.text).valid()) return;
-    if (names.empty())
-      for (const Quantity& q : m.sheet().quantities) names.push_back(q.name);
-    diags->error(*file, x.begin, x.end, unknownNameMessage(x.text, names, m.library()));
-    unknown = true;
-  });
-  if (unknown) return false;
-  DimensionChecker checker(*file, diags, m.sheet(), m.dims(), m.known(), m.library());
-  if (!checker.check(*expr)) return false;
+  if (!checkOverModel(m, *file, *expr, diags)) return false;
   const Quantity& q = m.quantity(slot);
   const SlotInfo& info = m.slot(slot);
   const Dimension dim = quantityDimension(expr->dim);

@@ -436,4 +436,19 @@ size_t Model::compiledBytes() const {
   return bytes;
 }
 
+bool checkOverModel(const Model& m, const SourceFile& file, Expr& expr, Diagnostics* diags) {
+  bool unknown = false;
+  std::vector<std::string> names;  // built on the first unknown name only
+  forEachName(expr, [&](const Expr& x) {
+    if (m.find(x.text).valid()) return;
+    if (names.empty())
+      for (const Quantity& q : m.sheet().quantities) names.push_back(q.name);
+    diags->error(file, x.begin, x.end, unknownNameMessage(x.text, names, m.library()));
+    unknown = true;
+  });
+  if (unknown) return false;
+  DimensionChecker checker(file, diags, m.sheet(), m.dims(), m.known(), m.library());
+  return checker.check(expr);
+}
+
 }  // namespace calctrail

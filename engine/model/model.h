@@ -134,6 +134,12 @@ class Model {
   std::vector<char> unresolved_;  // per slot: the formula names something undefined (reported)
 };
 
+// An expression written over the model's quantities (a --set, a load case, a
+// study's target): every name it reads is a quantity (each unknown one is
+// reported, with suggestions) and it passes the dimension check, which fills
+// its Expr::dim. False when a problem went to *diags.
+bool checkOverModel(const Model& m, const SourceFile& file, Expr& expr, Diagnostics* diags);
+
 // A lone literal with a unit (`20 kN`, `-3 degC`): the unit it was written in; else nullptr.
 const Unit* unitAsWritten(const Expr& e);
 

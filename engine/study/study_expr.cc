@@ -12,18 +12,7 @@ bool compileStudyExpr(const Model& m, std::shared_ptr<const SourceFile> file, ui
   ExprParser parser(*file, begin, end, diags);
   ExprPtr expr = parser.parseWhole();
   if (!expr) return false;
-  bool unknown = false;
-  std::vector<std::string> names;
-  forEachName(*expr, [&](const Expr& x) {
-    if (m.find(x.text).valid()) return;
-    if (names.empty())
-      for (const Quantity& q : m.sheet().quantities) names.push_back(q.name);
-    diags->error(*file, x.begin, x.end, unknownNameMessage(x.text, names, m.library()));
-    unknown = true;
-  });
-  if (unknown) return false;
-  DimensionChecker checker(*file, diags, m.sheet(), m.dims(), m.known(), m.library());
-  if (!checker.check(*expr)) return false;
+  if (!checkOverModel(m, *file, *expr, diags)) return false;
   out->program = compileProgram(*expr, m.sheet(), m.library());
   if (out->program.text.size() > kMaxProgramLength) {
     diags->error(*file, expr->begin, expr->end, tooLongMessage("the expression", out->program.text.size()));
