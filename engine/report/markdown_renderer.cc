@@ -39,6 +39,48 @@ std::string code(const std::string& s) {
 std::string human(const TrailValue& v) { return valueText(v, NumberStyle::TimesTen); }
 std::string human(const TrailLine& line) { return lineText(line, NumberStyle::TimesTen); }
 
+// Case columns per table: a wider table wraps into several, each repeating
+// its first column, so that no rendered page runs out of width.
+constexpr size_t kCheckColumns = 5, kValueColumns = 6;
+
+// A case's value, bold where it differs from the nominal.
+std::string caseCell(const TrailStep& s, size_t k) {
+  if (k >= s.cases.size() || !s.cases[k].ok) return "not calculated";
+  const bool differs = k > 0 && s.cases[k].value.si != s.cases[0].value.si;
+  return differs ? "**" + human(s.cases[k].value) + "**" : human(s.cases[k].value);
+}
+
+// Under a step that some case changes: its value in every case, nominal
+// first, as a small table (several for many cases).
+void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailStep& s) {
+  for (const auto& [first, last] : caseGroups(t.cases.size(), kValueColumns)) {
+    fmt::format_to(out, "\n| Case |");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", code(t.cases[k].name));
+    fmt::format_to(out, "\n|---|");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, "---|");
+    fmt::format_to(out, "\n| {} |", code(s.name));
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", caseCell(s, k));
+    fmt::format_to(out, "\n");
+  }
+}
+
+// An instance's part: its heading, then a table of its parameters: the
+// value each is bound to and where it came from (the binding in the using
+// sheet, the template's default, or the command line).
+void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailInstance& in) {
+  fmt::format_to(out, "\n### Instance {}\n\n", code(in.name));
+  fmt::format_to(out, "{} ({})\n", in.title.empty() ? std::string("Template") : text(in.title), code(in.path));
+  if (in.params.empty()) return;
+  fmt::format_to(out, "\n| Parameter | Value | Bound by |\n|---|---|---|\n");
+  for (const TrailInstanceParam& p : in.params) {
+    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const std::string from = s.overridden         ? std::string("*set on the command line*")
+                             : p.binding.empty() ? std::string("*default*")
+                                                 : code(p.binding);
+    fmt::format_to(out, "| {} | {} | {} |\n", code(p.name), human(s.given ? *s.given : s.result), from);
+  }
+}
+
 std::string relation(const std::string& op) {
   if (op == "<=") return "\u2264";
   if (op == ">=") return "\u2265";
@@ -74,23 +116,27 @@ void checksSummary(std::back_insert_iterator<fmt::memory_buffer> out, const Trai
   if (t.cases.empty()) return;
   // Every check in every load case: pass/FAIL and the margin; the governing
   // case (least margin) is marked.
-  fmt::format_to(out, "### Checks by load case\n\n| Check |");
-  for (const TrailCase& k : t.cases) fmt::format_to(out, " {} |", code(k.name));
-  fmt::format_to(out, "\n|---|");
-  for (size_t k = 0; k < t.cases.size(); ++k) fmt::format_to(out, "---|");
-  fmt::format_to(out, "\n");
-  for (const TrailCheck& c : t.checks) {
-    fmt::format_to(out, "| {} |", code(c.name));
-    for (size_t k = 0; k < t.cases.size(); ++k) {
-      std::string cell = "not calculated";
-      if (k < c.cases.size() && c.cases[k].ok)
-        cell = (c.cases[k].passed ? "pass " : "**FAIL** ") + human(c.cases[k].margin);
-      if (static_cast<int>(k) == c.governing) cell += " (governing)";
-      fmt::format_to(out, " {} |", cell);
+  fmt::format_to(out, "### Checks by load case\n\n");
+  for (const auto& [first, last] : caseGroups(t.cases.size(), kCheckColumns)) {
+    fmt::format_to(out, "| Check |");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", code(t.cases[k].name));
+    fmt::format_to(out, "\n|---|");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, "---|");
+    fmt::format_to(out, "\n");
+    for (const TrailCheck& c : t.checks) {
+      fmt::format_to(out, "| {} |", code(c.name));
+      for (size_t k = first; k < last; ++k) {
+        std::string cell = "not calculated";
+        if (k < c.cases.size() && c.cases[k].ok)
+          cell = (c.cases[k].passed ? "pass " : "**FAIL** ") + human(c.cases[k].margin);
+        if (static_cast<int>(k) == c.governing) cell += " (governing)";
+        fmt::format_to(out, " {} |", cell);
+      }
+      fmt::format_to(out, "\n");
     }
     fmt::format_to(out, "\n");
   }
-  fmt::format_to(out, "\nLoad cases: ");
+  fmt::format_to(out, "Load cases: ");
   for (size_t k = 0; k < t.cases.size(); ++k) {
     const TrailCase& c = t.cases[k];
     fmt::format_to(out, "{}{} ({})", k ? "; " : "", code(c.name),
@@ -153,10 +199,20 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
 
   fmt::format_to(out, "## Calculation\n");
   for (const TrailBlock& b : t.blocks) {
-    if (b.kind == TrailBlock::Section) {
+    if (b.kind == TrailBlock::Section && b.instance >= 0) {
+      instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
+    } else if (b.kind == TrailBlock::Section) {
       fmt::format_to(out, "\n### {}\n", text(b.text));
+    } else if (b.kind == TrailBlock::Note && b.instance >= 0) {
+      continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
       fmt::format_to(out, "\n{}\n", text(b.text));
+    } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
+      // An instance's checks close its part; the summary lists them all.
+      const TrailCheck& c = t.checks[static_cast<size_t>(b.index)];
+      fmt::format_to(out, "\n{} {} {}: {} {} {}{}\n", c.passed ? "check" : "**FAIL**", code(c.name),
+                     code(c.condition), human(c.lhs), relation(c.op), human(c.rhs),
+                     c.measure.empty() ? std::string() : ", " + c.measure);
     } else if (b.kind == TrailBlock::Step) {
       const TrailStep& s = t.steps[b.index];
       if (s.input) continue;
@@ -179,6 +235,7 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
       }
       for (const std::string& w : s.warnings) lines.push_back("**WARNING:** " + text(w));
       fmt::format_to(out, "{}\n", fmt::join(lines, "\\\n"));
+      if (s.varies) caseValues(out, t, s);
     }
   }
   fmt::format_to(out, "\n");
@@ -194,23 +251,19 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
           fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
     } else {
       // One value column per load case, nominal first; a bold value differs from the nominal.
-      fmt::format_to(out, "## Results\n\n| Quantity |");
-      for (const TrailCase& k : t.cases) fmt::format_to(out, " {} |", code(k.name));
-      fmt::format_to(out, " Description |\n|---|");
-      for (size_t k = 0; k <= t.cases.size(); ++k) fmt::format_to(out, "---|");
-      fmt::format_to(out, "\n");
-      for (const TrailStep& s : t.steps) {
-        if (s.input && !s.varies) continue;
-        fmt::format_to(out, "| {} |", code(s.name));
-        for (size_t k = 0; k < t.cases.size(); ++k) {
-          if (k >= s.cases.size() || !s.cases[k].ok) {
-            fmt::format_to(out, " not calculated |");
-            continue;
-          }
-          const bool differs = k > 0 && s.cases[k].value.si != s.cases[0].value.si;
-          fmt::format_to(out, differs ? " **{}** |" : " {} |", human(s.cases[k].value));
+      fmt::format_to(out, "## Results\n");
+      for (const auto& [first, last] : caseGroups(t.cases.size(), kValueColumns)) {
+        fmt::format_to(out, "\n| Quantity |");
+        for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", code(t.cases[k].name));
+        fmt::format_to(out, " Description |\n|---|");
+        for (size_t k = first; k <= last; ++k) fmt::format_to(out, "---|");
+        fmt::format_to(out, "\n");
+        for (const TrailStep& s : t.steps) {
+          if (s.input && !s.varies) continue;
+          fmt::format_to(out, "| {} |", code(s.name));
+          for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", caseCell(s, k));
+          fmt::format_to(out, " {} |\n", text(s.description));
         }
-        fmt::format_to(out, " {} |\n", text(s.description));
       }
     }
     fmt::format_to(out, "\n");

@@ -631,15 +631,30 @@ void addInstances(const Sheet& sheet, Trail* t) {
     }
     ti.steps = inst.quantities;
     ti.checks = inst.checks;
-    t->blocks.push_back({TrailBlock::Section, ti.heading, 0});
-    if (!params.empty()) t->blocks.push_back({TrailBlock::Note, "Parameters: " + params + ".", 0});
-    for (int q : ti.steps) t->blocks.push_back({TrailBlock::Step, "", q});
-    for (int c : ti.checks) t->blocks.push_back({TrailBlock::CheckRef, "", c});
+    const int at = static_cast<int>(t->instances.size());
+    t->blocks.push_back({TrailBlock::Section, ti.heading, 0, at});
+    if (!params.empty()) t->blocks.push_back({TrailBlock::Note, "Parameters: " + params + ".", 0, at});
+    for (int q : ti.steps) t->blocks.push_back({TrailBlock::Step, "", q, at});
+    for (int c : ti.checks) t->blocks.push_back({TrailBlock::CheckRef, "", c, at});
     t->instances.push_back(std::move(ti));
   }
 }
 
 }  // namespace
+
+std::vector<std::pair<size_t, size_t>> caseGroups(size_t cases, size_t most) {
+  std::vector<std::pair<size_t, size_t>> groups;
+  if (cases == 0 || most == 0) return groups;
+  // Groups of nearly equal size: 7 cases in groups of 6 are 4 and 3, not 6 and 1.
+  const size_t count = (cases + most - 1) / most;
+  size_t first = 0;
+  for (size_t g = 0; g < count; ++g) {
+    const size_t size = (cases - first + (count - g) - 1) / (count - g);
+    groups.emplace_back(first, first + size);
+    first += size;
+  }
+  return groups;
+}
 
 Trail buildTrail(const Calculation& calc, int digits) {
   const Sheet& sheet = calc.sheet;

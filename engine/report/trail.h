@@ -244,7 +244,16 @@ struct TrailBlock {       // document order: headings, narrative, steps, checks
   enum Kind { Section, Note, Step, CheckRef } kind = Step;
   std::string text;       // Section title, Note paragraph
   int index = 0;          // into steps or checks
+  /// The instance whose part this heading, parameter note or check opens or
+  /// belongs to (into Trail::instances); -1 for the main sheet's own. A
+  /// format may set an instance's heading and parameters its own way.
+  int instance = -1;
 };
+
+// Case columns in groups of at most `most`, so that a table of many load
+// cases wraps onto several tables, each repeating the name column, instead
+// of running off the page: [first, last) into Trail::cases.
+std::vector<std::pair<size_t, size_t>> caseGroups(size_t cases, size_t most);
 
 struct Trail {
   std::string title;
