@@ -43,6 +43,7 @@ table.meta td { border: none; }
 code.hash { word-break: break-all; }
 .verdict { border: 1pt solid #000; padding: 0.5em 0.8em 0.7em; margin: 1em 0 1.2em; break-inside: avoid; }
 .verdict h2 { margin-top: 0.2em; border: none; }
+.verdict.has-cases { break-inside: auto; }
 .verdict.has-fail { border-width: 2.5pt; }
 .verdict-line { font-size: 1.15em; font-weight: bold; margin: 0 0 0.6em; }
 .fail-mark { font-weight: bold; border: 1.5pt solid #000; padding: 0 0.25em; }
@@ -75,6 +76,15 @@ code.name { font-size: 0.75em; margin-left: 0.4em; }
 .fn mfrac > * { math-style: normal; }
 ol.sources { font-size: 0.8em; padding-left: 2em; margin: 0.3em 0; }
 table.checks { font-size: 0.92em; }
+table.cases { margin-bottom: 0.5em; }
+td.case { white-space: normal; }
+td.case .value { white-space: nowrap; }
+table.step-cases { width: auto; font-size: 0.88em; margin: 0.15em 0 0.2em; }
+table.step-cases th, table.step-cases td { padding-right: 1.2em; }
+tr.case-values td { border-bottom: 0.25pt solid #999; padding-top: 0; }
+table.params { width: auto; margin: 0.2em 0 0.5em; font-size: 0.92em; }
+table.params td, table.params th { padding-right: 1.5em; }
+table.instance-checks { margin: 0.4em 0 0.6em; }
 .source { font-style: italic; }
 .cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.3em; margin-top: 1em; break-inside: avoid;
   font-size: 0.92em; }
@@ -287,6 +297,19 @@ std::string checkValues(const TrailCheck& c) {
 // Every part of the document is appended to one buffer.
 using Out = std::back_insert_iterator<fmt::memory_buffer>;
 
+// Case columns per table on a portrait A4 or Letter page: the checks table
+// (a name column and cells such as "FAIL −10.00 N·m (governing)"), the
+// values table, and the table within a step (its right-hand column). A
+// wider table wraps into several, each repeating the name column.
+constexpr size_t kCheckColumns = 5, kValueColumns = 6, kStepCaseColumns = 5;
+
+// A case's value, bold where it differs from the nominal.
+std::string caseCell(const TrailStep& s, size_t k) {
+  if (k >= s.cases.size() || !s.cases[k].ok) return "not calculated";
+  const bool differs = k > 0 && s.cases[k].value.si != s.cases[0].value.si;
+  return differs ? "<strong>" + human(s.cases[k].value) + "</strong>" : human(s.cases[k].value);
+}
+
 // A run changed by --set: said in a framed box wherever the hash is shown.
 void modifiedBox(Out out, const Trail& t) {
   if (t.modified_by.empty()) return;
@@ -332,51 +355,63 @@ std::string measureCell(const TrailCheck& c) {
 // margin, the governing case marked), then every value a case changes, one
 // column per case, nominal first.
 void casesTables(Out out, const Trail& t) {
-  fmt::format_to(out, "<h3>Checks by load case</h3>\n<table class=\"checks cases\">\n<thead><tr><th>Check</th>");
-  for (const TrailCase& k : t.cases) fmt::format_to(out, "<th><code>{}</code></th>", esc(k.name));
-  fmt::format_to(out, "</tr></thead>\n<tbody>\n");
-  for (const TrailCheck& c : t.checks) {
-    fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(c.name));
-    for (size_t k = 0; k < t.cases.size(); ++k) {
-      std::string cell = "not calculated";
-      if (k < c.cases.size() && c.cases[k].ok)
-        cell = (c.cases[k].passed ? std::string("pass ") : std::string("<span class=\"fail-mark\">FAIL</span> ")) +
-               human(c.cases[k].margin);
-      if (static_cast<int>(k) == c.governing) cell += " <strong>(governing)</strong>";
-      fmt::format_to(out, "<td class=\"value\">{}</td>", cell);
+  fmt::format_to(out, "<h3>Checks by load case</h3>\n");
+  for (const auto& [first, last] : caseGroups(t.cases.size(), kCheckColumns)) {
+    fmt::format_to(out, "<table class=\"checks cases\">\n<thead><tr><th>Check</th>");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, "<th><code>{}</code></th>", esc(t.cases[k].name));
+    fmt::format_to(out, "</tr></thead>\n<tbody>\n");
+    for (const TrailCheck& c : t.checks) {
+      fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(c.name));
+      for (size_t k = first; k < last; ++k) {
+        std::string cell = "not calculated";
+        if (k < c.cases.size() && c.cases[k].ok)
+          cell = (c.cases[k].passed ? std::string("pass ") : std::string("<span class=\"fail-mark\">FAIL</span> ")) +
+                 "<span class=\"value\">" + human(c.cases[k].margin) + "</span>";
+        if (static_cast<int>(k) == c.governing) cell += " <strong>(governing)</strong>";
+        fmt::format_to(out, "<td class=\"case\">{}</td>", cell);
+      }
+      fmt::format_to(out, "</tr>\n");
     }
-    fmt::format_to(out, "</tr>\n");
+    fmt::format_to(out, "</tbody>\n</table>\n");
   }
-  fmt::format_to(out, "</tbody>\n</table>\n<p>Load cases: ");
+  fmt::format_to(out, "<p>Load cases: ");
   for (size_t k = 0; k < t.cases.size(); ++k) {
     const TrailCase& c = t.cases[k];
     fmt::format_to(out, "{}<code>{}</code> ({})", k ? "; " : "", esc(c.name),
                    c.replacements.empty() ? std::string("the worksheet as written") : esc(c.replacements));
     for (const std::string& e : c.errors) fmt::format_to(out, " <strong>NOT CALCULATED:</strong> {}", esc(e));
   }
-  fmt::format_to(out, ".</p>\n<h3>Values by load case</h3>\n<table class=\"cases\">\n<thead><tr><th>Quantity</th>");
-  for (const TrailCase& k : t.cases) fmt::format_to(out, "<th><code>{}</code></th>", esc(k.name));
-  fmt::format_to(out, "</tr></thead>\n<tbody>\n");
-  for (const TrailStep& s : t.steps) {
-    if (!s.varies) continue;
-    fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(s.name));
-    for (size_t k = 0; k < t.cases.size(); ++k) {
-      if (k >= s.cases.size() || !s.cases[k].ok) {
-        fmt::format_to(out, "<td>not calculated</td>");
-        continue;
-      }
-      const bool differs = k > 0 && s.cases[k].value.si != s.cases[0].value.si;
-      fmt::format_to(out, differs ? "<td class=\"value\"><strong>{}</strong></td>" : "<td class=\"value\">{}</td>",
-                     human(s.cases[k].value));
+  fmt::format_to(out, ".</p>\n<h3>Values by load case</h3>\n");
+  for (const auto& [first, last] : caseGroups(t.cases.size(), kValueColumns)) {
+    fmt::format_to(out, "<table class=\"cases\">\n<thead><tr><th>Quantity</th>");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, "<th><code>{}</code></th>", esc(t.cases[k].name));
+    fmt::format_to(out, "</tr></thead>\n<tbody>\n");
+    for (const TrailStep& s : t.steps) {
+      if (!s.varies) continue;
+      fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(s.name));
+      for (size_t k = first; k < last; ++k) fmt::format_to(out, "<td class=\"value\">{}</td>", caseCell(s, k));
+      fmt::format_to(out, "</tr>\n");
     }
-    fmt::format_to(out, "</tr>\n");
+    fmt::format_to(out, "</tbody>\n</table>\n");
   }
-  fmt::format_to(out, "</tbody>\n</table>\n");
+}
+
+// Within a step (or under an input) that some case changes: its value in
+// every case, nominal first, as a small table; many cases wrap onto rows
+// of tables.
+void caseValues(Out out, const Trail& t, const TrailStep& s) {
+  for (const auto& [first, last] : caseGroups(t.cases.size(), kStepCaseColumns)) {
+    fmt::format_to(out, "<table class=\"step-cases\">\n<thead><tr>");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, "<th><code>{}</code></th>", esc(t.cases[k].name));
+    fmt::format_to(out, "</tr></thead>\n<tbody><tr>");
+    for (size_t k = first; k < last; ++k) fmt::format_to(out, "<td class=\"value\">{}</td>", caseCell(s, k));
+    fmt::format_to(out, "</tr></tbody>\n</table>\n");
+  }
 }
 
 void checksSummary(Out out, const Trail& t) {
-  fmt::format_to(out, "<section class=\"verdict {}\">\n<h2>Design checks</h2>\n",
-                 verdictState(t) == "FAIL" ? "has-fail" : "all-pass");
+  fmt::format_to(out, "<section class=\"verdict {}{}\">\n<h2>Design checks</h2>\n",
+                 verdictState(t) == "FAIL" ? "has-fail" : "all-pass", t.cases.empty() ? "" : " has-cases");
   fmt::format_to(out, "<p class=\"verdict-line\">{}</p>\n", verdictHtml(t));
   if (!t.warnings.empty()) {
     const std::string w = warningSummary(t);
@@ -434,6 +469,11 @@ void quantityTable(Out out, const Trail& t, bool inputs) {
     const TrailValue& value = inputs && s.given ? *s.given : s.result;
     fmt::format_to(out, "<tr><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n", symbolCell(s.name),
                    human(value), notes);
+    if (s.varies) {
+      fmt::format_to(out, "<tr class=\"case-values\"><td></td><td colspan=\"2\">\n");
+      caseValues(out, t, s);
+      fmt::format_to(out, "</td></tr>\n");
+    }
   }
   fmt::format_to(out, "</tbody>\n</table>\n");
 }
@@ -471,7 +511,7 @@ void whereLine(Out out, const TrailCall& c) {
   fmt::format_to(out, "</div>\n");
 }
 
-void step(Out out, const TrailStep& s) {
+void step(Out out, const Trail& t, const TrailStep& s) {
   fmt::format_to(out, "<div class=\"step\" id=\"q-{}\">\n<div class=\"what\"><code>{}</code>", esc(s.name),
                  esc(s.name));
   if (!s.description.empty()) fmt::format_to(out, " <span class=\"desc\">{}</span>", esc(s.description));
@@ -501,18 +541,60 @@ void step(Out out, const TrailStep& s) {
   equation(out, inlineMath(mathmlName(s.name)), rhs, result);
   for (const TrailCall& c : s.calls)
     if (!c.whole) whereLine(out, c);
+  if (s.varies) caseValues(out, t, s);
   for (const std::string& w : s.warnings)
     fmt::format_to(out, "<p class=\"warn\"><span class=\"fail-mark\">WARNING</span> {}</p>\n", esc(w));
   fmt::format_to(out, "</div>\n</div>\n");
 }
 
+// An instance's part: a heading with the instance, the template's title and
+// file, then its parameters: the value each is bound to and where it came
+// from (the binding in the using sheet, the default, the command line).
+void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
+  fmt::format_to(out, "<h3 class=\"instance\">Instance <code>{}</code>: {} <span class=\"source\">(<code>{}</code>)"
+                      "</span></h3>\n",
+                 esc(in.name), esc(in.title.empty() ? std::string("template") : in.title), esc(in.path));
+  if (in.params.empty()) return;
+  fmt::format_to(out, "<table class=\"params\">\n<thead><tr><th>Parameter</th><th>Value</th><th>Bound by</th>"
+                      "</tr></thead>\n<tbody>\n");
+  for (const TrailInstanceParam& p : in.params) {
+    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const std::string from = s.overridden         ? std::string("<em>set on the command line</em>")
+                             : p.binding.empty() ? std::string("<em>default</em>")
+                                                 : "<code>" + esc(p.binding) + "</code>";
+    fmt::format_to(out, "<tr><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n", symbolCell(p.name),
+                   human(s.given ? *s.given : s.result), from);
+  }
+  fmt::format_to(out, "</tbody>\n</table>\n");
+}
+
+// An instance's checks close its part, a row each; the summary lists them all.
+void instanceCheck(Out out, const TrailCheck& c, bool first) {
+  if (first)
+    fmt::format_to(out, "<table class=\"checks instance-checks\">\n<thead><tr><th>State</th><th>Check</th>"
+                        "<th>Condition</th><th>Values</th><th>Utilisation</th></tr></thead>\n<tbody>\n");
+  fmt::format_to(out, "<tr class=\"{}\">{}<td><code>{}</code></td><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n",
+                 c.passed ? "pass" : "fail",
+                 c.passed ? "<td>pass</td>" : "<td><span class=\"fail-mark\">FAIL</span></td>", esc(c.name),
+                 conditionMath(c), checkValues(c), esc(measureCell(c)));
+}
+
 void calculation(Out out, const Trail& t) {
   fmt::format_to(out, "<section class=\"calculation\">\n<h2>Calculation</h2>\n");
+  bool in_checks = false;  // within an instance's table of checks
   for (const TrailBlock& b : t.blocks) {
-    if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(b.text));
-    else if (b.kind == TrailBlock::Note) fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(b.text));
-    else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) step(out, t.steps[b.index]);
+    const bool check_row = b.kind == TrailBlock::CheckRef && b.instance >= 0;
+    if (in_checks && !check_row) fmt::format_to(out, "</tbody>\n</table>\n");
+    if (b.kind == TrailBlock::Section && b.instance >= 0)
+      instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
+    else if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(b.text));
+    else if (b.kind == TrailBlock::Note && b.instance < 0)
+      fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(b.text));
+    else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) step(out, t, t.steps[b.index]);
+    else if (check_row) instanceCheck(out, t.checks[static_cast<size_t>(b.index)], !in_checks);
+    in_checks = check_row;
   }
+  if (in_checks) fmt::format_to(out, "</tbody>\n</table>\n");
   fmt::format_to(out, "</section>\n");
 }
 

@@ -198,7 +198,10 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "\n");
 
   fmt::format_to(out, "## Calculation\n");
+  bool in_checks = false;  // within an instance's table of checks
   for (const TrailBlock& b : t.blocks) {
+    const bool check_row = b.kind == TrailBlock::CheckRef && b.instance >= 0;
+    in_checks = in_checks && check_row;
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
@@ -208,11 +211,13 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
     } else if (b.kind == TrailBlock::Note) {
       fmt::format_to(out, "\n{}\n", text(b.text));
     } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
-      // An instance's checks close its part; the summary lists them all.
+      // An instance's checks close its part, a row each; the summary lists them all.
       const TrailCheck& c = t.checks[static_cast<size_t>(b.index)];
-      fmt::format_to(out, "\n{} {} {}: {} {} {}{}\n", c.passed ? "check" : "**FAIL**", code(c.name),
-                     code(c.condition), human(c.lhs), relation(c.op), human(c.rhs),
-                     c.measure.empty() ? std::string() : ", " + c.measure);
+      if (!in_checks) fmt::format_to(out, "\n| State | Check | Condition | Values | Utilisation or margin |\n"
+                                          "|---|---|---|---|---|\n");
+      fmt::format_to(out, "| {} | {} | {} | {} {} {} | {} |\n", c.passed ? "pass" : "**FAIL**", code(c.name),
+                     code(c.condition), human(c.lhs), relation(c.op), human(c.rhs), c.measure);
+      in_checks = true;
     } else if (b.kind == TrailBlock::Step) {
       const TrailStep& s = t.steps[b.index];
       if (s.input) continue;
