@@ -113,17 +113,62 @@ void caseChecks(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& 
       cells[i].push_back(cell);
     }
   }
-  std::string head = "  " + pad("", name_w);
-  for (size_t k = 0; k < t.cases.size(); ++k) head += "  " + pad(t.cases[k].name, col_w[k]);
-  while (!head.empty() && head.back() == ' ') head.pop_back();
-  fmt::format_to(out, "{}\n", head);
-  for (size_t i = 0; i < t.checks.size(); ++i) {
-    std::string row = "  " + pad(t.checks[i].name, name_w);
-    for (size_t k = 0; k < t.cases.size(); ++k) row += "  " + pad(cells[i][k], col_w[k]);
-    while (!row.empty() && row.back() == ' ') row.pop_back();
-    fmt::format_to(out, "{}\n", row);
+  // Columns wrap onto further blocks, each repeating the check names, so
+  // that no line runs past 78 columns (one case a block at the least); the
+  // blocks as even as the widths allow (4 cases as 2 and 2, not 3 and 1).
+  auto fits = [&](size_t first, size_t last) {
+    int w = 2 + name_w;
+    for (size_t k = first; k < last; ++k) w += 2 + col_w[k];
+    return last == first + 1 || w <= 78;
+  };
+  std::vector<std::pair<size_t, size_t>> groups;
+  for (size_t first = 0; first < t.cases.size();) {
+    size_t last = first + 1;
+    while (last < t.cases.size() && fits(first, last + 1)) ++last;
+    groups.emplace_back(first, last);
+    first = last;
+  }
+  const auto even = caseGroups(t.cases.size(), (t.cases.size() + groups.size() - 1) / groups.size());
+  if (std::all_of(even.begin(), even.end(), [&](const auto& g) { return fits(g.first, g.second); }))
+    groups = even;
+  for (const auto& [first, last] : groups) {
+    if (first > 0) fmt::format_to(out, "\n");
+    std::string head = "  " + pad("", name_w);
+    for (size_t k = first; k < last; ++k) head += "  " + pad(t.cases[k].name, col_w[k]);
+    while (!head.empty() && head.back() == ' ') head.pop_back();
+    fmt::format_to(out, "{}\n", head);
+    for (size_t i = 0; i < t.checks.size(); ++i) {
+      std::string row = "  " + pad(t.checks[i].name, name_w);
+      for (size_t k = first; k < last; ++k) row += "  " + pad(cells[i][k], col_w[k]);
+      while (!row.empty() && row.back() == ' ') row.pop_back();
+      fmt::format_to(out, "{}\n", row);
+    }
   }
   fmt::format_to(out, "\n");
+}
+
+// An instance's part: its heading, then its parameters a line each: the
+// value each is bound to and where it came from.
+void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailInstance& in) {
+  fmt::format_to(out, "\n{}\n\n", in.heading);
+  if (in.params.empty()) return;
+  std::vector<std::string> values;
+  int name_w = width("parameter"), value_w = width("value");
+  for (const TrailInstanceParam& p : in.params) {
+    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    values.push_back(valueText(s.given ? *s.given : s.result));
+    name_w = std::max(name_w, width(p.name));
+    value_w = std::max(value_w, width(values.back()));
+  }
+  fmt::format_to(out, "  {}  {}  bound by\n", pad("parameter", name_w), pad("value", value_w));
+  for (size_t k = 0; k < in.params.size(); ++k) {
+    const TrailInstanceParam& p = in.params[k];
+    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const std::string from = s.overridden ? std::string("[set on the command line]")
+                             : p.binding.empty() ? std::string("(default)")
+                                                 : p.binding;
+    fmt::format_to(out, "  {}  {}  {}\n", pad(p.name, name_w), pad(values[k], value_w), from);
+  }
 }
 
 void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
@@ -201,8 +246,12 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
 
   fmt::format_to(out, "{}", heading("CALCULATION"));
   for (const TrailBlock& b : t.blocks) {
-    if (b.kind == TrailBlock::Section) {
+    if (b.kind == TrailBlock::Section && b.instance >= 0) {
+      instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
+    } else if (b.kind == TrailBlock::Section) {
       fmt::format_to(out, "\n{}\n", b.text);
+    } else if (b.kind == TrailBlock::Note && b.instance >= 0) {
+      continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
       fmt::format_to(out, "\n{}", wrap(b.text, "  "));
     } else if (b.kind == TrailBlock::Step) {
