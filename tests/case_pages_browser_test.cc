@@ -89,8 +89,9 @@ std::string sheetWithCases(int n) {
 }
 
 void printCases(int n, const std::string& paper) {
-  INFO("headless Chromium prints the HTML trail; install the Debian packages `chromium` and `poppler-utils` "
-       "(apt-get install chromium poppler-utils)");
+  INFO(
+      "headless Chromium prints the HTML trail; install the Debian packages `chromium` and `poppler-utils` "
+      "(apt-get install chromium poppler-utils)");
   REQUIRE(have("chromium"));
   REQUIRE(have("pdftotext"));
   auto c = calc(sheetWithCases(n));
@@ -140,7 +141,8 @@ void printCases(int n, const std::string& paper) {
     for (const TrailStep& s : t.steps) {
       if (!s.varies) continue;
       std::vector<std::string> values;
-      for (size_t k = first; k < last; ++k) values.push_back(plain(valueText(s.cases[k].value, NumberStyle::TimesTen)));
+      for (size_t k = first; k < last; ++k)
+        values.push_back(plain(valueText(s.cases[k].value, NumberStyle::TimesTen)));
       INFO("values of " << s.name);
       CHECK(lineInOrder(text, values));
     }
@@ -154,13 +156,15 @@ void printCases(int n, const std::string& paper) {
   // two points of tolerance for the glyphs' side bearings).
   const std::string boxes = readFile(dir + "/box.html");
   const std::regex page_re(R"re(<page width="([0-9.]+)")re");
-  const std::regex word_re(R"re(<word xMin="([0-9.]+)" yMin="[0-9.]+" xMax="([0-9.]+)"[^>]*>([^<]*)</word>)re");
+  const std::regex word_re(
+      R"re(<word xMin="([0-9.]+)" yMin="[0-9.]+" xMax="([0-9.]+)"[^>]*>([^<]*)</word>)re");
   std::smatch m;
   REQUIRE(std::regex_search(boxes, m, page_re));
   const double width = std::stod(m[1]);
   const double margin = 15.0 / 25.4 * 72.0 - 2.0;
   int words = 0;
-  for (auto it = std::sregex_iterator(boxes.begin(), boxes.end(), word_re); it != std::sregex_iterator(); ++it) {
+  for (auto it = std::sregex_iterator(boxes.begin(), boxes.end(), word_re); it != std::sregex_iterator();
+       ++it) {
     ++words;
     const double x0 = std::stod((*it)[1]), x1 = std::stod((*it)[2]);
     INFO("word " << (*it)[3] << " from " << x0 << " to " << x1 << " pt on a page " << width << " pt wide");
@@ -173,7 +177,9 @@ void printCases(int n, const std::string& paper) {
 
 }  // namespace
 
-TEST_CASE("browser: 8 load cases side by side fit a portrait A4 page", "[browser][cases]") { printCases(8, "A4"); }
+TEST_CASE("browser: 8 load cases side by side fit a portrait A4 page", "[browser][cases]") {
+  printCases(8, "A4");
+}
 
 TEST_CASE("browser: 12 load cases side by side fit a portrait Letter page", "[browser][cases]") {
   printCases(12, "letter");

@@ -24,11 +24,15 @@ namespace {
 
 std::unique_ptr<Calculation> demo(const std::string& name) {
   const std::string display = "worksheets/" + name + ".calc";
-  auto c = Calculation::fromText(display, readFile(repoPath(display)));
+  CalcOptions options;
+  options.source_path = repoPath(display);  // its templates, from wherever the tests run
+  auto c = Calculation::fromText(display, readFile(repoPath(display)), options);
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   return c;
 }
+
+bool contains(const std::string& s, const std::string& part) { return s.find(part) != std::string::npos; }
 
 size_t count(const std::string& s, const std::string& part) {
   size_t n = 0;
@@ -260,4 +264,49 @@ TEST_CASE("HTML: one naming rule for the library and the sheet, no repeated name
   CHECK(html.find("<math><msub><mi>f</mi><mi>run</mi></msub></math> <code class=\"name\">f_run</code>") !=
         std::string::npos);
   CHECK(html.find("<mi>dm</mi>") == std::string::npos);
+}
+
+TEST_CASE("an instance is a part of its own: heading, parameters with their values and bindings, steps, checks",
+          "[report][layout][template]") {
+  auto c = demo("platform-lift");
+  const Trail t = buildTrail(*c, 4);
+  // Independent check of the bound value: heavy.F = (1800 kg + 1500 kg) * 9.80665 m/s^2 * 0.62 = 20064.4 N.
+  CHECK(step(t, "heavy.F").result.si == Approx(3300 * 9.80665 * 0.62).epsilon(1e-12));
+  const std::string md = renderMarkdown(t);
+  CHECK(contains(md, "\n### Instance `heavy`\n\nTrapezoidal screw stage: torques, efficiency, self-locking, "
+                     "stresses, nut, buckling (`templates/trapezoidal-screw-stage.calc`)\n\n"
+                     "| Parameter | Value | Bound by |\n|---|---|---|\n| `F` | 20.06 kN | `F_total * share_heavy` |\n"
+                     "| `n` | 60 rpm | *default* |\n| `d` | 44 mm | `44 mm` |\n"));
+  CHECK(contains(md, "| `i` | 25.00 | `i_drive` |\n"));
+  // The part's checks close it, before the next instance.
+  const size_t heavy = md.find("### Instance `heavy`"), light = md.find("### Instance `light`");
+  const size_t buckling = md.find("| pass | `heavy.buckling` | `heavy.n_buckle >= 3` | 3.327 ≥ 3 | utilisation 90 % |\n",
+                                  heavy);
+  CHECK(heavy != std::string::npos);
+  CHECK(buckling < light);
+  CHECK(md.find("Parameters: ") == std::string::npos);  // the table, not the paragraph
+
+  const std::string html = renderHtml(t);
+  CHECK(contains(html, "<h3 class=\"instance\">Instance <code>light</code>: Trapezoidal screw stage: torques, "
+                       "efficiency, self-locking, stresses, nut, buckling <span class=\"source\">(<code>"
+                       "templates/trapezoidal-screw-stage.calc</code>)</span></h3>\n<table class=\"params\">"));
+  CHECK(contains(html, "<td class=\"value\">12.30&nbsp;kN</td><td><code>F_total * (1 - share_heavy)</code></td>"));
+  CHECK(count(html, "<table class=\"params\">") == 3);
+  CHECK(count(html, "<table class=\"checks instance-checks\">") == 3);
+  CHECK(html.find("Parameters: ") == std::string::npos);
+
+  const std::string text = renderText(t);
+  CHECK(contains(text, "  parameter  value      bound by\n  T_screw    133.5 N·m  max(heavy.T_raise, light.T_raise)\n"));
+
+  // A parameter set on the command line says so where its binding would be.
+  CalcOptions options;
+  options.sets = {"light.f=0.15"};
+  options.source_path = repoPath("worksheets/platform-lift.calc");
+  auto set = Calculation::fromText("worksheets/platform-lift.calc",
+                                   readFile(repoPath("worksheets/platform-lift.calc")), options);
+  INFO(diagnostics(*set));
+  REQUIRE_FALSE(set->hasErrors());
+  const Trail ts = buildTrail(*set, 4);
+  CHECK(contains(renderMarkdown(ts), "| `f` | 0.15 | *set on the command line* |\n"));
+  CHECK(contains(renderText(ts), "  f          0.15         [set on the command line]\n"));
 }
