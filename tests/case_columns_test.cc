@@ -160,3 +160,15 @@ TEST_CASE("cases: many cases wrap into tables that repeat the name column, in ev
   }
   for (const TrailCase& k : t.cases) CHECK(contains(table, k.name));
 }
+
+TEST_CASE("cases: a calculated quantity that a case replaces names the formula in force in its step",
+          "[cases][report]") {
+  // T replaced in case `measured` by a value of its own: 35 N*m instead of 10 kN * 0.1 * 20 mm = 20 N*m.
+  auto c = calc("F = 10 kN\nf = 0.1\nT [N*m] = F * f * 20 mm\ncase measured: T = 35 [N*m]\n");
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  CHECK(contains(renderText(t), "measured  35.00 N·m  (replaced: 35 [N*m])\n"));
+  CHECK(contains(renderReport(t, "md"), "| `T` | 20.00 N·m | **35.00 N·m** (replaced: `35 [N*m]`) |\n"));
+  CHECK(contains(renderReport(t, "html"), "<td class=\"value\"><strong>35.00&nbsp;N·m</strong><br><span class=\"row\">"
+                                          "replaced: <code>35 [N*m]</code></span></td>"));
+}

@@ -404,7 +404,13 @@ void caseValues(Out out, const Trail& t, const TrailStep& s) {
     fmt::format_to(out, "<table class=\"step-cases\">\n<thead><tr>");
     for (size_t k = first; k < last; ++k) fmt::format_to(out, "<th><code>{}</code></th>", esc(t.cases[k].name));
     fmt::format_to(out, "</tr></thead>\n<tbody><tr>");
-    for (size_t k = first; k < last; ++k) fmt::format_to(out, "<td class=\"value\">{}</td>", caseCell(s, k));
+    for (size_t k = first; k < last; ++k) {
+      // A calculated quantity that a case replaces: the formula in force, as the text trail says.
+      const bool replaced = !s.input && k < s.cases.size() && s.cases[k].replaced;
+      fmt::format_to(out, "<td class=\"value\">{}{}</td>", caseCell(s, k),
+                     replaced ? "<br><span class=\"row\">replaced: <code>" + esc(s.cases[k].formula) + "</code></span>"
+                              : std::string());
+    }
     fmt::format_to(out, "</tr></tbody>\n</table>\n");
   }
 }

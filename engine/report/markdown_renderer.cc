@@ -59,7 +59,11 @@ void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& 
     fmt::format_to(out, "\n|---|");
     for (size_t k = first; k < last; ++k) fmt::format_to(out, "---|");
     fmt::format_to(out, "\n| {} |", code(s.name));
-    for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", caseCell(s, k));
+    for (size_t k = first; k < last; ++k) {
+      // A calculated quantity that a case replaces: the formula in force, as the text trail says.
+      const bool replaced = !s.input && k < s.cases.size() && s.cases[k].replaced;
+      fmt::format_to(out, " {}{} |", caseCell(s, k), replaced ? " (replaced: " + code(s.cases[k].formula) + ")" : "");
+    }
     fmt::format_to(out, "\n");
   }
 }
