@@ -55,7 +55,7 @@ void sweepPart(const SweepTable& t, int digits, TrailStudy* out) {
   out->summary = failed.empty() ? std::string("Every check passes at every point calculated.")
                                 : fmt::format("A check fails at {} of {} points: {}.", failing_points, t.size(), failed);
   LinePlot plot = sweepPlot(t);
-  plot.title = "Study " + out->name + ": " + out->statement;
+  plot.title = "Study " + out->name;  // the statement is above the plot; a long title would run into the legend
   out->svg = renderSvg(plot);
 }
 
