@@ -771,7 +771,14 @@ class LineParser {
       const uint32_t b = skipSpace(parts[k].first, parts[k].second);
       uint32_t q = b;
       while (q < parts[k].second && s[q] >= '0' && s[q] <= '9') ++q;
-      const std::string rest = trim(std::string_view(s).substr(q, parts[k].second - q));
+      // The words after the count, one blank apart whatever was written.
+      std::string rest;
+      for (uint32_t w = skipSpace(q, parts[k].second); w < parts[k].second;) {
+        uint32_t we = w;
+        while (we < parts[k].second && !isSpace(s[we])) ++we;
+        rest += (rest.empty() ? "" : " ") + s.substr(w, we - w);
+        w = skipSpace(we, parts[k].second);
+      }
       uint32_t e = parts[k].second;
       while (e > b && (s[e - 1] == ' ' || s[e - 1] == '\t')) --e;
       study->points_begin = b;
