@@ -92,13 +92,16 @@ TEST_CASE("study line: fmt writes it canonically and reads it back the same", "[
       std::string(kSheet) +
           "study a:sweep F=1 [kN]..3 kN ,5 points   log-spaced,show T  # the sweep\n"
           "study b:   capacity F = 1 kN .. 9 kN,largest\n"
-          "study c: sweep F = 1 kN,2 kN , show T,k\n",
+          "study c: sweep F = 1 kN,2 kN , show T,k\n"
+          "study d: capacity F = 0. ..3 kN, smallest\n",
       &diags);
   INFO((diags.list().empty() ? std::string() : diags.list().front().message));
   REQUIRE_FALSE(diags.hasErrors());
   CHECK_THAT(out, Catch::Contains("study a: sweep F = 1 kN..3 kN, 5 points log-spaced, show T  # the sweep\n"
                                   "study b: capacity F = 1 kN..9 kN, largest\n"
-                                  "study c: sweep F = 1 kN, 2 kN, show T, k\n"));
+                                  "study c: sweep F = 1 kN, 2 kN, show T, k\n"
+                                  // The number's own dot stays apart from the range's `..`.
+                                  "study d: capacity F = 0. ..3 kN, smallest\n"));
   Diagnostics again;
   CHECK(formatWorksheet("s.calc", out, &again) == out);
 }

@@ -226,7 +226,9 @@ std::string canonicalStudyLine(const SheetStudy& st) {
   std::string out = "study " + st.name + ": " + (st.kind == SheetStudy::Sweep ? "sweep " : "capacity ") +
                     st.vary.name + " = ";
   if (st.range) {
-    out += renderExpr(*st.values[0]) + ".." + renderExpr(*st.values[1]);
+    // `0.` before `..` would read as `0` and `..`: keep the number's own dot apart.
+    const std::string from = renderExpr(*st.values[0]);
+    out += from + (from.back() == '.' ? " .." : "..") + renderExpr(*st.values[1]);
   } else {
     for (size_t k = 0; k < st.values.size(); ++k) out += (k ? ", " : "") + renderExpr(*st.values[k]);
   }

@@ -716,6 +716,12 @@ class LineParser {
         ok &= parseStudyValue(&study, parts[k].first, parts[k].second, parts[k].first - 1, "a value");
     }
     if (!ok) return false;
+    if (study.values.size() > static_cast<size_t>(kMaxStudyPoints)) {
+      diags_->error(file_, study.values.front()->begin, study.values.back()->end,
+                    "a study in a worksheet has at most " + std::to_string(kMaxStudyPoints) +
+                        " points (its table is printed in the report); `calctrail sweep` takes more");
+      return false;
+    }
     if (study.kind == SheetStudy::Capacity) {
       if (!study.range) {
         diags_->error(file_, study.values[0]->begin, study.values[0]->end,
