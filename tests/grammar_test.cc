@@ -351,3 +351,15 @@ TEST_CASE("grammar: study lines", "[editors][grammar]") {
   // A quantity called `study` is still a definition.
   CHECK(scopeOf("study = 3", "study") == "variable.other.definition.calc");
 }
+
+TEST_CASE("grammar: a pick study line", "[editors][grammar]") {
+  const std::string series = "study screw: pick d from trapezoidal  # smallest screw";
+  CHECK(scopeOf(series, "pick") == "keyword.other.study.kind.calc");
+  CHECK(scopeOf(series, "d ") == "variable.other.study.input.calc");
+  CHECK(scopeOf(series, "from") == "keyword.other.study.clause.calc");
+  CHECK(scopeOf(series, "trapezoidal") == "variable.other.calc");
+  CHECK(scopeOf(series, "# smallest") == "comment.line.description.calc");
+  const std::string list = "study motor: pick T_motor from 1.2 [N*m], 2.6 [N*m]";
+  CHECK(scopeOf(list, "1.2") == "constant.numeric.calc");
+  CHECK(scopeOf(list, "N*m") == "entity.name.type.unit.calc");
+}

@@ -10,6 +10,7 @@
 
 #include "engine/report/trail.h"
 #include "engine/review/sheet_format.h"
+#include "engine/study/series.h"
 #include "tests/json_reader.h"
 #include "tests/test_support.h"
 
@@ -93,15 +94,21 @@ TEST_CASE("study line: fmt writes it canonically and reads it back the same", "[
           "study a:sweep F=1 [kN]..3 kN ,5 points   log-spaced,show T  # the sweep\n"
           "study b:   capacity F = 1 kN .. 9 kN,largest\n"
           "study c: sweep F = 1 kN,2 kN , show T,k\n"
-          "study d: capacity F = 0. ..3 kN, smallest\n",
+          "study d: capacity F = 0. ..3 kN, smallest\n"
+          "study e:pick F   from 3 kN,1 [kN]\n"
+          "study f: pick F from   motor_outputs # a series\n",
       &diags);
   INFO((diags.list().empty() ? std::string() : diags.list().front().message));
   REQUIRE_FALSE(diags.hasErrors());
-  CHECK_THAT(out, Catch::Contains("study a: sweep F = 1 kN..3 kN, 5 points log-spaced, show T  # the sweep\n"
-                                  "study b: capacity F = 1 kN..9 kN, largest\n"
-                                  "study c: sweep F = 1 kN, 2 kN, show T, k\n"
-                                  // The number's own dot stays apart from the range's `..`.
-                                  "study d: capacity F = 0. ..3 kN, smallest\n"));
+  // Descriptions are aligned in one column: each line is checked up to its description.
+  for (const char* line : {"\nstudy a: sweep F = 1 kN..3 kN, 5 points log-spaced, show T  # the sweep\n",
+                           "\nstudy b: capacity F = 1 kN..9 kN, largest\n",
+                           "\nstudy c: sweep F = 1 kN, 2 kN, show T, k\n",
+                           // The number's own dot stays apart from the range's `..`.
+                           "\nstudy d: capacity F = 0. ..3 kN, smallest\n", "\nstudy e: pick F from 3 kN, 1 kN\n",
+                           "\nstudy f: pick F from motor_outputs "}) {
+    CHECK_THAT(out, Catch::Contains(line));
+  }
   Diagnostics again;
   CHECK(formatWorksheet("s.calc", out, &again) == out);
 }
@@ -172,4 +179,50 @@ TEST_CASE("study line: the ball-screw demo's shortest move is the closed form's"
   // The plot: one panel per shown result, its failing region shaded.
   CHECK_THAT(sweep.svg, Catch::Contains(">T_rms [N*m]<"));
   CHECK_THAT(sweep.svg, Catch::Contains("shaded: a check fails (motor_speed, life)"));
+}
+
+TEST_CASE("study line: pick from a series is the smallest size a brute force over the table finds",
+          "[study][sheet][report]") {
+  const std::string display = "docs/studies/screw-clamp.calc";
+  const std::string text = readFile(repoPath(display)) +
+                           "study screw: pick d from trapezoidal\n"
+                           "study motor: pick T_motor from 3.5 [N*m], 1.2 [N*m], 2.6 [N*m], 1.8 [N*m]\n";
+  auto calc = Calculation::fromText(display, text);
+  REQUIRE_FALSE(calc->hasErrors());
+  const Trail t = buildTrail(*calc, 4);
+  REQUIRE(t.studies.size() == 2);
+  const TrailStudy& screw = t.studies[0];
+  CHECK(screw.kind == "pick");
+  REQUIRE(screw.chosen >= 0);
+  // Brute force: every size of the ISO 2904 table in turn, each calculated on
+  // its own with --set, until one passes every check.
+  const std::vector<double>& sizes = *findSeries("trapezoidal")->values;
+  const std::string dir = tempDir();
+  writeFile(dir + "/clamp.calc", readFile(repoPath(display)));
+  double smallest = NAN;
+  for (double d : sizes) {
+    const Run r = runCliIn(dir, "check clamp.calc --set 'd=" + fmt::format("{}", d * 1000) + " mm'");
+    if (r.status == 0) {
+      smallest = d;
+      break;
+    }
+  }
+  CHECK(screw.value.si == smallest);
+  CHECK(screw.value.si == 0.014);  // docs/studies.md, `pick`: Tr 14
+  CHECK(screw.tried.size() == static_cast<size_t>(screw.chosen) + 1);
+  CHECK(screw.rows.back()[1] == "passes, chosen");
+  CHECK(screw.rows.front()[1] == "fails: strength, nut_pressure");
+  // A list is tried in ascending order, whatever the order written.
+  const TrailStudy& motor = t.studies[1];
+  REQUIRE(motor.chosen == 2);
+  CHECK(motor.value.si == 2.6);
+  CHECK(motor.summary == "T_motor = 2.600 N·m: the smallest of the values given for which every check passes.");
+
+  CHECK_THAT(errorsWith("study s: pick F from trapezoidal"),
+             Catch::Contains("s.calc:5:22: error: `F` is force (N) in the worksheet, but the series `trapezoidal` "
+                             "holds length"));
+  CHECK_THAT(errorsWith("study s: pick F from bolts"),
+             Catch::Contains("s.calc:5:22: error: there is no series `bolts` to pick from; the series are "
+                             "`trapezoidal`, `acme`, `motor_outputs`"));
+  CHECK_THAT(errorsWith("study s: pick F"), Catch::Contains("s.calc:5:15: error: expected `from SERIES`"));
 }

@@ -192,7 +192,7 @@ void studyQuantity(JsonWriter& w, double si, const Unit& u) {
 }
 
 // The worksheet's studies: a sweep's points with the fields of `calctrail
-// sweep --format json`, a capacity's answer with those of `solve`.
+// sweep --format json`, a capacity's answer with those of `solve`, a pick's with those of `pick`.
 void writeStudies(JsonWriter& w, const Trail& t) {
   w.key("studies").beginArray();
   for (const TrailStudy& st : t.studies) {
@@ -214,6 +214,28 @@ void writeStudies(JsonWriter& w, const Trail& t) {
       if (st.limiting_check.empty()) w.null(); else w.value(st.limiting_check);
       w.key("warnings").beginArray();
       for (const std::string& e : st.errors) w.value(e);
+      w.endArray();
+      w.endObject();
+      continue;
+    }
+    if (st.kind == "pick") {
+      w.key("chosen");
+      if (st.chosen >= 0) studyQuantity(w, st.tried[static_cast<size_t>(st.chosen)].value, st.pick_unit);
+      else w.null();
+      w.key("tried").beginArray();
+      for (const PickCandidate& c : st.tried) {
+        w.beginObject();
+        w.key("value").value(st.pick_unit.fromSI(c.value));
+        w.key("unit").value(st.pick_unit.text);
+        w.key("si").value(c.value);
+        w.key("passed").value(c.passed);
+        w.key("failed").beginArray();
+        for (const std::string& f : c.failed) w.value(f);
+        w.endArray();
+        w.key("error");
+        if (c.error.empty()) w.null(); else w.value(c.error);
+        w.endObject();
+      }
       w.endArray();
       w.endObject();
       continue;

@@ -15,6 +15,7 @@
 
 #include "engine/calculation.h"
 #include "engine/report/number_format.h"
+#include "engine/study/pick.h"
 #include "engine/study/sweep.h"
 
 namespace calctrail {
@@ -254,7 +255,7 @@ struct TrailStudy {
   std::string name;
   std::string description;
   int line = 0;
-  /// "sweep" or "capacity".
+  /// "sweep", "capacity" or "pick".
   std::string kind;
   /// The line as `fmt` writes it, without `study NAME: `: "sweep t_move = 0.5 s..1.2 s, 8 points, show T_rms".
   std::string statement;
@@ -274,7 +275,12 @@ struct TrailStudy {
   std::string svg;
   /// Sweep: the values at full precision.
   SweepTable table;
+  /// Pick: every candidate tried (SI values in `pick_unit`), and the one chosen (-1: none passes).
+  std::vector<PickCandidate> tried;
+  int chosen = -1;
+  Unit pick_unit;
   /// Capacity: found, the value, and the check that limits it ("" when the bracket's end does).
+  /// Pick: a candidate passes, and the value chosen.
   bool solved = false;
   TrailValue value;
   std::string limiting_check;

@@ -84,6 +84,37 @@ void capacityPart(const Model& m, const SolveSpec& spec, const SolveOutcome& o, 
   (void)m;
 }
 
+// The candidates tried, each with the checks that rejected it, and the one chosen.
+void pickPart(const SheetStudyRun& run, int digits, TrailStudy* out) {
+  const Unit& u = run.pick_input.unit;
+  out->header = {head(run.pick_input.name, u), "result"};
+  out->value_columns = 1;
+  out->tried = run.pick.tried;
+  out->chosen = run.pick.chosen;
+  out->pick_unit = u;
+  for (size_t k = 0; k < run.pick.tried.size(); ++k) {
+    const PickCandidate& c = run.pick.tried[k];
+    std::string result;
+    if (!c.error.empty()) result = "error: " + c.error;
+    else if (c.passed) result = static_cast<int>(k) == run.pick.chosen ? "passes, chosen" : "passes";
+    else {
+      result = "fails:";
+      for (size_t f = 0; f < c.failed.size(); ++f) result += (f ? ", " : " ") + c.failed[f];
+    }
+    out->rows.push_back({formatNumber(u.fromSI(c.value), digits), result});
+    out->row_fails.push_back(!c.passed);
+  }
+  if (run.pick.chosen >= 0) {
+    const double v = run.pick.tried[static_cast<size_t>(run.pick.chosen)].value;
+    out->solved = true;
+    out->value = {u.fromSI(v), v, roundNumber(u.fromSI(v), digits), u.pretty()};
+    out->summary = run.pick_input.name + " = " + formatQuantity(v, u, digits) + ": the smallest of " + run.pick_from +
+                   " for which every check passes.";
+  } else {
+    out->summary = "None of " + run.pick_from + " passes every check.";
+  }
+}
+
 }  // namespace
 
 void addStudies(const Calculation& calc, int digits, Trail* trail) {
@@ -97,7 +128,7 @@ void addStudies(const Calculation& calc, int digits, Trail* trail) {
     out.name = st.name;
     out.description = st.description;
     out.line = st.line;
-    out.kind = st.kind == SheetStudy::Sweep ? "sweep" : "capacity";
+    out.kind = st.kind == SheetStudy::Sweep ? "sweep" : st.kind == SheetStudy::Pick ? "pick" : "capacity";
     const std::string line = canonicalStudyLine(st);
     out.statement = line.substr(line.find(':') + 2);
     SheetStudyRun run = runSheetStudy(*calc.model, *calc.inputs, calc.results, r);
@@ -106,6 +137,8 @@ void addStudies(const Calculation& calc, int digits, Trail* trail) {
       run.table.sheet_sha256 = calc.sha256;
       sweepPart(run.table, digits, &out);
       out.table = std::move(run.table);
+    } else if (st.kind == SheetStudy::Pick) {
+      pickPart(run, digits, &out);
     } else {
       capacityPart(*calc.model, run.capacity_spec, run.capacity, digits, &out);
     }

@@ -223,6 +223,12 @@ std::string canonicalUse(const Use& u) {
 }
 
 std::string canonicalStudyLine(const SheetStudy& st) {
+  if (st.kind == SheetStudy::Pick) {
+    std::string out = "study " + st.name + ": pick " + st.vary.name + " from ";
+    if (!st.series.empty()) return out + st.series;
+    for (size_t k = 0; k < st.values.size(); ++k) out += (k ? ", " : "") + renderExpr(*st.values[k]);
+    return out;
+  }
   std::string out = "study " + st.name + ": " + (st.kind == SheetStudy::Sweep ? "sweep " : "capacity ") +
                     st.vary.name + " = ";
   if (st.range) {

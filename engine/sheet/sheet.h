@@ -168,10 +168,11 @@ struct StudyName {
 };
 
 // `study NAME: sweep X = FROM..TO, N points, show R1, R2` (or a list
-// `X = V1, V2, V3`), `study NAME: capacity X = LO..HI, largest|smallest`: a
-// study the report runs and shows (docs/studies.md, "Studies in the worksheet").
+// `X = V1, V2, V3`), `study NAME: capacity X = LO..HI, largest|smallest`,
+// `study NAME: pick X from SERIES` (or a list `from V1, V2, V3`): a study
+// the report runs and shows (docs/studies.md, "Studies in the worksheet").
 struct SheetStudy {
-  enum Kind { Sweep, Capacity };
+  enum Kind { Sweep, Capacity, Pick };
   /// The study's name, unique in the sheet.
   std::string name;
   /// Byte range of the name in the worksheet.
@@ -192,6 +193,9 @@ struct SheetStudy {
   std::vector<StudyName> show;
   /// Capacity: the largest value that passes every check, or the smallest.
   bool largest = true;
+  /// Pick: the series named after `from` (engine/study/series.h), "" for a list of values; and where.
+  std::string series;
+  uint32_t series_begin = 0, series_end = 0;
   /// The text after `#`.
   std::string description;
   int line = 0;

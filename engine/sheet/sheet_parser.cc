@@ -640,8 +640,9 @@ class LineParser {
   // Model later (engine/study/sheet_study.h).
   bool parseStudy(Statement* st, int line, uint32_t keyword, uint32_t p, uint32_t end) {
     const std::string& s = file_.bytes();
-    const std::string forms = "`study NAME: sweep d = 20 mm..60 mm, 9 points, show T_raise` or "
-                              "`study NAME: capacity F = 1 kN..200 kN, largest`";
+    const std::string forms = "`study NAME: sweep d = 20 mm..60 mm, 9 points, show T_raise`, "
+                              "`study NAME: capacity F = 1 kN..200 kN, largest` or `study NAME: pick d from "
+                              "trapezoidal`";
     SheetStudy study;
     study.line = line;
     study.section = section_;
@@ -669,12 +670,13 @@ class LineParser {
     const uint32_t kind_at = skipSpace(colon + 1, body_end);
     const uint32_t kind_end = scanName(kind_at, body_end);
     const std::string kind = s.substr(kind_at, kind_end - kind_at);
+    if (kind == "pick") return parsePick(st, &study, kind_end, body_end, forms);
     if (kind != "sweep" && kind != "capacity") {
       const uint32_t at = kind_at < body_end ? kind_at : colon;
       diags_->error(file_, at, std::max(kind_end, at + 1),
                     (kind.empty() ? std::string("the study `" + study.name + "` needs a kind after `:`")
                                   : "`" + kind + "` is not a kind of study") +
-                        "; a worksheet's study is a `sweep` or a `capacity`: " + forms);
+                        "; a worksheet's study is a `sweep`, a `capacity` or a `pick`: " + forms);
       return false;
     }
     study.kind = kind == "sweep" ? SheetStudy::Sweep : SheetStudy::Capacity;
@@ -735,6 +737,53 @@ class LineParser {
     st->kind = Statement::StudyStmt;
     st->index = static_cast<int>(sheet_->studies.size());
     sheet_->studies.push_back(std::move(study));
+    return true;
+  }
+
+  // After `pick`: `X from SERIES` or `X from V1, V2, ...`, the smallest that passes every check.
+  bool parsePick(Statement* st, SheetStudy* study, uint32_t p, uint32_t body_end, const std::string& forms) {
+    const std::string& s = file_.bytes();
+    study->kind = SheetStudy::Pick;
+    const uint32_t x = skipSpace(p, body_end);
+    const uint32_t x_end = scanDottedName(x, body_end);
+    if (x_end == x) {
+      const uint32_t at = x < body_end ? x : p - 1;
+      diags_->error(file_, at, at + 1, "expected the name of the input to pick after `pick`: `pick d from "
+                                       "trapezoidal` or `pick d from 20 mm, 24 mm, 28 mm`");
+      return false;
+    }
+    study->vary = {s.substr(x, x_end - x), x, x_end};
+    const uint32_t from = skipSpace(x_end, body_end);
+    const uint32_t from_end = scanName(from, body_end);
+    if (s.compare(from, from_end - from, "from") != 0 || from_end == from) {
+      const uint32_t at = from < body_end ? from : x_end - 1;
+      diags_->error(file_, at, at + 1,
+                    "expected `from SERIES` or `from V1, V2, ...` after `pick " + study->vary.name + "`; " + forms);
+      return false;
+    }
+    const uint32_t what = skipSpace(from_end, body_end);
+    const uint32_t word_end = scanName(what, body_end);
+    if (word_end > what && skipSpace(word_end, body_end) == body_end) {
+      study->series = s.substr(what, word_end - what);
+      study->series_begin = what;
+      study->series_end = word_end;
+    } else {
+      bool ok = true;
+      uint32_t b = from_end;
+      for (uint32_t part_end : topLevelCommas(from_end, body_end)) {
+        ok &= parseStudyValue(study, b, part_end, b > from_end ? b - 1 : from, "a value");
+        b = part_end + 1;
+      }
+      if (!ok) return false;
+      if (study->values.size() > static_cast<size_t>(kMaxStudyPoints)) {
+        diags_->error(file_, study->values.front()->begin, study->values.back()->end,
+                      "a study in a worksheet has at most " + std::to_string(kMaxStudyPoints) + " values");
+        return false;
+      }
+    }
+    st->kind = Statement::StudyStmt;
+    st->index = static_cast<int>(sheet_->studies.size());
+    sheet_->studies.push_back(std::move(*study));
     return true;
   }
 

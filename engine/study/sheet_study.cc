@@ -5,6 +5,7 @@
 #include <thread>
 
 #include "engine/report/number_format.h"
+#include "engine/study/series.h"
 #include "engine/study/study_range.h"
 #include "engine/util/edit_distance.h"
 
@@ -88,11 +89,41 @@ bool resolveShown(const Model& m, const SourceFile& file, const StudyName& name,
   return false;
 }
 
+// `pick X from SERIES`: a series of the input's dimension; `pick X from V1, V2`: values of it.
+bool resolvePick(const Model& m, const SourceFile& file, const SheetStudy& st, const StudyInput& input,
+                 Diagnostics* diags, ResolvedStudy* out) {
+  out->pick_input = input;
+  if (st.series.empty()) {
+    out->pick_from = "the values given";
+    return studyValues(m, file, st, input, diags, &out->pick_values);
+  }
+  const StudySeries* series = findSeries(st.series);
+  if (!series) {
+    std::string names;
+    for (const StudySeries& x : studySeries()) names += (names.empty() ? "`" : ", `") + x.name + "`";
+    diags->error(file, st.series_begin, st.series_end,
+                 "there is no series `" + st.series + "` to pick from; the series are " + names +
+                     ", or give the values: `pick " + st.vary.name + " from V1, V2, V3`");
+    return false;
+  }
+  const SlotInfo& info = m.slot(input.slot);
+  if (info.has_dim && info.dim != series->unit.dim) {
+    diags->error(file, st.series_begin, st.series_end,
+                 "`" + input.name + "` is " + info.dim.describe() + " in the worksheet, but the series `" +
+                     series->name + "` holds " + series->unit.dim.describe());
+    return false;
+  }
+  out->pick_values = *series->values;
+  out->pick_from = "the series `" + series->name + "` (" + series->description + ")";
+  return true;
+}
+
 bool resolveOne(const Model& m, const Inputs& inputs, const SourceFile& file, const SheetStudy& st,
                 Diagnostics* diags, ResolvedStudy* out) {
   out->def = &st;
   StudyInput input;
   if (!resolveStudyInput(m, inputs, file, st.vary.begin, st.vary.end, diags, &input)) return false;
+  if (st.kind == SheetStudy::Pick) return resolvePick(m, file, st, input, diags, out);
   std::vector<double> values;
   bool ok = studyValues(m, file, st, input, diags, &values);
   if (st.kind == SheetStudy::Capacity) {
@@ -139,6 +170,10 @@ SheetStudyRun runSheetStudy(const Model& m, const Inputs& base, const Results& b
   run.def = study.def;
   if (study.def->kind == SheetStudy::Sweep) {
     run.table = runSweep(m, base, base_results, study.sweep);
+  } else if (study.def->kind == SheetStudy::Pick) {
+    run.pick_input = study.pick_input;
+    run.pick_from = study.pick_from;
+    run.pick = runPick(m, base, base_results, study.pick_input, study.pick_values, nullptr);
   } else {
     run.capacity_spec = study.capacity;
     run.capacity = runSolve(m, base, base_results, study.capacity);

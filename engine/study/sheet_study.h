@@ -3,7 +3,7 @@
 // input varied must be a given value, the values of its dimension, the
 // results shown quantities of the sheet), each problem an error at its place
 // on the line; then run through the same code as `calctrail sweep` and
-// `calctrail solve --capacity`, for the report.
+// `calctrail solve --capacity` and `calctrail pick`, for the report.
 #pragma once
 
 #include <vector>
@@ -13,6 +13,7 @@
 #include "engine/model/results.h"
 #include "engine/sheet/diagnostics.h"
 #include "engine/sheet/sheet.h"
+#include "engine/study/pick.h"
 #include "engine/study/solve.h"
 #include "engine/study/sweep.h"
 
@@ -26,6 +27,10 @@ struct ResolvedStudy {
   SweepSpec sweep;
   /// Capacity: the input, its bracket and the sense.
   SolveSpec capacity;
+  /// Pick: the input and its candidates (SI), and what they are ("the ISO 2904 ...", "the values given").
+  StudyInput pick_input;
+  std::vector<double> pick_values;
+  std::string pick_from;
 };
 
 // Every study of `sheet` bound under `inputs`; false (with every problem in `diags`) when one is wrong.
@@ -38,6 +43,9 @@ struct SheetStudyRun {
   SweepTable table;
   SolveSpec capacity_spec;
   SolveOutcome capacity;
+  StudyInput pick_input;
+  std::string pick_from;
+  PickOutcome pick;
 };
 
 // Runs one resolved study over `base` (whose evaluation is `base_results`), on every core.
