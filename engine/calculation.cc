@@ -1,6 +1,7 @@
 #include "engine/calculation.h"
 
 #include "engine/model/evaluate.h"
+#include "engine/study/sheet_study.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/util/edit_distance.h"
 #include "engine/template/template_loader.h"
@@ -61,6 +62,11 @@ void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& optio
     diags.error(*sheet.file, q.name_begin, q.name_end,
                 "the parameter `" + q.name + "` has no default: give it a value with --set \"" + q.name +
                     "=...\", or use this worksheet as a template (`use ... with " + q.name + " = ...`)");
+  }
+  // The worksheet's study lines name inputs, values and results of this model.
+  if (!diags.hasErrors()) {
+    std::vector<ResolvedStudy> studies;
+    resolveSheetStudies(*model, *inputs, sheet, &diags, &studies);
   }
   if (!diags.hasErrors()) {
     Evaluation evaluation(*model);  // one context: the cases re-use the nominal's programs

@@ -324,3 +324,42 @@ TEST_CASE("grammar: templates and load cases", "[editors][grammar]") {
   CHECK(scopeOf(lcase, "kN") == "entity.name.type.unit.calc");
   CHECK(scopeOf("T = left.T_raise * 2", "left.T_raise") == "variable.other.calc");
 }
+
+TEST_CASE("grammar: study lines", "[editors][grammar]") {
+  const std::string sweep = "study move_time: sweep t_move = 0.5 s..1.2 s, 8 points log-spaced, show T_rms, n_motor  # x";
+  CHECK(scopeOf(sweep, "study") == "keyword.other.study.calc");
+  CHECK(scopeOf(sweep, "move_time") == "entity.name.study.calc");
+  CHECK(scopeOf(sweep, "sweep") == "keyword.other.study.kind.calc");
+  CHECK(scopeOf(sweep, "t_move") == "variable.other.study.input.calc");
+  CHECK(scopeOf(sweep, "0.5") == "constant.numeric.calc");
+  CHECK(scopeOf(sweep, "..") == "keyword.operator.range.calc");
+  CHECK(scopeOf(sweep, "1.2") == "constant.numeric.calc");
+  CHECK(scopeOf(sweep, "8 ") == "constant.numeric.calc");
+  CHECK(scopeOf(sweep, "points") == "keyword.other.study.clause.calc");
+  CHECK(scopeOf(sweep, "log-spaced") == "keyword.other.study.clause.calc");
+  CHECK(scopeOf(sweep, "show") == "keyword.other.study.clause.calc");
+  CHECK(scopeOf(sweep, "T_rms") == "variable.other.calc");
+  CHECK(scopeOf(sweep, "# x") == "comment.line.description.calc");
+  const std::string unitless = "study ratio: sweep i_gear = 5..60, show F_clamp";
+  CHECK(scopeOf(unitless, "5") == "constant.numeric.calc");
+  CHECK(scopeOf(unitless, "..") == "keyword.operator.range.calc");
+  const std::string capacity = "study most: capacity left.F = 1 kN..200 kN, largest";
+  CHECK(scopeOf(capacity, "capacity") == "keyword.other.study.kind.calc");
+  CHECK(scopeOf(capacity, "left.F") == "variable.other.study.input.calc");
+  CHECK(scopeOf(capacity, "kN") == "entity.name.type.unit.calc");
+  CHECK(scopeOf(capacity, "largest") == "keyword.other.study.clause.calc");
+  // A quantity called `study` is still a definition.
+  CHECK(scopeOf("study = 3", "study") == "variable.other.definition.calc");
+}
+
+TEST_CASE("grammar: a pick study line", "[editors][grammar]") {
+  const std::string series = "study screw: pick d from trapezoidal  # smallest screw";
+  CHECK(scopeOf(series, "pick") == "keyword.other.study.kind.calc");
+  CHECK(scopeOf(series, "d ") == "variable.other.study.input.calc");
+  CHECK(scopeOf(series, "from") == "keyword.other.study.clause.calc");
+  CHECK(scopeOf(series, "trapezoidal") == "variable.other.calc");
+  CHECK(scopeOf(series, "# smallest") == "comment.line.description.calc");
+  const std::string list = "study motor: pick T_motor from 1.2 [N*m], 2.6 [N*m]";
+  CHECK(scopeOf(list, "1.2") == "constant.numeric.calc");
+  CHECK(scopeOf(list, "N*m") == "entity.name.type.unit.calc");
+}

@@ -104,7 +104,7 @@ Json load(const std::string& text) {
 
 TEST_CASE("the JSON of every demo worksheet follows docs/trail.schema.json", "[json][schema]") {
   const Json schema = load(readFile(repoPath("docs/trail.schema.json")));
-  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press"}) {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press", "ball-screw-axis"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
     Run r = runCli("report " + path + " --format json");
     INFO(path << "\n" << r.err);
@@ -171,7 +171,7 @@ TEST_CASE("a --set run's JSON follows the schema and lists every replacement", "
 }
 
 TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {
-  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press"}) {
+  for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press", "ball-screw-axis"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
     auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)));
     REQUIRE_FALSE(c->hasErrors());

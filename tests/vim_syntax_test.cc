@@ -101,3 +101,42 @@ TEST_CASE("vim: the syntax file loads in Neovim and names every kind of token", 
   CHECK(got[probes.size() + 3] == "errmsg=");
   std::filesystem::remove_all(dir);
 }
+
+TEST_CASE("vim: a study line's words, its name and the count of its points", "[editors][vim]") {
+  REQUIRE(std::system("command -v nvim >/dev/null 2>&1") == 0);
+  const std::string sheet = "worksheets/ball-screw-axis.calc";
+  const std::string text = readFile(repoPath(sheet));
+  const std::vector<Probe> probes = {
+      {"study move_time", "study", "calcStudyKey"},   {"study move_time", "move_time", "calcStudyName"},
+      {"study move_time", "sweep", "calcStudyWord"},  {"study move_time", "t_move", "calcVariable"},
+      {"study move_time", "0.5", "calcNumber"},       {"study move_time", "8 ", "calcStudyPoints"},
+      {"study move_time", "points", "calcStudyWord"}, {"study move_time", "show", "calcStudyWord"},
+      {"study move_time", "T_rms", "calcVariable"},   {"study fastest_move", "capacity", "calcStudyWord"},
+      {"study fastest_move", "smallest", "calcStudyWord"},
+  };
+  std::string calls;
+  for (const Probe& p : probes) {
+    const auto [line, col] = locate(text, p);
+    calls += "call add(g:out, synIDattr(synID(" + std::to_string(line) + ", " + std::to_string(col) +
+             ", 1), 'name'))|";
+  }
+  const std::string dir = tempDir();
+  const std::string script = dir + "/probe.vim", out = dir + "/out", err = dir + "/err";
+  writeFile(script, "let g:out = []\n" + calls + "\ncall writefile(g:out, '" + out + "')\n");
+  const std::string cmd = "cd '" + repoPath("") + "' && nvim --headless -u NONE -i NONE -n" +
+                          " --cmd 'set rtp^=docs/editors/vim' -c 'filetype on' -c 'syntax on' -c 'edit " +
+                          sheet + "' -c 'source " + script + "' -c 'qa!' </dev/null >/dev/null 2>'" + err +
+                          "'";
+  const int raw = std::system(cmd.c_str());
+  REQUIRE(WIFEXITED(raw));
+  CHECK(WEXITSTATUS(raw) == 0);
+  CHECK(readFile(err) == "");
+  std::istringstream in(readFile(out));
+  std::vector<std::string> got;
+  for (std::string line; std::getline(in, line);) got.push_back(line);
+  REQUIRE(got.size() == probes.size());
+  for (size_t i = 0; i < probes.size(); ++i) {
+    INFO(probes[i].line_start << " ... " << probes[i].token);
+    CHECK(got[i] == probes[i].group);
+  }
+}

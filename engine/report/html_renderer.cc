@@ -677,6 +677,39 @@ void signOff(Out out, const Trail& t) {
   fmt::format_to(out, "<p class=\"end\">{}. {}.</p>\n</section>\n", esc(end), esc(t.generator));
 }
 
+// The worksheet's studies: a sweep's table and its plot inline (failing
+// points shaded on it, FAIL in bold in the table), a capacity's answer.
+void studies(Out out, const Trail& t) {
+  fmt::format_to(out, "<section class=\"studies\">\n<h2>Studies</h2>\n");
+  for (const TrailStudy& st : t.studies) {
+    fmt::format_to(out, "<section class=\"study\" id=\"study-{}\">\n<h3>Study {}</h3>\n<p><code>{}</code></p>\n",
+                   esc(st.name), esc(st.name), esc(st.statement));
+    if (!st.description.empty()) fmt::format_to(out, "<p>{}</p>\n", esc(st.description));
+    if (!st.header.empty()) {
+      fmt::format_to(out, "<table>\n<thead><tr>");
+      for (const std::string& h : st.header) fmt::format_to(out, "<th>{}</th>", esc(h));
+      fmt::format_to(out, "</tr></thead>\n<tbody>\n");
+      for (const auto& r : st.rows) {
+        fmt::format_to(out, "<tr>");
+        for (size_t c = 0; c < r.size(); ++c)
+          fmt::format_to(out, r[c] == "FAIL" ? "<td><strong>{}</strong></td>" : "<td>{}</td>", esc(r[c]));
+        fmt::format_to(out, "</tr>\n");
+      }
+      fmt::format_to(out, "</tbody>\n</table>\n");
+    }
+    fmt::format_to(out, "<p>{}</p>\n", esc(st.summary));
+    for (const std::string& e : st.errors) fmt::format_to(out, "<p><code>{}</code></p>\n", esc(e));
+    // The plot is SVG of our own (engine/study/svg_plot.cc): plain elements, text escaped.
+    if (!st.svg.empty()) {
+      std::string svg = st.svg;
+      svg.insert(4, " style=\"max-width:100%;height:auto\"");
+      fmt::format_to(out, "<figure class=\"study-plot\">\n{}</figure>\n", svg);
+    }
+    fmt::format_to(out, "</section>\n");
+  }
+  fmt::format_to(out, "</section>\n");
+}
+
 }  // namespace
 
 void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
@@ -694,6 +727,7 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
   quantityTable(out, t, true);
   fmt::format_to(out, "</section>\n");
   calculation(out, t);
+  if (!t.studies.empty()) studies(out, t);
   if (!t.warnings.empty()) {
     fmt::format_to(out, "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n");
     for (const std::string& w : t.warnings) fmt::format_to(out, "<li><code>{}</code></li>\n", esc(w));

@@ -1,5 +1,7 @@
 #include "engine/report/json_renderer.h"
 
+#include <cmath>
+
 #include "engine/util/json_writer.h"
 
 namespace calctrail {
@@ -178,6 +180,107 @@ void writeInstance(JsonWriter& w, const Trail& t, const TrailInstance& i) {
   w.endObject();
 }
 
+// {"value": .., "unit": "mm", "si": ..}; null value and si for no value.
+void studyQuantity(JsonWriter& w, double si, const Unit& u) {
+  w.beginObject();
+  w.key("value");
+  if (std::isfinite(si)) w.value(u.fromSI(si)); else w.null();
+  w.key("unit").value(u.text);
+  w.key("si");
+  if (std::isfinite(si)) w.value(si); else w.null();
+  w.endObject();
+}
+
+// The worksheet's studies: a sweep's points with the fields of `calctrail
+// sweep --format json`, a capacity's answer with those of `solve`, a pick's with those of `pick`.
+void writeStudies(JsonWriter& w, const Trail& t) {
+  w.key("studies").beginArray();
+  for (const TrailStudy& st : t.studies) {
+    w.beginObject();
+    w.key("name").value(st.name);
+    w.key("kind").value(st.kind);
+    w.key("line").value(st.line);
+    w.key("statement").value(st.statement);
+    w.key("description").value(st.description);
+    w.key("summary").value(st.summary);
+    if (st.kind == "capacity") {
+      w.key("solved").value(st.solved);
+      w.key("value");
+      if (st.solved) w.value(st.value.value); else w.null();
+      w.key("unit").value(st.value.unit);
+      w.key("si");
+      if (st.solved) w.value(st.value.si); else w.null();
+      w.key("limiting_check");
+      if (st.limiting_check.empty()) w.null(); else w.value(st.limiting_check);
+      w.key("warnings").beginArray();
+      for (const std::string& e : st.errors) w.value(e);
+      w.endArray();
+      w.endObject();
+      continue;
+    }
+    if (st.kind == "pick") {
+      w.key("chosen");
+      if (st.chosen >= 0) studyQuantity(w, st.tried[static_cast<size_t>(st.chosen)].value, st.pick_unit);
+      else w.null();
+      w.key("tried").beginArray();
+      for (const PickCandidate& c : st.tried) {
+        w.beginObject();
+        w.key("value").value(st.pick_unit.fromSI(c.value));
+        w.key("unit").value(st.pick_unit.text);
+        w.key("si").value(c.value);
+        w.key("passed").value(c.passed);
+        w.key("failed").beginArray();
+        for (const std::string& f : c.failed) w.value(f);
+        w.endArray();
+        w.key("error");
+        if (c.error.empty()) w.null(); else w.value(c.error);
+        w.endObject();
+      }
+      w.endArray();
+      w.endObject();
+      continue;
+    }
+    const SweepTable& tb = st.table;
+    w.key("vary").beginArray();
+    for (const SweepColumn& c : tb.vary) w.value(c.name);
+    w.endArray();
+    w.key("show").beginArray();
+    for (const SweepColumn& c : tb.show) w.value(c.name);
+    w.endArray();
+    w.key("check_names").beginArray();
+    for (const std::string& c : tb.checks) w.value(c);
+    w.endArray();
+    w.key("points").beginArray();
+    for (size_t p = 0; p < tb.size(); ++p) {
+      w.beginObject();
+      w.key("inputs").beginObject();
+      for (size_t j = 0; j < tb.vary.size(); ++j) {
+        w.key(tb.vary[j].name);
+        studyQuantity(w, tb.input(p, j), tb.vary[j].unit);
+      }
+      w.endObject();
+      w.key("results").beginObject();
+      for (size_t j = 0; j < tb.show.size(); ++j) {
+        w.key(tb.show[j].name);
+        studyQuantity(w, tb.result(p, j), tb.show[j].unit);
+      }
+      w.endObject();
+      w.key("checks").beginObject();
+      for (size_t k = 0; k < tb.checks.size(); ++k) {
+        w.key(tb.checks[k]);
+        if (tb.check(p, k) < 0) w.null(); else w.value(tb.check(p, k) == 1);
+      }
+      w.endObject();
+      w.key("error");
+      if (tb.failed(p)) w.value(tb.faults[p].message); else w.null();
+      w.endObject();
+    }
+    w.endArray();
+    w.endObject();
+  }
+  w.endArray();
+}
+
 }  // namespace
 
 void renderJson(const Trail& t, fmt::memory_buffer& out) {
@@ -233,6 +336,7 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
     for (const TrailCase& c : t.cases) writeCase(w, c);
     w.endArray();
   }
+  if (!t.studies.empty()) writeStudies(w, t);
   w.key("summary").beginObject();
   w.key("checks_passed").value(t.passed);
   w.key("checks_failed").value(t.failed);

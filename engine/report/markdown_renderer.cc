@@ -171,6 +171,31 @@ void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
   fmt::format_to(out, "| Checked | {} | | |\n", text(meta(t, "checked")));
 }
 
+// The worksheet's studies: a sweep's table (values and every check per point), a capacity's answer.
+void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  fmt::format_to(out, "## Studies\n\n");
+  for (const TrailStudy& st : t.studies) {
+    fmt::format_to(out, "### Study {}\n\n{}\n\n", code(st.name), code(st.statement));
+    if (!st.description.empty()) fmt::format_to(out, "{}\n\n", text(st.description));
+    if (!st.header.empty()) {
+      fmt::format_to(out, "|");
+      for (const std::string& h : st.header) fmt::format_to(out, " {} |", text(h));
+      fmt::format_to(out, "\n|");
+      for (size_t c = 0; c < st.header.size(); ++c) fmt::format_to(out, c < st.value_columns ? "---:|" : "---|");
+      fmt::format_to(out, "\n");
+      for (const auto& r : st.rows) {
+        fmt::format_to(out, "|");
+        for (const std::string& cell : r) fmt::format_to(out, cell == "FAIL" ? " **{}** |" : " {} |", text(cell));
+        fmt::format_to(out, "\n");
+      }
+      fmt::format_to(out, "\n");
+    }
+    fmt::format_to(out, "{}\n\n", text(st.summary));
+    for (const std::string& e : st.errors) fmt::format_to(out, "- {}\n", text(e));
+    if (!st.errors.empty()) fmt::format_to(out, "\n");
+  }
+}
+
 }  // namespace
 
 void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
@@ -277,6 +302,8 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
     }
     fmt::format_to(out, "\n");
   }
+
+  if (!t.studies.empty()) studies(out, t);
 
   if (!t.functions.empty()) {
     fmt::format_to(out, "## Library functions used\n\n");

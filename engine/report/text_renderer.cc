@@ -171,6 +171,39 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
   }
 }
 
+// The worksheet's studies: a sweep as a table (values and every check per
+// point), a capacity as its answer.
+void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+  fmt::format_to(out, "{}", heading("STUDIES"));
+  for (const TrailStudy& st : t.studies) {
+    fmt::format_to(out, "  {}  {}\n", st.name, st.statement);
+    if (!st.description.empty()) fmt::format_to(out, "{}", wrap(st.description, "    "));
+    if (!st.header.empty()) {
+      std::vector<int> w(st.header.size());
+      for (size_t c = 0; c < st.header.size(); ++c) {
+        w[c] = width(st.header[c]);
+        for (const auto& r : st.rows) w[c] = std::max(w[c], width(r[c]));
+      }
+      auto row = [&](const std::vector<std::string>& cells) {
+        std::string line = "   ";
+        for (size_t c = 0; c < cells.size(); ++c) {
+          const std::string gap(static_cast<size_t>(w[c] - width(cells[c])), ' ');
+          line += "  " + (c < st.value_columns ? gap + cells[c] : cells[c] + gap);
+        }
+        while (!line.empty() && line.back() == ' ') line.pop_back();
+        fmt::format_to(out, "{}\n", line);
+      };
+      fmt::format_to(out, "\n");
+      row(st.header);
+      for (const auto& r : st.rows) row(r);
+      fmt::format_to(out, "\n");
+    }
+    fmt::format_to(out, "{}", wrap(st.summary, "    "));
+    for (const std::string& e : st.errors) fmt::format_to(out, "{}", wrap(e, "    "));
+    fmt::format_to(out, "\n");
+  }
+}
+
 void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
   auto meta = [&](const std::string& key) {
     for (const auto& [k, v] : t.meta)
@@ -293,6 +326,8 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
     fmt::format_to(out, "\n");
     if (!t.cases.empty()) caseChecks(out, t);
   }
+
+  if (!t.studies.empty()) studies(out, t);
 
   if (!t.functions.empty()) {
     // Each library function once: what it computes, how, within which

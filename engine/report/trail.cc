@@ -865,6 +865,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     t.caution_ids.push_back(c->id);
   }
   addCases(calc, digits, &t);
+  addStudies(calc, digits, &t);
   return t;
 }
 

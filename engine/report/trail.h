@@ -15,6 +15,8 @@
 
 #include "engine/calculation.h"
 #include "engine/report/number_format.h"
+#include "engine/study/pick.h"
+#include "engine/study/sweep.h"
 
 namespace calctrail {
 
@@ -254,6 +256,43 @@ struct TrailBlock {       // document order: headings, narrative, steps, checks
 // cases wraps onto several tables, each repeating the name column, instead
 // of running off the page: [first, last) into Trail::cases.
 std::vector<std::pair<size_t, size_t>> caseGroups(size_t cases, size_t most);
+// A study the worksheet holds (`study NAME: ...`), run for the report: a
+// sweep's table and plot, or a capacity's answer. Cells are text as people
+// read them; `table` keeps the values at full precision for JSON.
+struct TrailStudy {
+  std::string name;
+  std::string description;
+  int line = 0;
+  /// "sweep", "capacity" or "pick".
+  std::string kind;
+  /// The line as `fmt` writes it, without `study NAME: `: "sweep t_move = 0.5 s..1.2 s, 8 points, show T_rms".
+  std::string statement;
+  /// Sweep: the column heads (the input, the results with their units, then every check), and
+  /// how many of them are values (the rest are checks, "pass" or "FAIL" per point).
+  std::vector<std::string> header;
+  size_t value_columns = 0;
+  std::vector<std::vector<std::string>> rows;
+  /// Sweep: per row, some check fails at that point.
+  std::vector<char> row_fails;
+  /// "Every check passes at every point." or "A check fails at 3 of 8 points: rms_torque (3)."; for a
+  /// capacity, the answer: "t_move = 0.6500 s: the smallest ... , limited by the check `peak_torque`".
+  std::string summary;
+  /// Points the sheet cannot calculate: "At t_move = 0.3000 s: error: ...".
+  std::vector<std::string> errors;
+  /// Sweep: the plot (engine/study/svg_plot.h), one panel per result, failing points shaded.
+  std::string svg;
+  /// Sweep: the values at full precision.
+  SweepTable table;
+  /// Pick: every candidate tried (SI values in `pick_unit`), and the one chosen (-1: none passes).
+  std::vector<PickCandidate> tried;
+  int chosen = -1;
+  Unit pick_unit;
+  /// Capacity: found, the value, and the check that limits it ("" when the bracket's end does).
+  /// Pick: a candidate passes, and the value chosen.
+  bool solved = false;
+  TrailValue value;
+  std::string limiting_check;
+};
 
 struct Trail {
   std::string title;
@@ -280,11 +319,16 @@ struct Trail {
   std::vector<TrailCase> cases;
   /// --case NAME: the one case these values are of; "" for the worksheet as written.
   std::string shown_case;
+  /// The worksheet's studies, in document order, each run over the values shown.
+  std::vector<TrailStudy> studies;
   /// Checks that fail (or could not be evaluated) in some case, and cases that failed to calculate.
   int failed_in_cases = 0, cases_failed = 0;
 };
 
 Trail buildTrail(const Calculation& calc, int digits);
+
+// Runs the worksheet's studies and fills Trail::studies (engine/report/trail_studies.cc).
+void addStudies(const Calculation& calc, int digits, Trail* trail);
 
 // A check's condition as the worksheet writes it: "T_lower > 0 [N*m]".
 std::string conditionText(const Check& check);

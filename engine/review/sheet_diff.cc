@@ -20,6 +20,8 @@ void canonicalizeSheet(Sheet* sheet) {
   }
   for (LoadCase& c : sheet->cases)
     for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
+  for (SheetStudy& st : sheet->studies)
+    for (ExprPtr& v : st.values) canonicalizeUnits(v.get());
 }
 
 std::string caseLine(const LoadCase& c) {
@@ -105,6 +107,20 @@ bool SheetDiff::empty() const {
 }
 
 namespace {
+
+// A study line added, removed or rewritten, shown with the formulas changed
+// ("study NAME", was and now); a study moves no value of the sheet.
+void diffStudies(const Calculation& o, const Calculation& n, SheetDiff* d) {
+  for (const SheetStudy& st : n.sheet.studies) {
+    const int j = o.sheet.findStudy(st.name);
+    const std::string now = canonicalStudyLine(st);
+    const std::string was = j < 0 ? "(no study " + st.name + ")" : canonicalStudyLine(o.sheet.studies[j]);
+    if (was != now) d->formulas.push_back({"study " + st.name, false, was, now});
+  }
+  for (const SheetStudy& st : o.sheet.studies)
+    if (n.sheet.findStudy(st.name) < 0)
+      d->formulas.push_back({"study " + st.name, false, canonicalStudyLine(st), "(removed)"});
+}
 
 // Each case both sides define, value by value and check by check, against
 // itself on the old side; cases added and removed; case lines rewritten.
@@ -273,6 +289,7 @@ SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double 
     return a.name < b.name;
   });
   diffCases(o, n, rtol, &d);
+  diffStudies(o, n, &d);
   return d;
 }
 

@@ -120,6 +120,11 @@ std::string canonicalCaseLine(const LoadCase& c) {
   return out;
 }
 
+std::string studyMismatch(const SheetStudy& a, const SheetStudy& b) {
+  return canonicalStudyLine(a) == canonicalStudyLine(b) && a.description == b.description ? ""
+                                                                                         : "another study";
+}
+
 std::string caseMismatch(const LoadCase& ca, const LoadCase& cb) {
   if (ca.name != cb.name) return "another case name";
   if (ca.replacements.size() != cb.replacements.size()) return "other replacements";
@@ -187,6 +192,8 @@ std::string statementMismatch(const Sheet& a, const Sheet& b, const Statement& s
     }
     case Statement::CaseStmt:
       return caseMismatch(a.cases[sa.index], b.cases[sb.index]);
+    case Statement::StudyStmt:
+      return studyMismatch(a.studies[sa.index], b.studies[sb.index]);
   }
   return "";
 }
@@ -212,6 +219,28 @@ std::string canonicalUse(const Use& u) {
   std::string out = "use " + (quoted ? "\"" + u.path + "\"" : u.path) + " as " + u.instance;
   for (size_t k = 0; k < u.bindings.size(); ++k)
     out += (k ? ", " : " with ") + u.bindings[k].param + " = " + renderExpr(*u.bindings[k].expr);
+  return out;
+}
+
+std::string canonicalStudyLine(const SheetStudy& st) {
+  if (st.kind == SheetStudy::Pick) {
+    std::string out = "study " + st.name + ": pick " + st.vary.name + " from ";
+    if (!st.series.empty()) return out + st.series;
+    for (size_t k = 0; k < st.values.size(); ++k) out += (k ? ", " : "") + renderExpr(*st.values[k]);
+    return out;
+  }
+  std::string out = "study " + st.name + ": " + (st.kind == SheetStudy::Sweep ? "sweep " : "capacity ") +
+                    st.vary.name + " = ";
+  if (st.range) {
+    // `0.` before `..` would read as `0` and `..`: keep the number's own dot apart.
+    const std::string from = renderExpr(*st.values[0]);
+    out += from + (from.back() == '.' ? " .." : "..") + renderExpr(*st.values[1]);
+  } else {
+    for (size_t k = 0; k < st.values.size(); ++k) out += (k ? ", " : "") + renderExpr(*st.values[k]);
+  }
+  if (st.points) out += ", " + std::to_string(st.points) + " points" + (st.log ? " log-spaced" : "");
+  if (st.kind == SheetStudy::Capacity) return out + (st.largest ? ", largest" : ", smallest");
+  for (size_t k = 0; k < st.show.size(); ++k) out += (k ? ", " : ", show ") + st.show[k].name;
   return out;
 }
 
@@ -251,6 +280,8 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
     for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
   for (Use& u : sheet.uses)
     for (UseBinding& b : u.bindings) canonicalizeUnits(b.expr.get());
+  for (SheetStudy& st : sheet.studies)
+    for (ExprPtr& v : st.values) canonicalizeUnits(v.get());
 
   const auto [first, last] = innerRange(sheet);
   std::vector<Line> lines;
@@ -296,6 +327,12 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
         const LoadCase& c = sheet.cases[st.index];
         line.code = canonicalCaseLine(c);
         line.description = c.description;
+        break;
+      }
+      case Statement::StudyStmt: {
+        const SheetStudy& study = sheet.studies[st.index];
+        line.code = canonicalStudyLine(study);
+        line.description = study.description;
         break;
       }
     }

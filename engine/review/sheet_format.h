@@ -32,6 +32,9 @@ std::string canonicalDefinition(const Quantity& q);
 std::string canonicalCondition(const Check& c);
 // "use PATH as INSTANCE with P = EXPR, ..." (the path in quotes where it needs them).
 std::string canonicalUse(const Use& u);
+// "study NAME: sweep X = FROM..TO, N points, show R1, R2" or "study NAME:
+// capacity X = LO..HI, largest", without the description.
+std::string canonicalStudyLine(const SheetStudy& study);
 
 // The canonical text of a worksheet. The sheet must have parsed without
 // errors; on a parse error the diagnostics land in `diags` and "" is

@@ -159,16 +159,65 @@ struct LoadCase {
   int line = 0;
 };
 
+// A name a study line reads (the input it varies, a result it shows), with its place.
+struct StudyName {
+  /// As written; an instance's quantity is one dotted name (`left.T_raise`).
+  std::string name;
+  /// Byte range of the name in the worksheet.
+  uint32_t begin = 0, end = 0;
+};
+
+// `study NAME: sweep X = FROM..TO, N points, show R1, R2` (or a list
+// `X = V1, V2, V3`), `study NAME: capacity X = LO..HI, largest|smallest`,
+// `study NAME: pick X from SERIES` (or a list `from V1, V2, V3`): a study
+// the report runs and shows (docs/studies.md, "Studies in the worksheet").
+struct SheetStudy {
+  enum Kind { Sweep, Capacity, Pick };
+  /// The study's name, unique in the sheet.
+  std::string name;
+  /// Byte range of the name in the worksheet.
+  uint32_t name_begin = 0, name_end = 0;
+  Kind kind = Sweep;
+  /// The input varied.
+  StudyName vary;
+  /// FROM..TO (values holds both ends) rather than a list of values.
+  bool range = false;
+  /// The values as parsed: both ends of a range, or the list in the order written.
+  std::vector<ExprPtr> values;
+  /// `N points` as written (0 when not written: the default, kDefaultStudyPoints), and where.
+  int points = 0;
+  uint32_t points_begin = 0, points_end = 0;
+  /// `N points log-spaced`.
+  bool log = false;
+  /// Sweep: the results shown, in the order written.
+  std::vector<StudyName> show;
+  /// Capacity: the largest value that passes every check, or the smallest.
+  bool largest = true;
+  /// Pick: the series named after `from` (engine/study/series.h), "" for a list of values; and where.
+  std::string series;
+  uint32_t series_begin = 0, series_end = 0;
+  /// The text after `#`.
+  std::string description;
+  int line = 0;
+  /// The heading it stands under, "" before any.
+  std::string section;
+};
+
+// Points of a range when the study line does not say, as for `calctrail sweep`.
+constexpr int kDefaultStudyPoints = 11;
+// Points a worksheet's study may have: its table is printed in the report.
+constexpr int kMaxStudyPoints = 1000;
+
 // The name of the sheet as written, without any case's replacements.
 constexpr const char* kNominalCase = "nominal";
 
 // One line of the file, in order, for the trail and for canonical formatting.
 struct Statement {
   // A `param` line is a Define (its quantity has Quantity::param); a `use` line is UseStmt.
-  enum Kind { Blank, Comment, Meta, Section, Note, Define, CheckStmt, Invalid, CaseStmt, UseStmt };
+  enum Kind { Blank, Comment, Meta, Section, Note, Define, CheckStmt, Invalid, CaseStmt, UseStmt, StudyStmt };
   Kind kind = Blank;
   int line = 0;
-  int index = -1;     // into quantities, checks, cases or uses, for Define, CheckStmt, CaseStmt, UseStmt
+  int index = -1;     // into quantities, checks, cases, uses or studies, for Define, CheckStmt, CaseStmt, UseStmt, StudyStmt
   std::string text;   // Comment, Meta value, Section title, Note text
   std::string key;    // Meta key
 };
@@ -187,6 +236,8 @@ struct Sheet {
   std::vector<Quantity> quantities;
   std::vector<Check> checks;
   std::vector<LoadCase> cases;  // in document order
+  /// The `study` lines of this file, in document order (a template's own are not brought in by `use`).
+  std::vector<SheetStudy> studies;
   std::unordered_map<std::string, int> index;  // quantity name -> position
   /// The `use` lines of this file, in order.
   std::vector<Use> uses;
@@ -224,6 +275,12 @@ struct Sheet {
   int find(const std::string& name) const {
     auto it = index.find(name);
     return it == index.end() ? -1 : it->second;
+  }
+  // The study called `name`, or -1.
+  int findStudy(const std::string& name) const {
+    for (size_t i = 0; i < studies.size(); ++i)
+      if (studies[i].name == name) return static_cast<int>(i);
+    return -1;
   }
   // The load case called `name`, or -1.
   int findCase(const std::string& name) const {

@@ -119,6 +119,7 @@ class LineParser {
     const bool definition_follows = nc == '=' || nc == '[';
     if (word == "check" && !definition_follows && nc != ':') return parseCheck(st, line, next, end);
     if (word == "case" && !definition_follows) return parseCase(st, line, p, next, end);
+    if (word == "study" && !definition_follows && nc != ':') return parseStudy(st, line, p, next, end);
     const bool statement_word = !definition_follows && nc != ':';
     if (word == "param" && statement_word) return parseParam(st, line, p, word_end, next, end);
     if (word == "use" && statement_word) return parseUse(st, line, p, word_end, next, end);
@@ -630,6 +631,295 @@ class LineParser {
     }
     c->replacements.push_back(std::move(r));
     return true;
+  }
+
+  // `study NAME: sweep X = FROM..TO, N points [log-spaced], show R1, R2`, the
+  // list form `sweep X = V1, V2, ..., show R1`, and `study NAME: capacity
+  // X = LO..HI, largest|smallest`. The parts are split at the commas outside
+  // parentheses; what the names and values mean is checked against the
+  // Model later (engine/study/sheet_study.h).
+  bool parseStudy(Statement* st, int line, uint32_t keyword, uint32_t p, uint32_t end) {
+    const std::string& s = file_.bytes();
+    const std::string forms = "`study NAME: sweep d = 20 mm..60 mm, 9 points, show T_raise`, "
+                              "`study NAME: capacity F = 1 kN..200 kN, largest` or `study NAME: pick d from "
+                              "trapezoidal`";
+    SheetStudy study;
+    study.line = line;
+    study.section = section_;
+    const uint32_t name_end = scanName(p, end);
+    if (name_end == p) {
+      diags_->error(file_, p < end ? p : keyword, (p < end ? p : keyword) + 1, "a study needs a name: " + forms);
+      return false;
+    }
+    study.name = s.substr(p, name_end - p);
+    study.name_begin = p;
+    study.name_end = name_end;
+    const uint32_t colon = skipSpace(name_end, end);
+    if (colon >= end || s[colon] != ':') {
+      diags_->error(file_, colon < end ? colon : name_end - 1, (colon < end ? colon : name_end - 1) + 1,
+                    "expected `:` after the study name `" + study.name + "`");
+      return false;
+    }
+    if (const int first = sheet_->findStudy(study.name); first >= 0) {
+      diags_->error(file_, p, name_end,
+                    "the study `" + study.name + "` is defined twice; the first is on line " +
+                        std::to_string(sheet_->studies[static_cast<size_t>(first)].line));
+      return false;
+    }
+    const uint32_t body_end = splitDescription(colon + 1, end, &study.description);
+    const uint32_t kind_at = skipSpace(colon + 1, body_end);
+    const uint32_t kind_end = scanName(kind_at, body_end);
+    const std::string kind = s.substr(kind_at, kind_end - kind_at);
+    if (kind == "pick") return parsePick(st, &study, kind_end, body_end, forms);
+    if (kind != "sweep" && kind != "capacity") {
+      const uint32_t at = kind_at < body_end ? kind_at : colon;
+      diags_->error(file_, at, std::max(kind_end, at + 1),
+                    (kind.empty() ? std::string("the study `" + study.name + "` needs a kind after `:`")
+                                  : "`" + kind + "` is not a kind of study") +
+                        "; a worksheet's study is a `sweep`, a `capacity` or a `pick`: " + forms);
+      return false;
+    }
+    study.kind = kind == "sweep" ? SheetStudy::Sweep : SheetStudy::Capacity;
+    std::vector<std::pair<uint32_t, uint32_t>> parts;
+    uint32_t from = kind_end;
+    for (uint32_t part_end : topLevelCommas(kind_end, body_end)) {
+      parts.push_back({from, part_end});
+      from = part_end + 1;
+    }
+    // The first part: `X = VALUE` or `X = FROM..TO`.
+    const uint32_t x = skipSpace(parts[0].first, parts[0].second);
+    const uint32_t x_end = scanDottedName(x, parts[0].second);
+    if (x_end == x) {
+      const uint32_t at = x < parts[0].second ? x : kind_end - 1;
+      diags_->error(file_, at, at + 1, "expected the name of the input to vary after `" + kind + "`: " + forms);
+      return false;
+    }
+    study.vary = {s.substr(x, x_end - x), x, x_end};
+    const uint32_t eq = skipSpace(x_end, parts[0].second);
+    if (eq >= parts[0].second || s[eq] != '=') {
+      const uint32_t at = eq < parts[0].second ? eq : x_end - 1;
+      diags_->error(file_, at, at + 1,
+                    "expected `=` and the values after `" + study.vary.name + "`: `" + study.vary.name +
+                        " = FROM..TO` or `" + study.vary.name + " = V1, V2, V3`");
+      return false;
+    }
+    const size_t dots = std::string_view(s).substr(0, parts[0].second).find("..", eq + 1);
+    bool ok = true;
+    size_t k = 1;
+    if (dots != std::string::npos) {
+      study.range = true;
+      const uint32_t d = static_cast<uint32_t>(dots);
+      ok &= parseStudyValue(&study, eq + 1, d, d, "FROM");
+      ok &= parseStudyValue(&study, d + 2, parts[0].second, d, "TO");
+    } else {
+      ok &= parseStudyValue(&study, eq + 1, parts[0].second, eq, "a value");
+      // A list runs on until a part that starts a clause.
+      for (; k < parts.size() && study.kind == SheetStudy::Sweep && !startsClause(parts[k]); ++k)
+        ok &= parseStudyValue(&study, parts[k].first, parts[k].second, parts[k].first - 1, "a value");
+    }
+    if (!ok) return false;
+    if (study.values.size() > static_cast<size_t>(kMaxStudyPoints)) {
+      diags_->error(file_, study.values.front()->begin, study.values.back()->end,
+                    "a study in a worksheet has at most " + std::to_string(kMaxStudyPoints) +
+                        " points (its table is printed in the report); `calctrail sweep` takes more");
+      return false;
+    }
+    if (study.kind == SheetStudy::Capacity) {
+      if (!study.range) {
+        diags_->error(file_, study.values[0]->begin, study.values[0]->end,
+                      "a capacity is sought in a bracket LO..HI, as in `capacity F = 1 kN..200 kN, largest`");
+        return false;
+      }
+      if (!parseCapacitySense(&study, parts, body_end)) return false;
+    } else if (!parseSweepClauses(&study, parts, k, body_end)) {
+      return false;
+    }
+    st->kind = Statement::StudyStmt;
+    st->index = static_cast<int>(sheet_->studies.size());
+    sheet_->studies.push_back(std::move(study));
+    return true;
+  }
+
+  // After `pick`: `X from SERIES` or `X from V1, V2, ...`, the smallest that passes every check.
+  bool parsePick(Statement* st, SheetStudy* study, uint32_t p, uint32_t body_end, const std::string& forms) {
+    const std::string& s = file_.bytes();
+    study->kind = SheetStudy::Pick;
+    const uint32_t x = skipSpace(p, body_end);
+    const uint32_t x_end = scanDottedName(x, body_end);
+    if (x_end == x) {
+      const uint32_t at = x < body_end ? x : p - 1;
+      diags_->error(file_, at, at + 1, "expected the name of the input to pick after `pick`: `pick d from "
+                                       "trapezoidal` or `pick d from 20 mm, 24 mm, 28 mm`");
+      return false;
+    }
+    study->vary = {s.substr(x, x_end - x), x, x_end};
+    const uint32_t from = skipSpace(x_end, body_end);
+    const uint32_t from_end = scanName(from, body_end);
+    if (s.compare(from, from_end - from, "from") != 0 || from_end == from) {
+      const uint32_t at = from < body_end ? from : x_end - 1;
+      diags_->error(file_, at, at + 1,
+                    "expected `from SERIES` or `from V1, V2, ...` after `pick " + study->vary.name + "`; " + forms);
+      return false;
+    }
+    const uint32_t what = skipSpace(from_end, body_end);
+    const uint32_t word_end = scanName(what, body_end);
+    if (word_end > what && skipSpace(word_end, body_end) == body_end) {
+      study->series = s.substr(what, word_end - what);
+      study->series_begin = what;
+      study->series_end = word_end;
+    } else {
+      bool ok = true;
+      uint32_t b = from_end;
+      for (uint32_t part_end : topLevelCommas(from_end, body_end)) {
+        ok &= parseStudyValue(study, b, part_end, b > from_end ? b - 1 : from, "a value");
+        b = part_end + 1;
+      }
+      if (!ok) return false;
+      if (study->values.size() > static_cast<size_t>(kMaxStudyPoints)) {
+        diags_->error(file_, study->values.front()->begin, study->values.back()->end,
+                      "a study in a worksheet has at most " + std::to_string(kMaxStudyPoints) + " values");
+        return false;
+      }
+    }
+    st->kind = Statement::StudyStmt;
+    st->index = static_cast<int>(sheet_->studies.size());
+    sheet_->studies.push_back(std::move(*study));
+    return true;
+  }
+
+  // A value of a study in [b, e); `at` is where to point when it is missing (the `..` or the `=`).
+  bool parseStudyValue(SheetStudy* study, uint32_t b, uint32_t e, uint32_t at, const std::string& what) {
+    if (skipSpace(b, e) == e) {
+      diags_->error(file_, at, at + (what == "a value" ? 1 : 2),
+                    what == "a value" ? std::string("an empty value; write V1, V2, ... with a unit on each")
+                                      : "a range needs " + what + ": FROM..TO, as in `20 mm..60 mm`");
+      return false;
+    }
+    ExprParser parser(file_, b, e, diags_);
+    ExprPtr value = parser.parseWhole();
+    if (!value) return false;
+    study->values.push_back(std::move(value));
+    return true;
+  }
+
+  // [b, e) without the blanks at either end, as text.
+  std::string partText(std::pair<uint32_t, uint32_t> part) const {
+    return trim(std::string_view(file_.bytes()).substr(part.first, part.second - part.first));
+  }
+
+  // A part of a sweep that is `N points ...` or `show ...`, not a value of a list.
+  bool startsClause(std::pair<uint32_t, uint32_t> part) const {
+    const uint32_t b = skipSpace(part.first, part.second);
+    const uint32_t word_end = scanName(b, part.second);
+    if (file_.bytes().compare(b, word_end - b, "show") == 0) return true;
+    uint32_t q = b;
+    while (q < part.second && file_.bytes()[q] >= '0' && file_.bytes()[q] <= '9') ++q;
+    const uint32_t w = skipSpace(q, part.second);
+    return q > b && file_.bytes().compare(w, 6, "points") == 0;
+  }
+
+  // After `X = FROM..TO` of a sweep, from part k: `N points [log-spaced]`, then `show R1, R2, ...`.
+  bool parseSweepClauses(SheetStudy* study, const std::vector<std::pair<uint32_t, uint32_t>>& parts, size_t k,
+                         uint32_t body_end) {
+    const std::string& s = file_.bytes();
+    if (k < parts.size() && startsClause(parts[k]) && !isShow(parts[k])) {
+      const uint32_t b = skipSpace(parts[k].first, parts[k].second);
+      uint32_t q = b;
+      while (q < parts[k].second && s[q] >= '0' && s[q] <= '9') ++q;
+      // The words after the count, one blank apart whatever was written.
+      std::string rest;
+      for (uint32_t w = skipSpace(q, parts[k].second); w < parts[k].second;) {
+        uint32_t we = w;
+        while (we < parts[k].second && !isSpace(s[we])) ++we;
+        rest += (rest.empty() ? "" : " ") + s.substr(w, we - w);
+        w = skipSpace(we, parts[k].second);
+      }
+      uint32_t e = parts[k].second;
+      while (e > b && (s[e - 1] == ' ' || s[e - 1] == '\t')) --e;
+      study->points_begin = b;
+      study->points_end = e;
+      if (rest != "points" && rest != "points log-spaced") {
+        diags_->error(file_, b, e, "expected `N points` or `N points log-spaced`, as in `9 points`");
+        return false;
+      }
+      if (!study->range) {
+        diags_->error(file_, b, e,
+                      "a list of values has as many points as values; `N points` goes with a range FROM..TO");
+        return false;
+      }
+      study->log = rest == "points log-spaced";
+      const std::string digits = s.substr(b, q - b);
+      study->points = digits.size() > 5 ? kMaxStudyPoints + 1 : std::stoi(digits);
+      if (study->points < 2) {
+        diags_->error(file_, b, e,
+                      "a range has no points between its ends with `" + digits +
+                          " points`; it needs 2 points or more (both ends count)");
+        return false;
+      }
+      if (study->points > kMaxStudyPoints) {
+        diags_->error(file_, b, e,
+                      "a study in a worksheet has at most " + std::to_string(kMaxStudyPoints) +
+                          " points (its table is printed in the report); `calctrail sweep` takes more");
+        return false;
+      }
+      ++k;
+    }
+    if (k >= parts.size() || !isShow(parts[k])) {
+      const uint32_t at = k < parts.size() ? skipSpace(parts[k].first, parts[k].second) : body_end;
+      const uint32_t e = k < parts.size() ? parts[k].second : body_end;
+      diags_->error(file_, at > 0 && at >= e ? at - 1 : at, std::max(e, at + 1),
+                    k < parts.size() ? std::string("expected `show NAME, ...` (or `N points` after a range): the "
+                                                   "results the sweep shows")
+                                     : "the sweep `" + study->name + "` needs the results it shows: `, show " +
+                                           "T_raise, P_motor` at the end");
+      return false;
+    }
+    const uint32_t show_at = skipSpace(parts[k].first, parts[k].second);
+    bool ok = parseShownName(study, show_at + 4, parts[k].second, show_at);
+    for (++k; k < parts.size(); ++k) ok &= parseShownName(study, parts[k].first, parts[k].second, parts[k].first - 1);
+    return ok;
+  }
+
+  bool isShow(std::pair<uint32_t, uint32_t> part) const {
+    const uint32_t b = skipSpace(part.first, part.second);
+    const uint32_t word_end = scanName(b, part.second);
+    return word_end - b == 4 && file_.bytes().compare(b, 4, "show") == 0;
+  }
+
+  // One name after `show`, in [b, e); `at` is where to point when it is missing.
+  bool parseShownName(SheetStudy* study, uint32_t b, uint32_t e, uint32_t at) {
+    const uint32_t p = skipSpace(b, e);
+    const uint32_t name_end = scanDottedName(p, e);
+    if (name_end == p || skipSpace(name_end, e) != e) {
+      const uint32_t where = p < e ? (name_end == p ? p : skipSpace(name_end, e)) : at;
+      diags_->error(file_, where, where + 1,
+                    "expected the name of a quantity to show, as in `show T_raise, P_motor`");
+      return false;
+    }
+    const std::string name = file_.bytes().substr(p, name_end - p);
+    for (const StudyName& other : study->show) {
+      if (other.name != name) continue;
+      diags_->error(file_, p, name_end, "the study `" + study->name + "` shows `" + name + "` twice");
+      return false;
+    }
+    study->show.push_back({name, p, name_end});
+    return true;
+  }
+
+  // After `X = LO..HI` of a capacity: `largest` or `smallest`.
+  bool parseCapacitySense(SheetStudy* study, const std::vector<std::pair<uint32_t, uint32_t>>& parts,
+                          uint32_t body_end) {
+    const std::string word = parts.size() > 1 ? partText(parts[1]) : std::string();
+    if (parts.size() == 2 && (word == "largest" || word == "smallest")) {
+      study->largest = word == "largest";
+      return true;
+    }
+    const uint32_t at = parts.size() > 1 ? skipSpace(parts[1].first, parts[1].second) : body_end;
+    const uint32_t e = parts.size() > 1 ? parts.back().second : body_end;
+    diags_->error(file_, at > 0 && at >= e ? at - 1 : at, std::max(e, at + 1),
+                  "a capacity ends with `, largest` or `, smallest`: the largest (smallest) value of `" +
+                      study->vary.name + "` in the bracket for which every check passes");
+    return false;
   }
 
   Sheet* sheet_;

@@ -248,7 +248,9 @@ std::string renderSweepJson(const SweepTable& t) {
   return w.str();
 }
 
-std::string renderSweepSvg(const SweepTable& t) {
+std::string renderSweepSvg(const SweepTable& t) { return renderSvg(sweepPlot(t)); }
+
+LinePlot sweepPlot(const SweepTable& t) {
   LinePlot plot;
   plot.title = "Sweep of " + t.sheet_path + (t.sets.empty() ? "" : " (changed by --set)");
   plot.x_label = header(t.vary[0].name, t.vary[0].unit);
@@ -308,7 +310,7 @@ std::string renderSweepSvg(const SweepTable& t) {
     plot.shaded_label =
         std::string(t.vary.size() == 1 ? "shaded" : "ringed") + ": a check fails (" + names + ")";
   }
-  return renderSvg(plot);
+  return plot;
 }
 
 // ---------------------------------------------------------------------------

@@ -11,6 +11,7 @@
 #include "engine/study/pick.h"
 #include "engine/study/sensitivity.h"
 #include "engine/study/solve.h"
+#include "engine/study/svg_plot.h"
 #include "engine/study/sweep.h"
 
 namespace calctrail {
@@ -26,6 +27,9 @@ std::string renderSweepText(const SweepTable& t, int digits);
 std::string renderSweepCsv(const SweepTable& t);
 std::string renderSweepJson(const SweepTable& t);
 std::string renderSweepSvg(const SweepTable& t);
+// The plot renderSweepSvg draws (one panel per shown result, failing points shaded), for a caller
+// that titles it itself (the report's studies).
+LinePlot sweepPlot(const SweepTable& t);
 
 std::string renderSolveText(const StudySource& src, const Model& m, const SolveSpec& spec,
                             const SolveOutcome& out, int digits);

@@ -68,7 +68,7 @@ struct Library {
        starting_friction = fn("starting_friction"), lead_angle = fn("lead_angle"),
        collar_torque = fn("collar_torque_uniform_pressure"), torque_raise = fn("torque_raise"),
        torque_lower = fn("torque_lower"), efficiency = fn("screw_efficiency_with_collar"),
-       overall_efficiency_2 = fn("overall_efficiency_2"), nut_speed = fn("nut_speed"),
+       overall_efficiency_2 = fn("overall_efficiency"), nut_speed = fn("nut_speed"),
        travel_time = fn("travel_time"), motor_torque = fn("motor_torque"), motor_power = fn("motor_power"),
        standard_motor_power = fn("standard_motor_power"), body_axial_stress = fn("body_axial_stress"),
        body_torsion_stress = fn("body_torsion_stress"), von_mises = fn("von_mises"),

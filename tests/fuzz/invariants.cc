@@ -298,6 +298,8 @@ std::vector<std::string> meaningOf(Sheet* sheet) {
   }
   for (LoadCase& c : sheet->cases)
     for (CaseReplacement& r : c.replacements) canonicalizeUnits(r.expr.get());
+  for (SheetStudy& st : sheet->studies)
+    for (ExprPtr& v : st.values) canonicalizeUnits(v.get());
   std::vector<std::string> lines;
   for (const Statement& st : sheet->statements) {
     std::string line;
@@ -326,6 +328,11 @@ std::vector<std::string> meaningOf(Sheet* sheet) {
         line = "case " + c.name;
         for (const CaseReplacement& r : c.replacements) line += " | " + r.name + " = " + renderExpr(*r.expr);
         line += " | # " + c.description;
+        break;
+      }
+      case Statement::StudyStmt: {
+        const SheetStudy& study = sheet->studies[st.index];
+        line = "study " + canonicalStudyLine(study) + " | " + study.section + " | # " + study.description;
         break;
       }
       case Statement::CheckStmt: {

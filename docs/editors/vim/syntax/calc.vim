@@ -41,6 +41,12 @@ execute 'syntax match calcCheckKey /^\s*\zscheck\ze\s\+' . s:name . '\s*:/ nextg
 execute 'syntax match calcCheckName /' . s:name . '/ contained'
 execute 'syntax match calcCaseKey /^\s*\zscase\ze\s\+' . s:name . '\s*:/ nextgroup=calcCaseName skipwhite'
 execute 'syntax match calcCaseName /' . s:name . '/ contained'
+" `study NAME: sweep X = ...`, `study NAME: capacity X = ...` and `study NAME: pick X from ...`, with the words of their clauses.
+execute 'syntax match calcStudyKey /^\s*\zsstudy\ze\s\+' . s:name . '\s*:/ nextgroup=calcStudyName skipwhite'
+execute 'syntax match calcStudyName /' . s:name . '/ contained'
+" The count of `8 points`, so that `points` is a word of the line, not a unit.
+syntax match calcStudyPoints /\%(^\s*study\s.*\)\@<=\<\d\+\ze\s\+points\>/ nextgroup=calcStudyWord skipwhite
+syntax match calcStudyWord /\%(^\s*study\s.*\)\@<=\<\%(sweep\|capacity\|pick\|from\|points\|log-spaced\|show\|largest\|smallest\)\>/
 execute 'syntax match calcParamKey /^\s*\zsparam\ze\s\+' . s:name . '/ nextgroup=calcParamName skipwhite'
 execute 'syntax match calcParamName /' . s:name . '/ contained'
 syntax match calcUseKey /^\s*\zsuse\ze\s/ nextgroup=calcUsePath skipwhite
@@ -58,6 +64,9 @@ highlight default link calcNoteKey calcKeyword
 highlight default link calcCheckKey calcKeyword
 highlight default link calcCaseKey calcKeyword
 highlight default link calcParamKey calcKeyword
+highlight default link calcStudyKey calcKeyword
+highlight default link calcStudyWord calcKeyword
+highlight default link calcStudyPoints Number
 highlight default link calcUseKey calcKeyword
 highlight default link calcAsKey calcKeyword
 highlight default link calcWithKey calcKeyword
@@ -67,6 +76,7 @@ highlight default link calcMeta String
 highlight default link calcMetaKey PreProc
 highlight default link calcCheckName Label
 highlight default link calcCaseName Label
+highlight default link calcStudyName Label
 highlight default link calcParamName Identifier
 highlight default link calcUsePath String
 highlight default link calcInstance Identifier
