@@ -212,3 +212,13 @@ TEST_CASE("unit families and the US table", "[units][preferences]") {
     CHECK(unitFamily(parsed(r.us.c_str())) == UnitFamily::US);
   }
 }
+
+TEST_CASE("an instance is shown with the preferences of the sheet that is run", "[units][preferences][template]") {
+  const std::string dir = test::tempDir();
+  test::writeFile(dir + "/half.calc", "units: SI\nparam d = 1 in\nh = d / 2  # half\n");
+  test::writeFile(dir + "/top.calc", "units: US\nuse half.calc as a\nx = a.h * 2  # twice\n");
+  const test::Run r = test::runCli("report '" + dir + "/top.calc'");
+  REQUIRE(r.status == 0);
+  CHECK(r.out.find("= 0.5000 in") != std::string::npos);  // a.h, in the running sheet's inches
+  CHECK(r.out.find(" mm") == std::string::npos);
+}
