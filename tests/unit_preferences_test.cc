@@ -222,3 +222,19 @@ TEST_CASE("an instance is shown with the preferences of the sheet that is run", 
   CHECK(r.out.find("= 0.5000 in") != std::string::npos);  // a.h, in the running sheet's inches
   CHECK(r.out.find(" mm") == std::string::npos);
 }
+
+TEST_CASE("a US sheet substitutes inline arguments and nested calls in inches", "[units][preferences][report]") {
+  const std::string dir = test::tempDir();
+  test::writeFile(dir + "/inline.calc",
+                  "units: US\n"
+                  "d = 1.25 in  # size\n"
+                  "p = 0.2 in  # pitch\n"
+                  "T = torque_raise(100 lbf, d - p / 2, 0.2 [in/rev], 0.15, 14.5 deg)  # torque\n"
+                  "h = trap_pitch_dia(30 mm, 6 mm) + 1 in  # a nested call\n");
+  const test::Run r = test::runCli("report '" + dir + "/inline.calc'");
+  REQUIRE(r.status == 0);
+  // The argument d - p/2 = 1.15 in, before this shown as 29.21 mm.
+  CHECK(r.out.find("= 100 lbf · 1.150 in / 2 ·") != std::string::npos);
+  // A nested call of a metric table, in the US sheet's unit: 27 mm = 1.063 in.
+  CHECK(r.out.find("where trap_pitch_dia(30 mm, 6 mm) = 30 mm - 6 mm / 2 = 1.063 in") != std::string::npos);
+}
