@@ -189,8 +189,7 @@ void Calculation::fillStates() {
     q.override_file = std::const_pointer_cast<SourceFile>(b.file);
     s.input = readsNothing(*q.expr);
     if (!s.declared && s.has_dim) {
-      const Unit* written = unitAsWritten(*q.expr);
-      s.display = written ? *written : preferredUnit(s.dim);
+      s.display = undeclaredDisplayUnit(*q.expr, s.dim, m.sheet().units, m.library());
     }
   }
   checks.assign(m.checks().size(), CheckState());

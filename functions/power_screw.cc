@@ -160,9 +160,11 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
   const FunctionArg F = arg("F", force(), "axial load on the screw (magnitude)");
   const FunctionArg dm = arg("dm", length(), "mean (pitch) diameter of the thread");
   const FunctionArg l = arg("l", length(), "lead (axial advance per revolution)", true);
-  const FunctionArg f = arg("f", none(), "thread friction coefficient");
+  const FunctionArg f = usually(arg("f", none(), "thread friction coefficient"), 0.05, 0.30, Show::Plain,
+                                 "threaded pairs of steel screws with steel, bronze, brass and cast-iron nuts run at 0.10 to 0.25, machine oil to dry (Shigley's Mechanical Engineering Design, Table 8-5, from memory); the range is widened to 0.05 for well-lubricated and polymer nuts at the low value of a self-locking check and to 0.30 for a dry worst case (common practice). A value of 15 or 1.5 is a percent or a slip");
   const FunctionArg alpha = arg("alpha", angle(), "flank angle (half the included thread angle; 0 for square)");
-  const FunctionArg fc = arg("fc", none(), "collar friction coefficient");
+  const FunctionArg fc = usually(arg("fc", none(), "collar friction coefficient"), 0.05, 0.30, Show::Plain,
+                                  "thrust collars of steel on cast iron and on bronze run at 0.06 to 0.12 and start at 0.08 to 0.17 (Shigley's Mechanical Engineering Design, Table 8-6, from memory); widened to 0.05 to 0.30 as for the thread (common practice), a rolling bearing is thrust_bearing_torque's");
   const FunctionArg dc = arg("dc", length(), "collar mean diameter");
   const std::string raise = "F*dm/2 * (l + pi*f*dm/cos(alpha)) / (pi*dm - f*l/cos(alpha))";
   const std::string lower = "F*dm/2 * (pi*f*dm/cos(alpha) - l) / (pi*dm + f*l/cos(alpha))";
@@ -325,7 +327,8 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     FunctionDecl d;
     d.name = "starting_friction";
     d.summary = "Starting (static) friction from running friction: 4/3 of it, common practice";
-    d.args = {arg("f", none(), "running friction coefficient")};
+    d.args = {usually(arg("f", none(), "running friction coefficient"), 0.05, 0.30, Show::Plain,
+                      "running values of threads and collars (Shigley's Tables 8-5 and 8-6, from memory, widened as for the thread friction of torque_raise, common practice)")};
     d.result = none();
     d.result_unit = "1";
     d.formula = "4/3*f";

@@ -210,3 +210,25 @@ TEST_CASE("plausibility: starting_friction(0.9) is an error, not 1.2", "[functio
   CHECK(f_start == Approx(1.0));
   CHECK_NOTHROW(call("torque_raise", {F, dm, l, f_start, 0}));
 }
+
+TEST_CASE("friction arguments have a usual range from the materials they describe (issue 15)",
+          "[functions][power_screw][plausibility]") {
+  using calctrail::test::doubtsOf;
+  const double N = 1, mm = 1e-3, deg = M_PI / 180;
+  // Within Shigley's Tables 8-5 and 8-6 (from memory) and the demos' values
+  // (0.08 well lubricated, 0.15 dry steel on bronze): no doubt.
+  for (double f : {0.08, 0.12, 0.15, 0.25}) {
+    INFO(f);
+    CHECK(doubtsOf("torque_raise", {6400 * N, 30 * mm, 8 * mm, f, 0 * deg}).empty());
+    CHECK(doubtsOf("collar_torque", {6400 * N, f, 40 * mm}).empty());
+    CHECK(doubtsOf("starting_friction", {f}).empty());
+  }
+  // A percent typed as a coefficient, or a slip by ten: a warning that says the range.
+  CHECK_THAT(doubtsOf("torque_raise", {6400 * N, 30 * mm, 8 * mm, 0.015, 0 * deg}),
+             Catch::Contains("f = 0.015 is outside the usual range 0.05 to 0.3"));
+  CHECK_THAT(doubtsOf("torque_raise_with_collar", {6400 * N, 30 * mm, 8 * mm, 0.08, 0 * deg, 0.6, 40 * mm}),
+             Catch::Contains("fc = 0.6 is outside the usual range 0.05 to 0.3"));
+  CHECK_THAT(doubtsOf("collar_torque", {6400 * N, 0.5, 40 * mm}),
+             Catch::Contains("fc = 0.5 is outside the usual range"));
+  CHECK_THAT(doubtsOf("starting_friction", {0.5}), Catch::Contains("f = 0.5 is outside the usual range"));
+}

@@ -6,6 +6,7 @@
 #include "engine/eval/arithmetic.h"
 #include "engine/eval/dimension_check.h"
 #include "engine/eval/math_functions.h"
+#include "engine/units/unit_parser.h"
 #include "engine/units/unit_table.h"
 #include "engine/util/edit_distance.h"
 
@@ -15,6 +16,26 @@ const Unit* unitAsWritten(const Expr& e) {
   const Expr* x = &e;
   while (x->kind == ExprKind::Negate || x->kind == ExprKind::Group) x = x->args[0].get();
   return x->kind == ExprKind::Number ? x->unit.get() : nullptr;
+}
+
+Unit undeclaredDisplayUnit(const Expr& formula, const Dimension& dim, const UnitPreferences& prefs,
+                           const std::vector<FunctionDecl>& library) {
+  if (const Unit* written = unitAsWritten(formula)) return *written;
+  const Expr* x = &formula;
+  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  if (x->kind == ExprKind::Call && !findMathFunction(x->text)) {
+    for (const FunctionDecl& f : library) {
+      if (f.name != x->text) continue;
+      Unit natural;
+      UnitError err;
+      // The library's tests keep every result unit parsable and of the result's dimension.
+      if (!f.result_unit.empty() && parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
+          natural.dim == dim)
+        return prefs.choose(dim, &natural);
+      break;
+    }
+  }
+  return prefs.choose(dim);
 }
 
 Dimension quantityDimension(const Dimension& formula_dim) {
@@ -289,8 +310,7 @@ void Model::checkDimensions(Diagnostics* diags) {
         s.has_dim = false;
       }
     } else {
-      const Unit* written = unitAsWritten(*q.expr);
-      s.display = written ? *written : preferredUnit(s.dim);
+      s.display = undeclaredDisplayUnit(*q.expr, s.dim, sheet_->units, *library_);
       const std::string w = strayAngleWarning(q.name, s.dim);
       if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w);
     }
@@ -352,7 +372,7 @@ void Model::checkChecks(Diagnostics* diags) {
       }
       if (!unit && x->kind == ExprKind::Number && x->unit) unit = x->unit.get();
     }
-    s.display = unit && fitUnit(s.dim, unit->dim) != UnitFit::Incompatible ? *unit : preferredUnit(s.dim);
+    s.display = unit && fitUnit(s.dim, unit->dim) != UnitFit::Incompatible ? *unit : sheet_->units.choose(s.dim);
   }
 }
 

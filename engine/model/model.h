@@ -143,6 +143,13 @@ bool checkOverModel(const Model& m, const SourceFile& file, Expr& expr, Diagnost
 // A lone literal with a unit (`20 kN`, `-3 degC`): the unit it was written in; else nullptr.
 const Unit* unitAsWritten(const Expr& e);
 
+// The unit a quantity of dimension `dim` with formula `formula` and no
+// declared unit is shown in: the literal's unit as written; else the sheet's
+// `units:` preference, which weighs the unit a library call's result declares
+// (rev, %, 1/in, kN) against the sheet's system (UnitPreferences::choose).
+Unit undeclaredDisplayUnit(const Expr& formula, const Dimension& dim, const UnitPreferences& prefs,
+                           const std::vector<FunctionDecl>& library);
+
 // A formula of dimension `dim` for quantity `q`, which declares a display
 // unit: reports the error and returns false when the unit does not fit (a
 // different dimension, or one that would put a number off by 2*pi on the page).

@@ -221,7 +221,8 @@ std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
 }
 
 // The unit an argument is shown in: its quantity's, its literal's, or the
-// preferred one for the function's argument dimension.
+// sheet's preferred one for the function's argument dimension (inches in a
+// US customary sheet, so that an inline `d - p / 2` is not shown in mm).
 Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& calc) {
   const Expr* x = &arg;
   while (x->kind == ExprKind::Group) x = x->args[0].get();
@@ -231,7 +232,7 @@ Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& c
   if (x->kind == ExprKind::Number && x->unit) {
     if (auto u = unitFor(*x->unit, decl.dim)) return *u;
   }
-  return preferredUnit(decl.dim);
+  return calc.sheet.units.choose(decl.dim);
 }
 
 // A number for a table row as the tables write it: "48", "1.5", "5.5".
@@ -398,15 +399,18 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
   const double r = evalTree(call, value_of, &fault);
   if (!fault.node) {
     // In the step's own unit where it fits (lbf*in in a US sheet, mm/rev for
-    // a lead), else the function's (a lead in it per revolution).
+    // a lead), else the function's (a lead in it per revolution) as the
+    // sheet's `units:` line weighs it.
     Unit unit;
     UnitError err;
     if (step_unit.dim == call.dim) unit = step_unit;
     else if (auto u = unitFor(step_unit, f.result); u && !f.result_per_revolution) unit = *u;
-    else if (f.result_unit.empty() ||
-             !parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &unit, &err) ||
-             unit.dim != call.dim)
-      unit = preferredUnit(call.dim);
+    else if (Unit natural; !f.result_unit.empty() &&
+             parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
+             natural.dim == call.dim)
+      unit = calc.sheet.units.choose(call.dim, &natural);
+    else
+      unit = calc.sheet.units.choose(call.dim);
     c.result = rounded(r, unit, digits);
     if (const LookupTable* table = lookupTable(f.name); table && library_args.size() == f.args.size())
       c.row = table->row(library_args, f.result_per_revolution ? r * kTwoPi : r, f);

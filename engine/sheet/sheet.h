@@ -12,6 +12,7 @@
 #include "engine/sheet/expr.h"
 #include "engine/sheet/source_file.h"
 #include "engine/units/unit.h"
+#include "engine/units/unit_preferences.h"
 
 namespace calctrail {
 
@@ -232,6 +233,8 @@ struct Metadata {
 struct Sheet {
   std::shared_ptr<SourceFile> file;
   Metadata meta;
+  // The `units:` line: the units results are shown in when none is declared.
+  UnitPreferences units;
   std::vector<Statement> statements;
   std::vector<Quantity> quantities;
   std::vector<Check> checks;

@@ -13,7 +13,7 @@ namespace calctrail {
 
 const std::vector<std::string>& Metadata::keys() {
   static const std::vector<std::string> k = {"title", "project", "calc", "revision",
-                                             "prepared", "checked", "date"};
+                                             "prepared", "checked", "date", "units"};
   return k;
 }
 
@@ -194,7 +194,7 @@ class LineParser {
       std::string msg = "`" + key + ":` is not a metadata key";
       auto near = nearestWords(key, keys);
       if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
-      else msg += " (the keys are title, project, calc, revision, prepared, checked, date); a quantity is defined with `=`";
+      else msg += " (the keys are title, project, calc, revision, prepared, checked, date, units); a quantity is defined with `=`";
       diags_->error(file_, p, word_end, msg);
       return false;
     }
@@ -205,6 +205,16 @@ class LineParser {
     st->kind = Statement::Meta;
     st->key = key;
     st->text = trim(std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1));
+    if (key == "units") {
+      const std::string_view raw = std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1);
+      std::string error;
+      size_t at = 0;
+      if (!UnitPreferences::parse(raw, &sheet_->units, &error, &at)) {
+        const uint32_t pos = colon + 1 + static_cast<uint32_t>(at);
+        diags_->error(file_, pos, std::max(pos + 1, end), error);
+        return false;
+      }
+    }
     sheet_->meta.values[key] = st->text;
     return true;
   }

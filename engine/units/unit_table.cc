@@ -4,6 +4,7 @@
 #include <cctype>
 #include <unordered_map>
 
+#include "engine/units/unit_preferences.h"
 #include "engine/util/edit_distance.h"
 
 namespace calctrail {
@@ -368,6 +369,43 @@ most; `J` is always available), `rpm` for rotational speed, `deg` for angles.
 A torque times an angle is shown in `N*m` and a torque times a rotational
 speed in `W` (the radian is 1). Any other dimension is shown in coherent SI
 base units, `kg*m^3/s` style, with `rad` for angles.
+
+A library function declares the unit its result is shown in (`rev` for a
+rating life, `1/in` for threads per inch, `%` for an efficiency, `kN`, `kW`;
+docs/functions.md says it as "shown in"); a line whose formula is a call of
+that function and which declares no unit of its own is shown in it.
+
+## A sheet's preferred units
+
+The metadata line `units:` (docs/format.md) chooses the units of a whole
+sheet where a line declares none: `units: SI`, or `units: US` (US
+customary), followed by any units to prefer, one per dimension:
+`units: US, ksi, lbf*ft, in/s`. The unit shown for a line without one is, in
+order:
+
+1. the unit of a lone literal as written (`F = 500 lbf` stays in lbf);
+2. a unit the `units:` line names for the line's dimension;
+3. the unit the library function of the line declares, when it is of the
+   sheet's system or of neither (`rev`, `rpm`, `%`, `deg`, `s`); a sheet
+   without a `units:` line takes it whatever its system;
+4. the sheet system's unit for the dimension (below);
+5. the engine's unit for the dimension (the table above).
+
+A unit with any US customary unit in it (`in`, `ft`, `lbf`, `lb`, `psi`,
+`ksi`, `hp`, ...) is US, one made of SI and metric units only is SI, and
+one with neither belongs to both. Values substituted into a formula are
+shown in the unit of the quantity they come from, so a US sheet's
+substitution lines stay in inches. An instance of a template is shown with
+the preferences of the sheet that is run.
+
+| Dimension | SI | US customary |
+|---|---|---|
+)md";
+  for (const PreferenceRow& r : preferenceTable())
+    md += "| " + escapeCell(r.quantity) + " | `" + escapeCell(r.si) + "` | `" + escapeCell(r.us) + "` |\n";
+  md += R"md(
+Dimensions not listed (time, rotational speed, angle, temperature, ...) are
+shown alike in both systems.
 
 ## Table
 

@@ -33,10 +33,10 @@ syntax match calcSection /^\s*\zssection\%(\s.*\)\=$/ contains=calcSectionKey
 syntax match calcSectionKey /^\s*\zssection/ contained
 syntax match calcNote /^\s*\zsnote\%(\s.*\)\=$/ contains=calcNoteKey
 syntax match calcNoteKey /^\s*\zsnote/ contained
-syntax match calcMeta /^\s*\zs\%(title\|project\|calc\|revision\|prepared\|checked\|date\)\s*:.*$/
+syntax match calcMeta /^\s*\zs\%(title\|project\|calc\|revision\|prepared\|checked\|date\|units\)\s*:.*$/
       \ contains=calcMetaKey
 syntax match calcMetaKey
-      \ /^\s*\zs\%(title\|project\|calc\|revision\|prepared\|checked\|date\)\ze\s*:/ contained
+      \ /^\s*\zs\%(title\|project\|calc\|revision\|prepared\|checked\|date\|units\)\ze\s*:/ contained
 execute 'syntax match calcCheckKey /^\s*\zscheck\ze\s\+' . s:name . '\s*:/ nextgroup=calcCheckName skipwhite'
 execute 'syntax match calcCheckName /' . s:name . '/ contained'
 execute 'syntax match calcCaseKey /^\s*\zscase\ze\s\+' . s:name . '\s*:/ nextgroup=calcCaseName skipwhite'
