@@ -252,7 +252,10 @@ bool DimensionChecker::visitNode(Expr& e) {
   }
   Expr& l = *e.args[0];
   Expr& r = *e.args[1];
-  if (!visit(l) || !visit(r)) return false;
+  // Both sides, so an independent problem on the right is reported with one on the left.
+  const bool left_ok = visit(l);
+  const bool right_ok = visit(r);
+  if (!left_ok || !right_ok) return false;
   switch (e.kind) {
     case ExprKind::Add:
     case ExprKind::Subtract: {
@@ -302,10 +305,14 @@ bool DimensionChecker::visitNode(Expr& e) {
 }
 
 bool DimensionChecker::checkCall(Expr& e) {
-  for (auto& a : e.args)
-    if (!visit(*a)) return false;
+  // Every argument, and the function's name, even when one argument has a
+  // problem (or reads a quantity whose definition failed): each independent
+  // problem is reported in the same run.
+  bool args_ok = true;
+  for (auto& a : e.args) args_ok = visit(*a) && args_ok;
   const int n = static_cast<int>(e.args.size());
   if (const MathFunction* m = findMathFunction(e.text)) {
+    if (!args_ok) return false;
     if (n < m->min_args || (m->max_args >= 0 && n > m->max_args)) {
       std::string want = m->max_args < 0 ? "at least " + std::to_string(m->min_args)
                                          : std::to_string(m->min_args);
@@ -366,6 +373,7 @@ bool DimensionChecker::checkCall(Expr& e) {
     diags_->error(file_, e.begin, e.begin + static_cast<uint32_t>(e.text.size()), msg);
     return false;
   }
+  if (!args_ok) return false;
   if (!f->takes(n)) {
     std::string names;
     for (size_t i = 0; i < f->args.size(); ++i) names += (i ? ", " : "") + f->args[i].name;
