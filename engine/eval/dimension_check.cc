@@ -6,6 +6,7 @@
 #include "engine/eval/tree_eval.h"
 #include "engine/units/unit.h"
 #include "engine/util/edit_distance.h"
+#include "engine/util/math_constants.h"
 #include "functions/function_decl.h"
 
 namespace calctrail {
@@ -54,6 +55,26 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim) {
 }
 
 namespace {
+const Expr& unwrapped(const Expr& e) {
+  const Expr* x = &e;
+  while (x->kind == ExprKind::Group || x->kind == ExprKind::Negate) x = x->args[0].get();
+  return *x;
+}
+
+// A plain literal without a unit (`15`, `-30`), as written; "" otherwise.
+std::string plainLiteral(const Expr& e) {
+  const Expr& x = unwrapped(e);
+  return x.kind == ExprKind::Number && !x.unit ? renderExpr(e) : std::string();
+}
+
+// The parser limits nesting, so these walks stay shallow.
+bool hasPi(const Expr& e) {
+  if (e.kind == ExprKind::Pi) return true;
+  for (const ExprPtr& a : e.args)
+    if (hasPi(*a)) return true;
+  return false;
+}
+
 bool arithmeticOnly(const Expr& e) {
   if (e.kind == ExprKind::Name || e.kind == ExprKind::Call) return false;
   for (const ExprPtr& a : e.args)
@@ -176,6 +197,32 @@ std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet) {
       return "";
   }
   return "";
+}
+
+// sin(30) reads 30 as radians: a plain literal, or a plain value above 2*pi
+// (a literal quantity, or a constant without pi), is most likely in degrees.
+std::string DimensionChecker::plainTrigArgumentWarning(const std::string& fn, const Expr& arg) const {
+  const std::string literal = plainLiteral(arg);
+  const Expr& x = unwrapped(arg);
+  std::string shown = literal;
+  double v = 0.0;
+  if (shown.empty() && x.kind == ExprKind::Name) {
+    const int q = sheet_.find(x.text);
+    const Quantity* given = q >= 0 ? &sheet_.quantities[static_cast<size_t>(q)] : nullptr;
+    if (given && given->expr && !plainLiteral(*given->expr).empty() && constantValue(*given->expr, &v) &&
+        std::fabs(v) > kTwoPi)
+      return "`" + fn + "(" + x.text + ")` reads `" + x.text + " = " + plainLiteral(*given->expr) +
+             "` as radians; for degrees write `" + x.text + " = " + plainLiteral(*given->expr) + " deg`";
+    return "";
+  }
+  if (shown.empty()) {
+    if (hasPi(arg) || !constantValue(arg, &v) || std::fabs(v) <= kTwoPi) return "";
+    shown = renderExpr(arg);
+    return "`" + fn + "(" + shown + ")` reads " + shown + " as radians; for degrees write `" + fn + "((" + shown +
+           ") * 1 deg)`";
+  }
+  return "`" + fn + "(" + shown + ")` reads the plain number " + shown + " as radians; for degrees write `" + fn +
+         "(" + shown + " deg)`, for radians `" + fn + "(" + shown + " rad)`";
 }
 
 bool DimensionChecker::check(Expr& e) { return visit(e) && checkTemperatureOwner(e); }
@@ -330,6 +377,10 @@ bool DimensionChecker::checkCall(Expr& e) {
       case MathRule::TrigOfAngle:
         if (a != kAngle && !a.dimensionless())
           return fail(*e.args[0], "`" + e.text + "` takes an angle (or plain radians), not " + words(a));
+        if (a.dimensionless()) {
+          const std::string w = plainTrigArgumentWarning(e.text, *e.args[0]);
+          if (!w.empty()) diags_->warning(file_, e.args[0]->begin, e.args[0]->end, w);
+        }
         e.dim = kNone;
         return true;
       case MathRule::InverseTrig:
@@ -399,6 +450,20 @@ bool DimensionChecker::checkCall(Expr& e) {
                       arg.description + ") must be " + words(arg.dim);
     if (arg.per_revolution) msg += " or a length per revolution";
     msg += ", not " + words(got);
+    if (arg.dim == kAngle && got.dimensionless()) {
+      // A plain number where an angle is wanted: the fix is its unit, not a turn or a lead.
+      const Expr& x = unwrapped(*e.args[static_cast<size_t>(i)]);
+      const std::string literal = plainLiteral(x);
+      const int q = x.kind == ExprKind::Name ? sheet_.find(x.text) : -1;
+      const Quantity* given = q >= 0 ? &sheet_.quantities[static_cast<size_t>(q)] : nullptr;
+      if (!literal.empty())
+        msg += "; write the angle with its unit: `" + literal + " deg` (or `" + literal + " rad`)";
+      else if (given && given->expr && !plainLiteral(*given->expr).empty())
+        msg += "; write the angle with its unit: `" + x.text + " = " + plainLiteral(*given->expr) + " deg` (or `rad`)";
+      else
+        msg += "; multiply it by `1 deg` where it is in degrees, or by `1 rad` where it is in radians";
+      return fail(*e.args[static_cast<size_t>(i)], msg);
+    }
     if (got.sameIgnoringAngle(arg.dim)) {
       if (arg.dim.withoutAngle() == Dimension::of(Base::Time, -1))
         msg += "; a speed is rotational (rpm, [rev/s]) and a frequency in Hz is not: the two differ by 2*pi";

@@ -30,6 +30,8 @@ class DimensionChecker {
   bool checkCall(Expr& e);
   bool checkTemperatureOwner(const Expr& root);
   bool fail(const Expr& at, const std::string& message);
+  // The warning for a plain number given to the trigonometric function `fn`; "" when none.
+  std::string plainTrigArgumentWarning(const std::string& fn, const Expr& arg) const;
 
   const SourceFile& file_;
   Diagnostics* diags_;
