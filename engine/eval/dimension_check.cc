@@ -55,6 +55,44 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim) {
 }
 
 namespace {
+// The computed quantity of plain length a product with a rotational speed
+// reads (`rpm * p`, p = a formula): "" when the length is a literal or none.
+std::string computedPlainLength(const Expr& e, const Sheet& sheet) {
+  if (e.kind == ExprKind::Multiply || e.kind == ExprKind::Divide) {
+    for (const ExprPtr& a : e.args) {
+      const Expr* x = a.get();
+      while (x->kind == ExprKind::Group) x = x->args[0].get();
+      if (x->kind != ExprKind::Name || x->dim != kLength) continue;
+      const int q = sheet.find(x->text);
+      if (q < 0) continue;
+      const Quantity& given = sheet.quantities[static_cast<size_t>(q)];
+      const Expr* f = given.expr.get();
+      while (f && (f->kind == ExprKind::Group || f->kind == ExprKind::Negate)) f = f->args[0].get();
+      if (f && f->kind != ExprKind::Number) return x->text;
+    }
+  }
+  for (const ExprPtr& a : e.args) {
+    const std::string found = computedPlainLength(*a, sheet);
+    if (!found.empty()) return found;
+  }
+  return "";
+}
+}  // namespace
+
+std::string strayAngleWarning(const std::string& name, const Dimension& dim, const Expr& formula,
+                              const Sheet& sheet) {
+  const std::string w = strayAngleWarning(name, dim);
+  if (w.empty() || dim.exponent(Base::Angle) != 1 || dim.withoutAngle() != Dimension::exponents(1, 0, -1))
+    return w;
+  const std::string p = computedPlainLength(formula, sheet);
+  if (p.empty()) return w;
+  return "`" + name + "` is a rotational speed times a plain length (" + dim.siSymbol() + "): if `" + p +
+         "` is a lead, this is 2*pi too large; `" + p + "` is computed, so make it a length per revolution " +
+         "where it is computed (`thread_lead(pitch, starts)` gives one in [mm/rev]) or divide it by `1 [rev]` " +
+         "where it is read: `" + p + " / 1 [rev]`";
+}
+
+namespace {
 const Expr& unwrapped(const Expr& e) {
   const Expr* x = &e;
   while (x->kind == ExprKind::Group || x->kind == ExprKind::Negate) x = x->args[0].get();

@@ -50,6 +50,11 @@ std::string compareForSum(const Dimension& a, const Dimension& b, bool* incompat
 // A warning for a result whose dimension carries a stray angle (rpm times a
 // plain lead, a plain 2*pi where 1 rev is meant), with the fix; "" when none.
 std::string strayAngleWarning(const std::string& name, const Dimension& dim);
+// The same for the quantity `name` of formula `formula` (dimension-checked):
+// where the plain length is a computed quantity, the fix fits one
+// (divide it by `1 [rev]`, or compute a lead per revolution).
+std::string strayAngleWarning(const std::string& name, const Dimension& dim, const Expr& formula,
+                              const Sheet& sheet);
 
 // Torque or energy, or power, with any angle exponent: T*theta is work and
 // T*omega is power, so there the radian is 1 and the angle is dropped.

@@ -335,7 +335,7 @@ void Model::checkDimensions(Diagnostics* diags) {
     } else {
       const Unit* written = unitAsWritten(*q.expr);
       s.display = written ? *written : preferredUnit(s.dim);
-      const std::string w = strayAngleWarning(q.name, s.dim);
+      const std::string w = strayAngleWarning(q.name, s.dim, *q.expr, *sheet_);
       if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w);
     }
   }
