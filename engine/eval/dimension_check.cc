@@ -6,6 +6,7 @@
 #include "engine/eval/tree_eval.h"
 #include "engine/units/unit.h"
 #include "engine/util/edit_distance.h"
+#include "engine/util/math_constants.h"
 #include "functions/function_decl.h"
 
 namespace calctrail {
@@ -54,6 +55,64 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim) {
 }
 
 namespace {
+// The computed quantity of plain length a product with a rotational speed
+// reads (`rpm * p`, p = a formula): "" when the length is a literal or none.
+std::string computedPlainLength(const Expr& e, const Sheet& sheet) {
+  if (e.kind == ExprKind::Multiply || e.kind == ExprKind::Divide) {
+    for (const ExprPtr& a : e.args) {
+      const Expr* x = a.get();
+      while (x->kind == ExprKind::Group) x = x->args[0].get();
+      if (x->kind != ExprKind::Name || x->dim != kLength) continue;
+      const int q = sheet.find(x->text);
+      if (q < 0) continue;
+      const Quantity& given = sheet.quantities[static_cast<size_t>(q)];
+      const Expr* f = given.expr.get();
+      while (f && (f->kind == ExprKind::Group || f->kind == ExprKind::Negate)) f = f->args[0].get();
+      if (f && f->kind != ExprKind::Number) return x->text;
+    }
+  }
+  for (const ExprPtr& a : e.args) {
+    const std::string found = computedPlainLength(*a, sheet);
+    if (!found.empty()) return found;
+  }
+  return "";
+}
+}  // namespace
+
+std::string strayAngleWarning(const std::string& name, const Dimension& dim, const Expr& formula,
+                              const Sheet& sheet) {
+  const std::string w = strayAngleWarning(name, dim);
+  if (w.empty() || dim.exponent(Base::Angle) != 1 || dim.withoutAngle() != Dimension::exponents(1, 0, -1))
+    return w;
+  const std::string p = computedPlainLength(formula, sheet);
+  if (p.empty()) return w;
+  return "`" + name + "` is a rotational speed times a plain length (" + dim.siSymbol() + "): if `" + p +
+         "` is a lead, this is 2*pi too large; `" + p + "` is computed, so make it a length per revolution " +
+         "where it is computed (`thread_lead(pitch, starts)` gives one in [mm/rev]) or divide it by `1 [rev]` " +
+         "where it is read: `" + p + " / 1 [rev]`";
+}
+
+namespace {
+const Expr& unwrapped(const Expr& e) {
+  const Expr* x = &e;
+  while (x->kind == ExprKind::Group || x->kind == ExprKind::Negate) x = x->args[0].get();
+  return *x;
+}
+
+// A plain literal without a unit (`15`, `-30`), as written; "" otherwise.
+std::string plainLiteral(const Expr& e) {
+  const Expr& x = unwrapped(e);
+  return x.kind == ExprKind::Number && !x.unit ? renderExpr(e) : std::string();
+}
+
+// The parser limits nesting, so these walks stay shallow.
+bool hasPi(const Expr& e) {
+  if (e.kind == ExprKind::Pi) return true;
+  for (const ExprPtr& a : e.args)
+    if (hasPi(*a)) return true;
+  return false;
+}
+
 bool arithmeticOnly(const Expr& e) {
   if (e.kind == ExprKind::Name || e.kind == ExprKind::Call) return false;
   for (const ExprPtr& a : e.args)
@@ -178,6 +237,32 @@ std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet) {
   return "";
 }
 
+// sin(30) reads 30 as radians: a plain literal, or a plain value above 2*pi
+// (a literal quantity, or a constant without pi), is most likely in degrees.
+std::string DimensionChecker::plainTrigArgumentWarning(const std::string& fn, const Expr& arg) const {
+  const std::string literal = plainLiteral(arg);
+  const Expr& x = unwrapped(arg);
+  std::string shown = literal;
+  double v = 0.0;
+  if (shown.empty() && x.kind == ExprKind::Name) {
+    const int q = sheet_.find(x.text);
+    const Quantity* given = q >= 0 ? &sheet_.quantities[static_cast<size_t>(q)] : nullptr;
+    if (given && given->expr && !plainLiteral(*given->expr).empty() && constantValue(*given->expr, &v) &&
+        std::fabs(v) > kTwoPi)
+      return "`" + fn + "(" + x.text + ")` reads `" + x.text + " = " + plainLiteral(*given->expr) +
+             "` as radians; for degrees write `" + x.text + " = " + plainLiteral(*given->expr) + " deg`";
+    return "";
+  }
+  if (shown.empty()) {
+    if (hasPi(arg) || !constantValue(arg, &v) || std::fabs(v) <= kTwoPi) return "";
+    shown = renderExpr(arg);
+    return "`" + fn + "(" + shown + ")` reads " + shown + " as radians; for degrees write `" + fn + "((" + shown +
+           ") * 1 deg)`";
+  }
+  return "`" + fn + "(" + shown + ")` reads the plain number " + shown + " as radians; for degrees write `" + fn +
+         "(" + shown + " deg)`, for radians `" + fn + "(" + shown + " rad)`";
+}
+
 bool DimensionChecker::check(Expr& e) { return visit(e) && checkTemperatureOwner(e); }
 
 // A formula's temperature kind must suit what receives it: a difference
@@ -252,7 +337,10 @@ bool DimensionChecker::visitNode(Expr& e) {
   }
   Expr& l = *e.args[0];
   Expr& r = *e.args[1];
-  if (!visit(l) || !visit(r)) return false;
+  // Both sides, so an independent problem on the right is reported with one on the left.
+  const bool left_ok = visit(l);
+  const bool right_ok = visit(r);
+  if (!left_ok || !right_ok) return false;
   switch (e.kind) {
     case ExprKind::Add:
     case ExprKind::Subtract: {
@@ -302,10 +390,14 @@ bool DimensionChecker::visitNode(Expr& e) {
 }
 
 bool DimensionChecker::checkCall(Expr& e) {
-  for (auto& a : e.args)
-    if (!visit(*a)) return false;
+  // Every argument, and the function's name, even when one argument has a
+  // problem (or reads a quantity whose definition failed): each independent
+  // problem is reported in the same run.
+  bool args_ok = true;
+  for (auto& a : e.args) args_ok = visit(*a) && args_ok;
   const int n = static_cast<int>(e.args.size());
   if (const MathFunction* m = findMathFunction(e.text)) {
+    if (!args_ok) return false;
     if (n < m->min_args || (m->max_args >= 0 && n > m->max_args)) {
       std::string want = m->max_args < 0 ? "at least " + std::to_string(m->min_args)
                                          : std::to_string(m->min_args);
@@ -323,6 +415,10 @@ bool DimensionChecker::checkCall(Expr& e) {
       case MathRule::TrigOfAngle:
         if (a != kAngle && !a.dimensionless())
           return fail(*e.args[0], "`" + e.text + "` takes an angle (or plain radians), not " + words(a));
+        if (a.dimensionless()) {
+          const std::string w = plainTrigArgumentWarning(e.text, *e.args[0]);
+          if (!w.empty()) diags_->warning(file_, e.args[0]->begin, e.args[0]->end, w);
+        }
         e.dim = kNone;
         return true;
       case MathRule::InverseTrig:
@@ -366,6 +462,7 @@ bool DimensionChecker::checkCall(Expr& e) {
     diags_->error(file_, e.begin, e.begin + static_cast<uint32_t>(e.text.size()), msg);
     return false;
   }
+  if (!args_ok) return false;
   if (!f->takes(n)) {
     std::string names;
     for (size_t i = 0; i < f->args.size(); ++i) names += (i ? ", " : "") + f->args[i].name;
@@ -391,6 +488,20 @@ bool DimensionChecker::checkCall(Expr& e) {
                       arg.description + ") must be " + words(arg.dim);
     if (arg.per_revolution) msg += " or a length per revolution";
     msg += ", not " + words(got);
+    if (arg.dim == kAngle && got.dimensionless()) {
+      // A plain number where an angle is wanted: the fix is its unit, not a turn or a lead.
+      const Expr& x = unwrapped(*e.args[static_cast<size_t>(i)]);
+      const std::string literal = plainLiteral(x);
+      const int q = x.kind == ExprKind::Name ? sheet_.find(x.text) : -1;
+      const Quantity* given = q >= 0 ? &sheet_.quantities[static_cast<size_t>(q)] : nullptr;
+      if (!literal.empty())
+        msg += "; write the angle with its unit: `" + literal + " deg` (or `" + literal + " rad`)";
+      else if (given && given->expr && !plainLiteral(*given->expr).empty())
+        msg += "; write the angle with its unit: `" + x.text + " = " + plainLiteral(*given->expr) + " deg` (or `rad`)";
+      else
+        msg += "; multiply it by `1 deg` where it is in degrees, or by `1 rad` where it is in radians";
+      return fail(*e.args[static_cast<size_t>(i)], msg);
+    }
     if (got.sameIgnoringAngle(arg.dim)) {
       if (arg.dim.withoutAngle() == Dimension::of(Base::Time, -1))
         msg += "; a speed is rotational (rpm, [rev/s]) and a frequency in Hz is not: the two differ by 2*pi";

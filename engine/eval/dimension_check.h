@@ -30,6 +30,8 @@ class DimensionChecker {
   bool checkCall(Expr& e);
   bool checkTemperatureOwner(const Expr& root);
   bool fail(const Expr& at, const std::string& message);
+  // The warning for a plain number given to the trigonometric function `fn`; "" when none.
+  std::string plainTrigArgumentWarning(const std::string& fn, const Expr& arg) const;
 
   const SourceFile& file_;
   Diagnostics* diags_;
@@ -48,6 +50,11 @@ std::string compareForSum(const Dimension& a, const Dimension& b, bool* incompat
 // A warning for a result whose dimension carries a stray angle (rpm times a
 // plain lead, a plain 2*pi where 1 rev is meant), with the fix; "" when none.
 std::string strayAngleWarning(const std::string& name, const Dimension& dim);
+// The same for the quantity `name` of formula `formula` (dimension-checked):
+// where the plain length is a computed quantity, the fix fits one
+// (divide it by `1 [rev]`, or compute a lead per revolution).
+std::string strayAngleWarning(const std::string& name, const Dimension& dim, const Expr& formula,
+                              const Sheet& sheet);
 
 // Torque or energy, or power, with any angle exponent: T*theta is work and
 // T*omega is power, so there the radian is 1 and the angle is dropped.

@@ -1,7 +1,10 @@
 #include "engine/model/model.h"
 
 #include <algorithm>
+#include <cctype>
+#include <string_view>
 #include <unordered_map>
+#include <unordered_set>
 
 #include "engine/eval/arithmetic.h"
 #include "engine/eval/dimension_check.h"
@@ -191,8 +194,46 @@ bool hasCall(const Expr& e) {
 }
 }  // namespace
 
+namespace {
+// The names the main sheet's failed lines set out to define (`F = 3000 lbs`,
+// `F [lbs] = 3000`, `param F [lbs]`): the error is on that line, so a formula
+// or check that reads one says nothing more about it.
+std::unordered_set<std::string> failedDefinitions(const Sheet& sheet) {
+  std::unordered_set<std::string> failed;
+  auto isName = [](char c, bool first) {
+    return std::isalpha(static_cast<unsigned char>(c)) || (!first && (std::isdigit(static_cast<unsigned char>(c)) || c == '_'));
+  };
+  for (const Statement& st : sheet.statements) {
+    if (st.kind != Statement::Invalid || !sheet.file) continue;
+    const std::string_view line = sheet.file->lineText(st.line);
+    size_t p = line.find_first_not_of(" \t");
+    auto word = [&]() {
+      const size_t b = p;
+      if (p >= line.size() || !isName(line[p], true)) return std::string();
+      while (p < line.size() && isName(line[p], false)) ++p;
+      return std::string(line.substr(b, p - b));
+    };
+    auto skipBlanks = [&]() {
+      while (p < line.size() && (line[p] == ' ' || line[p] == '\t')) ++p;
+    };
+    if (p == std::string_view::npos) continue;
+    std::string name = word();
+    skipBlanks();
+    if (name == "param") {
+      name = word();
+      skipBlanks();
+      if (!name.empty()) failed.insert(name);
+      continue;
+    }
+    if (!name.empty() && p < line.size() && (line[p] == '=' || line[p] == '[')) failed.insert(name);
+  }
+  return failed;
+}
+}  // namespace
+
 void Model::resolveNames(Diagnostics* diags) {
   const int n = static_cast<int>(sheet_->quantities.size());
+  const std::unordered_set<std::string> failed = failedDefinitions(*sheet_);
   graph_ = std::make_unique<DependencyGraph>(n);
   // Suggestions cost a pass over every name: built on the first unknown name,
   // kept per distinct name, and given for the first few dozen names only, so
@@ -229,7 +270,7 @@ void Model::resolveNames(Diagnostics* diags) {
       any_name = true;
       const int j = sheet_->find(e.text);
       if (j < 0) {
-        unknown(sheet_->exprFile(i), e, q.expr_instance);
+        if (q.expr_instance >= 0 || !failed.count(e.text)) unknown(sheet_->exprFile(i), e, q.expr_instance);
         unresolved_[i] = 1;
       } else {
         graph_->addUse(i, j);
@@ -241,7 +282,8 @@ void Model::resolveNames(Diagnostics* diags) {
     const Check& c = sheet_->checks[k];
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
       forEachName(*side, [&](const Expr& e) {
-        if (sheet_->find(e.text) < 0) unknown(sheet_->checkFile(k), e, c.instance);
+        if (sheet_->find(e.text) < 0 && (c.instance >= 0 || !failed.count(e.text)))
+          unknown(sheet_->checkFile(k), e, c.instance);
       });
     }
   }
@@ -281,7 +323,9 @@ void Model::checkDimensions(Diagnostics* diags) {
     const uint32_t i = slot.index();
     Quantity& q = sheet_->quantities[i];
     SlotInfo& s = slots_[i];
-    if (unresolved_[i]) continue;  // reported already: keep it and its users quiet
+    // A formula that names something undefined (reported already) is still
+    // checked, so an unknown function in it shows in the same run; it gets no
+    // dimension, which keeps it and its users quiet.
     if (!q.expr) {
       // A required parameter: its unit is its dimension; its value comes from
       // a binding or --set (an error otherwise, reported by whoever runs it).
@@ -295,7 +339,7 @@ void Model::checkDimensions(Diagnostics* diags) {
     }
     NotedDiagnostics formula_diags(diags, *sheet_, q.expr_instance);
     DimensionChecker checker(sheet_->exprFile(i), formula_diags.get(), *sheet_, dims_, known_, *library_);
-    if (!checker.check(*q.expr)) continue;
+    if (!checker.check(*q.expr) || unresolved_[i]) continue;
     s.dim = quantityDimension(q.expr->dim);
     if (q.bound && !bindingFits(i, s.dim, formula_diags.get())) continue;
     s.has_dim = true;
@@ -311,7 +355,7 @@ void Model::checkDimensions(Diagnostics* diags) {
       }
     } else {
       s.display = undeclaredDisplayUnit(*q.expr, s.dim, sheet_->units, *library_);
-      const std::string w = strayAngleWarning(q.name, s.dim);
+      const std::string w = strayAngleWarning(q.name, s.dim, *q.expr, *sheet_);
       if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w);
     }
   }

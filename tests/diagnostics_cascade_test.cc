@@ -1,0 +1,69 @@
+// A failed definition is reported once, on its own line, and every other
+// independent problem of the file is reported in the same run (issue 11).
+#include <catch2/catch.hpp>
+
+#include "tests/test_support.h"
+
+using calctrail::test::calc;
+using calctrail::test::diagnostics;
+
+namespace {
+size_t count(const std::string& text, const std::string& what) {
+  size_t n = 0;
+  for (size_t at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
+  return n;
+}
+}  // namespace
+
+TEST_CASE("a name whose definition failed to parse raises nothing downstream", "[diagnostics][cascade]") {
+  // The failing input of the issue: an unknown unit, then lines that read F.
+  auto c = calc("f = 0.1\nF = 3000 lbs\nd = 20 mm\nT = F * d\ncheck small: F < 5 kN\n");
+  const std::string d = diagnostics(*c);
+  INFO(d);
+  CHECK(count(d, "error:") == 1);
+  CHECK(d.find(":2:10: error: unknown unit `lbs`") != std::string::npos);
+  CHECK(d.find("unknown name") == std::string::npos);
+  CHECK(d.find("did you mean `f`") == std::string::npos);
+}
+
+TEST_CASE("failed display units, parameters and syntax errors raise nothing downstream", "[diagnostics][cascade]") {
+  for (const std::string line : {"F [lbs] = 3000", "F = 3000 *", "param F [lbs]", "F = (3 kN"}) {
+    auto c = calc(std::string(line) + "\nd = 20 mm\nT = F * d\n");
+    const std::string d = diagnostics(*c);
+    INFO(line << "\n" << d);
+    CHECK(count(d, "error:") == 1);
+    CHECK(d.find(":1:") != std::string::npos);
+    CHECK(d.find("unknown name") == std::string::npos);
+  }
+}
+
+TEST_CASE("a name never defined is still reported", "[diagnostics][cascade]") {
+  auto c = calc("d = 20 mm\nT = G * d\n");
+  const std::string d = diagnostics(*c);
+  INFO(d);
+  CHECK(d.find(":2:5: error: unknown name `G`") != std::string::npos);
+}
+
+TEST_CASE("a misspelt function is reported with the unit error of a quantity it reads", "[diagnostics][cascade]") {
+  // The failing input of the issue: today torqe is reported only once lbs is fixed.
+  auto c = calc("F = 3000 lbs\nd = 20 mm\nT = torqe(F, d)\n");
+  const std::string d = diagnostics(*c);
+  INFO(d);
+  CHECK(count(d, "error:") == 2);
+  CHECK(d.find(":1:10: error: unknown unit `lbs`") != std::string::npos);
+  CHECK(d.find(":3:5: error: unknown function `torqe`") != std::string::npos);
+}
+
+TEST_CASE("a misspelt function beside a dimension error and an unknown name", "[diagnostics][cascade]") {
+  auto c = calc("a = 1 m + 1 s\nb = sqrtt(a)\nc = sqrtt(G)\nd = max(1 m, 2 s) + sinn(1)\n");
+  const std::string d = diagnostics(*c);
+  INFO(d);
+  CHECK(d.find(":1:5: error: cannot add") != std::string::npos);
+  CHECK(d.find(":2:5: error: unknown function `sqrtt`") != std::string::npos);
+  CHECK(d.find(":3:11: error: unknown name `G`") != std::string::npos);
+  CHECK(d.find(":3:5: error: unknown function `sqrtt`") != std::string::npos);
+  // Both independent problems of one formula.
+  CHECK(d.find(":4:14: error: `max` compares alike values") != std::string::npos);
+  CHECK(d.find(":4:21: error: unknown function `sinn`") != std::string::npos);
+  CHECK(count(d, "error:") == 6);
+}
