@@ -79,6 +79,4 @@ std::string formatQuantity(double si, const Unit& unit, int digits, bool pretty)
 // fmt's "{}" is the shortest text that reads back to the same double
 // (Dragonbox). It writes integers without a point ("12000"), keeps the sign
 // of -0, and switches to e-notation below 1e-4 and from 1e16 up.
-std::string formatExact(double value) { return fmt::format("{}", value); }
-
 }  // namespace calctrail

@@ -10,6 +10,7 @@
 #include <fmt/format.h>
 
 #include "engine/units/unit.h"
+#include "engine/util/exact_number.h"  // formatExact: its callers in report/ include this header
 
 namespace calctrail {
 
@@ -47,10 +48,5 @@ std::string formatQuantity(double si, const Unit& unit, int digits, bool pretty 
 // "6.4 kN", "15°", "35 %": a number and a unit spelled for people (no unit
 // for plain numbers).
 std::string joinNumberUnit(const std::string& number, const std::string& unit);
-
-// Full precision, the shortest text that reads back to the same double
-// ("0.1", "12000", "-0", "1e-300"); "inf", "-inf" and "nan" for the rest
-// (JSON writes those as null before it gets here).
-std::string formatExact(double value);
 
 }  // namespace calctrail

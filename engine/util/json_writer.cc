@@ -3,7 +3,7 @@
 #include <cmath>
 #include <iterator>
 
-#include "engine/report/number_format.h"
+#include "engine/util/exact_number.h"
 
 namespace calctrail {
 
