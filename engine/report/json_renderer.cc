@@ -2,6 +2,7 @@
 
 #include <cmath>
 
+#include "engine/study/study_render.h"
 #include "engine/util/json_writer.h"
 
 namespace calctrail {
@@ -181,16 +182,6 @@ void writeInstance(JsonWriter& w, const Trail& t, const TrailInstance& i) {
 }
 
 // {"value": .., "unit": "mm", "si": ..}; null value and si for no value.
-void studyQuantity(JsonWriter& w, double si, const Unit& u) {
-  w.beginObject();
-  w.key("value");
-  if (std::isfinite(si)) w.value(u.fromSI(si)); else w.null();
-  w.key("unit").value(u.text);
-  w.key("si");
-  if (std::isfinite(si)) w.value(si); else w.null();
-  w.endObject();
-}
-
 // The worksheet's studies: a sweep's points with the fields of `calctrail
 // sweep --format json`, a capacity's answer with those of `solve`, a pick's with those of `pick`.
 void writeStudies(JsonWriter& w, const Trail& t) {
@@ -220,20 +211,12 @@ void writeStudies(JsonWriter& w, const Trail& t) {
     }
     if (st.kind == "pick") {
       w.key("chosen");
-      if (st.chosen >= 0) studyQuantity(w, st.tried[static_cast<size_t>(st.chosen)].value, st.pick_unit);
+      if (st.chosen >= 0) writeStudyQuantity(w, st.tried[static_cast<size_t>(st.chosen)].value, st.pick_unit);
       else w.null();
       w.key("tried").beginArray();
       for (const PickCandidate& c : st.tried) {
         w.beginObject();
-        w.key("value").value(st.pick_unit.fromSI(c.value));
-        w.key("unit").value(st.pick_unit.text);
-        w.key("si").value(c.value);
-        w.key("passed").value(c.passed);
-        w.key("failed").beginArray();
-        for (const std::string& f : c.failed) w.value(f);
-        w.endArray();
-        w.key("error");
-        if (c.error.empty()) w.null(); else w.value(c.error);
+        writePickCandidateMembers(w, c, st.pick_unit);
         w.endObject();
       }
       w.endArray();
@@ -253,26 +236,7 @@ void writeStudies(JsonWriter& w, const Trail& t) {
     w.key("points").beginArray();
     for (size_t p = 0; p < tb.size(); ++p) {
       w.beginObject();
-      w.key("inputs").beginObject();
-      for (size_t j = 0; j < tb.vary.size(); ++j) {
-        w.key(tb.vary[j].name);
-        studyQuantity(w, tb.input(p, j), tb.vary[j].unit);
-      }
-      w.endObject();
-      w.key("results").beginObject();
-      for (size_t j = 0; j < tb.show.size(); ++j) {
-        w.key(tb.show[j].name);
-        studyQuantity(w, tb.result(p, j), tb.show[j].unit);
-      }
-      w.endObject();
-      w.key("checks").beginObject();
-      for (size_t k = 0; k < tb.checks.size(); ++k) {
-        w.key(tb.checks[k]);
-        if (tb.check(p, k) < 0) w.null(); else w.value(tb.check(p, k) == 1);
-      }
-      w.endObject();
-      w.key("error");
-      if (tb.failed(p)) w.value(tb.faults[p].message); else w.null();
+      writeSweepPointMembers(w, tb, p);
       w.endObject();
     }
     w.endArray();

@@ -99,6 +99,52 @@ std::string pointName(const SweepTable& t, size_t p, int digits) {
 
 }  // namespace
 
+void writeStudyQuantity(JsonWriter& w, double si, const Unit& u) { quantity(w, si, u); }
+
+void writeSweepPointMembers(JsonWriter& w, const SweepTable& t, size_t p) {
+  w.key("inputs").beginObject();
+  for (size_t j = 0; j < t.vary.size(); ++j) {
+    w.key(t.vary[j].name);
+    quantity(w, t.input(p, j), t.vary[j].unit);
+  }
+  w.endObject();
+  w.key("results").beginObject();
+  for (size_t j = 0; j < t.show.size(); ++j) {
+    w.key(t.show[j].name);
+    quantity(w, t.result(p, j), t.show[j].unit);
+  }
+  w.endObject();
+  w.key("checks").beginObject();
+  for (size_t k = 0; k < t.checks.size(); ++k) {
+    w.key(t.checks[k]);
+    if (t.check(p, k) < 0)
+      w.null();
+    else
+      w.value(t.check(p, k) == 1);
+  }
+  w.endObject();
+  w.key("error");
+  if (t.failed(p))
+    w.value(t.faults[p].message);
+  else
+    w.null();
+}
+
+void writePickCandidateMembers(JsonWriter& w, const PickCandidate& c, const Unit& u) {
+  w.key("value").value(u.fromSI(c.value));
+  w.key("unit").value(u.text);
+  w.key("si").value(c.value);
+  w.key("passed").value(c.passed);
+  w.key("failed").beginArray();
+  for (const std::string& f : c.failed) w.value(f);
+  w.endArray();
+  w.key("error");
+  if (c.error.empty())
+    w.null();
+  else
+    w.value(c.error);
+}
+
 std::string sourceLines(const StudySource& src) {
   return sourceText(src.path, src.sha256, src.sets);
 }
@@ -215,32 +261,7 @@ std::string renderSweepJson(const SweepTable& t) {
   for (size_t p = 0; p < t.size(); ++p) {
     w.beginObject();
     w.key("index").value(static_cast<double>(t.index[p]));
-    w.key("inputs").beginObject();
-    for (size_t j = 0; j < t.vary.size(); ++j) {
-      w.key(t.vary[j].name);
-      quantity(w, t.input(p, j), t.vary[j].unit);
-    }
-    w.endObject();
-    w.key("results").beginObject();
-    for (size_t j = 0; j < t.show.size(); ++j) {
-      w.key(t.show[j].name);
-      quantity(w, t.result(p, j), t.show[j].unit);
-    }
-    w.endObject();
-    w.key("checks").beginObject();
-    for (size_t k = 0; k < t.checks.size(); ++k) {
-      w.key(t.checks[k]);
-      if (t.check(p, k) < 0)
-        w.null();
-      else
-        w.value(t.check(p, k) == 1);
-    }
-    w.endObject();
-    w.key("error");
-    if (t.failed(p))
-      w.value(t.faults[p].message);
-    else
-      w.null();
+    writeSweepPointMembers(w, t, p);
     w.endObject();
   }
   w.endArray();
@@ -604,18 +625,7 @@ std::string renderPickJson(const StudySource& src, const PickSpec& spec, const P
   w.key("tried").beginArray();
   for (const PickCandidate& c : out.tried) {
     w.beginObject();
-    w.key("value").value(u.fromSI(c.value));
-    w.key("unit").value(u.text);
-    w.key("si").value(c.value);
-    w.key("passed").value(c.passed);
-    w.key("failed").beginArray();
-    for (const std::string& f : c.failed) w.value(f);
-    w.endArray();
-    w.key("error");
-    if (c.error.empty())
-      w.null();
-    else
-      w.value(c.error);
+    writePickCandidateMembers(w, c, u);
     if (spec.by) {
       w.key("by");
       if (std::isfinite(c.by))

@@ -13,6 +13,7 @@
 #include "engine/study/solve.h"
 #include "engine/study/svg_plot.h"
 #include "engine/study/sweep.h"
+#include "engine/util/json_writer.h"
 
 namespace calctrail {
 
@@ -50,6 +51,14 @@ struct PickSpec {
 };
 std::string renderPickText(const StudySource& src, const PickSpec& spec, const PickOutcome& out, int digits);
 std::string renderPickJson(const StudySource& src, const PickSpec& spec, const PickOutcome& out);
+
+// The JSON pieces the study commands write, shared with the report's
+// "studies" part so that both say the same: {"value", "unit", "si"}; a sweep
+// point's "inputs", "results", "checks" and "error" members; a pick
+// candidate's "value" ... "error" members (the caller opens and closes the object).
+void writeStudyQuantity(JsonWriter& w, double si, const Unit& u);
+void writeSweepPointMembers(JsonWriter& w, const SweepTable& t, size_t p);
+void writePickCandidateMembers(JsonWriter& w, const PickCandidate& c, const Unit& u);
 
 // "twin-screw-lift.calc (SHA-256 ab12...)" and, after --set, the line that says so.
 std::string sourceLines(const StudySource& src);
