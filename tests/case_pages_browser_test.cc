@@ -13,22 +13,13 @@
 
 #include "engine/report/html_renderer.h"
 #include "engine/report/trail.h"
+#include "tests/browser_support.h"
 #include "tests/test_support.h"
 
 using namespace calctrail;
 using namespace calctrail::test;
 
 namespace {
-
-bool have(const std::string& program) {
-  return std::system(("command -v " + program + " >/dev/null 2>&1").c_str()) == 0;
-}
-
-std::string replaceAll(std::string s, const std::string& from, const std::string& to) {
-  for (size_t at = s.find(from); at != std::string::npos; at = s.find(from, at + to.size()))
-    s.replace(at, from.size(), to);
-  return s;
-}
 
 // PDF text with no-break spaces and minus signs as ASCII and every run of
 // spaces as one, line by line.
@@ -115,13 +106,7 @@ void printCases(int n, const std::string& paper) {
   const std::string dir = tempDir();
   const std::string file = dir + "/cases.html", pdf = dir + "/cases.pdf";
   writeFile(file, html);
-  const std::string cmd =
-      "timeout 180 chromium --headless --no-sandbox --disable-gpu --disable-dev-shm-usage --disable-quic "
-      "--no-first-run --disable-background-networking --disable-component-update --disable-sync "
-      "--user-data-dir='" +
-      dir + "/profile' --no-pdf-header-footer --print-to-pdf='" + pdf + "' 'file://" + file + "' >'" + dir +
-      "/chromium.log' 2>&1";
-  const int status = std::system(cmd.c_str());
+  const int status = printToPdf(file, pdf, dir);
   INFO("chromium log:\n" << readFile(dir + "/chromium.log"));
   REQUIRE(status == 0);
   REQUIRE(std::system(("pdftotext -layout '" + pdf + "' '" + dir + "/out.txt'").c_str()) == 0);

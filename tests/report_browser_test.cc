@@ -13,22 +13,13 @@
 #include "engine/report/html_renderer.h"
 #include "engine/report/power_of_ten.h"
 #include "engine/report/trail.h"
+#include "tests/browser_support.h"
 #include "tests/test_support.h"
 
 using namespace calctrail;
 using namespace calctrail::test;
 
 namespace {
-
-bool have(const std::string& program) {
-  return std::system(("command -v " + program + " >/dev/null 2>&1").c_str()) == 0;
-}
-
-std::string replaceAll(std::string s, const std::string& from, const std::string& to) {
-  for (size_t at = s.find(from); at != std::string::npos; at = s.find(from, at + to.size()))
-    s.replace(at, from.size(), to);
-  return s;
-}
 
 // PDF text for searching: no-break spaces and minus signs as ASCII, every
 // run of white space (columns, wrapped lines) as one space, and a line that
@@ -91,16 +82,7 @@ size_t printAndRead(const std::string& demo_name) {
   const std::string dir = tempDir();
   const std::string html = dir + "/" + demo_name + ".html", pdf = dir + "/" + demo_name + ".pdf";
   writeFile(html, renderHtml(t));
-  // A fresh profile, no network, no first-run or background work; the page
-  // headers come from the document's @page rules, not from Chromium's own.
-  const std::string cmd =
-      "timeout 180 chromium --headless --no-sandbox --disable-gpu --disable-dev-shm-usage --disable-quic "
-      "--no-first-run "
-      "--disable-background-networking --disable-component-update --disable-sync "
-      "--user-data-dir='" +
-      dir + "/profile' --no-pdf-header-footer --print-to-pdf='" + pdf + "' 'file://" + html + "' >'" + dir +
-      "/chromium.log' 2>&1";
-  const int status = std::system(cmd.c_str());
+  const int status = printToPdf(html, pdf, dir);
   INFO("chromium log:\n" << readFile(dir + "/chromium.log"));
   REQUIRE(status == 0);
   REQUIRE(readFile(pdf).rfind("%PDF", 0) == 0);

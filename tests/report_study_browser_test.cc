@@ -11,16 +11,13 @@
 
 #include "engine/report/html_renderer.h"
 #include "engine/report/trail.h"
+#include "tests/browser_support.h"
 #include "tests/test_support.h"
 
 using namespace calctrail;
 using namespace calctrail::test;
 
 namespace {
-
-bool have(const std::string& program) {
-  return std::system(("command -v " + program + " >/dev/null 2>&1").c_str()) == 0;
-}
 
 // Every run of white space as one blank: pdftotext keeps columns and line breaks.
 std::string squeezed(const std::string& text) {
@@ -59,13 +56,7 @@ TEST_CASE("browser: the HTML trail of a demo with a study shows its plot on the 
   const std::string dir = tempDir();
   const std::string html = dir + "/study.html", pdf = dir + "/study.pdf";
   writeFile(html, renderHtml(t));
-  const std::string cmd =
-      "timeout 180 chromium --headless --no-sandbox --disable-gpu --disable-dev-shm-usage --disable-quic "
-      "--no-first-run --disable-background-networking --disable-component-update --disable-sync "
-      "--user-data-dir='" +
-      dir + "/profile' --no-pdf-header-footer --print-to-pdf='" + pdf + "' 'file://" + html + "' >'" + dir +
-      "/chromium.log' 2>&1";
-  const int status = std::system(cmd.c_str());
+  const int status = printToPdf(html, pdf, dir);
   INFO("chromium log:\n" << readFile(dir + "/chromium.log"));
   REQUIRE(status == 0);
   REQUIRE(readFile(pdf).rfind("%PDF", 0) == 0);
