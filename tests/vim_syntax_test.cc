@@ -34,6 +34,29 @@ std::pair<int, int> locate(const std::string& text, const Probe& p) {
   return {0, 0};
 }
 
+// Opens `sheet` (relative to the repository) in headless Neovim with the
+// syntax file, runs the Vim script `calls` that adds to the list g:out, and
+// returns that list a line each; Neovim must exit cleanly with nothing on
+// its standard error.
+std::vector<std::string> probeInNeovim(const std::string& sheet, const std::string& calls) {
+  const std::string dir = tempDir();
+  const std::string script = dir + "/probe.vim", out = dir + "/out", err = dir + "/err";
+  writeFile(script, "let g:out = []\n" + calls + "\ncall writefile(g:out, '" + out + "')\n");
+  const std::string cmd = "cd '" + repoPath("") + "' && nvim --headless -u NONE -i NONE -n" +
+                          " --cmd 'set rtp^=docs/editors/vim' -c 'filetype on' -c 'syntax on' -c 'edit " +
+                          sheet + "' -c 'source " + script + "' -c 'qa!' </dev/null >/dev/null 2>'" + err +
+                          "'";
+  const int raw = std::system(cmd.c_str());
+  REQUIRE(WIFEXITED(raw));
+  CHECK(WEXITSTATUS(raw) == 0);
+  CHECK(readFile(err) == "");
+  std::istringstream in(readFile(out));
+  std::vector<std::string> got;
+  for (std::string line; std::getline(in, line);) got.push_back(line);
+  std::filesystem::remove_all(dir);
+  return got;
+}
+
 }  // namespace
 
 TEST_CASE("vim: the syntax file loads in Neovim and names every kind of token", "[editors][vim]") {
@@ -74,22 +97,9 @@ TEST_CASE("vim: the syntax file loads in Neovim and names every kind of token", 
     calls +=
         std::string("call add(g:out, matchstr(execute('highlight ") + group + "'), 'links to \\zs\\S\\+'))|";
   }
-  const std::string dir = tempDir();
-  const std::string script = dir + "/probe.vim", out = dir + "/out", err = dir + "/err";
-  writeFile(script, "let g:out = []\n" + calls + "\ncall add(g:out, 'filetype=' . &filetype)\n" +
-                        "call add(g:out, 'errmsg=' . v:errmsg)\ncall writefile(g:out, '" + out + "')\n");
-  const std::string cmd = "cd '" + repoPath("") + "' && nvim --headless -u NONE -i NONE -n" +
-                          " --cmd 'set rtp^=docs/editors/vim' -c 'filetype on' -c 'syntax on' -c 'edit " +
-                          sheet + "' -c 'source " + script + "' -c 'qa!' </dev/null >/dev/null 2>'" + err +
-                          "'";
-  const int raw = std::system(cmd.c_str());
-  REQUIRE(WIFEXITED(raw));
-  CHECK(WEXITSTATUS(raw) == 0);
-  CHECK(readFile(err) == "");
-
-  std::istringstream in(readFile(out));
-  std::vector<std::string> got;
-  for (std::string line; std::getline(in, line);) got.push_back(line);
+  const std::vector<std::string> got =
+      probeInNeovim(sheet, calls + "\ncall add(g:out, 'filetype=' . &filetype)\n" +
+                               "call add(g:out, 'errmsg=' . v:errmsg)");
   REQUIRE(got.size() == probes.size() + 4);
   for (size_t i = 0; i < probes.size(); ++i) {
     INFO(probes[i].line_start << " ... " << probes[i].token);
@@ -99,7 +109,6 @@ TEST_CASE("vim: the syntax file loads in Neovim and names every kind of token", 
   CHECK(got[probes.size() + 1] == "Keyword");
   CHECK(got[probes.size() + 2] == "filetype=calc");
   CHECK(got[probes.size() + 3] == "errmsg=");
-  std::filesystem::remove_all(dir);
 }
 
 TEST_CASE("vim: a study line's words, its name and the count of its points", "[editors][vim]") {
@@ -120,20 +129,7 @@ TEST_CASE("vim: a study line's words, its name and the count of its points", "[e
     calls += "call add(g:out, synIDattr(synID(" + std::to_string(line) + ", " + std::to_string(col) +
              ", 1), 'name'))|";
   }
-  const std::string dir = tempDir();
-  const std::string script = dir + "/probe.vim", out = dir + "/out", err = dir + "/err";
-  writeFile(script, "let g:out = []\n" + calls + "\ncall writefile(g:out, '" + out + "')\n");
-  const std::string cmd = "cd '" + repoPath("") + "' && nvim --headless -u NONE -i NONE -n" +
-                          " --cmd 'set rtp^=docs/editors/vim' -c 'filetype on' -c 'syntax on' -c 'edit " +
-                          sheet + "' -c 'source " + script + "' -c 'qa!' </dev/null >/dev/null 2>'" + err +
-                          "'";
-  const int raw = std::system(cmd.c_str());
-  REQUIRE(WIFEXITED(raw));
-  CHECK(WEXITSTATUS(raw) == 0);
-  CHECK(readFile(err) == "");
-  std::istringstream in(readFile(out));
-  std::vector<std::string> got;
-  for (std::string line; std::getline(in, line);) got.push_back(line);
+  const std::vector<std::string> got = probeInNeovim(sheet, calls);
   REQUIRE(got.size() == probes.size());
   for (size_t i = 0; i < probes.size(); ++i) {
     INFO(probes[i].line_start << " ... " << probes[i].token);
