@@ -15,12 +15,6 @@ using namespace calctrail::test;
 namespace {
 bool contains(const std::string& s, const std::string& part) { return s.find(part) != std::string::npos; }
 
-size_t count(const std::string& s, const std::string& part) {
-  size_t n = 0;
-  for (size_t at = s.find(part); at != std::string::npos; at = s.find(part, at + part.size())) ++n;
-  return n;
-}
-
 const char* kSheet =
     "F = 10 kN\n"
     "f = 0.1\n"

@@ -5,15 +5,8 @@
 #include "tests/test_support.h"
 
 using calctrail::test::calc;
+using calctrail::test::count;
 using calctrail::test::diagnostics;
-
-namespace {
-size_t count(const std::string& text, const std::string& what) {
-  size_t n = 0;
-  for (size_t at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
-  return n;
-}
-}  // namespace
 
 TEST_CASE("a name whose definition failed to parse raises nothing downstream", "[diagnostics][cascade]") {
   // The failing input of the issue: an unknown unit, then lines that read F.

@@ -45,12 +45,6 @@ void compareGolden(const std::string& actual, const std::string& golden) {
   CHECK(actual == expected);
 }
 
-size_t count(const std::string& s, const std::string& part) {
-  size_t n = 0;
-  for (size_t at = s.find(part); at != std::string::npos; at = s.find(part, at + part.size())) ++n;
-  return n;
-}
-
 // A formula of its own, parsed as the worksheet parser would.
 struct Parsed {
   std::unique_ptr<Calculation> calc;

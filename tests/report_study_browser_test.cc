@@ -30,12 +30,6 @@ std::string squeezed(const std::string& text) {
   return out;
 }
 
-size_t count(const std::string& text, const std::string& what) {
-  size_t n = 0;
-  for (size_t at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
-  return n;
-}
-
 }  // namespace
 
 TEST_CASE("browser: the HTML trail of a demo with a study shows its plot on the page", "[report][browser][study]") {

@@ -37,4 +37,7 @@ void writeFile(const std::string& path, const std::string& text);
 // A fresh empty directory under the system temporary folder.
 std::string tempDir();
 
+// How many times `part` stands in `text`, not overlapping.
+size_t count(const std::string& text, const std::string& part);
+
 }  // namespace calctrail::test

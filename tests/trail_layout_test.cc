@@ -34,12 +34,6 @@ std::unique_ptr<Calculation> demo(const std::string& name) {
 
 bool contains(const std::string& s, const std::string& part) { return s.find(part) != std::string::npos; }
 
-size_t count(const std::string& s, const std::string& part) {
-  size_t n = 0;
-  for (size_t at = s.find(part); at != std::string::npos; at = s.find(part, at + part.size())) ++n;
-  return n;
-}
-
 const TrailStep& step(const Trail& t, const std::string& name) {
   for (const TrailStep& s : t.steps)
     if (s.name == name) return s;
