@@ -162,8 +162,11 @@ std::string checkFormatted(const std::string& text, double want, int digits) {
   }
   if (!ok || i != text.size()) return "the number \"" + shown(text) + "\" is malformed";
   if (has_exponent) {
-    const double mantissa = std::fabs(std::strtod(text.substr(0, mantissa_end).c_str(), nullptr));
-    if (exponent % 3 != 0 || mantissa < 1 || mantissa >= 1000)
+    // The mantissa is read as text: with 17 digits "999.99999999999998" is
+    // below 1000 as written, though strtod rounds it to 1000.
+    const size_t int_end = std::min(text.find('.', int_from), mantissa_end);
+    const size_t int_digits = int_end - int_from;
+    if (exponent % 3 != 0 || int_digits < 1 || int_digits > 3 || text[int_from] == '0')
       return "the number \"" + shown(text) + "\" is not in engineering notation";
   }
   const double read = std::strtod(text.c_str(), nullptr);
