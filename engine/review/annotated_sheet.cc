@@ -11,18 +11,6 @@ namespace {
 
 const char* severityWord(Severity s) { return s == Severity::Error ? "error" : "warning"; }
 
-// "1.10000 kW" -> "1.1 kW": trailing zeros would only add noise to the diff.
-std::string result(double si, const Unit& unit, int digits) {
-  std::string number = formatNumber(unit.fromSI(si), digits);
-  const size_t exp = number.find('e');
-  std::string mantissa = number.substr(0, exp), tail = exp == std::string::npos ? "" : number.substr(exp);
-  if (mantissa.find('.') != std::string::npos) {
-    while (mantissa.back() == '0') mantissa.pop_back();
-    if (mantissa.back() == '.') mantissa.pop_back();
-  }
-  return joinNumberUnit(mantissa + tail, unit.pretty());
-}
-
 std::string checkSummary(const Calculation& calc) {
   if (calc.hasErrors()) {
     const int n = calc.diags.errorCount();
@@ -41,6 +29,24 @@ std::string checkSummary(const Calculation& calc) {
 }
 
 }  // namespace
+
+// "1.10000 kW" -> "1.1 kW": trailing zeros would only add noise to the diff.
+std::string annotatedValue(double si, const Unit& unit, int digits) {
+  std::string number = formatNumber(unit.fromSI(si), digits);
+  const size_t exp = number.find('e');
+  std::string mantissa = number.substr(0, exp), tail = exp == std::string::npos ? "" : number.substr(exp);
+  if (mantissa.find('.') != std::string::npos) {
+    while (mantissa.back() == '0') mantissa.pop_back();
+    if (mantissa.back() == '.') mantissa.pop_back();
+  }
+  return joinNumberUnit(mantissa + tail, unit.pretty());
+}
+
+std::string annotatedCheck(const Check& check, const CheckState& state, int digits) {
+  return "check " + check.name + ": " + (state.passed ? "PASS  " : "FAIL  ") +
+         annotatedValue(state.lhs, state.display, digits) + " " + comparisonText(check.op) + " " +
+         annotatedValue(state.rhs, state.display, digits);
+}
 
 std::string annotatedSheet(const Calculation& calc, int digits) {
   const std::string mark = std::string(kAnnotationMark) + " ";
@@ -64,14 +70,10 @@ std::string annotatedSheet(const Calculation& calc, int digits) {
     if (calculated && st.kind == Statement::Define) {
       const QuantityState& s = calc.quantities[st.index];
       if (!s.input && s.ok)
-        out += mark + calc.sheet.quantities[st.index].name + " = " + result(s.si, s.display, digits) + "\n";
+        out += mark + calc.sheet.quantities[st.index].name + " = " + annotatedValue(s.si, s.display, digits) + "\n";
     }
     if (calculated && st.kind == Statement::CheckStmt) {
-      const CheckState& s = calc.checks[st.index];
-      const Check& c = calc.sheet.checks[st.index];
-      out += mark + "check " + c.name + ": " + (s.passed ? "PASS  " : "FAIL  ") +
-             result(s.lhs, s.display, digits) + " " + comparisonText(c.op) + " " + result(s.rhs, s.display, digits) +
-             "\n";
+      out += mark + annotatedCheck(calc.sheet.checks[st.index], calc.checks[st.index], digits) + "\n";
     }
     auto [b, e] = by_line.equal_range(st.line);
     for (auto it = b; it != e; ++it)

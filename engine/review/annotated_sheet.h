@@ -19,4 +19,11 @@ constexpr const char* kAnnotationMark = "#=";
 // its errors beside the lines they point at, and no results.
 std::string annotatedSheet(const Calculation& calc, int digits);
 
+// A result as the text shows it: `digits` significant digits in `unit`,
+// without trailing zeros ("1.1 kW").
+std::string annotatedValue(double si, const Unit& unit, int digits);
+
+// A check's state as the text shows it: "check NAME: PASS  LHS OP RHS" (or FAIL).
+std::string annotatedCheck(const Check& check, const CheckState& state, int digits);
+
 }  // namespace calctrail

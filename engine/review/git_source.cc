@@ -193,6 +193,16 @@ ProcessResult runProcess(const std::vector<std::string>& argv, const ProcessLimi
   return result;
 }
 
+ProcessResult runGit(const std::vector<std::string>& args, size_t max_output) {
+  ProcessLimits limits;
+  limits.max_output = max_output;
+  ProcessResult r;
+  if (!gitTimeout(&limits.timeout_seconds, &r.err)) return r;
+  std::vector<std::string> argv = {"git"};
+  argv.insert(argv.end(), args.begin(), args.end());
+  return runProcess(argv, limits);
+}
+
 bool readSide(const std::string& spec, std::string* bytes, ReadError* error,
               std::unique_ptr<FileSource>* source, std::string* path) {
   struct stat st;

@@ -68,4 +68,9 @@ struct ProcessResult {
 // of its own, capturing both streams within `limits`.
 ProcessResult runProcess(const std::vector<std::string>& argv, const ProcessLimits& limits = {});
 
+// Runs `git ARGS` (no shell) within git's time limit (CALCTRAIL_GIT_TIMEOUT),
+// keeping at most `max_output` bytes of its output. A limit that cannot be
+// read gives status -1 with the reason in `err`.
+ProcessResult runGit(const std::vector<std::string>& args, size_t max_output = kMaxSourceBytes);
+
 }  // namespace calctrail
