@@ -1,7 +1,12 @@
 // Review of a template change in a real git repository: two sheets use one
 // template; a commit changes the template; `calctrail diff HEAD~1:a.calc
 // a.calc` reads the template as it was at HEAD~1 and shows the results the
-// change moved in that sheet.
+// change moved in that sheet, and `git diff` through `calctrail textconv`
+// shows them in the diff of the template itself.
+//
+// The numbers are worked by hand from the sheets: T = F * f * d / 2 with
+// d = 20 mm: a.calc (F = 10 kN) 10 N*m at f = 0.10, 15 at 0.15, 20 at 0.20,
+// 5 at 0.05; sub/b.calc (F = 2 kN) a fifth of those.
 #include <catch2/catch.hpp>
 
 #include <sys/wait.h>
@@ -43,30 +48,52 @@ struct Repository {
   }
 };
 
-}  // namespace
+const char* kScrewTemplate =
+    "param F [N]\nparam f = 0.10\nd = 20 mm\nT [N*m] = F * f * d / 2\ncheck t: T < 12 [N*m]\n";
 
-TEST_CASE("diff REV:PATH reads the templates at REV: a template change moves every sheet using it",
-          "[template][review][git]") {
+std::string withFriction(const std::string& f) {
+  std::string t = kScrewTemplate;
+  return t.replace(t.find("0.10"), 4, f);
+}
+
+// Two commits: the template with f = 0.10 used by a.calc and sub/b.calc, then f = 0.15.
+void screwRepository(const Repository& repo) {
   setenv("GIT_CONFIG_NOSYSTEM", "1", 1);
   setenv("GIT_CONFIG_GLOBAL", "/dev/null", 1);
   Run version = shell(".", "git --version");
   if (version.status != 0) FAIL("git is needed for this test and was not found: " << version.err);
-  Repository repo;
   git(repo.dir, "init -q");
   git(repo.dir, "config user.name 'Test Checker'");
   git(repo.dir, "config user.email checker@example.com");
   git(repo.dir, "config commit.gpgsign false");
-  writeFile(repo.dir + "/screw.calc",
-            "param F [N]\nparam f = 0.10\nd = 20 mm\nT [N*m] = F * f * d / 2\ncheck t: T < 12 [N*m]\n");
+  writeFile(repo.dir + "/screw.calc", kScrewTemplate);
   REQUIRE(std::system(("mkdir '" + repo.dir + "/sub'").c_str()) == 0);
   writeFile(repo.dir + "/a.calc", "use screw.calc as s with F = 10 kN\nT2 [N*m] = 2 * s.T\n");
   writeFile(repo.dir + "/sub/b.calc", "use ../screw.calc as s with F = 2 kN\n");
+  writeFile(repo.dir + "/.gitattributes", "*.calc diff=calctrail\n");
   git(repo.dir, "add .");
   git(repo.dir, "commit -q -m 'first issue'");
-  const std::string changed =
-      "param F [N]\nparam f = 0.15\nd = 20 mm\nT [N*m] = F * f * d / 2\ncheck t: T < 12 [N*m]\n";
-  writeFile(repo.dir + "/screw.calc", changed);
+  writeFile(repo.dir + "/screw.calc", withFriction("0.15"));
   git(repo.dir, "commit -q -a -m 'dry thread'");
+}
+
+std::string driver() { return "git -c diff.calctrail.textconv='" + std::string(CALCTRAIL_BINARY) + " textconv' "; }
+
+// The first 7 characters of the commit id, as textconv names a commit.
+std::string shortId(const std::string& dir, const std::string& rev) {
+  Run r = shell(dir, "git rev-parse " + rev);
+  REQUIRE(r.status == 0);
+  return r.out.substr(0, 7);
+}
+
+bool has(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+}  // namespace
+
+TEST_CASE("diff REV:PATH reads the templates at REV: a template change moves every sheet using it",
+          "[template][review][git]") {
+  Repository repo;
+  screwRepository(repo);
 
   Run a = runCliIn(repo.dir, "diff HEAD~1:a.calc a.calc");
   INFO(a.out << a.err);
@@ -87,4 +114,106 @@ TEST_CASE("diff REV:PATH reads the templates at REV: a template change moves eve
   // And the hashes in the trail name the template as it is on disk.
   Run json = runCliIn(repo.dir, "report a.calc --format json");
   CHECK(json.out.find("\"path\": \"screw.calc\"") != std::string::npos);
+}
+
+TEST_CASE("git diff of a template alone shows the results it moved in every sheet using it",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  Run r = shell(repo.dir, driver() + "diff HEAD~1 HEAD");
+  INFO(r.out << r.err);
+  REQUIRE(r.status == 0);
+  // Only the template changed, so git converts only the template...
+  CHECK(has(r.out, "diff --git a/screw.calc b/screw.calc"));
+  CHECK_FALSE(has(r.out, "diff --git a/a.calc"));
+  // ...and its text carries both sheets' results, each side through its own version.
+  CHECK(has(r.out, "\n-#= a.calc: s.T = 10 N\u00b7m\n-#= a.calc: T2 = 20 N\u00b7m\n"
+                   "-#= a.calc: check s.t: PASS  10 N\u00b7m < 12 N\u00b7m\n"));
+  CHECK(has(r.out, "\n+#= a.calc: s.T = 15 N\u00b7m\n+#= a.calc: T2 = 30 N\u00b7m\n"
+                   "+#= a.calc: check s.t: FAIL  15 N\u00b7m < 12 N\u00b7m\n"));
+  CHECK(has(r.out, "\n-#= sub/b.calc: s.T = 2 N\u00b7m\n"));
+  CHECK(has(r.out, "\n+#= sub/b.calc: s.T = 3 N\u00b7m\n"));
+  CHECK(has(r.out, " #= calctrail: used by 2 sheets; their results with this version of screw.calc:\n"));
+  // The old side says where it read the sheets: at the commit before the change.
+  CHECK(has(r.out, "\n-#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD~1") +
+                       " (screw.calc)\n"));
+}
+
+TEST_CASE("git diff of a sheet whose template changed too computes the old side with the old template",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  writeFile(repo.dir + "/a.calc", "use screw.calc as s with F = 10 kN\nT2 [N*m] = 3 * s.T\n");
+  writeFile(repo.dir + "/screw.calc", withFriction("0.20"));
+  git(repo.dir, "commit -q -a -m 'three of them, and a drier thread'");
+  Run r = shell(repo.dir, driver() + "diff HEAD~1 HEAD -- a.calc");
+  INFO(r.out << r.err);
+  REQUIRE(r.status == 0);
+  // Old: 2 * 15 N*m (f = 0.15 at HEAD~1), never 2 * 20 (today's template); new: 3 * 20.
+  CHECK(has(r.out, "\n-T2 [N*m] = 2 * s.T\n-#= T2 = 30 N\u00b7m\n+T2 [N*m] = 3 * s.T\n+#= T2 = 60 N\u00b7m\n"));
+  CHECK_FALSE(has(r.out, "T2 = 40"));
+  CHECK(has(r.out, "\n-#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD~1") +
+                       " (a.calc)\n"));
+  CHECK_FALSE(has(r.out, "error"));
+}
+
+TEST_CASE("git diff of a template in the work tree and in the index", "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  // The work tree side is the file itself: its sheets are read from the work tree.
+  writeFile(repo.dir + "/screw.calc", withFriction("0.05"));
+  Run worktree = shell(repo.dir, driver() + "diff");
+  INFO(worktree.out << worktree.err);
+  CHECK(has(worktree.out, "\n-#= a.calc: s.T = 15 N\u00b7m\n"));
+  CHECK(has(worktree.out, "\n+#= a.calc: s.T = 5 N\u00b7m\n"));
+  CHECK(has(worktree.out, "\n-#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD") +
+                              " (screw.calc)\n"));
+  // A staged version is in no commit: read at the index, with the sheets as staged.
+  git(repo.dir, "add screw.calc");
+  writeFile(repo.dir + "/sub/b.calc", "use ../screw.calc as s with F = 4 kN\n");
+  git(repo.dir, "add sub/b.calc");
+  writeFile(repo.dir + "/screw.calc", withFriction("0.30"));  // the work tree differs from the index
+  Run staged = shell(repo.dir, driver() + "diff --cached -- screw.calc");
+  INFO(staged.out << staged.err);
+  CHECK(has(staged.out, "\n+#= templates and using sheets read at the index (screw.calc)\n"));
+  CHECK(has(staged.out, "\n+#= sub/b.calc: s.T = 2 N\u00b7m\n"));  // 4 kN at f = 0.05
+  CHECK(has(staged.out, "\n-#= sub/b.calc: s.T = 3 N\u00b7m\n"));  // 2 kN at f = 0.15, as committed
+}
+
+TEST_CASE("textconv of a file git wrote finds its revision by content, or says it did not",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  const std::string outside = tempDir();
+  // git before 2.25 names the file XXXXXX_<basename>; later ones git-blob-XXXXXX/<basename>.
+  REQUIRE(std::system(("mkdir '" + outside + "/git-blob-Ab12Cd'").c_str()) == 0);
+  const std::string old_a = "use screw.calc as s with F = 10 kN\nT2 [N*m] = 2 * s.T\n";
+  writeFile(outside + "/Xy34Zw_a.calc", old_a);
+  writeFile(outside + "/git-blob-Ab12Cd/a.calc", old_a);
+  for (const char* name : {"/Xy34Zw_a.calc", "/git-blob-Ab12Cd/a.calc"}) {
+    Run r = runCliIn(repo.dir, "textconv '" + outside + name + "'");
+    INFO(name << "\n" << r.out << r.err);
+    CHECK(r.status == 0);
+    // a.calc never changed: this is HEAD's version, and the template is read at HEAD.
+    CHECK(has(r.out, "#= calctrail: 1 check, 0 PASS, 1 FAIL (s.t)\n#= templates and using sheets read at commit " +
+                         shortId(repo.dir, "HEAD") + " (a.calc)\n"));
+    CHECK(has(r.out, "\n#= T2 = 30 N\u00b7m\n"));
+  }
+  // A version in no history: today's reading beside the file, and the line says so.
+  writeFile(outside + "/git-blob-Ab12Cd/a.calc", "use screw.calc as s with F = 1 kN\n");
+  Run lost = runCliIn(repo.dir, "textconv '" + outside + "/git-blob-Ab12Cd/a.calc'");
+  CHECK(lost.status == 0);
+  CHECK(has(lost.out, "\n#= templates read beside the file: this version of a.calc is in no tracked file's "
+                      "history\n"));
+  CHECK(has(lost.out, "#= error: cannot read the template `screw.calc`"));
+  // A file of another name, outside the work tree, reads as before: no line.
+  writeFile(outside + "/plain.calc", old_a);
+  Run plain = runCliIn(repo.dir, "textconv '" + outside + "/plain.calc'");
+  CHECK_FALSE(has(plain.out, "read at"));
+  CHECK_FALSE(has(plain.out, "read beside"));
+  // And a sheet of the work tree shows just what it showed before.
+  Run here = runCliIn(repo.dir, "textconv a.calc");
+  CHECK(here.out == "#= calctrail: 1 check, 0 PASS, 1 FAIL (s.t)\nuse screw.calc as s with F = 10 kN\n"
+                    "T2 [N*m] = 2 * s.T\n#= T2 = 30 N\u00b7m\n");
+  REQUIRE(std::system(("rm -rf '" + outside + "'").c_str()) == 0);
 }

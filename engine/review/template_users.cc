@@ -127,6 +127,11 @@ std::string firstError(const Calculation& calc) {
 // The lines of one using sheet: what the template reaches in it.
 std::string userLines(const Calculation& calc, const std::string& user, const std::string& target, int digits) {
   const std::string head = std::string(kAnnotationMark) + " " + user + ": ";
+  // A template between: on its own, its required parameters have no values;
+  // the sheets that use it are listed for themselves.
+  const bool between = std::any_of(calc.sheet.quantities.begin(), calc.sheet.quantities.end(),
+                                   [](const Quantity& q) { return q.required && q.instance < 0; });
+  if (calc.hasErrors() && between) return head + "a template with required parameters, through the sheets using it\n";
   if (calc.hasErrors()) {
     const int n = calc.diags.errorCount();
     return head + std::to_string(n) + (n == 1 ? " error" : " errors") + ", nothing calculated: " +

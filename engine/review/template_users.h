@@ -14,7 +14,7 @@ namespace calctrail {
 // Sheets listed at most; the rest are counted.
 constexpr size_t kMaxTemplateUsers = 20;
 // Result lines per sheet at most; the rest are counted.
-constexpr size_t kMaxUserResults = 40;
+constexpr size_t kMaxUserResults = 100;
 
 // The marked lines (each starting with kAnnotationMark) that show, for each
 // tracked `.calc` sheet that uses the file at `origin` (directly or through
