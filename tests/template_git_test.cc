@@ -206,6 +206,10 @@ TEST_CASE("textconv of a file git wrote finds its revision by content, or says i
   CHECK(has(lost.out, "\n#= templates read beside the file: this version of a.calc is in no tracked file's "
                       "history\n"));
   CHECK(has(lost.out, "#= error: cannot read the template `screw.calc`"));
+  // git's time limit cannot be read: the line names the variable, and no git runs.
+  Run bad = runCliThrough(repo.dir, "CALCTRAIL_GIT_TIMEOUT=soon", "textconv '" + outside + "/Xy34Zw_a.calc'");
+  CHECK(bad.status == 0);
+  CHECK(has(bad.out, "\n#= templates read beside the file: CALCTRAIL_GIT_TIMEOUT is `soon`; it must be a number"));
   // A file of another name, outside the work tree, reads as before: no line.
   writeFile(outside + "/plain.calc", old_a);
   Run plain = runCliIn(repo.dir, "textconv '" + outside + "/plain.calc'");

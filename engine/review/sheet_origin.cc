@@ -48,9 +48,19 @@ std::string gitTemporaryBase(const std::string& file) {
   return base.substr(7);
 }
 
-// The blob id of PATH at `object` (`HEAD:PATH`, `:PATH` for the index); "" when there is none.
-std::string objectId(const std::string& top, const std::string& object) {
+// Why git gave no answer when it was stopped or never run: the time limit,
+// or a CALCTRAIL_GIT_TIMEOUT that cannot be read. Kept in *problem, first one only.
+void noteStop(const ProcessResult& r, std::string* problem) {
+  if (!problem->empty()) return;
+  if (r.timed_out) *problem = "git did not finish within its time limit (CALCTRAIL_GIT_TIMEOUT, docs/limits.md)";
+  else if (r.output_too_large) *problem = "git's answer passed its size limit (docs/limits.md)";
+  else if (!r.started && !r.err.empty()) *problem = r.err;
+}
+
+// The object id of `object` (`HEAD`, `HEAD:PATH`, `:PATH` for the index); "" when there is none.
+std::string objectId(const std::string& top, const std::string& object, std::string* problem) {
   const ProcessResult r = runGit({"-C", top, "rev-parse", "--verify", "--quiet", object}, 4096);
+  noteStop(r, problem);
   return r.status == 0 ? firstLine(r.out) : "";
 }
 
@@ -62,11 +72,13 @@ bool isCommitLine(const std::string& line) {
 
 // The newest first-parent commit from HEAD at which `path` held one of
 // `ids`: the end of that version's lifetime. "" when it never did.
-std::string newestCommitWith(const std::string& top, const std::string& path, const std::vector<std::string>& ids) {
+std::string newestCommitWith(const std::string& top, const std::string& path, const std::vector<std::string>& ids,
+                             std::string* problem) {
   // -m with --first-parent: a merge's change is shown against its first parent only.
   const ProcessResult r = runGit({"-C", top, "log", "--first-parent", "-m", "--format=%H", "--raw", "--no-abbrev",
                                   "--no-renames", "HEAD", "--", path},
                                  kMaxLogBytes);
+  noteStop(r, problem);
   if (r.status != 0) return "";
   auto held = [&](const std::string& id) { return std::find(ids.begin(), ids.end(), id) != ids.end(); };
   std::string commit;
@@ -84,8 +96,8 @@ std::string newestCommitWith(const std::string& top, const std::string& path, co
     if (line.empty() || line[0] != ':' || commit.empty()) continue;
     const size_t old_at = line.find(' ', line.find(' ') + 1) + 1;
     const std::string old_id = line.substr(old_at, 40), new_id = line.substr(old_at + 41, 40);
-    if (held(old_id)) return objectId(top, commit + "^1");  // changed away here: held until its parent
-    if (held(new_id)) return objectId(top, "HEAD");       // written here and never changed since
+    if (held(old_id)) return objectId(top, commit + "^1", problem);  // changed away here: held until its parent
+    if (held(new_id)) return objectId(top, "HEAD", problem);     // written here and never changed since
   }
   return "";
 }
@@ -119,30 +131,35 @@ std::string gitBlobId(const std::string& bytes) {
 
 SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
   SheetOrigin origin;
+  const std::string name = gitTemporaryBase(file);
+  std::string problem;
+  auto notFound = [&](const std::string& why) {
+    if (name.empty()) return origin;  // not a file git wrote: nothing to say
+    origin.kind = SheetOrigin::NotFound;
+    origin.note = "templates read beside the file: " + why;
+    return origin;
+  };
   const ProcessResult top = runGit({"rev-parse", "--show-toplevel"}, 1 << 16);
+  noteStop(top, &problem);
   std::string top_real, file_real;
+  if (!problem.empty()) return notFound(problem);
   if (top.status != 0 || !realPath(firstLine(top.out), &top_real)) return origin;  // not in a work tree
+  origin.top = top_real;
   if (realPath(file, &file_real) && insideFolder(file_real, top_real)) {
     origin.kind = SheetOrigin::WorkTree;
-    origin.top = top_real;
     origin.path = file_real.size() > top_real.size() ? file_real.substr(top_real.size() + 1) : "";
     return origin;
   }
-  const std::string name = gitTemporaryBase(file);
   if (name.empty()) return origin;
-  origin.kind = SheetOrigin::NotFound;
-  origin.top = top_real;
-  origin.note = "templates read beside the file: this version of " + name +
-                " is in no tracked file's history";
   // git writes the blob as it would be checked out: with CRLF line ends where
   // the repository asks for them; the blob itself may have LF.
   std::vector<std::string> ids = {gitBlobId(bytes)};
   const std::string lf = withoutCarriageReturns(bytes);
   if (lf != bytes) ids.push_back(gitBlobId(lf));
   const ProcessResult listed = runGit({"-C", top_real, "ls-files", "-z", "--full-name"}, kMaxLogBytes);
-  if (listed.status != 0) return origin;
+  noteStop(listed, &problem);
   std::vector<std::string> candidates;
-  for (size_t begin = 0; begin < listed.out.size();) {
+  for (size_t begin = 0; listed.status == 0 && begin < listed.out.size();) {
     size_t end = listed.out.find('\0', begin);
     if (end == std::string::npos) end = listed.out.size();
     const std::string path = listed.out.substr(begin, end - begin);
@@ -159,16 +176,17 @@ SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
     return origin;
   };
   auto held = [&](const std::string& id) { return std::find(ids.begin(), ids.end(), id) != ids.end(); };
-  const std::string head = objectId(top_real, "HEAD");
+  const std::string head = candidates.empty() ? "" : objectId(top_real, "HEAD", &problem);
   for (const std::string& path : candidates) {
-    if (!head.empty() && held(objectId(top_real, "HEAD:" + path)))
+    if (!problem.empty()) break;  // each further call would wait as long
+    if (!head.empty() && held(objectId(top_real, "HEAD:" + path, &problem)))
       return found(path, head, "commit " + head.substr(0, 7));
     // A staged version, in no commit yet: its templates as staged too.
-    if (held(objectId(top_real, ":" + path))) return found(path, "", "the index");
-    const std::string commit = newestCommitWith(top_real, path, ids);
+    if (held(objectId(top_real, ":" + path, &problem))) return found(path, "", "the index");
+    const std::string commit = newestCommitWith(top_real, path, ids, &problem);
     if (!commit.empty()) return found(path, commit, "commit " + commit.substr(0, 7));
   }
-  return origin;
+  return notFound(problem.empty() ? "this version of " + name + " is in no tracked file's history" : problem);
 }
 
 }  // namespace calctrail

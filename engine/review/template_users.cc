@@ -66,7 +66,8 @@ std::string regexQuoted(const std::string& s) {
 
 // Tracked `.calc` files with a `use` line naming a file called one of
 // `names`, from the top of the work tree, at the origin's revision.
-std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<std::string>& names) {
+// *stopped set when git was stopped at its limits or could not be run with them.
+std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<std::string>& names, bool* stopped) {
   std::vector<std::string> args = {"-C", origin.top, "grep", "-l", "-z", "-I", "-E"};
   for (const std::string& name : names) {
     args.push_back("-e");
@@ -80,6 +81,7 @@ std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<s
   args.push_back("*.calc");
   const ProcessResult r = runGit(args);
   std::vector<std::string> files;
+  if (r.timed_out || r.output_too_large || !r.started) *stopped = true;
   if (r.status != 0) return files;  // 1: none
   const std::string prefix = origin.kind == SheetOrigin::Revision && !origin.rev.empty() ? origin.rev + ":" : "";
   for (size_t begin = 0; begin < r.out.size();) {
@@ -94,13 +96,13 @@ std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<s
 
 // Every tracked sheet that uses `target` directly or through other
 // templates, sorted; `target` itself left out.
-std::vector<std::string> usersOf(const Tree& tree, const std::string& target) {
+std::vector<std::string> usersOf(const Tree& tree, const std::string& target, bool* stopped) {
   std::set<std::string> users, frontier = {target}, read;
   for (int depth = 0; depth < kMaxUserDepth && !frontier.empty(); ++depth) {
     std::set<std::string> names;
     for (const std::string& f : frontier) names.insert(baseName(f));
     std::set<std::string> next;
-    for (const std::string& candidate : filesNaming(tree.origin, names)) {
+    for (const std::string& candidate : filesNaming(tree.origin, names, stopped)) {
       if (candidate == target || users.count(candidate)) continue;
       std::string bytes, error;
       if (!tree.source.read(tree.key(candidate), &bytes, &error)) continue;
@@ -172,11 +174,15 @@ std::string templateUsersBlock(const SheetOrigin& origin, const std::string& byt
   if (origin.kind == SheetOrigin::Revision) revision = std::make_unique<GitRevisionSource>(origin.rev, false);
   const Tree tree{origin, revision ? *revision : diskSource()};
   const std::string target = normalizePath(origin.path);
-  const std::vector<std::string> users = usersOf(tree, target);
+  bool stopped = false;
+  const std::vector<std::string> users = usersOf(tree, target, &stopped);
+  const std::string mark = std::string(kAnnotationMark) + " ";
+  if (stopped)
+    return mark + "calctrail: the sheets using it were not looked up: git was stopped at its limits "
+                  "(CALCTRAIL_GIT_TIMEOUT, docs/limits.md)\n";
   if (users.empty()) return "";
   const OverlaySource overlay(tree.source, tree.key(target), bytes);
   TemplateCache cache;  // each template read once for all the users
-  const std::string mark = std::string(kAnnotationMark) + " ";
   std::string out = mark + "calctrail: used by " + std::to_string(users.size()) +
                     (users.size() == 1 ? " sheet" : " sheets") + "; their results with this version of " +
                     baseName(target) + ":\n";
