@@ -221,3 +221,22 @@ TEST_CASE("textconv of a file git wrote finds its revision by content, or says i
                     "T2 [N*m] = 2 * s.T\n#= T2 = 30 N\u00b7m\n");
   REQUIRE(std::system(("rm -rf '" + outside + "'").c_str()) == 0);
 }
+
+TEST_CASE("textconv of a template lists a sheet that uses it through another template",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  writeFile(repo.dir + "/mid.calc", "param F_mid [N]\nuse screw.calc as s with F = F_mid\n");
+  writeFile(repo.dir + "/c.calc", "use mid.calc as m with F_mid = 1 kN\nT_c [N*m] = m.s.T\n");
+  git(repo.dir, "add .");
+  git(repo.dir, "commit -q -m 'a sheet through a template'");
+  Run r = runCliIn(repo.dir, "textconv screw.calc");
+  INFO(r.out << r.err);
+  CHECK(r.status == 0);
+  // 1 kN at f = 0.15: 1.5 N*m, through mid.calc's instance.
+  CHECK(has(r.out, "\n#= c.calc: m.s.T = 1.5 N\u00b7m\n#= c.calc: T_c = 1.5 N\u00b7m\n"));
+  CHECK(has(r.out, "\n#= mid.calc: a template with required parameters, through the sheets using it\n"));
+  CHECK(has(r.out, "#= calctrail: used by 4 sheets; their results with this version of screw.calc:\n"
+                   "#= a.calc: s.T = 15 N\u00b7m\n"));
+  CHECK_FALSE(has(r.out, "read at"));  // a work tree file: no line on where
+}
