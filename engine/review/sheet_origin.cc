@@ -21,7 +21,9 @@ namespace {
 // The history of one path is small; this bounds a pathological one.
 constexpr size_t kMaxLogBytes = size_t{64} << 20;
 
-std::string firstLine(const std::string& s) { return s.substr(0, s.find('\n')); }
+std::string firstLine(const std::string& s) {
+  return s.substr(0, s.find('\n'));
+}
 
 bool realPath(const std::string& path, std::string* real) {
   std::unique_ptr<char, decltype(&std::free)> resolved(::realpath(path.c_str(), nullptr), &std::free);
@@ -52,9 +54,12 @@ std::string gitTemporaryBase(const std::string& file) {
 // or a CALCTRAIL_GIT_TIMEOUT that cannot be read. Kept in *problem, first one only.
 void noteStop(const ProcessResult& r, std::string* problem) {
   if (!problem->empty()) return;
-  if (r.timed_out) *problem = "git did not finish within its time limit (CALCTRAIL_GIT_TIMEOUT, docs/limits.md)";
-  else if (r.output_too_large) *problem = "git's answer passed its size limit (docs/limits.md)";
-  else if (!r.started && !r.err.empty()) *problem = r.err;
+  if (r.timed_out)
+    *problem = "git did not finish within its time limit (CALCTRAIL_GIT_TIMEOUT, docs/limits.md)";
+  else if (r.output_too_large)
+    *problem = "git's answer passed its size limit (docs/limits.md)";
+  else if (!r.started && !r.err.empty())
+    *problem = r.err;
 }
 
 // The object id of `object` (`HEAD`, `HEAD:PATH`, `:PATH` for the index); "" when there is none.
@@ -72,11 +77,11 @@ bool isCommitLine(const std::string& line) {
 
 // The newest first-parent commit from HEAD at which `path` held one of
 // `ids`: the end of that version's lifetime. "" when it never did.
-std::string newestCommitWith(const std::string& top, const std::string& path, const std::vector<std::string>& ids,
-                             std::string* problem) {
+std::string newestCommitWith(const std::string& top, const std::string& path,
+                             const std::vector<std::string>& ids, std::string* problem) {
   // -m with --first-parent: a merge's change is shown against its first parent only.
-  const ProcessResult r = runGit({"-C", top, "log", "--first-parent", "-m", "--format=%H", "--raw", "--no-abbrev",
-                                  "--no-renames", "HEAD", "--", path},
+  const ProcessResult r = runGit({"-C", top, "log", "--first-parent", "-m", "--format=%H", "--raw",
+                                  "--no-abbrev", "--no-renames", "HEAD", "--", path},
                                  kMaxLogBytes);
   noteStop(r, problem);
   if (r.status != 0) return "";
@@ -96,8 +101,9 @@ std::string newestCommitWith(const std::string& top, const std::string& path, co
     if (line.empty() || line[0] != ':' || commit.empty()) continue;
     const size_t old_at = line.find(' ', line.find(' ') + 1) + 1;
     const std::string old_id = line.substr(old_at, 40), new_id = line.substr(old_at + 41, 40);
-    if (held(old_id)) return objectId(top, commit + "^1", problem);  // changed away here: held until its parent
-    if (held(new_id)) return objectId(top, "HEAD", problem);     // written here and never changed since
+    if (held(old_id))
+      return objectId(top, commit + "^1", problem);           // changed away here: held until its parent
+    if (held(new_id)) return objectId(top, "HEAD", problem);  // written here and never changed since
   }
   return "";
 }
@@ -167,7 +173,8 @@ SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
     begin = end + 1;
   }
   std::sort(candidates.begin(), candidates.end());
-  candidates.erase(std::unique(candidates.begin(), candidates.end()), candidates.end());  // stages of a conflict
+  // A path in conflict is listed once per stage.
+  candidates.erase(std::unique(candidates.begin(), candidates.end()), candidates.end());
   auto found = [&](const std::string& path, const std::string& rev, const std::string& where) {
     origin.kind = SheetOrigin::Revision;
     origin.path = path;

@@ -1,9 +1,10 @@
 // Where in a git repository the file `calctrail textconv` was given comes
 // from. git hands a text converter the old side of a diff as a temporary
 // file (`git-blob-XXXXXX/<basename>` in the temporary folder, or
-// `XXXXXX_<basename>` before git 2.25), and says nothing else; the `use` lines of that file name templates relative to where the
-// sheet lives in the repository, at the revision it was taken from. This
-// finds both from the file's content (docs/review.md, "textconv in detail").
+// `XXXXXX_<basename>` before git 2.25), and says nothing else; the `use`
+// lines of that file name templates relative to where the sheet lives in the
+// repository, at the revision it was taken from. This finds both from the
+// file's content (docs/review.md, "Templates in a `git diff`").
 #pragma once
 
 #include <string>

@@ -31,7 +31,9 @@ class OverlaySource final : public FileSource {
     *bytes = bytes_;
     return true;
   }
-  bool realPath(const std::string& path, std::string* real) const override { return base_.realPath(path, real); }
+  bool realPath(const std::string& path, std::string* real) const override {
+    return base_.realPath(path, real);
+  }
   std::string id() const override { return "overlay " + base_.id(); }
 
  private:
@@ -67,15 +69,18 @@ std::string regexQuoted(const std::string& s) {
 // Tracked `.calc` files with a `use` line naming a file called one of
 // `names`, from the top of the work tree, at the origin's revision.
 // *stopped set when git was stopped at its limits or could not be run with them.
-std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<std::string>& names, bool* stopped) {
+std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<std::string>& names,
+                                     bool* stopped) {
   std::vector<std::string> args = {"-C", origin.top, "grep", "-l", "-z", "-I", "-E"};
   for (const std::string& name : names) {
     args.push_back("-e");
     args.push_back("^[[:space:]]*use[[:space:]].*" + regexQuoted(name));
   }
   if (origin.kind == SheetOrigin::Revision) {
-    if (origin.rev.empty()) args.push_back("--cached");
-    else args.push_back(origin.rev);
+    if (origin.rev.empty())
+      args.push_back("--cached");
+    else
+      args.push_back(origin.rev);
   }
   args.push_back("--");
   args.push_back("*.calc");
@@ -83,7 +88,8 @@ std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<s
   std::vector<std::string> files;
   if (r.timed_out || r.output_too_large || !r.started) *stopped = true;
   if (r.status != 0) return files;  // 1: none
-  const std::string prefix = origin.kind == SheetOrigin::Revision && !origin.rev.empty() ? origin.rev + ":" : "";
+  const std::string prefix =
+      origin.kind == SheetOrigin::Revision && !origin.rev.empty() ? origin.rev + ":" : "";
   for (size_t begin = 0; begin < r.out.size();) {
     size_t end = r.out.find('\0', begin);
     if (end == std::string::npos) end = r.out.size();
@@ -127,17 +133,19 @@ std::string firstError(const Calculation& calc) {
 }
 
 // The lines of one using sheet: what the template reaches in it.
-std::string userLines(const Calculation& calc, const std::string& user, const std::string& target, int digits) {
+std::string userLines(const Calculation& calc, const std::string& user, const std::string& target,
+                      int digits) {
   const std::string head = std::string(kAnnotationMark) + " " + user + ": ";
   // A template between: on its own, its required parameters have no values;
   // the sheets that use it are listed for themselves.
   const bool between = std::any_of(calc.sheet.quantities.begin(), calc.sheet.quantities.end(),
                                    [](const Quantity& q) { return q.required && q.instance < 0; });
-  if (calc.hasErrors() && between) return head + "a template with required parameters, through the sheets using it\n";
+  if (calc.hasErrors() && between)
+    return head + "a template with required parameters, through the sheets using it\n";
   if (calc.hasErrors()) {
     const int n = calc.diags.errorCount();
-    return head + std::to_string(n) + (n == 1 ? " error" : " errors") + ", nothing calculated: " +
-           firstError(calc) + "\n";
+    return head + std::to_string(n) + (n == 1 ? " error" : " errors") +
+           ", nothing calculated: " + firstError(calc) + "\n";
   }
   std::vector<Slot> from;
   for (const Instance& inst : calc.sheet.instances)
@@ -150,7 +158,8 @@ std::string userLines(const Calculation& calc, const std::string& user, const st
     const QuantityState& s = calc.quantities[slot.index()];
     // Given values are in the template's own lines, or the sheet's bindings.
     if (!s.input && s.ok)
-      lines.push_back(calc.sheet.quantities[slot.index()].name + " = " + annotatedValue(s.si, s.display, digits));
+      lines.push_back(calc.sheet.quantities[slot.index()].name + " = " +
+                      annotatedValue(s.si, s.display, digits));
   }
   for (size_t k = 0; k < calc.sheet.checks.size(); ++k) {
     const auto& reads = calc.model->checks()[k].reads;
@@ -178,8 +187,9 @@ std::string templateUsersBlock(const SheetOrigin& origin, const std::string& byt
   const std::vector<std::string> users = usersOf(tree, target, &stopped);
   const std::string mark = std::string(kAnnotationMark) + " ";
   if (stopped)
-    return mark + "calctrail: the sheets using it were not looked up: git was stopped at its limits "
-                  "(CALCTRAIL_GIT_TIMEOUT, docs/limits.md)\n";
+    return mark +
+           "calctrail: the sheets using it were not looked up: git was stopped at its limits "
+           "(CALCTRAIL_GIT_TIMEOUT, docs/limits.md)\n";
   if (users.empty()) return "";
   const OverlaySource overlay(tree.source, tree.key(target), bytes);
   TemplateCache cache;  // each template read once for all the users
