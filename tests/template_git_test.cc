@@ -12,6 +12,7 @@
 #include <sys/wait.h>
 #include <cstdlib>
 
+#include "engine/review/sheet_origin.h"
 #include "tests/test_support.h"
 
 using namespace calctrail::test;
@@ -199,6 +200,12 @@ TEST_CASE("textconv of a file git wrote finds its revision by content, or says i
                          shortId(repo.dir, "HEAD") + " (a.calc)\n"));
     CHECK(has(r.out, "\n#= T2 = 30 N\u00b7m\n"));
   }
+  // The blob as checked out with CRLF line ends (`eol=crlf`): found all the same.
+  REQUIRE(std::system(("mkdir '" + outside + "/git-blob-Qq11Ww'").c_str()) == 0);
+  writeFile(outside + "/git-blob-Qq11Ww/a.calc",
+            "use screw.calc as s with F = 10 kN\r\nT2 [N*m] = 2 * s.T\r\n");
+  Run crlf = runCliIn(repo.dir, "textconv '" + outside + "/git-blob-Qq11Ww/a.calc'");
+  CHECK(has(crlf.out, "\n#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD") + " (a.calc)\n"));
   // A version in no history: today's reading beside the file, and the line says so.
   writeFile(outside + "/git-blob-Ab12Cd/a.calc", "use screw.calc as s with F = 1 kN\n");
   Run lost = runCliIn(repo.dir, "textconv '" + outside + "/git-blob-Ab12Cd/a.calc'");
@@ -239,4 +246,17 @@ TEST_CASE("textconv of a template lists a sheet that uses it through another tem
   CHECK(has(r.out, "#= calctrail: used by 4 sheets; their results with this version of screw.calc:\n"
                    "#= a.calc: s.T = 15 N\u00b7m\n"));
   CHECK_FALSE(has(r.out, "read at"));  // a work tree file: no line on where
+}
+
+TEST_CASE("the git blob id of a text is git's own", "[review][git][textconv]") {
+  // Well-known ids (from memory), checked against `git hash-object` below too.
+  CHECK(calctrail::gitBlobId("") == "e69de29bb2d1d6434b8b29ae775ad8c2e48c5391");
+  CHECK(calctrail::gitBlobId("hello\n") == "ce013625030ba8dba906f756967f9e9ca394464a");
+  const std::string dir = tempDir();
+  const std::string text = "param F [N]\r\nT = F * 2 mm\n\xc2\xb5\n";
+  writeFile(dir + "/x.calc", text);
+  Run git_id = shell(dir, "git hash-object --no-filters x.calc");
+  REQUIRE(git_id.status == 0);
+  CHECK(calctrail::gitBlobId(text) + "\n" == git_id.out);
+  REQUIRE(std::system(("rm -rf '" + dir + "'").c_str()) == 0);
 }

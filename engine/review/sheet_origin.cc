@@ -100,6 +100,7 @@ std::string newestCommitWith(const std::string& top, const std::string& path,
     // ":100644 100644 OLD NEW M\tPATH", newest commit first.
     if (line.empty() || line[0] != ':' || commit.empty()) continue;
     const size_t old_at = line.find(' ', line.find(' ') + 1) + 1;
+    if (old_at == 0 || line.size() < old_at + 81) continue;  // not git's form: nothing to read
     const std::string old_id = line.substr(old_at, 40), new_id = line.substr(old_at + 41, 40);
     if (held(old_id))
       return objectId(top, commit + "^1", problem);           // changed away here: held until its parent
