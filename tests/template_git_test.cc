@@ -260,3 +260,16 @@ TEST_CASE("the git blob id of a text is git's own", "[review][git][textconv]") {
   CHECK(calctrail::gitBlobId(text) + "\n" == git_id.out);
   REQUIRE(std::system(("rm -rf '" + dir + "'").c_str()) == 0);
 }
+
+TEST_CASE("textconv of a template never prints a control character from a sheet's name",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  writeFile(repo.dir + "/red\x1b[31m.calc", "use screw.calc as s with F = 1 kN\n");
+  git(repo.dir, "add .");
+  git(repo.dir, "commit -q -m 'a sheet with an escape in its name'");
+  Run r = runCliIn(repo.dir, "textconv screw.calc");
+  INFO(r.out << r.err);
+  CHECK(has(r.out, "\n#= red?[31m.calc: s.T = 1.5 N\u00b7m\n"));
+  CHECK_FALSE(has(r.out, "\x1b"));
+}

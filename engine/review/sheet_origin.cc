@@ -12,6 +12,7 @@
 #include <openssl/sha.h>
 
 #include "engine/review/git_source.h"
+#include "engine/sheet/control_chars.h"
 #include "engine/template/template_path.h"
 
 namespace calctrail {
@@ -59,7 +60,7 @@ void noteStop(const ProcessResult& r, std::string* problem) {
   else if (r.output_too_large)
     *problem = "git's answer passed its size limit (docs/limits.md)";
   else if (!r.started && !r.err.empty())
-    *problem = r.err;
+    *problem = withoutControlChars(r.err);
 }
 
 // The object id of `object` (`HEAD`, `HEAD:PATH`, `:PATH` for the index); "" when there is none.
@@ -180,7 +181,7 @@ SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
     origin.kind = SheetOrigin::Revision;
     origin.path = path;
     origin.rev = rev;
-    origin.note = "templates and using sheets read at " + where + " (" + path + ")";
+    origin.note = "templates and using sheets read at " + where + " (" + withoutControlChars(path) + ")";
     return origin;
   };
   auto held = [&](const std::string& id) { return std::find(ids.begin(), ids.end(), id) != ids.end(); };
@@ -194,7 +195,9 @@ SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
     const std::string commit = newestCommitWith(top_real, path, ids, &problem);
     if (!commit.empty()) return found(path, commit, "commit " + commit.substr(0, 7));
   }
-  return notFound(problem.empty() ? "this version of " + name + " is in no tracked file's history" : problem);
+  return notFound(problem.empty()
+                      ? "this version of " + withoutControlChars(name) + " is in no tracked file's history"
+                      : problem);
 }
 
 }  // namespace calctrail

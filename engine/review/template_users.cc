@@ -135,7 +135,7 @@ std::string firstError(const Calculation& calc) {
 // The lines of one using sheet: what the template reaches in it.
 std::string userLines(const Calculation& calc, const std::string& user, const std::string& target,
                       int digits) {
-  const std::string head = std::string(kAnnotationMark) + " " + user + ": ";
+  const std::string head = std::string(kAnnotationMark) + " " + withoutControlChars(user) + ": ";
   // A template between: on its own, its required parameters have no values;
   // the sheets that use it are listed for themselves.
   const bool between = std::any_of(calc.sheet.quantities.begin(), calc.sheet.quantities.end(),
@@ -195,11 +195,11 @@ std::string templateUsersBlock(const SheetOrigin& origin, const std::string& byt
   TemplateCache cache;  // each template read once for all the users
   std::string out = mark + "calctrail: used by " + std::to_string(users.size()) +
                     (users.size() == 1 ? " sheet" : " sheets") + "; their results with this version of " +
-                    baseName(target) + ":\n";
+                    withoutControlChars(baseName(target)) + ":\n";
   for (size_t k = 0; k < users.size() && k < kMaxTemplateUsers; ++k) {
     std::string sheet_bytes, error;
     if (!tree.source.read(tree.key(users[k]), &sheet_bytes, &error)) {
-      out += mark + users[k] + ": cannot be read: " + withoutControlChars(error) + "\n";
+      out += mark + withoutControlChars(users[k]) + ": cannot be read: " + withoutControlChars(error) + "\n";
       continue;
     }
     CalcOptions options;
