@@ -170,7 +170,9 @@ int main(int argc, char** argv) {
   textconv_cmd->footer(
       "\nSet up once per repository:\n"
       "  git config diff.calctrail.textconv \"calctrail textconv\"\n"
-      "  echo '*.calc diff=calctrail' >> .gitattributes");
+      "  echo '*.calc diff=calctrail' >> .gitattributes\n"
+      "\nA file git wrote for an old side reads its templates at the revision it\n"
+      "comes from; a template's text ends with the results of the sheets using it.");
 
   // Design studies (docs/studies.md): one block per command.
   auto study_options = [](CLI::App* cmd, StudyArgs* a, std::vector<std::string> formats) {
