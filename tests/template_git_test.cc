@@ -206,6 +206,12 @@ TEST_CASE("textconv of a file git wrote finds its revision by content, or says i
             "use screw.calc as s with F = 10 kN\r\nT2 [N*m] = 2 * s.T\r\n");
   Run crlf = runCliIn(repo.dir, "textconv '" + outside + "/git-blob-Qq11Ww/a.calc'");
   CHECK(has(crlf.out, "\n#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD") + " (a.calc)\n"));
+  // A temporary folder inside the work tree (TMPDIR there): git's untracked file stands for a.calc too.
+  REQUIRE(std::system(("mkdir -p '" + repo.dir + "/tmp/git-blob-Rr22Ss'").c_str()) == 0);
+  writeFile(repo.dir + "/tmp/git-blob-Rr22Ss/a.calc", old_a);
+  Run inside = runCliIn(repo.dir, "textconv tmp/git-blob-Rr22Ss/a.calc");
+  CHECK(has(inside.out, "\n#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD") + " (a.calc)\n"));
+  CHECK(has(inside.out, "\n#= T2 = 30 N\u00b7m\n"));
   // A version in no history: today's reading beside the file, and the line says so.
   writeFile(outside + "/git-blob-Ab12Cd/a.calc", "use screw.calc as s with F = 1 kN\n");
   Run lost = runCliIn(repo.dir, "textconv '" + outside + "/git-blob-Ab12Cd/a.calc'");

@@ -42,11 +42,13 @@ std::string baseName(const std::string& path) {
 // for any other name. git (2.25 and later) writes a blob to
 // `git-blob-XXXXXX/<basename>` in the temporary folder; earlier ones to
 // `XXXXXX_<basename>` (six random characters and an underscore).
-std::string gitTemporaryBase(const std::string& file) {
+// *in_folder: the name has the later form, which no sheet of one's own is likely to have.
+std::string gitTemporaryBase(const std::string& file, bool* in_folder) {
   const std::string base = baseName(file);
   const size_t slash = file.find_last_of('/');
   const std::string folder = slash == std::string::npos ? "" : baseName(file.substr(0, slash));
-  if (folder.size() == 15 && folder.rfind("git-blob-", 0) == 0) return base;
+  *in_folder = folder.size() == 15 && folder.rfind("git-blob-", 0) == 0;
+  if (*in_folder) return base;
   if (base.size() <= 7 || base[6] != '_') return "";
   return base.substr(7);
 }
@@ -68,6 +70,13 @@ std::string objectId(const std::string& top, const std::string& object, std::str
   const ProcessResult r = runGit({"-C", top, "rev-parse", "--verify", "--quiet", object}, 4096);
   noteStop(r, problem);
   return r.status == 0 ? firstLine(r.out) : "";
+}
+
+// `rel` (from the top of the work tree) is a tracked file.
+bool tracked(const std::string& top, const std::string& rel, std::string* problem) {
+  const ProcessResult r = runGit({"-C", top, "ls-files", "-z", "--", ":(literal)" + rel}, 1 << 16);
+  noteStop(r, problem);
+  return r.status == 0 && !r.out.empty();
 }
 
 bool isCommitLine(const std::string& line) {
@@ -139,7 +148,8 @@ std::string gitBlobId(const std::string& bytes) {
 
 SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
   SheetOrigin origin;
-  const std::string name = gitTemporaryBase(file);
+  bool in_folder = false;
+  const std::string name = gitTemporaryBase(file, &in_folder);
   std::string problem;
   auto notFound = [&](const std::string& why) {
     if (name.empty()) return origin;  // not a file git wrote: nothing to say
@@ -154,9 +164,14 @@ SheetOrigin locateSheet(const std::string& file, const std::string& bytes) {
   if (top.status != 0 || !realPath(firstLine(top.out), &top_real)) return origin;  // not in a work tree
   origin.top = top_real;
   if (realPath(file, &file_real) && insideFolder(file_real, top_real)) {
-    origin.kind = SheetOrigin::WorkTree;
-    origin.path = file_real.size() > top_real.size() ? file_real.substr(top_real.size() + 1) : "";
-    return origin;
+    const std::string rel = file_real.size() > top_real.size() ? file_real.substr(top_real.size() + 1) : "";
+    // A temporary folder inside the work tree (TMPDIR there): git's file is
+    // untracked, and stands for another.
+    if (!in_folder || tracked(top_real, rel, &problem)) {
+      origin.kind = SheetOrigin::WorkTree;
+      origin.path = rel;
+      return origin;
+    }
   }
   if (name.empty()) return origin;
   // git writes the blob as it would be checked out: with CRLF line ends where
