@@ -279,3 +279,24 @@ TEST_CASE("textconv of a template never prints a control character from a sheet'
   CHECK(has(r.out, "\n#= red?[31m.calc: s.T = 1.5 N\u00b7m\n"));
   CHECK_FALSE(has(r.out, "\x1b"));
 }
+
+TEST_CASE("textconv of a template lists 20 using sheets, sorted, and counts the rest",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  for (int k = 10; k < 32; ++k)
+    writeFile(repo.dir + "/u" + std::to_string(k) + ".calc", "use screw.calc as s with F = 1 kN\n");
+  git(repo.dir, "add .");
+  git(repo.dir, "commit -q -m 'many users'");
+  Run r = runCliIn(repo.dir, "textconv screw.calc");
+  INFO(r.out << r.err);
+  // 24 sheets in byte order: a.calc, sub/b.calc, u10 to u27 listed; u28 to u31 counted.
+  CHECK(has(r.out, "#= calctrail: used by 24 sheets;"));
+  CHECK(has(r.out, "\n#= a.calc: s.T = 15 N\u00b7m\n"));
+  CHECK(has(r.out, "\n#= sub/b.calc: s.T = 3 N\u00b7m\n"));
+  CHECK(has(r.out, "\n#= u27.calc: s.T = 1.5 N\u00b7m\n"));
+  CHECK_FALSE(has(r.out, "u28.calc"));
+  CHECK(has(r.out, "#= u27.calc: check s.t: PASS  1.5 N\u00b7m < 12 N\u00b7m\n#= and 4 more sheets\n"));
+  CHECK(r.out.find("#= a.calc:") < r.out.find("#= sub/b.calc:"));
+  CHECK(r.out.find("#= sub/b.calc:") < r.out.find("#= u10.calc:"));
+}

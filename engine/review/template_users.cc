@@ -1,6 +1,7 @@
 #include "engine/review/template_users.h"
 
 #include <algorithm>
+#include <map>
 #include <memory>
 #include <set>
 #include <vector>
@@ -101,9 +102,10 @@ std::vector<std::string> filesNaming(const SheetOrigin& origin, const std::set<s
 }
 
 // Every tracked sheet that uses `target` directly or through other
-// templates, sorted; `target` itself left out.
-std::vector<std::string> usersOf(const Tree& tree, const std::string& target, bool* stopped) {
-  std::set<std::string> users, frontier = {target}, read;
+// templates, with its bytes, sorted by path; `target` itself left out.
+std::map<std::string, std::string> usersOf(const Tree& tree, const std::string& target, bool* stopped) {
+  std::map<std::string, std::string> users;
+  std::set<std::string> frontier = {target};
   for (int depth = 0; depth < kMaxUserDepth && !frontier.empty(); ++depth) {
     std::set<std::string> names;
     for (const std::string& f : frontier) names.insert(baseName(f));
@@ -113,17 +115,17 @@ std::vector<std::string> usersOf(const Tree& tree, const std::string& target, bo
       std::string bytes, error;
       if (!tree.source.read(tree.key(candidate), &bytes, &error)) continue;
       Diagnostics ignored;
-      const Sheet sheet = parseSheet(std::make_shared<SourceFile>(candidate, std::move(bytes)), &ignored);
+      const Sheet sheet = parseSheet(std::make_shared<SourceFile>(candidate, bytes), &ignored);
       for (const Use& use : sheet.uses)
         if (frontier.count(joinPath(parentPath(candidate), use.path))) {
           next.insert(candidate);
+          users.emplace(candidate, std::move(bytes));
           break;
         }
     }
-    users.insert(next.begin(), next.end());
     frontier = std::move(next);
   }
-  return {users.begin(), users.end()};
+  return users;
 }
 
 std::string firstError(const Calculation& calc) {
@@ -184,7 +186,7 @@ std::string templateUsersBlock(const SheetOrigin& origin, const std::string& byt
   const Tree tree{origin, revision ? *revision : diskSource()};
   const std::string target = normalizePath(origin.path);
   bool stopped = false;
-  const std::vector<std::string> users = usersOf(tree, target, &stopped);
+  const std::map<std::string, std::string> users = usersOf(tree, target, &stopped);
   const std::string mark = std::string(kAnnotationMark) + " ";
   if (stopped)
     return mark +
@@ -196,18 +198,15 @@ std::string templateUsersBlock(const SheetOrigin& origin, const std::string& byt
   std::string out = mark + "calctrail: used by " + std::to_string(users.size()) +
                     (users.size() == 1 ? " sheet" : " sheets") + "; their results with this version of " +
                     withoutControlChars(baseName(target)) + ":\n";
-  for (size_t k = 0; k < users.size() && k < kMaxTemplateUsers; ++k) {
-    std::string sheet_bytes, error;
-    if (!tree.source.read(tree.key(users[k]), &sheet_bytes, &error)) {
-      out += mark + withoutControlChars(users[k]) + ": cannot be read: " + withoutControlChars(error) + "\n";
-      continue;
-    }
+  size_t listed = 0;
+  for (const auto& [user, sheet_bytes] : users) {
+    if (listed++ == kMaxTemplateUsers) break;
     CalcOptions options;
     options.templates = &cache;
     options.source = &overlay;
-    options.source_path = tree.key(users[k]);
-    const auto calc = Calculation::fromText(users[k], std::move(sheet_bytes), options);
-    out += userLines(*calc, users[k], target, digits);
+    options.source_path = tree.key(user);
+    const auto calc = Calculation::fromText(user, sheet_bytes, options);
+    out += userLines(*calc, user, target, digits);
   }
   if (users.size() > kMaxTemplateUsers)
     out += mark + "and " + std::to_string(users.size() - kMaxTemplateUsers) + " more sheets\n";
