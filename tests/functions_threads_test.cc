@@ -137,6 +137,40 @@ TEST_CASE("trap_minor_dia: DIN 103 screw minor diameters d3, Tr 8x1.5, 10x2, 20x
   CHECK(call("trap_minor_dia", {120 * mm, 14 * mm}) == Approx(104.0 * mm));
 }
 
+// Two published reprints of the ISO 2904 basic dimensions: RoyMech's table of ISO 2904:1977 (d2, D4, d3, D1;
+// the rows its page prints legibly) and the d3 max column of the Engineers Edge class 7e table (the minor
+// diameter is of position h, so its maximum is the basic d3).
+TEST_CASE("trap_pitch_dia, trap_minor_dia, trap_nut_minor_dia, trap_nut_major_dia: two published reprints of the "
+          "ISO 2904 table",
+          "[functions][threads]") {
+  const struct {
+    double d, p, d2, D4, d3, D1;
+  } roymech[] = {{8, 1.5, 7.25, 8.3, 6.2, 6.5}, {9, 1.5, 8.25, 9.3, 7.2, 7.5},  {10, 2, 9.0, 10.5, 7.5, 8.0},
+                 {11, 2, 10.0, 11.5, 8.5, 9.0}, {11, 3, 9.5, 11.5, 7.5, 8.0},   {12, 2, 11.0, 12.5, 9.5, 10.0},
+                 {12, 3, 10.5, 12.5, 8.5, 9.0}, {14, 2, 13.0, 14.5, 11.5, 12.0}, {14, 3, 12.5, 14.5, 10.5, 11.0},
+                 {16, 2, 15.0, 16.5, 13.5, 14.0}, {42, 3, 40.5, 42.5, 38.5, 39.0}, {42, 7, 38.5, 43.0, 34.0, 35.0},
+                 {44, 3, 42.5, 44.5, 40.5, 41.0}, {44, 7, 40.5, 45.0, 36.0, 37.0}, {44, 12, 38.0, 45.0, 31.0, 32.0},
+                 {46, 3, 44.5, 46.5, 42.5, 43.0}, {46, 8, 42.0, 47.0, 37.0, 38.0}, {46, 12, 40.0, 47.0, 33.0, 34.0},
+                 {48, 3, 46.5, 48.5, 44.5, 45.0}, {48, 8, 44.0, 49.0, 39.0, 40.0}};
+  for (const auto& r : roymech) {
+    INFO("Tr " << r.d << "x" << r.p);
+    const std::vector<double> dp = {r.d * mm, r.p * mm};
+    CHECK(call("trap_pitch_dia", dp) / mm == Approx(r.d2));
+    CHECK(call("trap_nut_major_dia", dp) / mm == Approx(r.D4));
+    CHECK(call("trap_minor_dia", dp) / mm == Approx(r.d3));
+    CHECK(call("trap_nut_minor_dia", dp) / mm == Approx(r.D1));
+  }
+  const struct {
+    double d, p, d3;
+  } engineers_edge[] = {{8, 1.5, 6.2},  {9, 1.5, 7.2},  {9, 2, 6.5},    {10, 1.5, 8.2}, {10, 2, 7.5},
+                        {11, 2, 8.5},   {11, 3, 7.5},   {12, 2, 9.5},    {12, 3, 8.5},   {14, 2, 11.5},
+                        {14, 3, 10.5},  {16, 2, 13.5},  {16, 3, 12.5},   {16, 4, 11.5},  {18, 2, 15.5}};
+  for (const auto& r : engineers_edge) {
+    INFO("Tr " << r.d << "x" << r.p);
+    CHECK(call("trap_minor_dia", {r.d * mm, r.p * mm}) / mm == Approx(r.d3));
+  }
+}
+
 TEST_CASE("trap_minor_dia: below the basic minor diameter by twice the root clearance", "[functions][threads]") {
   // Independent: the root clearance ac is the only difference from the basic profile (d - p).
   CHECK(call("trap_minor_dia", {32 * mm, 6 * mm}) == Approx(32 * mm - 6 * mm - 2 * 0.5 * mm));
