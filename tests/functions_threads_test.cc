@@ -39,6 +39,17 @@ TEST_CASE("acme_tpi: ASME B1.5 general-purpose series, every row (from memory)",
   }
 }
 
+TEST_CASE("acme_tpi: the rows 1/4-16 to 7/8-6 as a published class 2G data sheet lists them", "[functions][threads]") {
+  // Lew Merrick's Acme Thread Data Sheets (2009) list the general-purpose sizes .2500-16, .3125-14, .3750-12,
+  // .4375-12, .5000-10, .6250-8, .7500-6 and .8750-6 before the inch sizes.
+  const double rows[][2] = {{0.25, 16}, {0.3125, 14}, {0.375, 12}, {0.4375, 12},
+                            {0.5, 10},  {0.625, 8},   {0.75, 6},   {0.875, 6}};
+  for (const auto& r : rows) {
+    INFO("size " << r[0] << " in");
+    CHECK(call("acme_tpi", {r[0] * in}) * in == Approx(r[1]).epsilon(1e-12));
+  }
+}
+
 TEST_CASE("acme_tpi: a size given in mm finds the same row (unit-system swap)", "[functions][threads]") {
   CHECK(call("acme_tpi", {25.4 * mm}) == Approx(call("acme_tpi", {1.0 * in})));
   CHECK(call("acme_tpi", {38.1 * mm}) == Approx(4 / in));  // 1-1/2 in
