@@ -724,7 +724,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "allowance; each term rounded to 0.0001 in as the published 2G tables are";
     d.formula_is_expression = false;
     d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-               "within 1 um";
+               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+               "multiple-start screw may be made to other limits: take them from its drawing";
     d.source = kAcme2GSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMaxPitchDia;
@@ -741,7 +742,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "P = p/(1 in): less the class 2G pitch diameter tolerance (rounded to 0.0001 in)";
     d.formula_is_expression = false;
     d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-               "within 1 um";
+               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+               "multiple-start screw may be made to other limits: take them from its drawing";
     d.source = kAcme2GSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMinPitchDia;
@@ -760,7 +762,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "tolerance each rounded to 0.0001 in";
     d.formula_is_expression = false;
     d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-               "within 1 um";
+               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+               "multiple-start screw may be made to other limits: take them from its drawing";
     d.source = kAcme2GSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMinMinorDia;
@@ -777,7 +780,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "for 2 mm, -85 um for 3 mm, -95 um for 4 mm";
     d.formula_is_expression = false;
     d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-               "4 mm; any other size is an error (its values are not held here)";
+               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMaxPitchDia;
@@ -795,7 +799,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "22.4 mm)";
     d.formula_is_expression = false;
     d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-               "4 mm; any other size is an error (its values are not held here)";
+               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinPitchDia;
@@ -813,7 +818,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "and trap_max_pitch_dia)";
     d.formula_is_expression = false;
     d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-               "4 mm; any other size is an error (its values are not held here)";
+               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinMinorDia;
