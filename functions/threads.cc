@@ -285,8 +285,7 @@ double trapNutMajorDia(const double* a) {
 // ASME B1.5 general-purpose Acme, class 2G external thread (the screw). With
 // D the nominal major diameter and p the pitch, both in inches: pitch diameter
 // allowance 0.008*sqrt(D); pitch diameter tolerance 0.006*sqrt(D) +
-// 0.030*sqrt(p) (the class 4G tolerance 0.002*sqrt(D) + 0.010*sqrt(p) times
-// 3.0); maximum minor diameter D - (p + 0.020 in) for 10 threads per inch and
+// 0.030*sqrt(p); maximum minor diameter D - (p + 0.020 in) for 10 threads per inch and
 // coarser, D - (p + 0.010 in) finer; minor diameter tolerance 1.5 times the
 // pitch diameter tolerance. Checked against two published 2G tables (see
 // docs/verification.md). Held for the series combinations only: for another
@@ -310,8 +309,8 @@ Acme2G acme2G(const double* a, const char* call) {
   const AcmeRow& row = acmeRow(a);
   const double series_p = kInch / row.tpi;
   if (std::fabs(a[1] - series_p) > kMatch)
-    fail(1, "pitch p = " + num(a[1] / kInch) + " in (" + show(a[1], Show::Length) + ") is not the series pitch " + num(series_p / kInch) + " in (" +
-                num(row.tpi) + " threads per inch) of the " + row.label +
+    fail(1, "pitch p = " + num(a[1] / kInch) + " in (" + show(a[1], Show::Length) + ") is not the series pitch " +
+                num(series_p / kInch) + " in (" + num(row.tpi) + " threads per inch) of the " + row.label +
                 " in size; the class 2G limits are held for the ASME B1.5 general-purpose combinations only "
                 "(write acme_pitch(d) for the pitch)");
   return {a[0] / kInch, a[1] / kInch};
@@ -324,9 +323,10 @@ double acmeMinMinorDia(const double* a) { return result(acme2G(a, "acme_min_mino
 // ISO 2903 metric trapezoidal, tolerance class 7e of the external thread (the
 // screw), in um: the fundamental deviation es of the pitch diameter for
 // position e (Table 1) and the grade 7 pitch diameter tolerance Td2 for a
-// diameter range "over ... up to and including" (clause 11.4.1). The major
-// and minor diameters are of position h (es = 0, clause 6), and the minor
-// diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5). Only the cells
+// diameter range "over ... up to and including" (clauses 7 and 11.4.1). The
+// major and minor diameters are of position h (es = 0, clause 6), and the
+// minor diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5, from
+// memory; it reproduces every published d3 limit to the half um). Only the cells
 // that a published table of 7e limits confirms are held: diameters over 5.6
 // up to 22.4 mm with pitches 1.5 to 4 mm.
 struct Trap7eDeviation {
@@ -420,8 +420,8 @@ const char* kAcme2GSource =
     "and Lew Merrick's Acme thread data sheets (see docs/verification.md)";
 const char* kTrap7eSource =
     "ISO 2903 (ISO metric trapezoidal screw threads, tolerances), class 7e of the external thread: "
-    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clause 11.4.1), d and d3 "
-    "of position h (clause 6), Td3 = 1.25*Td2 + |es| (clause 11.5); the values held are from memory of the "
+    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clauses 7 and 11.4.1), d "
+    "and d3 of position h (clause 6), Td3 = 1.25*Td2 + |es| (clause 11.5); the values held are from memory of the "
     "standard and agree with a published table of 7e limits (see docs/verification.md)";
 const char* kSquareSource =
     "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
