@@ -1,5 +1,6 @@
 // Thread forms and standard series: Acme (ASME B1.5), metric trapezoidal
-// (ISO 2904 / DIN 103) and square threads. The worksheet language has numbers
+// (ISO 2904 / DIN 103) and square threads, and the tolerance limits of the
+// screw (Acme class 2G, trapezoidal class 7e). The worksheet language has numbers
 // only, so each form has its own functions (acme_..., trap_..., square_...)
 // rather than a form code.
 #include <cctype>
@@ -281,6 +282,99 @@ double trapNutMajorDia(const double* a) {
   return result(a[0] + 2.0 * trapClearanceMm(trapPitchMm(a)) * kMm);
 }
 
+// ASME B1.5 general-purpose Acme, class 2G external thread (the screw). With
+// D the nominal major diameter and p the pitch, both in inches: pitch diameter
+// allowance 0.008*sqrt(D); pitch diameter tolerance 0.006*sqrt(D) +
+// 0.030*sqrt(p); maximum minor diameter D - (p + 0.020 in) for 10 threads per inch and
+// coarser, D - (p + 0.010 in) finer; minor diameter tolerance 1.5 times the
+// pitch diameter tolerance. Checked against two published 2G tables (see
+// docs/verification.md). Held for the series combinations only: for another
+// pitch the published tables take the tolerances of a different diameter.
+// Like the published class 2G tables, each basic size, allowance and tolerance is
+// rounded to 0.0001 in before the limits are added up from them, so the
+// limits are the printed ones (exact formulas differ by up to 0.00011 in).
+double round4(double in) { return std::round(in * 1e4) / 1e4; }
+
+struct Acme2G {
+  double d_in, p_in;
+  double tolerance() const { return 0.006 * std::sqrt(d_in) + 0.030 * std::sqrt(p_in); }
+  double maxPitchDia() const { return round4(d_in - p_in / 2) - round4(0.008 * std::sqrt(d_in)); }
+  double minPitchDia() const { return maxPitchDia() - round4(tolerance()); }
+  double maxMinorDia() const { return round4(d_in - p_in - (p_in >= 0.1 - 1e-9 ? 0.020 : 0.010)); }
+  double minMinorDia() const { return maxMinorDia() - round4(1.5 * tolerance()); }
+};
+
+Acme2G acme2G(const double* a, const char* call) {
+  majorAndPitch(a, "Acme", call);
+  const AcmeRow& row = acmeRow(a);
+  const double series_p = kInch / row.tpi;
+  if (std::fabs(a[1] - series_p) > kMatch)
+    fail(1, "pitch p = " + num(a[1] / kInch) + " in (" + show(a[1], Show::Length) + ") is not the series pitch " +
+                num(series_p / kInch) + " in (" + num(row.tpi) + " threads per inch) of the " + row.label +
+                " in size; the class 2G limits are held for the ASME B1.5 general-purpose combinations only "
+                "(write acme_pitch(d) for the pitch)");
+  return {a[0] / kInch, a[1] / kInch};
+}
+
+double acmeMaxPitchDia(const double* a) { return result(acme2G(a, "acme_max_pitch_dia").maxPitchDia() * kInch); }
+double acmeMinPitchDia(const double* a) { return result(acme2G(a, "acme_min_pitch_dia").minPitchDia() * kInch); }
+double acmeMinMinorDia(const double* a) { return result(acme2G(a, "acme_min_minor_dia").minMinorDia() * kInch); }
+
+// ISO 2903 metric trapezoidal, tolerance class 7e of the external thread (the
+// screw), in um: the fundamental deviation es of the pitch diameter for
+// position e (Table 1) and the grade 7 pitch diameter tolerance Td2 for a
+// diameter range "over ... up to and including" (clauses 7 and 11.4.1). The
+// major and minor diameters are of position h (es = 0, clause 6), and the
+// minor diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5, from
+// memory; it reproduces every published d3 limit to the half um). Only the cells
+// that a published table of 7e limits confirms are held: diameters over 5.6
+// up to 22.4 mm with pitches 1.5 to 4 mm.
+struct Trap7eDeviation {
+  double p_mm, es_um;
+};
+const Trap7eDeviation kTrap7eDeviation[] = {{1.5, -67}, {2, -71}, {3, -85}, {4, -95}};
+
+struct Trap7eTolerance {
+  double d_over_mm, d_upto_mm, p_mm, td2_um;
+};
+const Trap7eTolerance kTrap7eTolerance[] = {
+    {5.6, 11.2, 1.5, 170}, {5.6, 11.2, 2, 190}, {5.6, 11.2, 3, 212},
+    {11.2, 22.4, 2, 200},  {11.2, 22.4, 3, 224}, {11.2, 22.4, 4, 265},
+};
+
+struct Trap7e {
+  double d_mm, p_mm, es_um, td2_um;
+  double maxPitchDia() const { return d_mm - p_mm / 2 + es_um * 1e-3; }
+  double minPitchDia() const { return maxPitchDia() - td2_um * 1e-3; }
+  double maxMinorDia() const { return d_mm - p_mm - 2 * trapClearanceMm(p_mm); }
+  double minMinorDia() const { return maxMinorDia() - (1.25 * td2_um - es_um) * 1e-3; }
+};
+
+Trap7e trap7e(const double* a, const char* call) {
+  majorAndPitch(a, "trapezoidal", call, true);
+  const double p_mm = trapPitchMm(a);
+  const double d_mm = a[0] / kMm;
+  for (const Trap7eTolerance& t : kTrap7eTolerance) {
+    if (t.p_mm != p_mm || !(d_mm > t.d_over_mm + kMatch / kMm) || !(d_mm <= t.d_upto_mm + kMatch / kMm)) continue;
+    for (const Trap7eDeviation& e : kTrap7eDeviation)
+      if (e.p_mm == p_mm) {
+        const Trap7e r{d_mm, p_mm, e.es_um, t.td2_um};
+        if (!(r.minMinorDia() > 0))
+          fail(0, "major diameter d = " + show(a[0], Show::Length) + " leaves no minor diameter for pitch p = " +
+                      show(a[1], Show::Lead));
+        return r;
+      }
+  }
+  fail(-1, "the ISO 2903 class 7e tolerances of d = " + show(a[0], Show::Length) + ", p = " + show(a[1], Show::Lead) +
+               " are not held here: they are held for diameters over 5.6 up to 11.2 mm with pitches 1.5, 2 and 3 "
+               "mm and over 11.2 up to 22.4 mm with pitches 2, 3 and 4 mm (the values a published table of "
+               "limits confirms); take the limits of this size from ISO 2903");
+}
+
+double trapMaxPitchDia(const double* a) { return result(trap7e(a, "trap_max_pitch_dia").maxPitchDia() * kMm); }
+double trapMinPitchDia(const double* a) { return result(trap7e(a, "trap_min_pitch_dia").minPitchDia() * kMm); }
+double trapMinMinorDia(const double* a) { return result(trap7e(a, "trap_min_minor_dia").minMinorDia() * kMm); }
+
 double threadLead(const double* a) {
   const double p = positive(a, 0, "pitch p", Show::Lead);
   const double n = count(a, 1, "number of starts");
@@ -309,14 +403,26 @@ const char* kAcmeSource =
     "ASME B1.5 (Acme screw threads), general-purpose series and basic dimensions; "
     "reprinted in Machinery's Handbook (from memory)";
 const char* kTrapSource =
-    "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions "
-    "(from memory)";
+    "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions: d2, d3, D1 and D4 checked "
+    "against two published reprints of the ISO 2904 table (docs/verification.md); the series of preferred "
+    "pitches from memory";
 const char* kStubSource =
     "ASME B1.8 (Stub Acme screw threads): basic thread height 0.3p, 29 deg included angle, the preferred "
     "diameter-pitch combinations of the general-purpose Acme series (from memory)";
 const char* kButtressSource =
     "ASME B1.9 (buttress inch screw threads, 7 deg/45 deg form with 0.6p basic height): basic pitch diameter "
     "D - 0.6p, basic height of thread engagement 0.6p, sharp-V height 0.89064p (from memory)";
+const char* kAcme2GSource =
+    "ASME B1.5 (Acme screw threads), general-purpose class 2G external thread: pitch diameter allowance "
+    "0.008*sqrt(D), pitch diameter tolerance 0.006*sqrt(D) + 0.030*sqrt(p), minor diameter max D - (p + 0.020 "
+    "in) for 10 tpi and coarser, D - (p + 0.010 in) finer, minor diameter tolerance 1.5 times the pitch "
+    "diameter tolerance (D, p in inches); checked against two published class 2G tables, a thread maker's "
+    "and Lew Merrick's Acme thread data sheets (see docs/verification.md)";
+const char* kTrap7eSource =
+    "ISO 2903 (ISO metric trapezoidal screw threads, tolerances), class 7e of the external thread: "
+    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clauses 7 and 11.4.1), d "
+    "and d3 of position h (clause 6), Td3 = 1.25*Td2 + |es| (clause 11.5); the values held are from memory of the "
+    "standard and agree with a published table of 7e limits (see docs/verification.md)";
 const char* kSquareSource =
     "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
     "Mechanical Engineering Design, Fig. 8-3) and Machinery's Handbook: depth p/2; "
@@ -383,7 +489,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.result_unit = "in";
     d.formula = "d - p";
     d.limits = "d > 0, 0 < p < d. Basic size: the minor diameter of a class 2G external thread is "
-               "smaller by its allowance (ASME B1.5 tables), so take the table value where the stress margin is small";
+               "smaller by its root clearance and tolerance; acme_min_minor_dia gives its least value";
     d.source = kAcmeSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMinorDia;
@@ -443,7 +549,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "d3 = d - p - 2*ac, with the root clearance ac = 0.15 mm for p = 1.5 mm, 0.25 mm for p = 2 to 5 mm, "
                 "0.5 mm for p = 6 to 12 mm, 1 mm for p = 14 to 44 mm";
     d.formula_is_expression = false;
-    d.limits = "d > 0, 0 < p < d, d3 > 0; p must be an ISO 2904 pitch (1.5 to 44 mm) because ac depends on it";
+    d.limits = "d > 0, 0 < p < d, d3 > 0; p must be an ISO 2904 pitch (1.5 to 44 mm) because ac depends on it. "
+               "The largest d3 of a screw of any tolerance class (position h, ISO 2903); trap_min_minor_dia gives "
+               "the least of class 7e";
     d.source = kTrapSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinorDia;
@@ -583,7 +691,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.result_unit = "mm";
     d.formula = "d - p";
     d.limits = "d > 0, 0 < p < d; p must be an ISO 2904 pitch (1.5 to 44 mm). Basic size: a nut of tolerance "
-               "class 7H has a larger minor diameter (the tolerance values are not held here)";
+               "class 7H has a larger minor diameter (the 7H values are not held here)";
     d.source = kTrapSource;
     d.example = {0.040, 0.007};
     d.eval = trapNutMinorDia;
@@ -607,6 +715,118 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
   }
   {
     FunctionDecl d;
+    d.name = "acme_max_pitch_dia";
+    d.summary = "Maximum pitch diameter of a class 2G general-purpose Acme screw (ASME B1.5)";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - p/2 - 0.008*sqrt(D) in, with D = d/(1 in): the basic pitch diameter less the class 2G "
+                "allowance; each term rounded to 0.0001 in as the published 2G tables are";
+    d.formula_is_expression = false;
+    d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
+               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+               "multiple-start screw may be made to other limits: take them from its drawing";
+    d.source = kAcme2GSource;
+    d.example = {kInch, 0.2 * kInch};
+    d.eval = acmeMaxPitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "acme_min_pitch_dia";
+    d.summary = "Minimum pitch diameter of a class 2G general-purpose Acme screw (ASME B1.5)";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "acme_max_pitch_dia(d, p) - (0.006*sqrt(D) + 0.030*sqrt(P)) in, with D = d/(1 in) and "
+                "P = p/(1 in): less the class 2G pitch diameter tolerance (rounded to 0.0001 in)";
+    d.formula_is_expression = false;
+    d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
+               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+               "multiple-start screw may be made to other limits: take them from its drawing";
+    d.source = kAcme2GSource;
+    d.example = {kInch, 0.2 * kInch};
+    d.eval = acmeMinPitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "acme_min_minor_dia";
+    d.summary = "Minimum minor diameter of a class 2G general-purpose Acme screw (ASME B1.5): the least "
+                "material a body stress or buckling check may count on";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "in";
+    d.formula = "d - p - c - 1.5*(0.006*sqrt(D) + 0.030*sqrt(P)) in, with D = d/(1 in), P = p/(1 in) and the "
+                "root clearance c = 0.020 in for 10 threads per inch and coarser, 0.010 in finer; d - p - c and the "
+                "tolerance each rounded to 0.0001 in";
+    d.formula_is_expression = false;
+    d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
+               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+               "multiple-start screw may be made to other limits: take them from its drawing";
+    d.source = kAcme2GSource;
+    d.example = {kInch, 0.2 * kInch};
+    d.eval = acmeMinMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_max_pitch_dia";
+    d.summary = "Maximum pitch diameter d2 of a class 7e metric trapezoidal screw (ISO 2903)";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "d - p/2 + es, with the fundamental deviation es of position e: -67 um for p = 1.5 mm, -71 um "
+                "for 2 mm, -85 um for 3 mm, -95 um for 4 mm";
+    d.formula_is_expression = false;
+    d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
+               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+    d.source = kTrap7eSource;
+    d.example = {0.020, 0.004};
+    d.eval = trapMaxPitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_min_pitch_dia";
+    d.summary = "Minimum pitch diameter d2 of a class 7e metric trapezoidal screw (ISO 2903)";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = 170, 190, 212 um for p = 1.5, "
+                "2, 3 mm (d over 5.6 up to 11.2 mm) and 200, 224, 265 um for p = 2, 3, 4 mm (d over 11.2 up to "
+                "22.4 mm)";
+    d.formula_is_expression = false;
+    d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
+               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+    d.source = kTrap7eSource;
+    d.example = {0.020, 0.004};
+    d.eval = trapMinPitchDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
+    d.name = "trap_min_minor_dia";
+    d.summary = "Minimum minor diameter d3 of a class 7e metric trapezoidal screw (ISO 2903): the least "
+                "material a body stress or buckling check may count on";
+    d.args = {major, pitch};
+    d.result = length();
+    d.result_unit = "mm";
+    d.formula = "trap_minor_dia(d, p) - Td3, with Td3 = 1.25*Td2 + |es| (Td2 and es as in trap_min_pitch_dia "
+                "and trap_max_pitch_dia)";
+    d.formula_is_expression = false;
+    d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
+               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+    d.source = kTrap7eSource;
+    d.example = {0.020, 0.004};
+    d.eval = trapMinMinorDia;
+    out.push_back(std::move(d));
+  }
+  {
+    FunctionDecl d;
     d.name = "thread_lead";
     d.summary = "Lead of a thread: axial advance per revolution, the pitch times the number of starts";
     d.args = {pitch, arg("starts", none(), "number of starts (1 single, 2 double, ...)")};
@@ -625,7 +845,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
           "functions (acme_..., stub_acme_..., trap_..., square_..., buttress_...), since a worksheet passes "
           "numbers only. The flank angle is "
           "half the included angle, measured in the axial plane, as the torque functions take it. A size that is "
-          "not in a series is an error that names the nearest standard sizes."};
+          "not in a series is an error that names the nearest standard sizes. The basic sizes are those of the "
+          "profile; the least material of a screw (the minimum minor diameter a stress or buckling check should "
+          "use) is given for Acme class 2G and trapezoidal class 7e where the tolerance values are held."};
 }
 
 }  // namespace calctrail::fn

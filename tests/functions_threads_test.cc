@@ -39,6 +39,17 @@ TEST_CASE("acme_tpi: ASME B1.5 general-purpose series, every row (from memory)",
   }
 }
 
+TEST_CASE("acme_tpi: the rows 1/4-16 to 7/8-6 as a published class 2G data sheet lists them", "[functions][threads]") {
+  // Lew Merrick's Acme Thread Data Sheets (2009) list the general-purpose sizes .2500-16, .3125-14, .3750-12,
+  // .4375-12, .5000-10, .6250-8, .7500-6 and .8750-6 before the inch sizes.
+  const double rows[][2] = {{0.25, 16}, {0.3125, 14}, {0.375, 12}, {0.4375, 12},
+                            {0.5, 10},  {0.625, 8},   {0.75, 6},   {0.875, 6}};
+  for (const auto& r : rows) {
+    INFO("size " << r[0] << " in");
+    CHECK(call("acme_tpi", {r[0] * in}) * in == Approx(r[1]).epsilon(1e-12));
+  }
+}
+
 TEST_CASE("acme_tpi: a size given in mm finds the same row (unit-system swap)", "[functions][threads]") {
   CHECK(call("acme_tpi", {25.4 * mm}) == Approx(call("acme_tpi", {1.0 * in})));
   CHECK(call("acme_tpi", {38.1 * mm}) == Approx(4 / in));  // 1-1/2 in
@@ -135,6 +146,40 @@ TEST_CASE("trap_minor_dia: DIN 103 screw minor diameters d3, Tr 8x1.5, 10x2, 20x
   CHECK(call("trap_minor_dia", {40 * mm, 7 * mm}) == Approx(32.0 * mm));
   CHECK(call("trap_minor_dia", {100 * mm, 12 * mm}) == Approx(87.0 * mm));
   CHECK(call("trap_minor_dia", {120 * mm, 14 * mm}) == Approx(104.0 * mm));
+}
+
+// Two published reprints of the ISO 2904 basic dimensions: RoyMech's table of ISO 2904:1977 (d2, D4, d3, D1;
+// the rows its page prints legibly) and the d3 max column of the Engineers Edge class 7e table (the minor
+// diameter is of position h, so its maximum is the basic d3).
+TEST_CASE("trap_pitch_dia, trap_minor_dia, trap_nut_minor_dia, trap_nut_major_dia: two published reprints of the "
+          "ISO 2904 table",
+          "[functions][threads]") {
+  const struct {
+    double d, p, d2, D4, d3, D1;
+  } roymech[] = {{8, 1.5, 7.25, 8.3, 6.2, 6.5}, {9, 1.5, 8.25, 9.3, 7.2, 7.5},  {10, 2, 9.0, 10.5, 7.5, 8.0},
+                 {11, 2, 10.0, 11.5, 8.5, 9.0}, {11, 3, 9.5, 11.5, 7.5, 8.0},   {12, 2, 11.0, 12.5, 9.5, 10.0},
+                 {12, 3, 10.5, 12.5, 8.5, 9.0}, {14, 2, 13.0, 14.5, 11.5, 12.0}, {14, 3, 12.5, 14.5, 10.5, 11.0},
+                 {16, 2, 15.0, 16.5, 13.5, 14.0}, {42, 3, 40.5, 42.5, 38.5, 39.0}, {42, 7, 38.5, 43.0, 34.0, 35.0},
+                 {44, 3, 42.5, 44.5, 40.5, 41.0}, {44, 7, 40.5, 45.0, 36.0, 37.0}, {44, 12, 38.0, 45.0, 31.0, 32.0},
+                 {46, 3, 44.5, 46.5, 42.5, 43.0}, {46, 8, 42.0, 47.0, 37.0, 38.0}, {46, 12, 40.0, 47.0, 33.0, 34.0},
+                 {48, 3, 46.5, 48.5, 44.5, 45.0}, {48, 8, 44.0, 49.0, 39.0, 40.0}};
+  for (const auto& r : roymech) {
+    INFO("Tr " << r.d << "x" << r.p);
+    const std::vector<double> dp = {r.d * mm, r.p * mm};
+    CHECK(call("trap_pitch_dia", dp) / mm == Approx(r.d2));
+    CHECK(call("trap_nut_major_dia", dp) / mm == Approx(r.D4));
+    CHECK(call("trap_minor_dia", dp) / mm == Approx(r.d3));
+    CHECK(call("trap_nut_minor_dia", dp) / mm == Approx(r.D1));
+  }
+  const struct {
+    double d, p, d3;
+  } engineers_edge[] = {{8, 1.5, 6.2},  {9, 1.5, 7.2},  {9, 2, 6.5},    {10, 1.5, 8.2}, {10, 2, 7.5},
+                        {11, 2, 8.5},   {11, 3, 7.5},   {12, 2, 9.5},    {12, 3, 8.5},   {14, 2, 11.5},
+                        {14, 3, 10.5},  {16, 2, 13.5},  {16, 3, 12.5},   {16, 4, 11.5},  {18, 2, 15.5}};
+  for (const auto& r : engineers_edge) {
+    INFO("Tr " << r.d << "x" << r.p);
+    CHECK(call("trap_minor_dia", {r.d * mm, r.p * mm}) / mm == Approx(r.d3));
+  }
 }
 
 TEST_CASE("trap_minor_dia: below the basic minor diameter by twice the root clearance", "[functions][threads]") {
@@ -269,4 +314,127 @@ TEST_CASE("threads: swapped arguments are named by position and value, and the s
   CHECK_THAT(errorOf("trap_pitch_dia", {7.5 * mm, 41 * mm}), !Catch::Contains("swapped"));
   CHECK_THAT(errorOf("acme_pitch_dia", {0.2 * in, 1 * in}), Catch::Contains("of an Acme thread; the two look "
                                                                             "swapped"));
+}
+
+// Class 2G limits of the screw, against two published tables of ASME B1.5 class 2G external threads: a thread
+// maker's (Dependable Acme, "Internal and external thread dimensions") and Lew Merrick's "Acme Thread Data
+// Sheets" (2009). Both print 4 decimals, adding up allowances and tolerances rounded to 0.0001 in.
+TEST_CASE("acme_max_pitch_dia, acme_min_pitch_dia, acme_min_minor_dia: published ASME B1.5 class 2G limits",
+          "[functions][threads]") {
+  const struct {
+    double d, tpi, pd_max, pd_min, minor_min;
+  } maker[] = {{0.375, 12, 0.3284, 0.3161, 0.2632}, {0.5, 10, 0.4443, 0.4306, 0.3594},
+               {0.625, 8, 0.5562, 0.5408, 0.4570},  {0.75, 6, 0.6598, 0.6424, 0.5371},
+               {0.875, 6, 0.7842, 0.7663, 0.6615},  {1.0, 5, 0.8920, 0.8726, 0.7509},
+               {1.125, 5, 1.0165, 0.9967, 0.8753}};
+  for (const auto& r : maker) {
+    INFO(r.d << "-" << r.tpi << " Acme 2G");
+    const std::vector<double> dp = {r.d * in, in / r.tpi};
+    CHECK(call("acme_max_pitch_dia", dp) / in == Approx(r.pd_max).margin(1e-9));
+    CHECK(call("acme_min_pitch_dia", dp) / in == Approx(r.pd_min).margin(1e-9));
+    CHECK(call("acme_min_minor_dia", dp) / in == Approx(r.minor_min).margin(1e-9));
+  }
+  const struct {
+    double d, tpi, minor_min;
+  } sheets[] = {{0.3125, 14, 0.2140}, {0.375, 12, 0.2632}, {0.4375, 12, 0.3253}, {0.5, 10, 0.3594},
+                {0.625, 8, 0.4570},   {0.75, 6, 0.5371},   {0.875, 6, 0.6615}};
+  for (const auto& r : sheets) {
+    INFO(r.d << "-" << r.tpi << " Acme 2G");
+    CHECK(call("acme_min_minor_dia", {r.d * in, in / r.tpi}) / in == Approx(r.minor_min).margin(1e-9));
+  }
+  // 1/4-16: 1.5 times the tolerance 0.0105 in is 0.01575 in, a half that the data sheets round down (0.1618)
+  // and this function rounds up (0.1617): the one row where the two differ, by the last digit.
+  CHECK(call("acme_min_minor_dia", {0.25 * in, in / 16}) / in == Approx(0.1618).margin(1.0001e-4));
+}
+
+TEST_CASE("acme_min_minor_dia: the limits add up to the ASME B1.5 allowances, in mm as in inches",
+          "[functions][threads]") {
+  for (double d_in : {0.25, 0.4375, 0.5, 1.0, 2.0, 3.0, 5.0}) {
+    INFO(d_in << " in");
+    const double d = d_in * in, p = call("acme_pitch", {d});
+    const double pd_basic = call("acme_pitch_dia", {d, p}), minor_basic = call("acme_minor_dia", {d, p});
+    const double pd_max = call("acme_max_pitch_dia", {d, p}), pd_min = call("acme_min_pitch_dia", {d, p});
+    const double minor_min = call("acme_min_minor_dia", {d, p});
+    // Independent: the pitch diameter allowance 0.008*sqrt(D) and tolerance 0.006*sqrt(D) + 0.030*sqrt(p), the
+    // root clearance 0.020 in for 10 tpi and coarser (0.010 in finer), the minor tolerance 1.5 times the pitch
+    // diameter one: each within the 0.0001 in rounding of the tables.
+    const double tol = 0.006 * std::sqrt(d_in) + 0.030 * std::sqrt(p / in);
+    CHECK((pd_basic - pd_max) / in == Approx(0.008 * std::sqrt(d_in)).margin(1e-4));
+    CHECK((pd_max - pd_min) / in == Approx(tol).margin(1e-4));
+    const double clearance = p / in > 0.1 - 1e-9 ? 0.020 : 0.010;  // 10 tpi and coarser
+    CHECK((minor_basic - minor_min) / in == Approx(clearance + 1.5 * tol).margin(1.5e-4));
+    CHECK(minor_min < minor_basic);
+    CHECK(pd_min < pd_max);
+    CHECK(pd_max < pd_basic);
+    // Unit-system swap: the size and pitch written in mm give the same limit.
+    CHECK(call("acme_min_minor_dia", {d_in * 25.4 * mm, p / in * 25.4 * mm}) == Approx(minor_min).epsilon(1e-12));
+  }
+  // 10 tpi takes the 0.020 in clearance, 12 tpi the 0.010 in one: 1/2-10 max minor 0.38 in, 7/16-12 0.3442 in.
+  CHECK((call("acme_minor_dia", {0.5 * in, in / 10}) - call("acme_min_minor_dia", {0.5 * in, in / 10})) / in ==
+        Approx(0.020 + 0.0206).margin(1e-9));
+}
+
+TEST_CASE("acme_min_minor_dia: a size or pitch outside the series is an error", "[functions][threads][limits]") {
+  CHECK(errorOf("acme_min_minor_dia", {1 * in, 0.25 * in}) ==
+        "pitch p = 0.25 in (6.35 mm) is not the series pitch 0.2 in (5 threads per inch) of the 1 in size; the "
+        "class 2G limits are held for the ASME B1.5 general-purpose combinations only (write acme_pitch(d) for "
+        "the pitch)");
+  CHECK_THAT(errorOf("acme_max_pitch_dia", {1.1 * in, 0.2 * in}),
+             Catch::Contains("is not a size of the ASME B1.5 general-purpose Acme series"));
+  CHECK_THAT(errorOf("acme_min_pitch_dia", {0.2 * in, 0.25 * in}), Catch::Contains("must be smaller than"));
+}
+
+// Class 7e limits of the screw, against the published table of ISO metric trapezoidal external threads, class 7e
+// (Engineers Edge, "External ISO Metric Trapezoidal Screw Threads Table Chart Sizes TR8 - TR315"), printed to
+// 0.001 mm; the es and Td2 values held are also those of ISO 2903 from memory.
+TEST_CASE("trap_max_pitch_dia, trap_min_pitch_dia, trap_min_minor_dia: published ISO 2903 class 7e limits",
+          "[functions][threads]") {
+  const struct {
+    double d, p, d2_max, d2_min, d3_min;
+  } rows[] = {{8, 1.5, 7.183, 7.013, 5.921},   {9, 1.5, 8.183, 8.013, 6.921},   {9, 2, 7.929, 7.739, 6.191},
+              {10, 1.5, 9.183, 9.013, 7.921},  {10, 2, 8.929, 8.739, 7.191},    {11, 2, 9.929, 9.739, 8.191},
+              {11, 3, 9.415, 9.203, 7.150},    {12, 2, 10.929, 10.729, 9.179},  {12, 3, 10.415, 10.191, 8.135},
+              {14, 2, 12.929, 12.729, 11.179}, {14, 3, 12.415, 12.191, 10.135}, {16, 2, 14.929, 14.729, 13.179},
+              {16, 3, 14.415, 14.191, 12.135}, {16, 4, 13.905, 13.640, 11.074}, {18, 2, 16.929, 16.729, 15.179}};
+  for (const auto& r : rows) {
+    INFO("Tr " << r.d << "x" << r.p << " 7e");
+    const std::vector<double> dp = {r.d * mm, r.p * mm};
+    CHECK(call("trap_max_pitch_dia", dp) / mm == Approx(r.d2_max).margin(1e-9));
+    CHECK(call("trap_min_pitch_dia", dp) / mm == Approx(r.d2_min).margin(1e-9));
+    // Td3 = 1.25*Td2 + |es| comes to a half um for Tr 8x1.5 and 9x2 (279.5, 308.5 um), which the table rounds
+    // one way and the other: 0.0005 mm and a hair.
+    CHECK(call("trap_min_minor_dia", dp) / mm == Approx(r.d3_min).margin(5.0001e-4));
+  }
+}
+
+TEST_CASE("trap_min_minor_dia: d3 is of position h, and Td3 = 1.25*Td2 + abs(es) (ISO 2903 clause 11.5)",
+          "[functions][threads]") {
+  for (const double d : {8.0, 11.2, 11.3, 16.0, 22.4}) {
+    for (const double p : {1.5, 2.0, 3.0, 4.0}) {
+      const std::vector<double> dp = {d * mm, p * mm};
+      if (errorOf("trap_min_minor_dia", dp) != "(no error)") continue;
+      INFO("Tr " << d << "x" << p);
+      const double es = call("trap_max_pitch_dia", dp) - call("trap_pitch_dia", dp);
+      const double td2 = call("trap_max_pitch_dia", dp) - call("trap_min_pitch_dia", dp);
+      CHECK(es < 0);
+      CHECK(call("trap_minor_dia", dp) - call("trap_min_minor_dia", dp) == Approx(1.25 * td2 - es));
+    }
+  }
+  // 11.2 mm is the top of the lower diameter range ("up to and including"), 11.3 mm in the next: 190 and 200 um.
+  CHECK((call("trap_max_pitch_dia", {11.2 * mm, 2 * mm}) - call("trap_min_pitch_dia", {11.2 * mm, 2 * mm})) / mm ==
+        Approx(0.190));
+  CHECK((call("trap_max_pitch_dia", {11.3 * mm, 2 * mm}) - call("trap_min_pitch_dia", {11.3 * mm, 2 * mm})) / mm ==
+        Approx(0.200));
+}
+
+TEST_CASE("trap_min_minor_dia: a size whose 7e values are not held is an error that says which are",
+          "[functions][threads][limits]") {
+  const std::string held =
+      "are not held here: they are held for diameters over 5.6 up to 11.2 mm with pitches 1.5, 2 and 3 mm and over "
+      "11.2 up to 22.4 mm with pitches 2, 3 and 4 mm";
+  CHECK_THAT(errorOf("trap_min_minor_dia", {40 * mm, 7 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_min_minor_dia", {22.5 * mm, 4 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_max_pitch_dia", {10 * mm, 4 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_min_pitch_dia", {20 * mm, 1.5 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_min_minor_dia", {20 * mm, 4.5 * mm}), Catch::Contains("is not an ISO 2904 trapezoidal pitch"));
 }
