@@ -3,8 +3,8 @@
 // diagnostics, through the server's message API (JSON in, JSON out), on
 // worksheets/twin-screw-lift.calc, on worksheets/platform-lift.calc (three
 // instances of two templates, read at every edit) and on a generated
-// 10k-line sheet; and a
-// burst of edits read together, which costs one recalculation.
+// 10k-line sheet; and a burst of edits read together, which costs one
+// recalculation.
 //
 //   lsp_perftest [--rounds N] [--worksheets DIR]
 //
