@@ -868,3 +868,28 @@ TEST_CASE("lsp use: an unsaved template edit reaches the sheets using it, nested
   changeWhole(c, "file://" + f.dir + "/other.calc", 2, "x = 2 m\n");
   CHECK(c.server.recalculations() == recalcs + 2);
 }
+
+TEST_CASE("lsp use: a template that cannot be read, and requests on its use line", "[lsp][use][errors]") {
+  const UseFolder f;
+  const std::string sheet = "use missing.calc as m with F = 2 kN\ny = m.T_raise\n";
+  Client c;
+  c.open(sheet, f.sheet_uri);
+  const json diags = c.diagnostics(f.sheet_uri);
+  REQUIRE(diags.size() >= 1);
+  CHECK_THAT(diags[0]["message"].get<std::string>(), Catch::StartsWith("cannot read the template `missing.calc`"));
+  CHECK(diags[0]["range"] == range(0, 4, 0, 16));
+  // No template, no place to go; the binding's parameter and the dotted name neither.
+  for (int col = 0; col < 36; ++col) {
+    INFO("column " << col);
+    CHECK(c.result("textDocument/definition", textPos(0, col, f.sheet_uri)).is_null());
+  }
+  CHECK(c.result("textDocument/definition", textPos(1, 6, f.sheet_uri)).is_null());
+  CHECK(c.result("textDocument/hover", textPos(1, 6, f.sheet_uri))["contents"]["value"] ==
+        "`m.T_raise` is not defined in this worksheet\n");
+  // Opening the missing file in the editor (not saved) makes the sheet calculate.
+  c.open("param F [kN] = 1 kN\nT_raise [N*m] = F * 10 mm\n", "file://" + f.dir + "/missing.calc");
+  CHECK(c.diagnostics(f.sheet_uri) == json::array());
+  const json d = c.result("textDocument/definition", textPos(1, 6, f.sheet_uri));
+  CHECK(d["uri"] == "file://" + f.dir + "/missing.calc");
+  CHECK(d["range"] == range(1, 0, 1, 7));
+}
