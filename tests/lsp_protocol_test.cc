@@ -699,11 +699,10 @@ const std::string kScrewTemplate =
     "d_m [mm] = 36 mm                    # mean diameter\n"
     "T_raise [N*m] = F * d_m / 2 * f     # simplified torque\n"
     "check torque: T_raise < 100 [N*m]\n";
-const std::string kUsingSheet =
-    "# " + std::string(260, '-') + "\n" +
-    "use \"screw.calc\" as left with F = load / 2, f = 0.15\n"
-    "load = 30 kN\n"
-    "T_total [N*m] = left.T_raise * 2\n";
+const std::string kUsingSheet = "# " + std::string(260, '-') + "\n" +
+                                "use \"screw.calc\" as left with F = load / 2, f = 0.15\n"
+                                "load = 30 kN\n"
+                                "T_total [N*m] = left.T_raise * 2\n";
 
 struct UseFolder {
   std::string dir = tempDir();
@@ -748,8 +747,8 @@ TEST_CASE("lsp use: hover, definition and hints index the sheet's own text only"
   CHECK(refs[0]["range"] == range(1, 34, 1, 38));
   CHECK(refs[1]["range"] == range(2, 0, 2, 4));
   // Hints on the sheet's lines only: the one formula of its own, at its line's end.
-  const json hints =
-      c.result("textDocument/inlayHint", {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(0, 0, 99, 0)}});
+  const json hints = c.result("textDocument/inlayHint",
+                              {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(0, 0, 99, 0)}});
   REQUIRE(hints.size() == 1);
   CHECK(hints[0]["position"] == at(3, 32));
   // F = 15 kN, f = 0.15, d_m = 36 mm: T_raise = 15000 * 0.036 / 2 * 0.15 = 40.5 N*m; twice: 81 N*m.
@@ -846,20 +845,21 @@ TEST_CASE("lsp use: an unsaved template edit reaches the sheets using it, nested
   const json nested = c.diagnostics(outer_uri);
   REQUIRE(nested.size() >= 1);
   CHECK(nested[0]["range"]["start"] == at(0, 0));
-  CHECK_THAT(nested[0]["message"].get<std::string>(), Catch::Contains("in the instance `drive` used at outer.calc:1:18"));
+  CHECK_THAT(nested[0]["message"].get<std::string>(),
+             Catch::Contains("in the instance `drive` used at outer.calc:1:18"));
   // A new value in the buffer, still unsaved: the sheet's value follows it (the disk has d_m = 36 mm).
   std::string wider = kScrewTemplate;
   wider.replace(wider.find("36 mm"), 5, "72 mm");
   changeWhole(c, f.screw_uri, 3, wider);
   CHECK(c.diagnostics(f.sheet_uri) == json::array());
-  const json hints =
-      c.result("textDocument/inlayHint", {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(3, 0, 3, 99)}});
+  const json hints = c.result("textDocument/inlayHint",
+                              {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(3, 0, 3, 99)}});
   REQUIRE(hints.size() == 1);
   CHECK(hints[0]["label"] == "= 162.0 N*m");  // twice the 81 N*m of 36 mm
   // Closing the template: the sheets read the disk again.
   c.notify("textDocument/didClose", {{"textDocument", {{"uri", f.screw_uri}}}});
-  const json again =
-      c.result("textDocument/inlayHint", {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(3, 0, 3, 99)}});
+  const json again = c.result("textDocument/inlayHint",
+                              {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(3, 0, 3, 99)}});
   REQUIRE(again.size() == 1);
   CHECK(again[0]["label"] == "= 81.00 N*m");
   // A sheet that does not use the edited file is not recalculated.
@@ -876,7 +876,8 @@ TEST_CASE("lsp use: a template that cannot be read, and requests on its use line
   c.open(sheet, f.sheet_uri);
   const json diags = c.diagnostics(f.sheet_uri);
   REQUIRE(diags.size() >= 1);
-  CHECK_THAT(diags[0]["message"].get<std::string>(), Catch::StartsWith("cannot read the template `missing.calc`"));
+  CHECK_THAT(diags[0]["message"].get<std::string>(),
+             Catch::StartsWith("cannot read the template `missing.calc`"));
   CHECK(diags[0]["range"] == range(0, 4, 0, 16));
   // No template, no place to go; the binding's parameter and the dotted name neither.
   for (int col = 0; col < 36; ++col) {

@@ -4,9 +4,13 @@
 
 namespace calctrail::lsp {
 
-void BufferSource::open(const std::string& path, const Document* doc) { open_[normalizePath(path)] = doc; }
+void BufferSource::open(const std::string& path, const Document* doc) {
+  open_[normalizePath(path)] = doc;
+}
 
-void BufferSource::close(const std::string& path) { open_.erase(normalizePath(path)); }
+void BufferSource::close(const std::string& path) {
+  open_.erase(normalizePath(path));
+}
 
 bool BufferSource::read(const std::string& path, std::string* bytes, std::string* error) const {
   const auto it = open_.find(normalizePath(path));

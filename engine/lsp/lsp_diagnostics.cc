@@ -33,7 +33,8 @@ const Use* useLineOf(const Analysis& a, const Diagnostic& d) {
   const Sheet& sheet = a.calc->sheet;
   for (const Instance& in : sheet.instances) {
     if (in.parent >= 0 || in.use_index < 0) continue;
-    if (d.message.find(in.context + ")") != std::string::npos) return &sheet.uses[static_cast<size_t>(in.use_index)];
+    if (d.message.find(in.context + ")") != std::string::npos)
+      return &sheet.uses[static_cast<size_t>(in.use_index)];
   }
   return nullptr;
 }
@@ -62,7 +63,8 @@ nlohmann::json templateDiagnostic(const Analysis& a, const Document& doc, const 
   const std::string uri = uriFromPath(d.path);
   const auto text = a.templates.find(normalizePath(d.path));
   const Document tdoc(uri, text == a.templates.end() ? std::string() : text->second, 0);
-  out["relatedInformation"] = nlohmann::json::array({{{"location", location(uri, caretRange(d, tdoc))}, {"message", d.message}}});
+  out["relatedInformation"] =
+      nlohmann::json::array({{{"location", location(uri, caretRange(d, tdoc))}, {"message", d.message}}});
   return out;
 }
 

@@ -119,7 +119,8 @@ Figures measure(const std::string& text, int line, int character, const std::str
   const std::string current = rounds % 2 == 0 ? value : other;
   const double t = now();
   for (int k = 0; k < 10; ++k)
-    send(&server, didChange(uri, ++version, line, character, k % 2 ? other : current, k % 2 ? current : other));
+    send(&server,
+         didChange(uri, ++version, line, character, k % 2 ? other : current, k % 2 ? current : other));
   server.flush();
   published(server.takeOutgoing());
   f.burst_ms = (now() - t) * 1e3;
