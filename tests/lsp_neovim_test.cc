@@ -1,7 +1,8 @@
 // A real editor as the client: headless Neovim's built-in LSP client starts
 // `calctrail lsp`, opens a worksheet with an error, waits for the published
-// diagnostics, then asks for a hover and a definition. The Lua script is
-// written at run time; its results come back in a file, one per line.
+// diagnostics, then asks for a hover and a definition; and jumps from a sheet
+// to the definition of an instance's quantity in its template. The Lua
+// scripts are written at run time; their results come back in a file, one per line.
 #include <catch2/catch.hpp>
 
 #include <sys/wait.h>
@@ -61,7 +62,75 @@ vim.lsp.stop_client(id)
 finish()
 )lua";
 
+// Go to definition as a user does (vim.lsp.buf.definition on the cursor), on
+// `left.T_raise` in a sheet that uses a template: Neovim opens the template
+// and puts the cursor on T_raise's line.
+const char* kJumpScript = R"lua(
+local out = {}
+local function put(s) table.insert(out, (s:gsub('\n', '\\n'))) end
+vim.cmd('edit ' .. vim.fn.fnameescape(SHEET))
+local ready = false
+local config = { name = 'calctrail', cmd = { CALCTRAIL, 'lsp' }, root_dir = vim.fn.fnamemodify(SHEET, ':h'),
+                 on_init = function() ready = true end }
+local id = vim.lsp.start_client(config)
+vim.lsp.buf_attach_client(0, id)
+put('ready ' .. tostring(vim.wait(20000, function() return ready end, 20)))
+vim.api.nvim_win_set_cursor(0, { 3, 22 })  -- on `T_raise` of `left.T_raise`
+vim.lsp.buf.definition()
+local moved = vim.wait(20000, function() return vim.api.nvim_buf_get_name(0) ~= SHEET end, 20)
+put('moved ' .. tostring(moved))
+local cursor = vim.api.nvim_win_get_cursor(0)
+put(string.format('landed %s %d:%d', vim.api.nvim_buf_get_name(0), cursor[1], cursor[2]))
+vim.lsp.stop_client(id)
+vim.fn.writefile(out, OUT)
+vim.cmd('qa!')
+)lua";
+
+// Runs `script` in headless Neovim in `dir` with SHEET, OUT and CALCTRAIL set; its output lines.
+std::vector<std::string> runNeovim(const std::string& dir, const std::string& sheet, const char* script) {
+  const std::string file = dir + "/client.lua", out = dir + "/out";
+  auto lua = [](const std::string& s) { return "'" + s + "'"; };  // temporary paths hold no quote
+  writeFile(file, "SHEET = " + lua(sheet) + "\nOUT = " + lua(out) + "\nCALCTRAIL = " + lua(CALCTRAIL_BINARY) +
+                      "\n" + script);
+  const std::string cmd = "cd '" + dir + "' && timeout 120 nvim --headless --clean -n -c 'luafile " + file +
+                          "' >'" + dir + "/nvim.log' 2>&1 </dev/null";
+  const int raw = std::system(cmd.c_str());
+  INFO("nvim said: " << readFile(dir + "/nvim.log"));
+  CHECK(WIFEXITED(raw));
+  CHECK(WEXITSTATUS(raw) == 0);
+  std::vector<std::string> lines;
+  std::istringstream in(readFile(out));
+  for (std::string line; std::getline(in, line);) lines.push_back(line);
+  for (const char* f : {"/client.lua", "/out", "/nvim.log"}) std::remove((dir + f).c_str());
+  return lines;
+}
+
 }  // namespace
+
+TEST_CASE("lsp in Neovim: definition across `use` opens the template on the quantity's line",
+          "[lsp][neovim][use]") {
+  const int has_nvim = std::system("command -v nvim >/dev/null 2>&1");
+  INFO("Neovim is needed for this test: apt-get install neovim (.ci/install-deps)");
+  REQUIRE(has_nvim == 0);
+  const std::string dir = tempDir();
+  writeFile(dir + "/screw.calc",
+            "param F [kN] = 10 kN\n"
+            "d_m [mm] = 36 mm\n"
+            "f = 0.1\n"
+            "T_raise [N*m] = F * d_m / 2 * f\n");
+  const std::string sheet = dir + "/lift.calc";
+  writeFile(sheet,
+            "use screw.calc as left with F = 15 kN\n"
+            "n = 2\n"
+            "T_total [N*m] = left.T_raise * n\n");
+  const std::vector<std::string> lines = runNeovim(dir, sheet, kJumpScript);
+  REQUIRE(lines.size() == 3);
+  CHECK(lines[0] == "ready true");
+  CHECK(lines[1] == "moved true");
+  // Neovim's cursor: 1-based line, 0-based byte column.
+  CHECK(lines[2] == "landed " + dir + "/screw.calc 4:0");
+  for (const char* f : {"/screw.calc", "/lift.calc"}) std::remove((dir + f).c_str());
+}
 
 TEST_CASE("lsp in Neovim: diagnostics, hover and definition through its built-in client", "[lsp][neovim]") {
   const int has_nvim = std::system("command -v nvim >/dev/null 2>&1");

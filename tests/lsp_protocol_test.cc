@@ -685,3 +685,212 @@ TEST_CASE("lsp over pipes: `calctrail lsp` as a subprocess", "[lsp][subprocess]"
   std::remove((dir + "/in").c_str());
   std::remove((dir + "/exit").c_str());
 }
+
+// ---- Sheets with `use` lines (docs/editors/lsp.md, "Templates") ----
+
+namespace {
+
+// A screw template and a sheet using it, in a folder of their own on disk.
+// The sheet's first line is a long comment, so that every byte range of the
+// template (up to its length) falls inside the comment in the sheet's text.
+const std::string kScrewTemplate =
+    "param F [kN] = 10 kN                # axial load\n"
+    "param f = 0.1                       # thread friction\n"
+    "d_m [mm] = 36 mm                    # mean diameter\n"
+    "T_raise [N*m] = F * d_m / 2 * f     # simplified torque\n"
+    "check torque: T_raise < 100 [N*m]\n";
+const std::string kUsingSheet = "# " + std::string(260, '-') + "\n" +
+                                "use \"screw.calc\" as left with F = load / 2, f = 0.15\n"
+                                "load = 30 kN\n"
+                                "T_total [N*m] = left.T_raise * 2\n";
+
+struct UseFolder {
+  std::string dir = tempDir();
+  std::string sheet_uri = "file://" + dir + "/sheet.calc";
+  std::string screw_uri = "file://" + dir + "/screw.calc";
+  UseFolder(const std::string& screw = kScrewTemplate, const std::string& sheet = kUsingSheet) {
+    writeFile(dir + "/screw.calc", screw);
+    writeFile(dir + "/sheet.calc", sheet);
+  }
+};
+
+void changeWhole(Client& c, const std::string& uri, int version, const std::string& text) {
+  c.notify("textDocument/didChange", {{"textDocument", {{"uri", uri}, {"version", version}}},
+                                      {"contentChanges", json::array({{{"text", text}}})}});
+}
+
+}  // namespace
+
+TEST_CASE("lsp use: hover, definition and hints index the sheet's own text only", "[lsp][use]") {
+  const UseFolder f;
+  Client c;
+  c.open(kUsingSheet, f.sheet_uri);
+  CHECK(c.diagnostics(f.sheet_uri) == json::array());
+  // Every place of the comment line: nothing there (the template's ranges once were looked up here).
+  for (int col = 0; col <= 262; ++col) {
+    INFO("column " << col);
+    CHECK(c.result("textDocument/hover", textPos(0, col, f.sheet_uri)).is_null());
+    CHECK(c.result("textDocument/definition", textPos(0, col, f.sheet_uri)).is_null());
+  }
+  // The sheet's own names.
+  const json h = c.result("textDocument/hover", textPos(3, 2, f.sheet_uri));
+  CHECK_THAT(h["contents"]["value"].get<std::string>(), Catch::StartsWith("**T_total** [N*m] = "));
+  CHECK(h["range"] == range(3, 0, 3, 7));
+  // `load` in a binding is a use of the sheet's `load`.
+  const json def = c.result("textDocument/definition", textPos(1, 35, f.sheet_uri));
+  CHECK(def["uri"] == f.sheet_uri);
+  CHECK(def["range"] == range(2, 0, 2, 4));
+  json params = textPos(2, 1, f.sheet_uri);
+  params["context"] = {{"includeDeclaration", true}};
+  const json refs = c.result("textDocument/references", params);
+  REQUIRE(refs.size() == 2);
+  CHECK(refs[0]["range"] == range(1, 34, 1, 38));
+  CHECK(refs[1]["range"] == range(2, 0, 2, 4));
+  // Hints on the sheet's lines only: the one formula of its own, at its line's end.
+  const json hints = c.result("textDocument/inlayHint",
+                              {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(0, 0, 99, 0)}});
+  REQUIRE(hints.size() == 1);
+  CHECK(hints[0]["position"] == at(3, 32));
+  // F = 15 kN, f = 0.15, d_m = 36 mm: T_raise = 15000 * 0.036 / 2 * 0.15 = 40.5 N*m; twice: 81 N*m.
+  CHECK(hints[0]["label"] == "= 81.00 N*m");
+  // An instance's quantity is renamed in its template, not from the sheet.
+  CHECK(c.result("textDocument/prepareRename", textPos(3, 20, f.sheet_uri)).is_null());
+}
+
+TEST_CASE("lsp use: definition across `use` into the template file", "[lsp][use][definition]") {
+  const UseFolder f;
+  Client c;
+  c.open(kUsingSheet, f.sheet_uri);
+  // `left.T_raise`: T_raise's line in the template.
+  const json dotted = c.result("textDocument/definition", textPos(3, 22, f.sheet_uri));
+  CHECK(dotted["uri"] == f.screw_uri);
+  CHECK(dotted["range"] == range(3, 0, 3, 7));
+  // The path of the `use` line: the start of the template.
+  const json file = c.result("textDocument/definition", textPos(1, 8, f.sheet_uri));
+  CHECK(file["uri"] == f.screw_uri);
+  CHECK(file["range"] == range(0, 0, 0, 0));
+  // A parameter's name in the binding: its `param` line.
+  const json param = c.result("textDocument/definition", textPos(1, 45, f.sheet_uri));
+  CHECK(param["uri"] == f.screw_uri);
+  CHECK(param["range"] == range(1, 6, 1, 7));
+  // Hover on the dotted name: its value and the template's formula, as for a plain name.
+  const std::string hover = c.result("textDocument/hover", textPos(3, 22, f.sheet_uri))["contents"]["value"];
+  CHECK_THAT(hover, Catch::StartsWith("**left.T_raise** [N*m] = 40.50 N*m"));
+  CHECK_THAT(hover, Catch::Contains("left.T_raise = left.F * left.d_m / 2 * left.f"));
+  CHECK_THAT(hover, Catch::Contains("simplified torque"));
+}
+
+TEST_CASE("lsp use: definition columns in the template count UTF-16 units", "[lsp][use][utf16]") {
+  // An astral character (two UTF-16 units, four bytes) before the name on its line.
+  const std::string screw = "param F [kN] = 10 kN  # \xF0\x9F\x94\xA9 bolt\nτ_0 = 2 * F\n";
+  const std::string sheet = "use screw.calc as s\ny = s.τ_0\n";
+  const UseFolder f(screw, sheet);
+  Client c;
+  c.open(sheet, f.sheet_uri);
+  const json d = c.result("textDocument/definition", textPos(1, 7, f.sheet_uri));
+  CHECK(d["uri"] == f.screw_uri);
+  CHECK(d["range"] == range(1, 0, 1, 3));
+}
+
+TEST_CASE("lsp use: an error inside a template, at the use line, as the command line says it",
+          "[lsp][use][diagnostics]") {
+  const std::string broken = kScrewTemplate + "bad = 3 *\n";
+  const UseFolder f(broken);
+  // The command line, run in the sheet's folder: the error is in the template.
+  const Run cli = runCliIn(f.dir, "report sheet.calc");
+  CHECK(cli.status == 2);
+  std::smatch m;
+  const std::regex headline(R"(screw\.calc:(\d+):(\d+): error: ([^\n]*))");
+  REQUIRE(std::regex_search(cli.err, m, headline));
+  Client c;
+  c.open(kUsingSheet, f.sheet_uri);
+  const json diags = c.diagnostics(f.sheet_uri);
+  REQUIRE(diags.size() >= 1);
+  const json& d = diags[0];
+  CHECK(d["message"] == "in template screw.calc:" + m[1].str() + ":" + m[2].str() + ": " + m[3].str());
+  CHECK(d["severity"] == 1);
+  const std::string use_line = "use \"screw.calc\" as left with F = load / 2, f = 0.15";  // ASCII
+  CHECK(d["range"] == range(1, 0, 1, static_cast<int>(use_line.size())));
+  REQUIRE(d.contains("relatedInformation"));
+  const json& where = d["relatedInformation"][0]["location"];
+  CHECK(where["uri"] == f.screw_uri);
+  CHECK(where["range"]["start"] == at(std::stoi(m[1].str()) - 1, std::stoi(m[2].str()) - 1));
+  // The template opened: its own diagnostics are published on its own URI.
+  c.open(broken, f.screw_uri);
+  const json own = c.diagnostics(f.screw_uri);
+  REQUIRE(own.size() == 1);
+  CHECK(own[0]["range"]["start"] == at(5, 8));
+}
+
+TEST_CASE("lsp use: an unsaved template edit reaches the sheets using it, nested too",
+          "[lsp][use][buffers]") {
+  const UseFolder f;
+  // A middle template between the sheet and the screw: the sheet uses the screw through it.
+  writeFile(f.dir + "/pair.calc", "use screw.calc as one\nT_pair [N*m] = 2 * one.T_raise\n");
+  const std::string outer = "use pair.calc as drive\nT [N*m] = drive.T_pair\n";
+  const std::string outer_uri = "file://" + f.dir + "/outer.calc";
+  Client c;
+  c.open(kUsingSheet, f.sheet_uri);
+  c.open(outer, outer_uri);
+  CHECK(c.diagnostics(f.sheet_uri) == json::array());
+  CHECK(c.diagnostics(outer_uri) == json::array());
+  c.open(kScrewTemplate, f.screw_uri);
+  const int before = c.published();
+  // Break the template in the editor, unsaved: both sheets are recalculated and republished.
+  changeWhole(c, f.screw_uri, 2, kScrewTemplate + "bad = 3 *\n");
+  CHECK(c.published() == before + 3);
+  const json direct = c.diagnostics(f.sheet_uri);
+  REQUIRE(direct.size() >= 1);
+  CHECK_THAT(direct[0]["message"].get<std::string>(), Catch::StartsWith("in template screw.calc:6:9: "));
+  const json nested = c.diagnostics(outer_uri);
+  REQUIRE(nested.size() >= 1);
+  CHECK(nested[0]["range"]["start"] == at(0, 0));
+  CHECK_THAT(nested[0]["message"].get<std::string>(),
+             Catch::Contains("in the instance `drive` used at outer.calc:1:18"));
+  // A new value in the buffer, still unsaved: the sheet's value follows it (the disk has d_m = 36 mm).
+  std::string wider = kScrewTemplate;
+  wider.replace(wider.find("36 mm"), 5, "72 mm");
+  changeWhole(c, f.screw_uri, 3, wider);
+  CHECK(c.diagnostics(f.sheet_uri) == json::array());
+  const json hints = c.result("textDocument/inlayHint",
+                              {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(3, 0, 3, 99)}});
+  REQUIRE(hints.size() == 1);
+  CHECK(hints[0]["label"] == "= 162.0 N*m");  // twice the 81 N*m of 36 mm
+  // Closing the template: the sheets read the disk again.
+  c.notify("textDocument/didClose", {{"textDocument", {{"uri", f.screw_uri}}}});
+  const json again = c.result("textDocument/inlayHint",
+                              {{"textDocument", {{"uri", f.sheet_uri}}}, {"range", range(3, 0, 3, 99)}});
+  REQUIRE(again.size() == 1);
+  CHECK(again[0]["label"] == "= 81.00 N*m");
+  // A sheet that does not use the edited file is not recalculated.
+  const int recalcs = c.server.recalculations();
+  c.open("x = 1 m\n", "file://" + f.dir + "/other.calc");
+  changeWhole(c, "file://" + f.dir + "/other.calc", 2, "x = 2 m\n");
+  CHECK(c.server.recalculations() == recalcs + 2);
+}
+
+TEST_CASE("lsp use: a template that cannot be read, and requests on its use line", "[lsp][use][errors]") {
+  const UseFolder f;
+  const std::string sheet = "use missing.calc as m with F = 2 kN\ny = m.T_raise\n";
+  Client c;
+  c.open(sheet, f.sheet_uri);
+  const json diags = c.diagnostics(f.sheet_uri);
+  REQUIRE(diags.size() >= 1);
+  CHECK_THAT(diags[0]["message"].get<std::string>(),
+             Catch::StartsWith("cannot read the template `missing.calc`"));
+  CHECK(diags[0]["range"] == range(0, 4, 0, 16));
+  // No template, no place to go; the binding's parameter and the dotted name neither.
+  for (int col = 0; col < 36; ++col) {
+    INFO("column " << col);
+    CHECK(c.result("textDocument/definition", textPos(0, col, f.sheet_uri)).is_null());
+  }
+  CHECK(c.result("textDocument/definition", textPos(1, 6, f.sheet_uri)).is_null());
+  CHECK(c.result("textDocument/hover", textPos(1, 6, f.sheet_uri))["contents"]["value"] ==
+        "`m.T_raise` is not defined in this worksheet\n");
+  // Opening the missing file in the editor (not saved) makes the sheet calculate.
+  c.open("param F [kN] = 1 kN\nT_raise [N*m] = F * 10 mm\n", "file://" + f.dir + "/missing.calc");
+  CHECK(c.diagnostics(f.sheet_uri) == json::array());
+  const json d = c.result("textDocument/definition", textPos(1, 6, f.sheet_uri));
+  CHECK(d["uri"] == "file://" + f.dir + "/missing.calc");
+  CHECK(d["range"] == range(1, 0, 1, 7));
+}

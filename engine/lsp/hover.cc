@@ -118,6 +118,21 @@ nlohmann::json hover(const Analysis& a, const Document& doc, uint32_t offset) {
       break;
     case Symbol::CheckDef: text = checkHover(a, s->index); break;
     case Symbol::FunctionCall: text = functionHover(s->name); break;
+    case Symbol::UsePath:
+    case Symbol::UseInstance: {
+      const int inst = a.instanceOfUse(s->index);
+      if (inst < 0) break;
+      const Instance& in = a.calc->sheet.instances[static_cast<size_t>(inst)];
+      text = "**instance " + in.name + "** of `" + in.path + "`";
+      if (!in.title.empty()) text += ": " + in.title;
+      text += "\n";
+      break;
+    }
+    case Symbol::UseParam: {
+      const int q = a.instanceQuantity(a.instanceOfUse(s->index), s->name);
+      if (q >= 0) text = quantityHover(a, q);
+      break;
+    }
   }
   if (text.empty()) return nullptr;
   return {{"contents", {{"kind", "markdown"}, {"value", text}}},

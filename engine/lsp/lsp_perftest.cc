@@ -1,8 +1,10 @@
 // lsp_perftest: a benchmark program, not a test. The time from a didChange
 // (one keystroke: a digit of a given value changed) to its published
 // diagnostics, through the server's message API (JSON in, JSON out), on
-// worksheets/twin-screw-lift.calc and on a generated 10k-line sheet; and a
-// burst of edits read together, which costs one recalculation.
+// worksheets/twin-screw-lift.calc, on worksheets/platform-lift.calc (three
+// instances of two templates, read at every edit) and on a generated
+// 10k-line sheet; and a burst of edits read together, which costs one
+// recalculation.
 //
 //   lsp_perftest [--rounds N] [--worksheets DIR]
 //
@@ -11,6 +13,7 @@
 #include <chrono>
 #include <cstdio>
 #include <cstring>
+#include <filesystem>
 #include <string>
 #include <vector>
 
@@ -34,14 +37,15 @@ void send(lsp::Server* s, const json& m) {
   s->receive(lsp::dump(m));
 }
 
-json didChange(int version, int line, int character, const std::string& old_text, const std::string& text) {
+json didChange(const std::string& uri, int version, int line, int character, const std::string& old_text,
+               const std::string& text) {
   const json range = {
       {"start", {{"line", line}, {"character", character}}},
       {"end", {{"line", line}, {"character", character + static_cast<int>(old_text.size())}}}};
   return {{"jsonrpc", "2.0"},
           {"method", "textDocument/didChange"},
           {"params",
-           {{"textDocument", {{"uri", kUri}, {"version", version}}},
+           {{"textDocument", {{"uri", uri}, {"version", version}}},
             {"contentChanges", json::array({{{"range", range}, {"text", text}}})}}}};
 }
 
@@ -77,14 +81,15 @@ struct Figures {
 };
 
 // Times `rounds` edits of the text `value` at (line, character), alternating with `other`.
+// `uri` names the sheet (its folder is where its templates are read from).
 Figures measure(const std::string& text, int line, int character, const std::string& value,
-                const std::string& other, int rounds) {
+                const std::string& other, int rounds, const std::string& uri = kUri) {
   lsp::Server server;
   send(&server,
        {{"jsonrpc", "2.0"}, {"id", 1}, {"method", "initialize"}, {"params", {{"capabilities", {}}}}});
   send(&server, {{"jsonrpc", "2.0"},
                  {"method", "textDocument/didOpen"},
-                 {"params", {{"textDocument", {{"uri", kUri}, {"version", 1}, {"text", text}}}}}});
+                 {"params", {{"textDocument", {{"uri", uri}, {"version", 1}, {"text", text}}}}}});
   server.flush();
   if (published(server.takeOutgoing()) != 0) {
     std::fprintf(stderr, "lsp_perftest: the sheet has diagnostics\n");
@@ -95,7 +100,7 @@ Figures measure(const std::string& text, int line, int character, const std::str
   for (int r = 0; r < rounds; ++r) {
     const bool odd = r % 2 == 0;
     const double t = now();
-    send(&server, didChange(++version, line, character, odd ? value : other, odd ? other : value));
+    send(&server, didChange(uri, ++version, line, character, odd ? value : other, odd ? other : value));
     server.flush();
     const long n = published(server.takeOutgoing());
     ms.push_back((now() - t) * 1e3);
@@ -114,7 +119,8 @@ Figures measure(const std::string& text, int line, int character, const std::str
   const std::string current = rounds % 2 == 0 ? value : other;
   const double t = now();
   for (int k = 0; k < 10; ++k)
-    send(&server, didChange(++version, line, character, k % 2 ? other : current, k % 2 ? current : other));
+    send(&server,
+         didChange(uri, ++version, line, character, k % 2 ? other : current, k % 2 ? current : other));
   server.flush();
   published(server.takeOutgoing());
   f.burst_ms = (now() - t) * 1e3;
@@ -122,7 +128,7 @@ Figures measure(const std::string& text, int line, int character, const std::str
   f.calc_ms = 1e300;
   for (int k = 0; k < 3; ++k) {
     const double t0 = now();
-    auto c = Calculation::fromText("sheet.calc", text);
+    auto c = Calculation::fromText(lsp::pathFromUri(uri), text);  // its templates beside it
     f.calc_ms = std::min(f.calc_ms, (now() - t0) * 1e3);
   }
   return f;
@@ -162,6 +168,23 @@ int main(int argc, char** argv) {
               "recalcs", "fromText");
   print("twin-screw-lift.calc", static_cast<size_t>(std::count(text.begin(), text.end(), '\n')),
         measure(text, line, character, "4200", "4300", rounds));
+  // A sheet with `use` lines: three instances of two templates, read from the disk at each edit.
+  const std::string platform_path = dir + "/platform-lift.calc";
+  std::string platform;
+  if (!readFile(platform_path, &platform, &error)) {
+    std::fprintf(stderr, "lsp_perftest: %s\n", error.c_str());
+    return 2;
+  }
+  const size_t payload = platform.find("m_payload = 1500 kg");
+  if (payload == std::string::npos) {
+    std::fprintf(stderr, "lsp_perftest: platform-lift.calc has no `m_payload = 1500 kg`\n");
+    return 2;
+  }
+  const int payload_line =
+      static_cast<int>(std::count(platform.begin(), platform.begin() + static_cast<long>(payload), '\n'));
+  print("platform-lift.calc", static_cast<size_t>(std::count(platform.begin(), platform.end(), '\n')),
+        measure(platform, payload_line, 12, "1500", "1600", rounds,
+                lsp::uriFromPath(std::filesystem::absolute(platform_path).string())));
   const int blocks = 10000 / static_cast<int>(demo->sheet.quantities.size()) + 1;
   size_t lines = 0;
   const std::string large = largeSheet(*demo, blocks, &lines);

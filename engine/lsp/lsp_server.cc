@@ -1,5 +1,8 @@
 #include "engine/lsp/lsp_server.h"
 
+#include <cctype>
+#include <cstring>
+#include <filesystem>
 #include <stdexcept>
 
 #include "engine/lsp/completion.h"
@@ -10,6 +13,7 @@
 #include "engine/lsp/navigation.h"
 #include "engine/lsp/protocol_json.h"
 #include "engine/review/sheet_format.h"
+#include "engine/template/template_path.h"
 
 namespace calctrail::lsp {
 
@@ -50,6 +54,28 @@ std::string pathFromUri(const std::string& uri) {
       i += 2;
     } else {
       out += uri[i];
+    }
+  }
+  return out;
+}
+
+std::string uriFromPath(const std::string& path) {
+  std::string absolute = path;
+  if (!absolute.empty() && absolute[0] != '/') {
+    std::error_code ec;
+    absolute = std::filesystem::absolute(path, ec).lexically_normal().string();
+    if (ec) absolute = path;
+  }
+  static const char* const kHex = "0123456789ABCDEF";
+  std::string out = "file://";
+  for (const char ch : absolute) {
+    const unsigned char c = static_cast<unsigned char>(ch);
+    if (std::isalnum(c) || std::strchr("/-._~", ch)) {
+      out += ch;
+    } else {
+      out += '%';
+      out += kHex[c >> 4];
+      out += kHex[c & 0xf];
     }
   }
   return out;
@@ -221,6 +247,8 @@ void Server::didOpen(const json& params) {
   docs_.erase(uri);
   OpenDocument& d = docs_.try_emplace(uri, Document(uri, text, version), pathFromUri(uri)).first->second;
   d.generation = 1;
+  buffers_.open(d.path, &d.doc);
+  touchDependents(d);
 }
 
 void Server::didChange(const json& params) {
@@ -236,11 +264,26 @@ void Server::didChange(const json& params) {
   }
   d->doc.setVersion(params.at("textDocument").value("version", d->doc.version()));
   ++d->generation;
+  touchDependents(*d);
+}
+
+void Server::touchDependents(const OpenDocument& changed) {
+  const std::string path = normalizePath(changed.path);
+  for (auto& [uri, d] : docs_) {
+    if (&d == &changed || !d.analysis) continue;
+    // A sheet not recalculated since its last change is recalculated anyway.
+    if (d.analyzed == d.generation && d.analysis->templates.count(path)) ++d.generation;
+  }
 }
 
 void Server::didClose(const json& params) {
   const std::string uri = params.at("/textDocument/uri"_json_pointer);
-  if (docs_.erase(uri) == 0) return;
+  const auto it = docs_.find(uri);
+  if (it == docs_.end()) return;
+  // The sheets using it read the file from the disk again.
+  buffers_.close(it->second.path);
+  touchDependents(it->second);
+  docs_.erase(it);
   // Clear what the editor shows for the closed file.
   out_.push_back(
       notification("textDocument/publishDiagnostics", {{"uri", uri}, {"diagnostics", json::array()}}));
@@ -248,7 +291,7 @@ void Server::didClose(const json& params) {
 
 const Analysis& Server::analysisOf(OpenDocument* d) {
   if (!d->analysis || d->analyzed != d->generation) {
-    d->analysis = std::make_unique<Analysis>(d->doc, d->path);
+    d->analysis = std::make_unique<Analysis>(d->doc, d->path, &buffers_);
     d->analyzed = d->generation;
     ++recalculations_;
   }

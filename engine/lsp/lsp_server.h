@@ -7,6 +7,10 @@
 // when its diagnostics are published (flush(), which the transport calls
 // once no more input is waiting) or when a request needs its values. So a
 // burst of didChange messages costs one recalculation, of the newest text.
+//
+// Templates: every calculation reads the files its `use` lines name through
+// the open documents first (BufferSource), and an edit of an open document
+// also recalculates the open sheets that use it, directly or nested.
 #pragma once
 
 #include <cstdint>
@@ -19,6 +23,7 @@
 #include <nlohmann/json.hpp>
 
 #include "engine/lsp/analysis.h"
+#include "engine/lsp/buffer_source.h"
 #include "engine/lsp/document.h"
 
 namespace calctrail::lsp {
@@ -72,9 +77,13 @@ class Server {
   const Analysis& analysisOf(OpenDocument* d);
   void publish(OpenDocument* d);
   void log(const std::string& message);
+  // Marks for recalculation every other open document whose templates include `changed`.
+  void touchDependents(const OpenDocument& changed);
   nlohmann::json formatting(OpenDocument* d);
 
   std::map<std::string, OpenDocument> docs_;
+  // The open documents as the files templates are read from (their unsaved text first).
+  BufferSource buffers_;
   std::vector<nlohmann::json> out_;
   bool initialized_ = false, shutdown_ = false, exited_ = false;
   bool inlay_refresh_ = false;  // the client asks to be told when hints change
@@ -84,5 +93,7 @@ class Server {
 
 // The file path of a `file://` URI (percent-decoded); other URIs as given.
 std::string pathFromUri(const std::string& uri);
+// The `file://` URI of a path (made absolute, percent-encoded where a URI must be).
+std::string uriFromPath(const std::string& path);
 
 }  // namespace calctrail::lsp

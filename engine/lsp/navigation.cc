@@ -2,6 +2,7 @@
 
 #include <cctype>
 
+#include "engine/lsp/lsp_server.h"
 #include "engine/lsp/protocol_json.h"
 #include "engine/util/utf8.h"
 
@@ -45,11 +46,44 @@ bool isValidName(const std::string& name) {
   return true;
 }
 
-nlohmann::json definition(const Analysis& a, const Document& doc, uint32_t offset) {
-  const Symbol* s = quantityAt(a, offset);
-  if (!s) return nullptr;
-  const Quantity& q = a.calc->sheet.quantities[s->index];
+// The Location of bytes [begin, end) of a template file, its columns counted in its own text.
+nlohmann::json templateLocation(const SourceFile& file, uint32_t begin, uint32_t end) {
+  const std::string uri = uriFromPath(file.path());
+  const Document text(uri, file.bytes(), 0);
+  return location(uri, rangeOf(text, begin, end));
+}
+
+// The definition of quantity `i`: in the sheet, or in the template an instance's comes from.
+nlohmann::json quantityDefinition(const Analysis& a, const Document& doc, int i) {
+  const Quantity& q = a.calc->sheet.quantities[static_cast<size_t>(i)];
+  if (q.file) return templateLocation(*q.file, q.name_begin, q.name_end);
   return location(doc.uri(), rangeOf(doc, q.name_begin, q.name_end));
+}
+
+nlohmann::json definition(const Analysis& a, const Document& doc, uint32_t offset) {
+  if (!a.calc) return nullptr;
+  const Symbol* s = a.at(offset);
+  if (!s) return nullptr;
+  switch (s->kind) {
+    case Symbol::QuantityDef:
+    case Symbol::QuantityUse: return s->index >= 0 ? quantityDefinition(a, doc, s->index) : nullptr;
+    case Symbol::UsePath:
+    case Symbol::UseInstance: {
+      // The start of the template file; only when the loader could read it.
+      const int inst = a.instanceOfUse(s->index);
+      if (inst < 0) return nullptr;
+      const Position start{0, 0};
+      return location(uriFromPath(a.templatePath(inst)), Range{start, start});
+    }
+    case Symbol::UseParam: {
+      const int q = a.instanceQuantity(a.instanceOfUse(s->index), s->name);
+      if (q < 0 || !a.calc->sheet.quantities[static_cast<size_t>(q)].param) return nullptr;
+      return quantityDefinition(a, doc, q);
+    }
+    case Symbol::CheckDef:
+    case Symbol::FunctionCall: return nullptr;
+  }
+  return nullptr;
 }
 
 nlohmann::json references(const Analysis& a, const Document& doc, uint32_t offset, bool with_declaration) {
@@ -65,7 +99,8 @@ nlohmann::json references(const Analysis& a, const Document& doc, uint32_t offse
 
 nlohmann::json prepareRename(const Analysis& a, const Document& doc, uint32_t offset) {
   const Symbol* s = quantityAt(a, offset);
-  if (!s) return nullptr;
+  // An instance's quantity is renamed in its template, where the other instances read it too.
+  if (!s || a.calc->sheet.quantities[static_cast<size_t>(s->index)].instance >= 0) return nullptr;
   return {{"range", toJson(rangeOf(doc, s->begin, s->end))}, {"placeholder", s->name}};
 }
 
@@ -73,6 +108,12 @@ RenameResult rename(const Analysis& a, const Document& doc, uint32_t offset, con
   RenameResult r;
   const Symbol* s = quantityAt(a, offset);
   if (!s) return r;
+  const Quantity& q = a.calc->sheet.quantities[static_cast<size_t>(s->index)];
+  if (q.instance >= 0) {
+    r.error = "`" + q.name + "` is defined in the template " + q.file->path() +
+              "; rename it there, in the template's own names";
+    return r;
+  }
   if (!isValidName(new_name)) {
     r.error = "`" + new_name + "` is not a name: a letter, then letters, digits or `_`";
     return r;
