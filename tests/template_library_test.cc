@@ -5,6 +5,7 @@
 // column. And the demo that uses one template twice.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 
 #include "tests/test_support.h"
@@ -87,6 +88,101 @@ TEST_CASE("worm reducer, motor choice and column check templates", "[template][l
   CHECK(si(*col, "s_ratio") > si(*col, "s_transition"));
   CHECK(si(*col, "F_crit") == Approx(1 * M_PI * M_PI * 210e9 * I / (2.0 * 2.0)).epsilon(1e-9));
   CHECK(si(*col, "n_buckle") == Approx(si(*col, "F_crit") / 5000));
+}
+
+namespace {
+
+// A duty of two different steps, so that the cubic mean, the mean speed and
+// the top speed each differ from a single step's value.
+const std::vector<std::string> kBallScrewAxis = {
+    "F_1=4000 N", "n_1=300 rpm", "q_1=0.25", "F_2=1000 N", "n_2=600 rpm", "q_2=0.5", "F_max=6 kN",
+    "d_0=32 mm", "d_r=27.2 mm", "l=10 [mm/rev]", "C_a=30 kN", "C_0a=60 kN", "R=95 %", "L=1200 mm",
+    "i=2", "eta_rb=0.95", "T_brake_rated=20 [N*m]"};
+
+bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+// The axis with some of its values replaced (--set refuses a name given twice).
+std::vector<std::string> axisWith(const std::vector<std::string>& changes) {
+  std::vector<std::string> sets = kBallScrewAxis;
+  for (const std::string& change : changes) {
+    const std::string name = change.substr(0, change.find('='));
+    auto same = std::find_if(sets.begin(), sets.end(), [&](const std::string& s) { return s.rfind(name + "=", 0) == 0; });
+    if (same != sets.end()) *same = change;
+    else sets.push_back(change);
+  }
+  return sets;
+}
+
+std::string setArgs(const std::vector<std::string>& sets) {
+  std::string args;
+  for (const std::string& s : sets) args += " --set '" + s + "'";
+  return args;
+}
+
+}  // namespace
+
+TEST_CASE("ball screw stage: torques, life, speeds and brake against a hand derivation", "[template][library]") {
+  auto c = library("ball-screw-stage.calc", kBallScrewAxis);
+  const double F1 = 4000, n1 = 300, q1 = 0.25, F2 = 1000, n2 = 600, q2 = 0.5;  // N, rpm
+  const double l = 0.010, d0 = 0.032, dr = 0.0272, Ca = 30000, L = 1.2, rpm = 2 * M_PI / 60;
+  // Energy balance over one turn: T*2*pi*eta = F*l.
+  const double T_pre = 0.05 / std::sqrt(l / (M_PI * d0)) * (0.03 * Ca) * l / (2 * M_PI);  // makers' estimate
+  CHECK(si(*c, "T_pre") == Approx(T_pre).epsilon(1e-12));
+  CHECK(si(*c, "T_drive") == Approx(F1 * l / (2 * M_PI * 0.9) + T_pre).epsilon(1e-12));
+  const double T_back = F1 * l * 0.9 / (2 * M_PI);
+  CHECK(si(*c, "T_back") == Approx(T_back).epsilon(1e-12));
+  // The brake holds the back-driving torque through the 2:1 reduction driven backwards, times 2.
+  CHECK(si(*c, "T_brake") == Approx(2 * T_back * 0.95 / 2).epsilon(1e-12));
+  CHECK(si(*c, "n_static") == Approx(60000.0 / 6000));
+  // ISO 3408-5 (from memory): Fm is the cube root of sum F^3*n*q over sum n*q, the
+  // adjusted life a1*(Ca/(fw*Fm))^3 million revolutions, a1 = 0.62 at 95 %.
+  const double Fm = std::cbrt((F1 * F1 * F1 * n1 * q1 + F2 * F2 * F2 * n2 * q2) / (n1 * q1 + n2 * q2));
+  CHECK(si(*c, "F_m") == Approx(Fm).epsilon(1e-12));
+  CHECK(si(*c, "a_1") == Approx(0.62));
+  const double revs = 0.62 * std::pow(Ca / (1.2 * Fm), 3) * 1e6;
+  const double n_m = n1 * q1 + n2 * q2;
+  CHECK(si(*c, "n_m") == Approx(n_m * rpm).epsilon(1e-12));
+  CHECK(si(*c, "L_rev") == Approx(revs * 2 * M_PI).epsilon(1e-12));
+  CHECK(si(*c, "L_h") == Approx(revs / n_m * 60).epsilon(1e-12));  // seconds
+  CHECK(si(*c, "L_km") == Approx(revs * l).epsilon(1e-12));
+  // First bending mode of a uniform shaft (Euler-Bernoulli beam, fixed-supported eigenvalue
+  // 3.927): omega = lambda^2/L^2 * sqrt(E*I/(rho*A)) with I = pi*dr^4/64, A = pi*dr^2/4.
+  const double I = M_PI * std::pow(dr, 4) / 64, A = M_PI * dr * dr / 4;
+  CHECK(si(*c, "n_crit") == Approx(3.927 * 3.927 / (L * L) * std::sqrt(206e9 * I / (7850 * A))).epsilon(1e-12));
+  CHECK(si(*c, "n_dn") == Approx(70000.0 / 32 * rpm).epsilon(1e-12));  // d*n in mm*rpm
+  CHECK(si(*c, "n_top") == Approx(n2 * rpm));
+  CHECK(c->allChecksPass());
+
+  // Without losses the screw is a perfect wedge: T = F*l/(2*pi) both ways.
+  auto ideal = library("ball-screw-stage.calc", axisWith({"eta=1", "eta_b=1"}));
+  CHECK(si(*ideal, "T_drive") - si(*ideal, "T_pre") == Approx(F1 * l / (2 * M_PI)).epsilon(1e-12));
+  CHECK(si(*ideal, "T_back") == Approx(F1 * l / (2 * M_PI)).epsilon(1e-12));
+
+  // The basic rating life's definition (ISO 3408-5): at the rated load, 90 % reliability and
+  // fw = 1 a screw makes one million revolutions.
+  auto rated = library("ball-screw-stage.calc", axisWith({"F_1=30 kN", "F_2=30 kN", "R=90 %", "f_w=1"}));
+  CHECK(si(*rated, "L_rev") == Approx(1e6 * 2 * M_PI).epsilon(1e-12));
+  CHECK(si(*rated, "L_km") == Approx(1e6 * l).epsilon(1e-12));
+}
+
+TEST_CASE("ball screw stage runs on its own: check and report with its defaults", "[template][library]") {
+  Run ok = runCli("check worksheets/templates/ball-screw-stage.calc" + setArgs(kBallScrewAxis));
+  INFO(ok.out << ok.err);
+  CHECK(ok.status == 0);
+  Run report = runCli("report worksheets/templates/ball-screw-stage.calc --format json" + setArgs(kBallScrewAxis));
+  CHECK(report.status == 0);
+  CHECK(contains(report.out, "\"name\": \"L_h\""));
+  // Only the parameters no default can stand for are required; each is named.
+  Run bare = runCli("check worksheets/templates/ball-screw-stage.calc");
+  CHECK(bare.status == 2);
+  for (const char* name : {"F_1", "n_1", "d_0", "d_r", "l", "C_a", "C_0a", "L", "T_brake_rated"})
+    CHECK(contains(bare.err, std::string("the parameter `") + name + "` has no default"));
+  CHECK(count(bare.err, "has no default") == 9);
+  // A brake too small for the load fails its check, and only that one.
+  Run fails = runCli("check worksheets/templates/ball-screw-stage.calc" + setArgs(axisWith({"T_brake_rated=5 [N*m]"})));
+  CHECK(fails.status == 1);
+  CHECK(contains(fails.out, "error: check `brake` fails"));
+  CHECK(count(fails.out, "error: check `") == 1);
 }
 
 TEST_CASE("templates of templates: the twin-screw drive uses the screw stage twice", "[template][library]") {
