@@ -66,6 +66,11 @@ TEST_CASE("Acme screw stage: the 1 in size, and the frictionless limit", "[templ
   CHECK(si(*c, "d_m") == Approx(0.9 * in));
   CHECK(si(*c, "d_r") == Approx(0.8 * in));
   const double F = 3000 * 4.4482216152605, l = 0.2 * in;
+  // Self-locking margin f - tan(lambda)*cos(alpha) (the sign of torque_lower, from the friction-angle
+  // form), and the threads that spread F over flanks of depth p/2 at p_allow = 2500 psi.
+  const double dm = 0.9 * in, alpha = 14.5 * M_PI / 180, psi = 4.4482216152605 / (in * in);
+  CHECK(si(*c, "margin") == Approx(0.10 - l / (M_PI * dm) * std::cos(alpha)).epsilon(1e-12));
+  CHECK(si(*c, "n_needed") == Approx(F / (M_PI * dm * (0.2 * in / 2) * 2500 * psi)).epsilon(1e-12));
   auto ideal = library("acme-screw-stage.calc", {"F=3000 lbf", "f=0", "f_c=0", "f_low=0"});
   CHECK(si(*ideal, "T_raise") == Approx(F * l / (2 * M_PI)).epsilon(1e-12));
   CHECK(si(*ideal, "eta") == Approx(1.0));
