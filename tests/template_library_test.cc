@@ -50,6 +50,19 @@ TEST_CASE("trapezoidal screw stage: thread of the series, frictionless limit, fr
   CHECK(si(*same, "T_thread") - si(*same, "T_lower") ==
         Approx(F * dm / 2 * (std::tan(lambda + phi) - std::tan(phi - lambda))).epsilon(1e-12));
 
+  // A start from rest: the thread at a starting friction, the collar an annular washer under
+  // uniform pressure, Tc = F*fc*(Do^3 - Di^3)/(3*(Do^2 - Di^2)) (Shigley, Sec. 8-2, from memory);
+  // the efficiency stays the running one.
+  auto start = library("trapezoidal-screw-stage.calc",
+                       {"F=20 kN", "f_start=0.16", "T_collar=collar_torque_uniform_pressure(F, f_c, 80 mm, 50 mm)"});
+  const double phi_start = std::atan(0.16 / std::cos(alpha));
+  CHECK(si(*start, "T_thread") == Approx(F * dm / 2 * std::tan(lambda + phi_start)).epsilon(1e-12));
+  const double Do = 0.080, Di = 0.050;
+  CHECK(si(*start, "T_collar") ==
+        Approx(F * 0.10 * (Do * Do * Do - Di * Di * Di) / (3 * (Do * Do - Di * Di))).epsilon(1e-12));
+  CHECK(si(*start, "eta") == si(*c, "eta"));
+  CHECK(si(*start, "tau") > si(*c, "tau"));  // the torsion of the breakaway torque
+
   // Without friction the screw is a perfect wedge: T = F*l/(2*pi) both ways, efficiency 1.
   auto ideal = library("trapezoidal-screw-stage.calc", {"F=20 kN", "f=0", "f_low=0", "f_c=0"});
   CHECK(si(*ideal, "T_raise") == Approx(F * l / (2 * M_PI)).epsilon(1e-12));
