@@ -60,8 +60,25 @@ TEST_CASE("trapezoidal screw stage: thread of the series, frictionless limit, fr
   const double Do = 0.080, Di = 0.050;
   CHECK(si(*start, "T_collar") ==
         Approx(F * 0.10 * (Do * Do * Do - Di * Di * Di) / (3 * (Do * Do - Di * Di))).epsilon(1e-12));
-  CHECK(si(*start, "eta") == si(*c, "eta"));
   CHECK(si(*start, "tau") > si(*c, "tau"));  // the torsion of the breakaway torque
+  // The efficiency is work out over work in per turn at the running friction, whatever the
+  // collar: F*l / (2*pi*(F*dm/2*tan(lambda + phi) + T_collar)).
+  CHECK(si(*c, "eta") == Approx(F * l / (2 * M_PI * (F * dm / 2 * std::tan(lambda + phi) + F * 0.10 * 0.030)))
+                             .epsilon(1e-12));
+  const double Tc_start = F * 0.10 * (Do * Do * Do - Di * Di * Di) / (3 * (Do * Do - Di * Di));
+  CHECK(si(*start, "eta") ==
+        Approx(F * l / (2 * M_PI * (F * dm / 2 * std::tan(lambda + phi) + Tc_start))).epsilon(1e-12));
+
+  // A screw pulled while raising is a column only under its closing thrust F_col: a long
+  // pinned column is Euler's, F_crit = pi^2*E*I/L^2 with I = pi*dr^4/64.
+  auto pulled = library("trapezoidal-screw-stage.calc", {"F=20 kN", "F_col=5 kN", "L_col=3000 mm", "C_end=1"});
+  const double I = M_PI * std::pow(0.032, 4) / 64;
+  CHECK(si(*pulled, "n_buckle") == Approx(M_PI * M_PI * 210e9 * I / (3.0 * 3.0) / 5000).epsilon(1e-9));
+  // The margin asked against yield is a parameter (3 by default).
+  auto strict = library("trapezoidal-screw-stage.calc", {"F=20 kN", "n_yield_min=" + std::to_string(si(*c, "n_yield") + 0.1)});
+  CHECK(si(*strict, "n_yield") == si(*c, "n_yield"));
+  CHECK_FALSE(strict->checks[1].passed);
+  CHECK(c->checks[1].passed);
 
   // Without friction the screw is a perfect wedge: T = F*l/(2*pi) both ways, efficiency 1.
   auto ideal = library("trapezoidal-screw-stage.calc", {"F=20 kN", "f=0", "f_low=0", "f_c=0"});

@@ -302,5 +302,5 @@ TEST_CASE("an instance is a part of its own: heading, parameters with their valu
   REQUIRE_FALSE(set->hasErrors());
   const Trail ts = buildTrail(*set, 4);
   CHECK(contains(renderMarkdown(ts), "| `f` | 0.15 | *set on the command line* |\n"));
-  CHECK(contains(renderText(ts), "  f          0.15         [set on the command line]\n"));
+  CHECK(contains(renderText(ts), "  f            0.15         [set on the command line]\n"));
 }
