@@ -12,6 +12,8 @@
 #include <vector>
 
 #include "engine/sheet/sheet_parser.h"
+#include "engine/template/template_loader.h"
+#include "engine/util/sha256.h"
 #include "tests/test_support.h"
 
 using namespace calctrail;
@@ -20,11 +22,15 @@ using calctrail::test::repoPath;
 
 namespace {
 
+// The demo's model with its templates expanded, as Calculation builds it.
 std::unique_ptr<const Model> buildDemo(const std::string& name) {
   Diagnostics diags;
-  auto m = Model::build(
-      parseSheet(std::make_shared<SourceFile>(name, readFile(repoPath("worksheets/" + name))), &diags),
-      &diags);
+  const std::string path = repoPath("worksheets/" + name);
+  const std::string bytes = readFile(path);
+  Sheet sheet = parseSheet(std::make_shared<SourceFile>(name, bytes), &diags);
+  TemplateCache cache;
+  expandTemplates(&sheet, path, sha256Hex(bytes), diskSource(), &cache, &diags);
+  auto m = Model::build(std::move(sheet), &diags);
   REQUIRE_FALSE(diags.hasErrors());
   return m;
 }

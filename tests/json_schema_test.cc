@@ -173,7 +173,9 @@ TEST_CASE("a --set run's JSON follows the schema and lists every replacement", "
 TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][schema]") {
   for (const char* sheet : {"canal-gate-hoist", "leveling-jack", "twin-screw-lift", "bearing-press", "ball-screw-axis"}) {
     const std::string path = std::string("worksheets/") + sheet + ".calc";
-    auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)));
+    calctrail::CalcOptions options;
+    options.source_path = repoPath(path);  // its templates are found beside it, from any folder
+    auto c = calctrail::Calculation::fromText(path, readFile(repoPath(path)), options);
     REQUIRE_FALSE(c->hasErrors());
     Run r = runCli("report " + path + " --format json");
     REQUIRE(r.status == 0);

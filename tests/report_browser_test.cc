@@ -75,7 +75,9 @@ size_t printAndRead(const std::string& demo_name) {
   REQUIRE(have("pdfinfo"));
 
   const std::string display = "worksheets/" + demo_name + ".calc";
-  auto calc = Calculation::fromText(display, readFile(repoPath(display)));
+  CalcOptions options;
+  options.source_path = repoPath(display);  // its templates are found beside it, from any folder
+  auto calc = Calculation::fromText(display, readFile(repoPath(display)), options);
   REQUIRE_FALSE(calc->hasErrors());
   const Trail t = buildTrail(*calc, 4);
 

@@ -3,6 +3,8 @@
 // recipe of docs/review.md, and the repository's own .gitattributes.
 #include <catch2/catch.hpp>
 
+#include <filesystem>
+
 #include <cstdlib>
 #include <sstream>
 #include <sys/stat.h>
@@ -208,11 +210,14 @@ TEST_CASE("textconv marks its lines with #=, and its text is still the same work
   const std::string dir = tempDir();
   const std::string sheet = readFile(repoPath("worksheets/canal-gate-hoist.calc"));
   writeFile(dir + "/gate.calc", sheet);
+  std::filesystem::create_directories(dir + "/templates");  // the templates the gate uses, beside it
+  for (const char* used : {"templates/trapezoidal-screw-stage.calc", "templates/motor-choice.calc"})
+    writeFile(dir + "/" + used, readFile(repoPath(std::string("worksheets/") + used)));
   Run r = runCliIn(dir, "textconv gate.calc");
   REQUIRE(r.status == 0);
-  CHECK(r.out.rfind("#= calctrail: 6 checks, all PASS\n", 0) == 0);
-  CHECK(r.out.find("\n#= T_raise = 84.416 N\u00b7m\n") != std::string::npos);
-  CHECK(r.out.find("\n#= check motor_power: PASS  0.76888 kW <= 1.1 kW\n") != std::string::npos);
+  CHECK(r.out.rfind("#= calctrail: 7 checks, all PASS\n", 0) == 0);
+  CHECK(r.out.find("\n#= T_bearing = 2.11784 N\u00b7m\n") != std::string::npos);
+  CHECK(r.out.find("\n#= check opening_time: PASS  3.82653 min <= 5 min\n") != std::string::npos);
   CHECK(r.out.find("#>") == std::string::npos);
   // Every line textconv adds starts with the mark; the others are the worksheet's, in order.
   std::istringstream added(r.out);

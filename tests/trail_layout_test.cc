@@ -86,7 +86,7 @@ TEST_CASE("a table lookup shows the row it found, never the whole table", "[repo
   }
   auto jack = demo("leveling-jack");
   const Trail j = buildTrail(*jack, 4);
-  CHECK(step(j, "p").calls.at(0).row == "Acme 1-5, ASME B1.5 table");
+  CHECK(step(j, "jack.p").calls.at(0).row == "Acme 1-5, ASME B1.5 table");
   // A call outside the table is never given a row it did not find.
   auto other = calc("P [kW] = standard_motor_power(4.9 kW)\nd = 50 mm\nq [mm] = trap_pitch(d)\n");
   INFO(diagnostics(*other));
@@ -302,5 +302,5 @@ TEST_CASE("an instance is a part of its own: heading, parameters with their valu
   REQUIRE_FALSE(set->hasErrors());
   const Trail ts = buildTrail(*set, 4);
   CHECK(contains(renderMarkdown(ts), "| `f` | 0.15 | *set on the command line* |\n"));
-  CHECK(contains(renderText(ts), "  f          0.15         [set on the command line]\n"));
+  CHECK(contains(renderText(ts), "  f            0.15         [set on the command line]\n"));
 }

@@ -81,10 +81,10 @@ TEST_CASE("vim: the syntax file loads in Neovim and names every kind of token", 
       {"W_leaf [kN]", "[kN]", "calcBracketUnit"},
       {"W_leaf [kN]", "*", "calcOperator"},
       {"W_leaf [kN]", "g_n", "calcVariable"},
-      {"p = trap_pitch", "trap_pitch", "calcFunction"},
-      {"check self_locking", "check", "calcCheckKey"},
-      {"check self_locking", "self_locking", "calcCheckName"},
-      {"check self_locking", ">", "calcOperator"},
+      {"T_bearing [N*m]", "thrust_bearing_torque", "calcFunction"},
+      {"check opening_time", "check", "calcCheckKey"},
+      {"check opening_time", "opening_time", "calcCheckName"},
+      {"check opening_time", "<=", "calcOperator"},
   };
   std::string calls;
   for (const Probe& p : probes) {

@@ -84,6 +84,7 @@ table.step-cases th, table.step-cases td { padding-right: 1.2em; }
 tr.case-values td { border-bottom: 0.25pt solid #999; padding-top: 0; }
 table.params { width: auto; margin: 0.2em 0 0.5em; font-size: 0.92em; }
 table.params td, table.params th { padding-right: 1.5em; }
+table.params th:nth-child(4), table.params td:nth-child(4) { padding-left: 1.5em; border-left: 1px solid #ccc; }
 table.instance-checks { margin: 0.4em 0 0.6em; }
 .source { font-style: italic; }
 .cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.3em; margin-top: 1em; break-inside: avoid;
@@ -561,15 +562,26 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
                       "</span></h3>\n",
                  esc(in.name), esc(in.title.empty() ? std::string("template") : in.title), esc(in.path));
   if (in.params.empty()) return;
-  fmt::format_to(out, "<table class=\"params\">\n<thead><tr><th>Parameter</th><th>Value</th><th>Bound by</th>"
-                      "</tr></thead>\n<tbody>\n");
-  for (const TrailInstanceParam& p : in.params) {
+  // A long list is set in two halves side by side (read down the left, then the right): on
+  // paper the table would otherwise fill a page with short rows.
+  const size_t count = in.params.size();
+  const size_t rows = count > 6 ? (count + 1) / 2 : count;
+  const char* const head = "<th>Parameter</th><th>Value</th><th>Bound by</th>";
+  fmt::format_to(out, "<table class=\"params\">\n<thead><tr>{}{}</tr></thead>\n<tbody>\n", head,
+                 rows < count ? head : "");
+  const auto cells = [&](const TrailInstanceParam& p) {
     const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
     const std::string from = s.overridden         ? std::string("<em>set on the command line</em>")
                              : p.binding.empty() ? std::string("<em>default</em>")
                                                  : "<code>" + esc(p.binding) + "</code>";
-    fmt::format_to(out, "<tr><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n", symbolCell(p.name),
+    fmt::format_to(out, "<td>{}</td><td class=\"value\">{}</td><td>{}</td>", symbolCell(p.name),
                    human(s.given ? *s.given : s.result), from);
+  };
+  for (size_t r = 0; r < rows; ++r) {
+    fmt::format_to(out, "<tr>");
+    cells(in.params[r]);
+    if (r + rows < count) cells(in.params[r + rows]);
+    fmt::format_to(out, "</tr>\n");
   }
   fmt::format_to(out, "</tbody>\n</table>\n");
 }

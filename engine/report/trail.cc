@@ -633,7 +633,16 @@ void addInstances(const Sheet& sheet, Trail* t) {
       else if (p.binding.empty()) params += " (default)";
       ti.params.push_back(std::move(tp));
     }
-    ti.steps = inst.quantities;
+    // A parameter bound to a number or to one name of the using sheet has its value and
+    // its binding in the table already: a step would repeat that row.
+    std::vector<bool> in_table(sheet.quantities.size(), false);
+    for (const InstanceParam& p : inst.params) {
+      const Quantity& q = sheet.quantities[static_cast<size_t>(p.quantity)];
+      const bool plain = q.expr && (q.expr->kind == ExprKind::Number || q.expr->kind == ExprKind::Name);
+      if (!p.binding.empty() && !q.overridden && plain) in_table[static_cast<size_t>(p.quantity)] = true;
+    }
+    for (int q : inst.quantities)
+      if (!in_table[static_cast<size_t>(q)]) ti.steps.push_back(q);
     ti.checks = inst.checks;
     const int at = static_cast<int>(t->instances.size());
     t->blocks.push_back({TrailBlock::Section, ti.heading, 0, at});

@@ -28,6 +28,8 @@
 
 #include "engine/model/evaluate.h"
 #include "engine/sheet/sheet_parser.h"
+#include "engine/template/template_loader.h"
+#include "engine/util/sha256.h"
 #include "engine/study/sweep.h"
 #include "engine/util/math_constants.h"
 
@@ -218,6 +220,14 @@ Figures measure(const Model& m, const Inputs& nominal, const Results& base, cons
   return f;
 }
 
+// The demo's model with its templates expanded, as Calculation builds it.
+std::unique_ptr<const Model> buildDemo(const std::string& path, const std::string& bytes, Diagnostics* diags) {
+  Sheet sheet = parseSheet(std::make_shared<SourceFile>(path, bytes), diags);
+  TemplateCache cache;
+  expandTemplates(&sheet, path, sha256Hex(bytes), diskSource(), &cache, diags);
+  return Model::build(std::move(sheet), diags);
+}
+
 int usage() {
   std::fprintf(stderr, "usage: sweep_perftest [--points N] [--worksheets DIR]\n");
   return 2;
@@ -250,7 +260,7 @@ int main(int argc, char** argv) {
     return 2;
   }
   Diagnostics diags;
-  auto model = Model::build(parseSheet(std::make_shared<SourceFile>(path, bytes), &diags), &diags);
+  auto model = buildDemo(path, bytes, &diags);
   if (diags.hasErrors()) {
     std::fprintf(stderr, "sweep_perftest: %s has errors\n", path.c_str());
     return 2;
