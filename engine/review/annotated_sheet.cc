@@ -3,6 +3,7 @@
 #include <map>
 
 #include "engine/report/number_format.h"
+#include "engine/report/trail.h"
 #include "engine/sheet/control_chars.h"
 
 namespace calctrail {
@@ -21,6 +22,12 @@ std::string result(double si, const Unit& unit, int digits) {
     if (mantissa.back() == '.') mantissa.pop_back();
   }
   return joinNumberUnit(mantissa + tail, unit.pretty());
+}
+
+// A side of a check: a literal as written ("20 ksi"), as the report shows it.
+std::string checkSide(const Expr& side, double si, const Unit& unit, int digits) {
+  if (std::optional<TrailValue> literal = writtenCheckSide(side, si, unit)) return valueText(*literal);
+  return result(si, unit, digits);
 }
 
 std::string checkSummary(const Calculation& calc) {
@@ -70,7 +77,8 @@ std::string annotatedSheet(const Calculation& calc, int digits) {
       const CheckState& s = calc.checks[st.index];
       const Check& c = calc.sheet.checks[st.index];
       out += mark + "check " + c.name + ": " + (s.passed ? "PASS  " : "FAIL  ") +
-             result(s.lhs, s.display, digits) + " " + comparisonText(c.op) + " " + result(s.rhs, s.display, digits) +
+             checkSide(*c.lhs, s.lhs, s.display, digits) + " " + comparisonText(c.op) + " " +
+             checkSide(*c.rhs, s.rhs, s.display, digits) +
              "\n";
     }
     auto [b, e] = by_line.equal_range(st.line);
