@@ -187,12 +187,15 @@ int main(int argc, char** argv) {
   diff_cmd->add_option("--rtol", diff.rtol, "Relative change below which a result has not moved")
       ->check(finiteNonNegative())
       ->default_str("1e-9");
+  diff_cmd->add_option("--set", diff.sets, "Replace NAME by VALUE on both sides, e.g. --set \"f=0.18\"")
+      ->type_name("NAME=VALUE")
+      ->allow_extra_args(false);
   diff_cmd->add_option("--digits", diff.digits, "Significant digits of the rounded values (1 to 15)")
       ->check(wholeNumberIn(1, 15))
       ->default_str("4");
   diff_cmd->footer(
-      "\nExit status: 0 no number moved; 1 a check flipped, a value moved beyond --rtol, or a quantity or\n"
-      "check came or went; 2 a side cannot be read or has errors.\n"
+      "\nExit status: 0 no number moved and no check fails; 1 a check flipped or still fails, a value moved\n"
+      "beyond --rtol, or a quantity or check came or went; 2 a side cannot be read or has errors.\n"
       "Examples:\n"
       "  calctrail diff HEAD~1:worksheets/gate.calc worksheets/gate.calc\n"
       "  calctrail diff main:gate.calc gate.calc --format md > review.md");

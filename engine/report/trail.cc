@@ -472,7 +472,7 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
 
 }  // namespace
 
-std::optional<TrailValue> writtenCheckSide(const Expr& side, double si, const Unit& unit) {
+std::optional<TrailValue> writtenLiteral(const Expr& side, double si, const Unit& unit) {
   const Expr* x = &side;
   while (x->kind == ExprKind::Group) x = x->args[0].get();
   if (x->kind != ExprKind::Number) return std::nullopt;
@@ -483,7 +483,7 @@ std::optional<TrailValue> writtenCheckSide(const Expr& side, double si, const Un
 }
 
 TrailValue checkSideValue(const Expr& side, double si, const Unit& unit, int digits) {
-  if (std::optional<TrailValue> literal = writtenCheckSide(side, si, unit)) return *literal;
+  if (std::optional<TrailValue> literal = writtenLiteral(side, si, unit)) return *literal;
   return rounded(si, unit, digits);
 }
 

@@ -335,8 +335,9 @@ void addStudies(const Calculation& calc, int digits, Trail* trail);
 // written stays as written; anything else as its value rounded to `digits` in
 // the check's `unit`. The TrailValue's `value` is in `unit` either way.
 TrailValue checkSideValue(const Expr& side, double si, const Unit& unit, int digits);
-// The same for a lone literal alone; nullopt for any other side.
-std::optional<TrailValue> writtenCheckSide(const Expr& side, double si, const Unit& unit);
+// A lone literal as the worksheet writes it, in its own unit; nullopt for
+// any other expression, or a plain number where `unit` is not dimensionless.
+std::optional<TrailValue> writtenLiteral(const Expr& side, double si, const Unit& unit);
 
 // A check's condition as the worksheet writes it: "T_lower > 0 [N*m]".
 std::string conditionText(const Check& check);

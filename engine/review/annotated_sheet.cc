@@ -26,7 +26,7 @@ std::string result(double si, const Unit& unit, int digits) {
 
 // A side of a check: a literal as written ("20 ksi"), as the report shows it.
 std::string checkSide(const Expr& side, double si, const Unit& unit, int digits) {
-  if (std::optional<TrailValue> literal = writtenCheckSide(side, si, unit)) return valueText(*literal);
+  if (std::optional<TrailValue> literal = writtenLiteral(side, si, unit)) return valueText(*literal);
   return result(si, unit, digits);
 }
 
