@@ -51,8 +51,8 @@ std::string tooLongMessage(const std::string& what, size_t length) {
          "); split it into named steps";
 }
 
-bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim,
-                      Diagnostics* diags) {
+bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const Sheet& sheet, const SourceFile& sheet_file,
+                      const Dimension& dim, Diagnostics* diags) {
   const UnitFit fit = fitUnit(dim, q.display->dim);
   if (fit == UnitFit::Incompatible) {
     diags->error(sheet_file, q.unit_begin, q.unit_end,
@@ -67,7 +67,9 @@ bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dim
     std::string msg = "`" + q.name + "` is declared in [" + q.unit_written + "], " +
                       q.display->dim.describe() + ", but its formula gives " + dim.describe() +
                       ": they differ by an angle, so the number shown would be off by 2*pi";
-    const std::string why = strayAngleWarning(q.name, dim);
+    // The same fix as the undeclared path gives (dimension_check): for a
+    // computed lead, thread_lead or `/ 1 [rev]`; for a literal, [mm/rev].
+    const std::string why = strayAngleWarning(q.name, dim, formula, sheet);
     if (!why.empty())
       msg += "; " + why.substr(why.find("): ") + 3);
     else if (dim.exponent(Base::Angle) < 0)
@@ -349,7 +351,7 @@ void Model::checkDimensions(Diagnostics* diags) {
     if (q.display) {
       s.declared = true;
       s.display = *q.display;
-      if (!fitsDeclaredUnit(q, sheet_->quantityFile(i), s.dim, own_diags.get())) {
+      if (!fitsDeclaredUnit(q, *q.expr, *sheet_, sheet_->quantityFile(i), s.dim, own_diags.get())) {
         known_[i] = 0;
         s.has_dim = false;
       }
