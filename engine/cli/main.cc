@@ -321,7 +321,7 @@ int main(int argc, char** argv) {
     // A mistake inside a subcommand points at that subcommand's options.
     CLI::App* sub = namedSubcommand(app, argc, argv);
     std::vector<std::string> unknown;
-    if (sub) unknown = unknownOptions(*sub, argc, argv);
+    if (sub && dynamic_cast<const CLI::ExtrasError*>(&e)) unknown = unknownOptions(*sub, argc, argv);
     if (unknown.empty()) std::cerr << "calctrail: error: " << e.what() << "\n";
     for (const std::string& message : unknown) std::cerr << "calctrail: error: " << message << "\n";
     if (sub) std::cerr << "see: calctrail " << sub->get_name() << " --help\n";
