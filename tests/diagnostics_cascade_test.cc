@@ -60,3 +60,15 @@ TEST_CASE("a misspelt function beside a dimension error and an unknown name", "[
   CHECK(d.find(":4:21: error: unknown function `sinn`") != std::string::npos);
   CHECK(count(d, "error:") == 6);
 }
+
+// Issue 11, item 5: the same for --set.
+TEST_CASE("a --set with an unknown unit is one error, nothing downstream", "[diagnostics][cascade][set]") {
+  auto c = calc("F = 2000 N\nA = 2 [mm^2]\ns = F / A\ncheck c: s < 2000 MPa\nT = F * 3 mm\n", {"F=3000 lbs"});
+  const std::string d = diagnostics(*c);
+  INFO(d);
+  CHECK(count(d, "error:") == 1);
+  CHECK(d.find("--set:1:") != std::string::npos);
+  CHECK(d.find("unknown unit `lbs`") != std::string::npos);
+  CHECK(d.find("unknown name") == std::string::npos);
+  CHECK(d.find("`F`") == std::string::npos);
+}
