@@ -231,6 +231,23 @@ std::unordered_set<std::string> failedDefinitions(const Sheet& sheet) {
   }
   return failed;
 }
+
+// A name read from an instance whose template has errors (`inst.F`): those
+// errors are reported at the template, once per use, and nothing of it is
+// expanded, so the reader says nothing more. Such an instance is the one
+// whose template is not among the sheet's files: the loader lists a template
+// only once it expands it (engine/template/template_loader.cc).
+bool inFailedInstance(const Sheet& sheet, const std::string& name) {
+  for (const Instance& inst : sheet.instances) {
+    if (name.size() <= inst.name.size() || name.compare(0, inst.name.size(), inst.name) != 0 ||
+        name[inst.name.size()] != '.')
+      continue;
+    const bool expanded = std::any_of(sheet.files.begin(), sheet.files.end(),
+                                      [&](const SheetFile& f) { return f.path == inst.path; });
+    if (!expanded) return true;
+  }
+  return false;
+}
 }  // namespace
 
 void Model::resolveNames(Diagnostics* diags) {
@@ -272,7 +289,8 @@ void Model::resolveNames(Diagnostics* diags) {
       any_name = true;
       const int j = sheet_->find(e.text);
       if (j < 0) {
-        if (q.expr_instance >= 0 || !failed.count(e.text)) unknown(sheet_->exprFile(i), e, q.expr_instance);
+        if ((q.expr_instance >= 0 || !failed.count(e.text)) && !inFailedInstance(*sheet_, e.text))
+          unknown(sheet_->exprFile(i), e, q.expr_instance);
         unresolved_[i] = 1;
       } else {
         graph_->addUse(i, j);
@@ -284,7 +302,8 @@ void Model::resolveNames(Diagnostics* diags) {
     const Check& c = sheet_->checks[k];
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
       forEachName(*side, [&](const Expr& e) {
-        if (sheet_->find(e.text) < 0 && (c.instance >= 0 || !failed.count(e.text)))
+        if (sheet_->find(e.text) < 0 && (c.instance >= 0 || !failed.count(e.text)) &&
+            !inFailedInstance(*sheet_, e.text))
           unknown(sheet_->checkFile(k), e, c.instance);
       });
     }
