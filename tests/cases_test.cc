@@ -229,7 +229,7 @@ TEST_CASE("check fails when a check fails in any case, and its line names the ca
   Run r = runCli("check " + path);
   CHECK(r.status == 1);
   CHECK(r.out == path +
-                     ":7:7: error: check `torque` fails in case overload: 16.80 N·m <= 15.00 N·m is false\n"
+                     ":7:7: error: check `torque` fails in case overload: 16.80 N·m <= 15 N·m is false\n"
                      "1 worksheet, 6 checks: 1 failed\n");
   CHECK(runCli("check " + path + " --case high").status == 0);
   Run alone = runCli("check " + path + " --case overload");

@@ -59,7 +59,7 @@ TEST_CASE("check exits 1 on a failed check and prints one line for it", "[cli]")
   CHECK(ok.out == "1 worksheet, 1 check: 0 failed\n");
   Run bad = runCli("check '" + pass + "' '" + fail + "'");
   CHECK(bad.status == 1);
-  CHECK(bad.out == fail + ":4:7: error: check `t` fails: 200.0 N·m < 100.0 N·m is false (arm rating)\n" +
+  CHECK(bad.out == fail + ":4:7: error: check `t` fails: 200.0 N·m < 100 N·m is false (arm rating)\n" +
                        "2 worksheets, 2 checks: 1 failed\n");
   Run quiet = runCli("check -q '" + pass + "'");
   CHECK(quiet.out.empty());

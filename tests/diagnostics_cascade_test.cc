@@ -60,3 +60,41 @@ TEST_CASE("a misspelt function beside a dimension error and an unknown name", "[
   CHECK(d.find(":4:21: error: unknown function `sinn`") != std::string::npos);
   CHECK(count(d, "error:") == 6);
 }
+
+// Issue 11, item 5: the same inside templates and for --set.
+TEST_CASE("a template whose definition fails raises nothing in the sheet that reads it",
+          "[diagnostics][cascade][template]") {
+  const std::string dir = calctrail::test::tempDir();
+  calctrail::test::writeFile(dir + "/screw.calc", "param d [mm] = 20 mm\nF [N] = d * 3 lbs\nT = F * 2\n");
+  calctrail::test::writeFile(dir + "/use.calc",
+                             "use screw.calc as inst\nG = inst.F * 2\nH = inst.T\ncheck c: inst.F < 5 kN\nk = q * 2\n");
+  calctrail::test::Run r = calctrail::test::runCli("check '" + dir + "/use.calc'");
+  INFO(r.err);
+  CHECK(r.status == 2);
+  // One error at the template's line, with the use line that brought it in.
+  CHECK(count(r.err, "unknown unit `lbs`") == 1);
+  CHECK(r.err.find("screw.calc:2:") != std::string::npos);
+  CHECK(r.err.find("in the instance `inst` used at") != std::string::npos);
+  CHECK(r.err.find("`inst.F`") == std::string::npos);
+  CHECK(r.err.find("`inst.T`") == std::string::npos);
+  // An independent problem of the using sheet is still reported.
+  CHECK(r.err.find("unknown name `q`") != std::string::npos);
+  CHECK(count(r.err, "error:") == 2);
+  // A template without errors: a name it does not define is still an error.
+  calctrail::test::writeFile(dir + "/good.calc", "param d [mm] = 20 mm\nF [N] = d * 3 [N/mm]\n");
+  calctrail::test::writeFile(dir + "/use2.calc", "use good.calc as inst\nG = inst.Fx * 2\n");
+  calctrail::test::Run good = calctrail::test::runCli("check '" + dir + "/use2.calc'");
+  CHECK(good.status == 2);
+  CHECK(good.err.find("unknown name `inst.Fx`") != std::string::npos);
+}
+
+TEST_CASE("a --set with an unknown unit is one error, nothing downstream", "[diagnostics][cascade][set]") {
+  auto c = calc("F = 2000 N\nA = 2 [mm^2]\ns = F / A\ncheck c: s < 2000 MPa\nT = F * 3 mm\n", {"F=3000 lbs"});
+  const std::string d = diagnostics(*c);
+  INFO(d);
+  CHECK(count(d, "error:") == 1);
+  CHECK(d.find("--set:1:") != std::string::npos);
+  CHECK(d.find("unknown unit `lbs`") != std::string::npos);
+  CHECK(d.find("unknown name") == std::string::npos);
+  CHECK(d.find("`F`") == std::string::npos);
+}

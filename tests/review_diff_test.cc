@@ -109,7 +109,7 @@ TEST_CASE("diff: a changed input, the results it moved and the check it flipped"
   CHECK(flip < text.find("Inputs changed:"));
   CHECK(text.find("T <= T_max: 26.71 N\u00b7m <= 20.00 N\u00b7m is false (was 16.47 N\u00b7m <= 20.00 N\u00b7m)") !=
         std::string::npos);
-  CHECK(text.find("  f  0.1000  ->  0.2000  +100 %\n") != std::string::npos);
+  CHECK(text.find("  f  0.10  ->  0.20  +100 %\n") != std::string::npos);  // as written
   CHECK(text.find("  T    16.47 N\u00b7m  ->  26.71 N\u00b7m  +62.1 %\n") != std::string::npos);
   CHECK(text.find("  eta  38.65 %    ->  23.84 %    -38.3 %\n") != std::string::npos);
   CHECK(text.find("1 check flipped, 1 input changed, 2 results moved.") != std::string::npos);
@@ -246,7 +246,7 @@ TEST_CASE("diff: a quantity whose dimension changed", "[review][diff]") {
   CHECK(!p.d.moved[0].same_dimension);
   CHECK(std::isnan(p.d.moved[0].relative));
   const std::string text = renderDiffText(p.d, 4);
-  CHECK(text.find("  a  2.000 m  ->  2.000 s  dimension changed\n") != std::string::npos);
+  CHECK(text.find("  a  2 m  ->  2 s  dimension changed\n") != std::string::npos);  // as written
   CHECK(text.find("  b  4000 mm  ->  4.000 s  dimension changed\n") != std::string::npos);
 }
 
@@ -340,4 +340,70 @@ TEST_CASE("diff on the command line: exit 0, 1 and 2", "[review][diff][cli]") {
     INFO(args);
     CHECK(runCli(args).status == 2);
   }
+}
+
+// Issue 11, item 3: what a checker must not misread in a diff.
+TEST_CASE("diff: a check that fails on both sides is listed as still failing", "[review][diff]") {
+  const char* sheet = "f = 0.15\nF = 2 kN\nr = 0.1 m\nT [N*m] = F * r * f\ncheck t: T < 20 [N*m]\n";
+  Pair same = diffOf(sheet, sheet);
+  CHECK(!same.d.somethingMoved());
+  CHECK(same.d.checksFail());
+  REQUIRE(same.d.still_failing.size() == 1);
+  const std::string text = renderDiffText(same.d, 4);
+  CHECK(text.find("No change") == std::string::npos);
+  CHECK(text.find("1 check still failing.") != std::string::npos);
+  // 2 kN * 0.1 m * 0.15 = 30 N*m; the limit as written.
+  CHECK(text.find("!! STILL FAILING  t: FAIL -> FAIL\n   T < 20 [N*m]: 30.00 N·m < 20 N·m is false") !=
+        std::string::npos);
+  CHECK(renderDiffMarkdown(same.d, 4).find("**Still failing: `t` FAIL \u2192 FAIL**") != std::string::npos);
+  Json j;
+  std::string error;
+  REQUIRE(parseJson(renderDiffJson(same.d), &j, &error));
+  CHECK(j["checks_fail"].boolean);
+  CHECK(!j["moved"].boolean);
+  REQUIRE(j["checks_still_failing"].array.size() == 1);
+  CHECK(j["checks_still_failing"][0]["name"].string == "t");
+  CHECK(j["checks_still_failing"][0]["lhs"].number == Approx(30));
+  // A passing check on both sides is no news.
+  Pair passing = diffOf("x = 1\ncheck c: x < 2\n", "x = 1\ncheck c: x < 2\n");
+  CHECK(passing.d.still_failing.empty());
+  CHECK(!passing.d.checksFail());
+}
+
+TEST_CASE("diff: inputs written as literals are shown as written on both sides", "[review][diff]") {
+  Pair p = diffOf("f = 0.15\nd = 20 mm\nk = f * d\n", "f = 0.18\nd = 0.8 in\nk = f * d\n");
+  const std::string text = renderDiffText(p.d, 4);
+  CHECK(text.find("  f  0.15   ->  0.18    +20.0 %\n") != std::string::npos);
+  CHECK(text.find("  d  20 mm  ->  0.8 in") != std::string::npos);
+  CHECK(text.find("0.1500") == std::string::npos);
+  CHECK(renderDiffMarkdown(p.d, 4).find("| `f` | 0.15 | 0.18 |") != std::string::npos);
+}
+
+TEST_CASE("diff --set applies to both sides and says the numbers are modified", "[review][diff][cli]") {
+  const std::string dir = tempDir();
+  writeFile(dir + "/old.calc", "f = 0.15\nF = 2 kN\nr = 0.1 m\nT [N*m] = F * r * f\ncheck t: T < 40 [N*m]\n");
+  writeFile(dir + "/new.calc", "f = 0.18\nF = 2 kN\nr = 0.1 m\nT [N*m] = F * r * f\ncheck t: T < 40 [N*m]\n");
+  Run plain = runCliIn(dir, "diff old.calc new.calc");
+  CHECK(plain.status == 1);  // f moved
+  CHECK(plain.out.find("MODIFIED") == std::string::npos);
+  CHECK(plain.out.find("  T  30.00 N·m  ->  36.00 N·m") != std::string::npos);
+  // F = 3 kN on both sides: 3 kN * 0.1 m * 0.15 = 45 N*m and * 0.18 = 54 N*m, both over 40 N*m.
+  Run set = runCliIn(dir, "diff old.calc new.calc --set 'F=3 kN'");
+  INFO(set.out << set.err);
+  CHECK(set.status == 1);
+  CHECK(set.out.find("MODIFIED: both sides are calculated AS MODIFIED by --set F=3 kN") != std::string::npos);
+  CHECK(set.out.find("  T  45.00 N·m  ->  54.00 N·m") != std::string::npos);
+  CHECK(set.out.find("!! STILL FAILING  t: FAIL -> FAIL") != std::string::npos);
+  Run json = runCliIn(dir, "diff old.calc new.calc --set 'F=3 kN' --format json");
+  Json j;
+  std::string error;
+  REQUIRE(parseJson(json.out, &j, &error));
+  REQUIRE(j["modified_by"].array.size() == 1);
+  CHECK(j["modified_by"][0].string == "F=3 kN");
+  CHECK(j["inputs_changed"][0]["old_text"].string == "0.15");
+  CHECK(j["inputs_changed"][0]["new_text"].string == "0.18");
+  // A --set naming what a side lacks is an error of that side: no comparison.
+  Run bad = runCliIn(dir, "diff old.calc new.calc --set 'nope=3'");
+  CHECK(bad.status == 2);
+  CHECK(bad.err.find("no comparison made") != std::string::npos);
 }

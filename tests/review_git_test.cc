@@ -105,7 +105,7 @@ TEST_CASE("diff HEAD~1:FILE FILE in a git repository", "[review][git]") {
   CHECK(r.err.empty());
   CHECK(r.out.rfind("calctrail diff: HEAD~1:ws/lift.calc -> ws/lift.calc\n", 0) == 0);
   CHECK(r.out.find("!! CHECK FLIPPED  torque: PASS -> FAIL") != std::string::npos);
-  CHECK(r.out.find("  f  0.1000  ->  0.2000  +100 %") != std::string::npos);
+  CHECK(r.out.find("  f  0.10  ->  0.20  +100 %") != std::string::npos);
   CHECK(r.out.find("  T    16.47 N\u00b7m  ->  26.71 N\u00b7m  +62.1 %") != std::string::npos);
   CHECK(r.out.find("  eta  ") != std::string::npos);
   CHECK(r.out.find("  revision:  A  ->  B") != std::string::npos);
@@ -123,8 +123,11 @@ TEST_CASE("diff HEAD~1:FILE FILE in a git repository", "[review][git]") {
     CHECK(s.status == 1);
     CHECK(s.out.find("!! CHECK FLIPPED  torque: PASS -> FAIL") != std::string::npos);
   }
-  // The same revision on both sides: nothing moved.
-  CHECK(runCliIn(repo, "diff HEAD:ws/lift.calc ws/lift.calc").status == 0);
+  // The same revision on both sides: nothing moved, but HEAD's torque check
+  // fails on both, which a checker must not read as "no change, all good".
+  Run same = runCliIn(repo, "diff HEAD:ws/lift.calc ws/lift.calc");
+  CHECK(same.status == 1);
+  CHECK(same.out.find("!! STILL FAILING  torque: FAIL -> FAIL") != std::string::npos);
   CHECK(runCliIn(repo, "diff HEAD~1:ws/lift.calc HEAD~1:ws/lift.calc --format json").status == 0);
 }
 

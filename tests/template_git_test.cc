@@ -101,7 +101,7 @@ TEST_CASE("diff REV:PATH reads the templates at REV: a template change moves eve
   CHECK(a.status == 1);
   CHECK(a.err.empty());
   CHECK(a.out.find("!! CHECK FLIPPED  s.t: PASS -> FAIL") != std::string::npos);
-  CHECK(a.out.find("  s.f  0.1000  ->  0.1500  +50.0 %") != std::string::npos);
+  CHECK(a.out.find("  s.f  0.10  ->  0.15  +50.0 %") != std::string::npos);
   CHECK(a.out.find("  s.T  10.00 N\u00b7m  ->  15.00 N\u00b7m  +50.0 %") != std::string::npos);
   CHECK(a.out.find("  T2   20.00 N\u00b7m  ->  30.00 N\u00b7m  +50.0 %") != std::string::npos);
   // The other sheet, in a subfolder, through `../`; both sides from git.
@@ -109,9 +109,11 @@ TEST_CASE("diff REV:PATH reads the templates at REV: a template change moves eve
   INFO(b.out << b.err);
   CHECK(b.status == 1);
   CHECK(b.out.find("  s.T  2.000 N\u00b7m  ->  3.000 N\u00b7m  +50.0 %") != std::string::npos);
-  // A sheet that did not change, against its own revision, with the template unchanged: nothing moved.
+  // A sheet that did not change, against its own revision, with the template
+  // unchanged: nothing moved, but the check s.t fails on both sides (15 N*m > 12 N*m).
   Run same = runCliIn(repo.dir, "diff HEAD:a.calc a.calc");
-  CHECK(same.status == 0);
+  CHECK(same.status == 1);
+  CHECK(same.out.find("!! STILL FAILING  s.t: FAIL -> FAIL") != std::string::npos);
   // And the hashes in the trail name the template as it is on disk.
   Run json = runCliIn(repo.dir, "report a.calc --format json");
   CHECK(json.out.find("\"path\": \"screw.calc\"") != std::string::npos);

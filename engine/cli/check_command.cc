@@ -4,8 +4,17 @@
 #include "engine/cli/commands.h"
 #include "engine/cli/worksheet_input.h"
 #include "engine/report/number_format.h"
+#include "engine/report/trail.h"
 
 namespace calctrail {
+
+namespace {
+// A side of a failed check as the report shows it: a literal as written ("3",
+// "20 ksi"), a calculated value to 4 significant digits in the check's unit.
+std::string side(const Expr& expr, bool evaluated, double si, const Unit& unit) {
+  return evaluated ? valueText(checkSideValue(expr, si, unit, 4)) : formatQuantity(si, unit, 4);
+}
+}  // namespace
 
 int runCheck(const CheckArgs& args) {
   int files_with_errors = 0, files_failing = 0, failed_checks = 0, total_checks = 0;
@@ -38,8 +47,8 @@ int runCheck(const CheckArgs& args) {
         const SourcePos pos = where.position(c.name_begin);
         std::cout << (c.file ? where.path() : calc->path) << ":" << pos.line << ":" << pos.column
                   << ": error: check `" << c.name << "` fails"
-                  << (in_case.empty() ? "" : " in case " + in_case) << ": " << formatQuantity(r.lhs, unit, 4)
-                  << " " << comparisonText(c.op) << " " << formatQuantity(r.rhs, unit, 4) << " is false";
+                  << (in_case.empty() ? "" : " in case " + in_case) << ": " << side(*c.lhs, r.ok, r.lhs, unit)
+                  << " " << comparisonText(c.op) << " " << side(*c.rhs, r.ok, r.rhs, unit) << " is false";
         if (!c.description.empty()) std::cout << " (" << c.description << ")";
         std::cout << calc->sheet.instanceNote(c.instance) << "\n";
       }

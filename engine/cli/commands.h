@@ -37,6 +37,7 @@ struct DiffArgs {
   std::string format = "text";     // text, md or json
   double rtol = 1e-9;              // a result moved when it changed by more than this, relatively
   int digits = 4;
+  std::vector<std::string> sets;   // "NAME=VALUE" from --set, applied to both sides
 };
 int runDiff(const DiffArgs& args);
 

@@ -2,6 +2,7 @@
 // fixed by the contract (report, check, --set, exit codes); see --help.
 #include <CLI/CLI.hpp>
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -10,6 +11,7 @@
 
 #include "engine/cli/commands.h"
 #include "engine/report/formats.h"
+#include "engine/util/edit_distance.h"
 
 using namespace calctrail;
 
@@ -62,6 +64,54 @@ CLI::Validator wholeNumberIn(int lo, int hi) {
         return {};
       },
       "INT in [" + std::to_string(lo) + " - " + std::to_string(hi) + "]");
+}
+
+// The subcommand the command line names, or null: the first argument that is one.
+CLI::App* namedSubcommand(CLI::App& app, int argc, char** argv) {
+  for (int i = 1; i < argc; ++i)
+    for (CLI::App* sub : app.get_subcommands([](CLI::App*) { return true; }))
+      if (sub->get_name() == argv[i]) return sub;
+  return nullptr;
+}
+
+// Every option name of `cmd` as typed ("--format", "-f"), with --help.
+std::vector<std::string> optionNames(const CLI::App& cmd) {
+  std::vector<std::string> names;
+  for (const CLI::Option* o : cmd.get_options()) {
+    for (const std::string& n : o->get_lnames()) names.push_back("--" + n);
+    for (const std::string& n : o->get_snames()) names.push_back("-" + n);
+  }
+  return names;
+}
+
+// The arguments after the subcommand that look like options it does not have,
+// each with the nearest option it has: CLI11 says only "not expected".
+std::vector<std::string> unknownOptions(const CLI::App& cmd, int argc, char** argv) {
+  const std::vector<std::string> known = optionNames(cmd);
+  std::vector<std::string> messages;
+  bool seen_command = false, after_dashes = false;
+  for (int i = 1; i < argc; ++i) {
+    const std::string arg = argv[i];
+    if (!seen_command) {
+      seen_command = arg == cmd.get_name();
+      continue;
+    }
+    if (after_dashes || arg == "--") {
+      after_dashes = true;
+      continue;
+    }
+    if (arg.size() < 2 || arg[0] != '-' || std::isdigit(static_cast<unsigned char>(arg[1])) || arg[1] == '.')
+      continue;  // a value (a file, -, or a negative number)
+    const std::string name = arg.substr(0, arg.find('='));
+    if (std::find(known.begin(), known.end(), name) != known.end()) continue;
+    // A run of short flags (-qw) or a short option with its value attached (-fjson).
+    if (name[1] != '-' && std::find(known.begin(), known.end(), name.substr(0, 2)) != known.end()) continue;
+    std::string message = "unknown option `" + name + "` for `calctrail " + cmd.get_name() + "`";
+    const std::vector<std::string> near = nearestWords(name, known, 2);
+    if (!near.empty()) message += "; did you mean " + quotedList(near) + "?";
+    messages.push_back(message);
+  }
+  return messages;
 }
 
 }  // namespace
@@ -137,12 +187,15 @@ int main(int argc, char** argv) {
   diff_cmd->add_option("--rtol", diff.rtol, "Relative change below which a result has not moved")
       ->check(finiteNonNegative())
       ->default_str("1e-9");
+  diff_cmd->add_option("--set", diff.sets, "Replace NAME by VALUE on both sides, e.g. --set \"f=0.18\"")
+      ->type_name("NAME=VALUE")
+      ->allow_extra_args(false);
   diff_cmd->add_option("--digits", diff.digits, "Significant digits of the rounded values (1 to 15)")
       ->check(wholeNumberIn(1, 15))
       ->default_str("4");
   diff_cmd->footer(
-      "\nExit status: 0 no number moved; 1 a check flipped, a value moved beyond --rtol, or a quantity or\n"
-      "check came or went; 2 a side cannot be read or has errors.\n"
+      "\nExit status: 0 no number moved and no check fails; 1 a check flipped or still fails, a value moved\n"
+      "beyond --rtol, or a quantity or check came or went; 2 a side cannot be read or has errors.\n"
       "Examples:\n"
       "  calctrail diff HEAD~1:worksheets/gate.calc worksheets/gate.calc\n"
       "  calctrail diff main:gate.calc gate.calc --format md > review.md");
@@ -267,8 +320,14 @@ int main(int argc, char** argv) {
   } catch (const CLI::CallForVersion& e) {
     return app.exit(e);
   } catch (const CLI::ParseError& e) {
-    std::cerr << "calctrail: error: " << e.what() << "\n";
-    std::cerr << "Run `calctrail --help` for the commands and options.\n";
+    // A mistake inside a subcommand points at that subcommand's options.
+    CLI::App* sub = namedSubcommand(app, argc, argv);
+    std::vector<std::string> unknown;
+    if (sub && dynamic_cast<const CLI::ExtrasError*>(&e)) unknown = unknownOptions(*sub, argc, argv);
+    if (unknown.empty()) std::cerr << "calctrail: error: " << e.what() << "\n";
+    for (const std::string& message : unknown) std::cerr << "calctrail: error: " << message << "\n";
+    if (sub) std::cerr << "see: calctrail " << sub->get_name() << " --help\n";
+    else std::cerr << "Run `calctrail --help` for the commands and options.\n";
     return kExitError;
   }
   try {

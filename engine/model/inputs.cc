@@ -142,11 +142,11 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
   const SlotInfo& info = m.slot(slot);
   const Dimension dim = quantityDimension(expr->dim);
   if (q.display && from_set) {
-    if (!fitsDeclaredUnit(q, m.sheet().quantityFile(slot.index()), dim, diags)) return false;
+    if (!fitsDeclaredUnit(q, *expr, m.sheet(), m.sheet().quantityFile(slot.index()), dim, diags)) return false;
   } else if (q.display) {
     // The worksheet's own message, but at the replacement that is wrong.
     Diagnostics why;
-    if (!fitsDeclaredUnit(q, m.sheet().quantityFile(slot.index()), dim, &why)) {
+    if (!fitsDeclaredUnit(q, *expr, m.sheet(), m.sheet().quantityFile(slot.index()), dim, &why)) {
       std::string msg = why.list().front().message;
       const size_t at = msg.find("its formula gives");
       if (at != std::string::npos) msg.replace(at, 17, "the value given is");

@@ -51,8 +51,8 @@ std::string tooLongMessage(const std::string& what, size_t length) {
          "); split it into named steps";
 }
 
-bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim,
-                      Diagnostics* diags) {
+bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const Sheet& sheet, const SourceFile& sheet_file,
+                      const Dimension& dim, Diagnostics* diags) {
   const UnitFit fit = fitUnit(dim, q.display->dim);
   if (fit == UnitFit::Incompatible) {
     diags->error(sheet_file, q.unit_begin, q.unit_end,
@@ -67,7 +67,9 @@ bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dim
     std::string msg = "`" + q.name + "` is declared in [" + q.unit_written + "], " +
                       q.display->dim.describe() + ", but its formula gives " + dim.describe() +
                       ": they differ by an angle, so the number shown would be off by 2*pi";
-    const std::string why = strayAngleWarning(q.name, dim);
+    // The same fix as the undeclared path gives (dimension_check): for a
+    // computed lead, thread_lead or `/ 1 [rev]`; for a literal, [mm/rev].
+    const std::string why = strayAngleWarning(q.name, dim, formula, sheet);
     if (!why.empty())
       msg += "; " + why.substr(why.find("): ") + 3);
     else if (dim.exponent(Base::Angle) < 0)
@@ -229,6 +231,23 @@ std::unordered_set<std::string> failedDefinitions(const Sheet& sheet) {
   }
   return failed;
 }
+
+// A name read from an instance whose template has errors (`inst.F`): those
+// errors are reported at the template, once per use, and nothing of it is
+// expanded, so the reader says nothing more. Such an instance is the one
+// whose template is not among the sheet's files: the loader lists a template
+// only once it expands it (engine/template/template_loader.cc).
+bool inFailedInstance(const Sheet& sheet, const std::string& name) {
+  for (const Instance& inst : sheet.instances) {
+    if (name.size() <= inst.name.size() || name.compare(0, inst.name.size(), inst.name) != 0 ||
+        name[inst.name.size()] != '.')
+      continue;
+    const bool expanded = std::any_of(sheet.files.begin(), sheet.files.end(),
+                                      [&](const SheetFile& f) { return f.path == inst.path; });
+    if (!expanded) return true;
+  }
+  return false;
+}
 }  // namespace
 
 void Model::resolveNames(Diagnostics* diags) {
@@ -270,7 +289,8 @@ void Model::resolveNames(Diagnostics* diags) {
       any_name = true;
       const int j = sheet_->find(e.text);
       if (j < 0) {
-        if (q.expr_instance >= 0 || !failed.count(e.text)) unknown(sheet_->exprFile(i), e, q.expr_instance);
+        if ((q.expr_instance >= 0 || !failed.count(e.text)) && !inFailedInstance(*sheet_, e.text))
+          unknown(sheet_->exprFile(i), e, q.expr_instance);
         unresolved_[i] = 1;
       } else {
         graph_->addUse(i, j);
@@ -282,7 +302,8 @@ void Model::resolveNames(Diagnostics* diags) {
     const Check& c = sheet_->checks[k];
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
       forEachName(*side, [&](const Expr& e) {
-        if (sheet_->find(e.text) < 0 && (c.instance >= 0 || !failed.count(e.text)))
+        if (sheet_->find(e.text) < 0 && (c.instance >= 0 || !failed.count(e.text)) &&
+            !inFailedInstance(*sheet_, e.text))
           unknown(sheet_->checkFile(k), e, c.instance);
       });
     }
@@ -349,7 +370,7 @@ void Model::checkDimensions(Diagnostics* diags) {
     if (q.display) {
       s.declared = true;
       s.display = *q.display;
-      if (!fitsDeclaredUnit(q, sheet_->quantityFile(i), s.dim, own_diags.get())) {
+      if (!fitsDeclaredUnit(q, *q.expr, *sheet_, sheet_->quantityFile(i), s.dim, own_diags.get())) {
         known_[i] = 0;
         s.has_dim = false;
       }

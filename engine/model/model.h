@@ -153,8 +153,10 @@ Unit undeclaredDisplayUnit(const Expr& formula, const Dimension& dim, const Unit
 // A formula of dimension `dim` for quantity `q`, which declares a display
 // unit: reports the error and returns false when the unit does not fit (a
 // different dimension, or one that would put a number off by 2*pi on the page).
-bool fitsDeclaredUnit(const Quantity& q, const SourceFile& sheet_file, const Dimension& dim,
-                      Diagnostics* diags);
+// `formula` (dimension-checked, in `sheet`) is what gives the value: the
+// quantity's own or a replacement; the 2*pi hint names a computed lead in it.
+bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const Sheet& sheet, const SourceFile& sheet_file,
+                      const Dimension& dim, Diagnostics* diags);
 
 // A formula's dimension as a quantity keeps it: torque and power lose a stray
 // angle (N*m*rad/s is W).

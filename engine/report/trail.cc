@@ -469,18 +469,25 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
   return cutAtMarkers(text, values);
 }
 
-// A side of a check written as one literal in the unit it is shown in
-// ("2.5", "0 [N*m]") appears as written; anything else as its rounded value.
-TrailValue literalOrValue(const Expr& side, double si, const Unit& unit, int digits) {
+
+}  // namespace
+
+std::optional<TrailValue> writtenLiteral(const Expr& side, double si, const Unit& unit) {
   const Expr* x = &side;
   while (x->kind == ExprKind::Group) x = x->args[0].get();
-  if (x->kind == ExprKind::Number) {
-    const std::string as_written = x->unit ? x->unit->text : "1";
-    if (as_written == unit.text || (!x->unit && unit.text.empty()))
-      return written(x->text, si, unit.fromSI(si), x->unit ? unit.pretty() : "");
-  }
+  if (x->kind != ExprKind::Number) return std::nullopt;
+  // The value stays in the check's unit (JSON `lhs`, `rhs`); the text is the literal's own.
+  if (x->unit) return written(x->text, si, unit.fromSI(si), x->unit->pretty());
+  if (unit.text == "1" || unit.text.empty()) return written(x->text, si, unit.fromSI(si), "");
+  return std::nullopt;
+}
+
+TrailValue checkSideValue(const Expr& side, double si, const Unit& unit, int digits) {
+  if (std::optional<TrailValue> literal = writtenLiteral(side, si, unit)) return *literal;
   return rounded(si, unit, digits);
 }
+
+namespace {
 
 // A utilisation in percent, to whole percent except where rounding would
 // show a pass or a fail as exactly 100 %.
@@ -540,8 +547,8 @@ TrailCaseCheck caseCheck(const Check& c, const CheckResult& r, const Unit& unit,
   TrailCaseCheck cc;
   cc.ok = r.ok;
   cc.passed = r.ok && r.passed;
-  cc.lhs = r.ok ? literalOrValue(*c.lhs, r.lhs, unit, digits) : rounded(r.lhs, unit, digits);
-  cc.rhs = r.ok ? literalOrValue(*c.rhs, r.rhs, unit, digits) : rounded(r.rhs, unit, digits);
+  cc.lhs = r.ok ? checkSideValue(*c.lhs, r.lhs, unit, digits) : rounded(r.lhs, unit, digits);
+  cc.rhs = r.ok ? checkSideValue(*c.rhs, r.rhs, unit, digits) : rounded(r.rhs, unit, digits);
   cc.margin = difference(r.ok ? marginOf(c.op, r.lhs, r.rhs) : 0.0, unit, digits);
   return cc;
 }
@@ -798,8 +805,8 @@ Trail buildTrail(const Calculation& calc, int digits) {
     tc.lhs = rounded(s.lhs, s.display, digits);
     tc.rhs = rounded(s.rhs, s.display, digits);
     if (s.ok) {
-      tc.lhs = literalOrValue(*c.lhs, s.lhs, s.display, digits);
-      tc.rhs = literalOrValue(*c.rhs, s.rhs, s.display, digits);
+      tc.lhs = checkSideValue(*c.lhs, s.lhs, s.display, digits);
+      tc.rhs = checkSideValue(*c.rhs, s.rhs, s.display, digits);
     }
     tc.passed = s.ok && s.passed;
     measureCheck(&tc, s, c, digits);

@@ -330,6 +330,15 @@ Trail buildTrail(const Calculation& calc, int digits);
 // Runs the worksheet's studies and fills Trail::studies (engine/report/trail_studies.cc).
 void addStudies(const Calculation& calc, int digits, Trail* trail);
 
+// A side of a check as every output shows it: a lone literal as the worksheet
+// writes it, in its own unit ("3", "20 ksi", "0 [N*m]"), so that a value as
+// written stays as written; anything else as its value rounded to `digits` in
+// the check's `unit`. The TrailValue's `value` is in `unit` either way.
+TrailValue checkSideValue(const Expr& side, double si, const Unit& unit, int digits);
+// A lone literal as the worksheet writes it, in its own unit; nullopt for
+// any other expression, or a plain number where `unit` is not dimensionless.
+std::optional<TrailValue> writtenLiteral(const Expr& side, double si, const Unit& unit);
+
 // A check's condition as the worksheet writes it: "T_lower > 0 [N*m]".
 std::string conditionText(const Check& check);
 

@@ -3,6 +3,7 @@
 #include <map>
 
 #include "engine/report/number_format.h"
+#include "engine/report/trail.h"
 #include "engine/sheet/control_chars.h"
 
 namespace calctrail {
@@ -42,10 +43,16 @@ std::string annotatedValue(double si, const Unit& unit, int digits) {
   return joinNumberUnit(mantissa + tail, unit.pretty());
 }
 
+// A side of a check: a literal as written ("20 ksi"), as the report shows it.
+static std::string checkSide(const Expr& side, double si, const Unit& unit, int digits) {
+  if (std::optional<TrailValue> literal = writtenLiteral(side, si, unit)) return valueText(*literal);
+  return annotatedValue(si, unit, digits);
+}
+
 std::string annotatedCheck(const Check& check, const CheckState& state, int digits) {
   return "check " + check.name + ": " + (state.passed ? "PASS  " : "FAIL  ") +
-         annotatedValue(state.lhs, state.display, digits) + " " + comparisonText(check.op) + " " +
-         annotatedValue(state.rhs, state.display, digits);
+         checkSide(*check.lhs, state.lhs, state.display, digits) + " " + comparisonText(check.op) + " " +
+         checkSide(*check.rhs, state.rhs, state.display, digits);
 }
 
 std::string annotatedSheet(const Calculation& calc, int digits) {

@@ -3,10 +3,12 @@
 #include <algorithm>
 #include <cmath>
 #include <iterator>
+#include <optional>
 #include <utility>
 #include <vector>
 
 #include "engine/report/number_format.h"
+#include "engine/report/trail.h"
 #include "engine/util/json_writer.h"
 #include "engine/util/text_width.h"
 
@@ -29,13 +31,34 @@ std::pair<std::string, std::string> valuePair(double was, double now, const Unit
 }
 
 std::pair<std::string, std::string> valuePair(const ValueChange& v, int digits) {
+  // A literal stays as written (0.15 -> 0.18), each side on its own.
+  if (!v.old_written.empty() || !v.new_written.empty()) {
+    auto [a, b] = v.same_dimension ? valuePair(v.old_si, v.new_si, v.unit, digits)
+                                   : std::pair{formatQuantity(v.old_si, v.old_unit, digits),
+                                               formatQuantity(v.new_si, v.unit, digits)};
+    return {v.old_written.empty() ? a : v.old_written, v.new_written.empty() ? b : v.new_written};
+  }
   if (!v.same_dimension)
     return {formatQuantity(v.old_si, v.old_unit, digits), formatQuantity(v.new_si, v.unit, digits)};
   return valuePair(v.old_si, v.new_si, v.unit, digits);
 }
 
-std::string checkValues(const std::string& op, double lhs, double rhs, const Unit& unit, int digits) {
-  return fmt::format("{} {} {}", formatQuantity(lhs, unit, digits), op, formatQuantity(rhs, unit, digits));
+// A side of a check: a literal as written ("2 N·m", "3"), as report and check show it.
+std::string checkSide(const Expr* side, double si, const Unit& unit, int digits) {
+  if (side)
+    if (std::optional<TrailValue> literal = writtenLiteral(*side, si, unit)) return valueText(*literal);
+  return formatQuantity(si, unit, digits);
+}
+
+std::string checkValues(const std::string& op, double lhs, double rhs, const Unit& unit, int digits,
+                        const Expr* lhs_expr, const Expr* rhs_expr) {
+  return fmt::format("{} {} {}", checkSide(lhs_expr, lhs, unit, digits), op, checkSide(rhs_expr, rhs, unit, digits));
+}
+std::string checkValues(const CheckEntry& c, int digits) {
+  return checkValues(c.op, c.lhs, c.rhs, c.unit, digits, c.lhs_expr, c.rhs_expr);
+}
+std::string oldCheckValues(const CheckFlip& f, int digits) {
+  return checkValues(f.now.op, f.old_lhs, f.old_rhs, f.old_unit, digits, f.old_lhs_expr, f.old_rhs_expr);
 }
 
 std::string summaryLine(const SheetDiff& d) {
@@ -44,6 +67,7 @@ std::string summaryLine(const SheetDiff& d) {
     if (n) parts.push_back(plural(n, one, many));
   };
   add(d.flipped.size(), "check flipped", "checks flipped");
+  add(d.still_failing.size(), "check still failing", "checks still failing");
   add(d.inputs.size(), "input changed", "inputs changed");
   add(d.formulas.size(), "formula changed", "formulas changed");
   add(d.moved.size(), "result moved", "results moved");
@@ -95,6 +119,13 @@ std::string mdCode(const std::string& s) { return fmt::format("`{}`", mdCell(s))
 
 }  // namespace
 
+std::string diffModifiedNotice(const SheetDiff& d) {
+  std::string list;
+  for (const std::string& s : d.modified_by) list += (list.empty() ? "--set " : ", --set ") + s;
+  return "MODIFIED: both sides are calculated AS MODIFIED by " + list +
+         "; the numbers are not those of either file alone.";
+}
+
 std::string formatRelativeChange(double relative) {
   if (std::isnan(relative)) return "dimension changed";
   if (std::isinf(relative)) return "from zero";
@@ -106,6 +137,7 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
   fmt::memory_buffer buffer;
   auto out = std::back_inserter(buffer);
   fmt::format_to(out, "calctrail diff: {} -> {}\n", d.old_name, d.new_name);
+  if (!d.modified_by.empty()) fmt::format_to(out, "{}\n", diffModifiedNotice(d));
   const std::string summary = summaryLine(d);
   if (summary.empty()) {
     fmt::format_to(out, "No change in inputs, formulas, results or checks (rtol {}).\n", rtolText(d.rtol));
@@ -117,8 +149,15 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
     const CheckEntry& c = f.now;
     fmt::format_to(out, "\n!! CHECK FLIPPED  {}: {} -> {}\n", c.name, state(!c.passed), state(c.passed));
     fmt::format_to(out, "   {}: {}{} (was {})\n", c.condition,
-                   checkValues(c.op, c.lhs, c.rhs, c.unit, digits), c.passed ? " holds" : " is false",
-                   checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits));
+                   checkValues(c, digits), c.passed ? " holds" : " is false",
+                   oldCheckValues(f, digits));
+    if (!c.description.empty()) fmt::format_to(out, "   {}\n", c.description);
+  }
+  for (const CheckFlip& f : d.still_failing) {
+    const CheckEntry& c = f.now;
+    fmt::format_to(out, "\n!! STILL FAILING  {}: FAIL -> FAIL\n", c.name);
+    fmt::format_to(out, "   {}: {} is false (was {})\n", c.condition, checkValues(c, digits),
+                   oldCheckValues(f, digits));
     if (!c.description.empty()) fmt::format_to(out, "   {}\n", c.description);
   }
 
@@ -157,10 +196,10 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
     std::vector<std::vector<std::string>> rows;
     for (const CheckEntry& c : d.checks_added)
       rows.push_back({"added", state(c.passed), c.name + ": " + c.condition,
-                      checkValues(c.op, c.lhs, c.rhs, c.unit, digits)});
+                      checkValues(c, digits)});
     for (const CheckEntry& c : d.checks_removed)
       rows.push_back({"removed", std::string("was ") + state(c.passed), c.name + ": " + c.condition,
-                      checkValues(c.op, c.lhs, c.rhs, c.unit, digits)});
+                      checkValues(c, digits)});
     fmt::format_to(out, "\nChecks added and removed:\n{}", table(rows, "  "));
   }
 
@@ -189,7 +228,7 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
     for (const CheckFlip& f : c.flipped)
       fmt::format_to(out, "  !! CHECK FLIPPED  {}: {} -> {}  {}: {}\n", f.now.name, state(!f.now.passed),
                      state(f.now.passed), f.now.condition,
-                     checkValues(f.now.op, f.now.lhs, f.now.rhs, f.now.unit, digits));
+                     checkValues(f.now, digits));
     if (!c.moved.empty()) fmt::format_to(out, "  Results moved:\n{}", valueRows(c.moved));
   }
   return fmt::to_string(buffer);
@@ -199,6 +238,7 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
   fmt::memory_buffer buffer;
   auto out = std::back_inserter(buffer);
   fmt::format_to(out, "### calctrail diff: {} \u2192 {}\n\n", mdCode(d.old_name), mdCode(d.new_name));
+  if (!d.modified_by.empty()) fmt::format_to(out, "> **{}**\n\n", mdCell(diffModifiedNotice(d)));
   const std::string summary = summaryLine(d);
   if (summary.empty()) {
     fmt::format_to(out, "No change in inputs, formulas, results or checks (rtol {}).\n", rtolText(d.rtol));
@@ -210,7 +250,10 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     if (!f.now.description.empty()) fmt::format_to(out, " ({})", mdCell(f.now.description));
     fmt::format_to(out, "\n");
   }
-  if (!d.flipped.empty()) fmt::format_to(out, "\n");
+  for (const CheckFlip& f : d.still_failing)
+    fmt::format_to(out, "> **Still failing: {} FAIL \u2192 FAIL** ({})\n", mdCode(f.now.name),
+                   mdCell(checkValues(f.now, digits)));
+  if (!d.flipped.empty() || !d.still_failing.empty()) fmt::format_to(out, "\n");
   fmt::format_to(out, "{} (rtol {}).\n", summary, rtolText(d.rtol));
 
   if (!d.flipped.empty()) {
@@ -218,8 +261,8 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     for (const CheckFlip& f : d.flipped) {
       const CheckEntry& c = f.now;
       fmt::format_to(out, "| {} | {} | {}: {} | **{}**: {} |\n", mdCode(c.name), mdCode(c.condition),
-                     state(!c.passed), mdCell(checkValues(c.op, f.old_lhs, f.old_rhs, f.old_unit, digits)),
-                     state(c.passed), mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
+                     state(!c.passed), mdCell(oldCheckValues(f, digits)),
+                     state(c.passed), mdCell(checkValues(c, digits)));
     }
   }
 
@@ -259,7 +302,7 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
                    "\n#### Checks added and removed\n\n| | Check | Condition | State |\n|---|---|---|---|\n");
     for (const CheckEntry& c : d.checks_added)
       fmt::format_to(out, "| added | {} | {} | {}: {} |\n", mdCode(c.name), mdCode(c.condition),
-                     state(c.passed), mdCell(checkValues(c.op, c.lhs, c.rhs, c.unit, digits)));
+                     state(c.passed), mdCell(checkValues(c, digits)));
     for (const CheckEntry& c : d.checks_removed)
       fmt::format_to(out, "| removed | {} | {} | was {} |\n", mdCode(c.name), mdCode(c.condition),
                      state(c.passed));
@@ -287,7 +330,7 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     for (const CheckFlip& f : c.flipped)
       fmt::format_to(out, "> **Check flipped: {} {} \u2192 {}** ({})\n", mdCode(f.now.name),
                      state(!f.now.passed), state(f.now.passed),
-                     mdCell(checkValues(f.now.op, f.now.lhs, f.now.rhs, f.now.unit, digits)));
+                     mdCell(checkValues(f.now, digits)));
     valueTable("Results moved in case " + c.name, "Result", c.moved);
   }
   return fmt::to_string(buffer);
@@ -299,6 +342,8 @@ void writeValueChange(JsonWriter& w, const ValueChange& v) {
   w.beginObject();
   w.key("name").value(v.name);
   w.key("old_formula").value(v.old_formula);
+  w.key("old_text").value(v.old_written);  // a literal as written, "" otherwise
+  w.key("new_text").value(v.new_written);
   w.key("new_formula").value(v.new_formula);
   w.key("unit").value(v.unit.text);
   w.key("old_value").value(v.same_dimension ? v.unit.fromSI(v.old_si) : v.old_unit.fromSI(v.old_si));
@@ -345,6 +390,20 @@ std::string renderDiffJson(const SheetDiff& d) {
   w.key("new").value(d.new_name);
   w.key("rtol").value(d.rtol);
   w.key("moved").value(d.somethingMoved());
+  w.key("checks_fail").value(d.checksFail());
+  w.key("modified_by").beginArray();
+  for (const std::string& s : d.modified_by) w.value(s);
+  w.endArray();
+  w.key("checks_still_failing").beginArray();
+  for (const CheckFlip& f : d.still_failing) {
+    w.beginObject();
+    writeCheck(w, f.now);
+    w.key("old_unit").value(f.old_unit.text);
+    w.key("old_lhs").value(f.old_unit.fromSI(f.old_lhs));
+    w.key("old_rhs").value(f.old_unit.fromSI(f.old_rhs));
+    w.endObject();
+  }
+  w.endArray();
   w.key("checks_flipped").beginArray();
   for (const CheckFlip& f : d.flipped) {
     w.beginObject();

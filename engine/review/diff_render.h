@@ -19,5 +19,8 @@ std::string renderDiffJson(const SheetDiff& d);
 
 // "+20.0 %", "-3.12e-6 %", "from zero", "dimension changed".
 std::string formatRelativeChange(double relative);
+// "MODIFIED: both sides are calculated AS MODIFIED by --set f=0.18; ...", for a
+// diff run with --set (SheetDiff::modified_by not empty).
+std::string diffModifiedNotice(const SheetDiff& d);
 
 }  // namespace calctrail

@@ -62,6 +62,8 @@ CheckEntry checkEntryOf(const Calculation& calc, int k) {
   e.lhs = s.lhs;
   e.rhs = s.rhs;
   e.unit = s.display;
+  e.lhs_expr = c.lhs.get();
+  e.rhs_expr = c.rhs.get();
   return e;
 }
 
@@ -100,8 +102,14 @@ bool SheetDiff::somethingMoved() const {
          case_moved;
 }
 
+bool SheetDiff::checksFail() const {
+  const auto fails = [](const CheckFlip& f) { return !f.now.passed; };
+  return !still_failing.empty() || std::any_of(flipped.begin(), flipped.end(), fails) ||
+         std::any_of(checks_added.begin(), checks_added.end(), [](const CheckEntry& c) { return !c.passed; });
+}
+
 bool SheetDiff::empty() const {
-  return flipped.empty() && inputs.empty() && formulas.empty() && moved.empty() && added.empty() &&
+  return flipped.empty() && still_failing.empty() && inputs.empty() && formulas.empty() && moved.empty() && added.empty() &&
          removed.empty() && checks_added.empty() && checks_removed.empty() && new_warnings.empty() &&
          meta.empty() && cases_added.empty() && cases_removed.empty() && cases.empty();
 }
@@ -179,6 +187,8 @@ void diffCases(const Calculation& o, const Calculation& n, double rtol, SheetDif
       f.old_lhs = rwas.lhs;
       f.old_rhs = rwas.rhs;
       f.old_unit = o.checks[ok].display;
+      f.old_lhs_expr = o.sheet.checks[ok].lhs.get();
+      f.old_rhs_expr = o.sheet.checks[ok].rhs.get();
       cd.flipped.push_back(f);
     }
     std::stable_sort(cd.moved.begin(), cd.moved.end(), [](const ValueChange& a, const ValueChange& b) {
@@ -231,6 +241,8 @@ SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double 
     v.moved = !v.same_dimension || movedBeyond(os.si, s.si, rtol);
     v.old_formula = canonicalDefinition(oq);
     v.new_formula = canonicalDefinition(q);
+    if (auto literal = writtenLiteral(*oq.expr, os.si, os.display)) v.old_written = valueText(*literal);
+    if (auto literal = writtenLiteral(*q.expr, s.si, s.display)) v.new_written = valueText(*literal);
     // A given value that stays given is an input change; any other new text
     // (a step rewritten, a step become a given value or the reverse) is a
     // formula change.
@@ -257,13 +269,17 @@ SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double 
     const std::string was = canonicalCondition(o.sheet.checks[ok]);
     const std::string now = canonicalCondition(c);
     if (was != now) d.formulas.push_back({c.name, true, was, now});
-    if (o.checks[ok].passed != n.checks[k].passed) {
+    const bool flipped = o.checks[ok].passed != n.checks[k].passed;
+    if (flipped || !n.checks[k].passed) {
       CheckFlip f;
       f.now = checkEntryOf(n, static_cast<int>(k));
       f.old_lhs = o.checks[ok].lhs;
       f.old_rhs = o.checks[ok].rhs;
       f.old_unit = o.checks[ok].display;
-      d.flipped.push_back(f);
+      f.old_lhs_expr = o.sheet.checks[ok].lhs.get();
+      f.old_rhs_expr = o.sheet.checks[ok].rhs.get();
+      // A check failing on both sides is no change, but never "all good".
+      (flipped ? d.flipped : d.still_failing).push_back(f);
     }
   }
   for (size_t k = 0; k < o.sheet.checks.size(); ++k)

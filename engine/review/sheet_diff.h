@@ -22,6 +22,8 @@ struct ValueChange {
   double relative = 0.0;
   bool moved = false;         // beyond the relative tolerance
   std::string old_formula, new_formula;  // canonical "NAME [UNIT] = EXPR"
+  // A side defined by one literal, as written ("0.15", "20 ksi"); "" otherwise.
+  std::string old_written, new_written;
 };
 
 struct FormulaChange {
@@ -47,12 +49,17 @@ struct CheckEntry {
   bool passed = false;
   double lhs = 0.0, rhs = 0.0;  // SI
   Unit unit;
+  // Both sides as written, owned by the Calculation (a literal is shown as written).
+  const Expr* lhs_expr = nullptr;
+  const Expr* rhs_expr = nullptr;
 };
 
 struct CheckFlip {
   CheckEntry now;       // the new side: condition, values, state
   double old_lhs = 0.0, old_rhs = 0.0;
   Unit old_unit;
+  const Expr* old_lhs_expr = nullptr;  // the old side's, owned by its Calculation
+  const Expr* old_rhs_expr = nullptr;
 };
 
 struct MetaChange {
@@ -76,6 +83,7 @@ struct SheetDiff {
   std::string old_name, new_name;
   double rtol = 0.0;
   std::vector<CheckFlip> flipped;         // new side's document order
+  std::vector<CheckFlip> still_failing;   // checks that fail on both sides, new side's order
   std::vector<ValueChange> inputs;        // given values whose text or value changed
   std::vector<FormulaChange> formulas;    // definitions and checks rewritten (not a given value re-given)
   std::vector<ValueChange> moved;         // results beyond rtol, largest relative change first
@@ -87,12 +95,16 @@ struct SheetDiff {
   bool has_cases = false;                          // either side has load cases
   std::vector<std::string> cases_added, cases_removed;  // "case NAME: ..." canonical lines
   std::vector<CaseDiff> cases;                     // cases on both sides where something moved
+  std::vector<std::string> modified_by;  // --set NAME=VALUE applied to both sides, as typed
 
   // A number moved: a check flipped, an input or a result moved beyond rtol,
   // or a quantity or check came or went. Decides the exit status of `diff`.
   bool somethingMoved() const;
   // Nothing at all to report.
   bool empty() const;
+  // A check fails on the new side (flipped to FAIL, still failing, or added
+  // failing): `diff` then exits 1 as `check` would, even with nothing changed.
+  bool checksFail() const;
 };
 
 // Relative change of `now` against `was`, as defined for ValueChange::relative.

@@ -488,7 +488,15 @@ std::string selfDiffHolds(const std::string& bytes) {
   if (renderText(buildTrail(*a, 4)) != renderText(buildTrail(*b, 4)))
     return "the same bytes give another trail the second time";
   const SheetDiff d = diffCalculations(a.get(), b.get(), 0.0);
-  if (!d.empty() || d.somethingMoved()) {
+  // Its only entries are the checks that fail, each listed as still failing.
+  size_t failing = 0;
+  for (const CheckState& c : a->checks) failing += c.passed ? 0 : 1;
+  if (d.still_failing.size() != failing)
+    return "a sheet diffed with itself lists " + std::to_string(d.still_failing.size()) +
+           " checks as still failing, not its " + std::to_string(failing) + " failing checks";
+  SheetDiff rest = d;
+  rest.still_failing.clear();
+  if (!rest.empty() || rest.somethingMoved()) {
     std::string what = d.flipped.size() ? "a flipped check" : d.inputs.size() ? "a changed input"
                      : d.formulas.size() ? "a changed formula" : d.moved.size() ? "a moved result"
                      : d.added.size() || d.removed.size() ? "an added or removed quantity"
