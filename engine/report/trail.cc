@@ -680,7 +680,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     const Quantity& q = sheet.quantities[i];
     const QuantityState& s = calc.quantities[i];
     if (q.overridden) {
-      std::string value = q.override_text;
+      std::string value = q.overrideText();
       while (!value.empty() && value.front() == ' ') value.erase(0, 1);
       while (!value.empty() && value.back() == ' ') value.pop_back();
       t.modified_by.push_back({q.name, value, q.line});
@@ -736,7 +736,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   for (TrailStep& s : t.steps) {
     // Where the value comes from: given in the worksheet, set on the command
     // line, calculated, or calculated with the cited library methods.
-    const std::string& by_case = sheet.quantities[s.index].override_case;
+    const std::string& by_case = sheet.quantities[s.index].overrideCase();
     s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
                : s.input    ? "given"
                             : "calculated";

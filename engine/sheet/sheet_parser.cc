@@ -277,16 +277,16 @@ class LineParser {
   }
 
   bool addQuantity(Statement* st, Quantity q) {
-    auto existing = sheet_->index.find(q.name);
-    if (existing != sheet_->index.end()) {
+    const int existing = sheet_->find(q.name);
+    if (existing >= 0) {
       diags_->error(file_, q.name_begin, q.name_end,
                     "`" + q.name + "` is defined twice; the first definition is on line " +
-                        std::to_string(sheet_->quantities[existing->second].line));
+                        std::to_string(sheet_->quantities[static_cast<size_t>(existing)].line));
       return false;
     }
     st->kind = Statement::Define;
     st->index = static_cast<int>(sheet_->quantities.size());
-    sheet_->index.emplace(q.name, st->index);
+    sheet_->index.insert(q.name, st->index);
     sheet_->quantities.push_back(std::move(q));
     return true;
   }
