@@ -27,6 +27,7 @@ struct QuantityOverride {
   std::shared_ptr<SourceFile> file;
 };
 
+// Members ordered so that no padding is left between them (a Quantity per line).
 struct Quantity {
   /// The name; an instance's quantity carries its instance's dotted prefix ("left.T_raise").
   std::string name;
@@ -36,11 +37,11 @@ struct Quantity {
   std::optional<Unit> display;    // resolved display unit (also a dimension assertion)
   ExprPtr expr;
   std::string description;        // text after '#'
-  int line = 0;
-  bool overridden = false;        // replaced by --set (or by the load case run alone) for this run
+  std::string section;            // the heading it stands under, "" before any
   /// Set when overridden; held apart because almost no quantity has one (memory per line).
   std::unique_ptr<const QuantityOverride> override_by;
-  std::string section;            // the heading it stands under, "" before any
+  int line = 0;
+  bool overridden = false;        // replaced by --set (or by the load case run alone) for this run
 
   // Templates (docs/templates.md).
   /// Declared with `param`: a given value at its default, replaceable by a `use ... with` binding.
@@ -53,20 +54,18 @@ struct Quantity {
   int instance = -1;
   /// The instance whose file `expr` is written in: `instance`, or for a binding the using one.
   int expr_instance = -1;
+  /// For a bound `param NAME = EXPR`: the dimension of the template's default, which the binding must have.
+  std::optional<Dimension> param_dim;
   /// The file the name, unit and line point into; null for the main sheet's own quantities.
   std::shared_ptr<SourceFile> file;
   /// The file `expr` points into when not `file` (a binding); null otherwise.
   std::shared_ptr<SourceFile> expr_file;
-  /// For a bound `param NAME = EXPR`: the dimension of the template's default, which the binding must have.
-  std::optional<Dimension> param_dim;
 
   /// The --set text when overridden, else "".
-  const std::string& overrideText() const { return override_by ? override_by->text : noText(); }
+  const std::string& overrideText() const { return override_by ? override_by->text : noOverrideText(); }
   /// The load case whose replacement it is, "" for --set or when not overridden.
-  const std::string& overrideCase() const { return override_by ? override_by->case_name : noText(); }
-
- private:
-  static const std::string& noText() {
+  const std::string& overrideCase() const { return override_by ? override_by->case_name : noOverrideText(); }
+  static const std::string& noOverrideText() {
     static const std::string empty;
     return empty;
   }
