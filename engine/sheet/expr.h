@@ -87,6 +87,17 @@ struct Expr {
   double siValue() const { return unit ? unit->toSI(number) : number; }
 };
 
+// `e` without the parentheses around it: `((a))` is `a`.
+inline const Expr* withoutParens(const Expr* e) {
+  while (e->kind == ExprKind::Group) e = e->args[0].get();
+  return e;
+}
+// `e` without parentheses and leading minus signs: `-(-a)` is `a`; null stays null.
+inline const Expr* withoutParensOrSigns(const Expr* e) {
+  while (e && (e->kind == ExprKind::Group || e->kind == ExprKind::Negate)) e = e->args[0].get();
+  return e;
+}
+
 // A deep copy of `e`, every member included (a --set tree shown in a sheet).
 ExprPtr cloneExpr(const Expr& e);
 
