@@ -34,6 +34,7 @@
 #include "engine/model/evaluate.h"
 #include "engine/model/twin_screw_port.h"
 #include "engine/sheet/sheet_parser.h"
+#include "engine/sheet/source_file.h"
 #include "engine/util/math_constants.h"
 
 using namespace calctrail;
@@ -159,6 +160,11 @@ std::string largeSheet(const Model& demo, int blocks, size_t* lines) {
 void memoryFigures(const Model& demo, int blocks) {
   size_t lines = 0;
   const std::string text = largeSheet(demo, blocks, &lines);
+  if (text.size() > kMaxSourceBytes) {  // SourceFile refuses it (docs/limits.md)
+    std::fprintf(stderr, "evaluate_perftest: %d blocks make %.1f MB, over the worksheet limit of %zu MB\n",
+                 blocks, static_cast<double>(text.size()) / 1e6, kMaxSourceBytes >> 20);
+    std::exit(2);
+  }
   const double h0 = heapBytes();
   Diagnostics diags;
   Sheet sheet = parseSheet(std::make_shared<SourceFile>("large.calc", text), &diags);
