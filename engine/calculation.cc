@@ -184,9 +184,8 @@ void Calculation::fillStates() {
     replaced_.push_back(std::move(q.expr));
     q.expr = cloneExpr(*b.expr);
     q.overridden = true;
-    q.override_text = b.text;
-    q.override_case = b.file == sheet.file ? shown_case : "";
-    q.override_file = std::const_pointer_cast<SourceFile>(b.file);
+    q.override_by.reset(new QuantityOverride{b.text, b.file == sheet.file ? shown_case : std::string(),
+                                             std::const_pointer_cast<SourceFile>(b.file)});
     s.input = readsNothing(*q.expr);
     if (!s.declared && s.has_dim) {
       s.display = undeclaredDisplayUnit(*q.expr, s.dim, m.sheet().units, m.library());

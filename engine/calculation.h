@@ -82,7 +82,7 @@ class Calculation {
 
   // The sheet as the trail shows it, its templates expanded into it
   // (Sheet::instances, Sheet::files): a --set quantity carries its --set
-  // formula, with Quantity::overridden and override_text.
+  // formula, with Quantity::overridden and overrideText().
   Sheet sheet;
   std::vector<QuantityState> quantities;
   std::vector<CheckState> checks;

@@ -476,8 +476,7 @@ struct CaseResult {
 };
 
 const Unit* writtenUnit(const Expr& e) {
-  const Expr* x = &e;
-  while (x->kind == ExprKind::Negate || x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParensOrSigns(&e);
   return x->kind == ExprKind::Number ? x->unit.get() : nullptr;
 }
 

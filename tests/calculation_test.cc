@@ -259,7 +259,7 @@ TEST_CASE("an override with --set may read other quantities, and the sheet shows
   CHECK(si(*c, "A") == Approx(0.0025).epsilon(1e-15));
   const Quantity& d = c->sheet.quantities[0];
   CHECK(d.overridden);
-  CHECK(d.override_text == " L / 4");
+  CHECK(d.overrideText() == " L / 4");
   CHECK(renderExpr(*d.expr) == "L / 4");
   CHECK_FALSE(c->quantities[0].input);
   // The model keeps the worksheet's own formula.

@@ -152,7 +152,7 @@ TEST_CASE("cases: --case evaluates one case alone as the nominal, and an unknown
   CHECK(si(*c, "T") == Approx(16.8));
   const Quantity& F = c->sheet.quantities[static_cast<size_t>(c->sheet.find("F"))];
   CHECK(F.overridden);
-  CHECK(F.override_case == "overload");
+  CHECK(F.overrideCase() == "overload");
   const Trail t = buildTrail(*c, 4);
   CHECK(t.shown_case == "overload");
   CHECK(t.steps[0].origin == "replaced in case overload");

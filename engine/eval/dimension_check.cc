@@ -60,14 +60,12 @@ namespace {
 std::string computedPlainLength(const Expr& e, const Sheet& sheet) {
   if (e.kind == ExprKind::Multiply || e.kind == ExprKind::Divide) {
     for (const ExprPtr& a : e.args) {
-      const Expr* x = a.get();
-      while (x->kind == ExprKind::Group) x = x->args[0].get();
+      const Expr* x = withoutParens(a.get());
       if (x->kind != ExprKind::Name || x->dim != kLength) continue;
       const int q = sheet.find(x->text);
       if (q < 0) continue;
       const Quantity& given = sheet.quantities[static_cast<size_t>(q)];
-      const Expr* f = given.expr.get();
-      while (f && (f->kind == ExprKind::Group || f->kind == ExprKind::Negate)) f = f->args[0].get();
+      const Expr* f = withoutParensOrSigns(given.expr.get());
       if (f && f->kind != ExprKind::Number) return x->text;
     }
   }
@@ -94,8 +92,7 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim, con
 
 namespace {
 const Expr& unwrapped(const Expr& e) {
-  const Expr* x = &e;
-  while (x->kind == ExprKind::Group || x->kind == ExprKind::Negate) x = x->args[0].get();
+  const Expr* x = withoutParensOrSigns(&e);
   return *x;
 }
 

@@ -97,8 +97,7 @@ Program compileProgram(const Expr& e, const Sheet& sheet, const std::vector<Func
   Compiler c{sheet, library, &p};
   c.emit(e, &p.text);
   // A lone name or literal needs no arithmetic: the evaluation reads it directly.
-  const Expr* x = &e;
-  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParens(&e);
   p.reads_one = x->kind == ExprKind::Name;
   p.is_constant = x->kind == ExprKind::Number;
   if (p.is_constant) p.constant = x->siValue();

@@ -16,16 +16,14 @@
 namespace calctrail {
 
 const Unit* unitAsWritten(const Expr& e) {
-  const Expr* x = &e;
-  while (x->kind == ExprKind::Negate || x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParensOrSigns(&e);
   return x->kind == ExprKind::Number ? x->unit.get() : nullptr;
 }
 
 Unit undeclaredDisplayUnit(const Expr& formula, const Dimension& dim, const UnitPreferences& prefs,
                            const std::vector<FunctionDecl>& library) {
   if (const Unit* written = unitAsWritten(formula)) return *written;
-  const Expr* x = &formula;
-  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParens(&formula);
   if (x->kind == ExprKind::Call && !findMathFunction(x->text)) {
     for (const FunctionDecl& f : library) {
       if (f.name != x->text) continue;
@@ -429,8 +427,7 @@ void Model::checkChecks(Diagnostics* diags) {
     // Show both sides in the unit of the quantity (or literal) the check names first.
     const Unit* unit = nullptr;
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
-      const Expr* x = side;
-      while (x->kind == ExprKind::Group || x->kind == ExprKind::Negate) x = x->args[0].get();
+      const Expr* x = withoutParensOrSigns(side);
       if (x->kind == ExprKind::Name && slots_[sheet_->find(x->text)].has_dim) {
         unit = &slots_[sheet_->find(x->text)].display;
         break;

@@ -27,12 +27,12 @@ struct SlotInfo {
   Dimension dim;
   /// The formula passed the dimension check and fits its declared unit.
   bool has_dim = false;
-  /// The declared unit, or the one the engine chose (the unit of a lone literal, else the preferred one).
-  Unit display;
   /// The sheet declares the unit in [ ].
   bool declared = false;
   /// A given value: its formula reads no other quantity and calls no function.
   bool input = false;
+  /// The declared unit, or the one the engine chose (the unit of a lone literal, else the preferred one).
+  Unit display;
   /// The compiled formula; empty text when there is none (has_dim false, or too long to compile).
   Program formula;
 };

@@ -127,8 +127,7 @@ NameParts splitName(const std::string& name) {
 }
 
 const Expr& ungroup(const Expr& e) {
-  const Expr* x = &e;
-  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParens(&e);
   return *x;
 }
 

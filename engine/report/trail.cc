@@ -224,8 +224,7 @@ std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
 // sheet's preferred one for the function's argument dimension (inches in a
 // US customary sheet, so that an inline `d - p / 2` is not shown in mm).
 Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& calc) {
-  const Expr* x = &arg;
-  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParens(&arg);
   if (x->kind == ExprKind::Name) {
     if (auto u = unitFor(calc.quantities[calc.sheet.find(x->text)].display, decl.dim)) return *u;
   }
@@ -319,8 +318,7 @@ const LookupTable* lookupTable(const std::string& function) {
 // per angle): its quantity's or its literal's own ("8.000 mm/rev"), so that
 // a lead never shows as a plain length.
 std::optional<Unit> leadUnit(const Expr& arg, const Calculation& calc) {
-  const Expr* x = &arg;
-  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParens(&arg);
   if (arg.dim.exponent(Base::Angle) != -1) return std::nullopt;
   if (x->kind == ExprKind::Name) {
     const int j = calc.sheet.find(x->text);
@@ -364,8 +362,7 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
     const Unit unit = lead ? *lead : argumentUnit(*call.args[k], f.args[k], calc);
     TrailValue shown_value = rounded(lead ? raw : v, unit, digits);
     // Given values and literals appear as written, as in the step itself.
-    const Expr* x = call.args[k].get();
-    while (x->kind == ExprKind::Group) x = x->args[0].get();
+    const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
       if (given[j] && calc.quantities[j].display.text == unit.text) shown_value = *given[j];
@@ -473,8 +470,7 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
 }  // namespace
 
 std::optional<TrailValue> writtenLiteral(const Expr& side, double si, const Unit& unit) {
-  const Expr* x = &side;
-  while (x->kind == ExprKind::Group) x = x->args[0].get();
+  const Expr* x = withoutParens(&side);
   if (x->kind != ExprKind::Number) return std::nullopt;
   // The value stays in the check's unit (JSON `lhs`, `rhs`); the text is the literal's own.
   if (x->unit) return written(x->text, si, unit.fromSI(si), x->unit->pretty());
@@ -696,7 +692,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     const Quantity& q = sheet.quantities[i];
     const QuantityState& s = calc.quantities[i];
     if (q.overridden) {
-      std::string value = q.override_text;
+      std::string value = q.overrideText();
       while (!value.empty() && value.front() == ' ') value.erase(0, 1);
       while (!value.empty() && value.back() == ' ') value.pop_back();
       t.modified_by.push_back({q.name, value, q.line});
@@ -721,8 +717,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     // Substituted is filled below, once every given value is known.
     step.result = rounded(s.si, s.display, digits);
     {
-      const Expr* x = q.expr.get();
-      while (x->kind == ExprKind::Group) x = x->args[0].get();
+      const Expr* x = withoutParens(q.expr.get());
       const bool literal = x->kind == ExprKind::Number;
       const bool same_unit = x->unit ? (s.display.text == x->unit->text && !s.declared) ||
                                            (q.display && q.display->text == x->unit->text)
@@ -752,7 +747,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   for (TrailStep& s : t.steps) {
     // Where the value comes from: given in the worksheet, set on the command
     // line, calculated, or calculated with the cited library methods.
-    const std::string& by_case = sheet.quantities[s.index].override_case;
+    const std::string& by_case = sheet.quantities[s.index].overrideCase();
     s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
                : s.input    ? "given"
                             : "calculated";
@@ -778,8 +773,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, digits, &s.bindings);
     const std::string substituted = lineText(s.substituted);
     s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
-    const Expr* x = &expr;
-    while (x->kind == ExprKind::Group) x = x->args[0].get();
+    const Expr* x = withoutParens(&expr);
     if (!calls.empty() && x == calls[0]) s.calls[0].whole = true;
     s.single_call = !calls.empty() && s.calls[0].whole && s.calls[0].formula_is_expression &&
                     s.calls[0].show_substituted;

@@ -2,6 +2,45 @@
 
 namespace calctrail {
 
+ExprList::ExprList(ExprList&& o) noexcept : data_(o.data_), size_(o.size_), capacity_(o.capacity_) {
+  o.data_ = nullptr;
+  o.size_ = o.capacity_ = 0;
+}
+
+ExprList& ExprList::operator=(ExprList&& o) noexcept {
+  if (this != &o) {
+    delete[] data_;
+    data_ = o.data_;
+    size_ = o.size_;
+    capacity_ = o.capacity_;
+    o.data_ = nullptr;
+    o.size_ = o.capacity_ = 0;
+  }
+  return *this;
+}
+
+ExprList::~ExprList() { delete[] data_; }
+
+void ExprList::reserve(size_t n) {
+  if (n <= capacity_) return;
+  auto* grown = new ExprPtr[n];
+  for (uint32_t i = 0; i < size_; ++i) grown[i] = std::move(data_[i]);
+  delete[] data_;
+  data_ = grown;
+  capacity_ = static_cast<uint32_t>(n);
+}
+
+void ExprList::push_back(ExprPtr e) {
+  if (size_ == capacity_) reserve(capacity_ == 0 ? 2 : size_t{capacity_} * 2);
+  data_[size_++] = std::move(e);
+}
+
+void ExprList::clear() {
+  delete[] data_;
+  data_ = nullptr;
+  size_ = capacity_ = 0;
+}
+
 ExprPtr cloneExpr(const Expr& e) {
   auto c = std::make_unique<Expr>();
   c->kind = e.kind;

@@ -34,9 +34,47 @@ enum class TemperatureKind : uint8_t {
   Difference,  // an interval: 5 ddegC, T2 - T1
 };
 
+struct Expr;
+using ExprPtr = std::unique_ptr<Expr>;
+
+// The operands of a node: a vector of ExprPtr in 16 bytes instead of 24
+// (a pointer and two 32-bit counts). Most nodes are leaves, and a large
+// sheet has millions of nodes, so the 8 bytes take every node down a malloc
+// size class (docs/performance.md, Memory).
+class ExprList {
+ public:
+  ExprList() = default;
+  ExprList(ExprList&& o) noexcept;
+  ExprList& operator=(ExprList&& o) noexcept;
+  ExprList(const ExprList&) = delete;
+  ExprList& operator=(const ExprList&) = delete;
+  ~ExprList();
+
+  size_t size() const { return size_; }
+  bool empty() const { return size_ == 0; }
+  ExprPtr& operator[](size_t i) { return data_[i]; }
+  const ExprPtr& operator[](size_t i) const { return data_[i]; }
+  ExprPtr* begin() { return data_; }
+  ExprPtr* end() { return data_ + size_; }
+  const ExprPtr* begin() const { return data_; }
+  const ExprPtr* end() const { return data_ + size_; }
+  ExprPtr& back() { return data_[size_ - 1]; }
+  const ExprPtr& back() const { return data_[size_ - 1]; }
+  void push_back(ExprPtr e);
+  void reserve(size_t n);
+  void clear();
+
+ private:
+  ExprPtr* data_ = nullptr;  // new ExprPtr[capacity_]
+  uint32_t size_ = 0, capacity_ = 0;
+};
+
+// Members ordered so that the node fits 120 bytes (a 128-byte malloc chunk).
 struct Expr {
   ExprKind kind = ExprKind::Number;
+  TemperatureKind temperature = TemperatureKind::Unknown;  // filled in by the dimension check
   uint32_t begin = 0, end = 0;  // byte offsets of the whole node in its file
+  Dimension dim;  // filled in by the dimension check
   // Number: the literal as written ("0.25") and its value in that unit.
   // Name, Call: the name.
   std::string text;
@@ -44,13 +82,21 @@ struct Expr {
   // Number with a unit: the unit as written ("kN", "[m/s^2]") and resolved.
   std::string unit_written;
   std::unique_ptr<Unit> unit;
-  std::vector<std::unique_ptr<Expr>> args;  // operands or call arguments
-  Dimension dim;  // filled in by the dimension check
-  TemperatureKind temperature = TemperatureKind::Unknown;  // filled in by the dimension check
+  ExprList args;  // operands or call arguments
 
   double siValue() const { return unit ? unit->toSI(number) : number; }
 };
-using ExprPtr = std::unique_ptr<Expr>;
+
+// `e` without the parentheses around it: `((a))` is `a`.
+inline const Expr* withoutParens(const Expr* e) {
+  while (e->kind == ExprKind::Group) e = e->args[0].get();
+  return e;
+}
+// `e` without parentheses and leading minus signs: `-(-a)` is `a`; null stays null.
+inline const Expr* withoutParensOrSigns(const Expr* e) {
+  while (e && (e->kind == ExprKind::Group || e->kind == ExprKind::Negate)) e = e->args[0].get();
+  return e;
+}
 
 // A deep copy of `e`, every member included (a --set tree shown in a sheet).
 ExprPtr cloneExpr(const Expr& e);

@@ -6,6 +6,7 @@
 #include <cstdlib>
 
 #include "engine/sheet/control_chars.h"
+#include "engine/sheet/name_lexer.h"
 #include "engine/units/unit_parser.h"
 #include "engine/units/unit_table.h"
 #include "engine/util/utf8.h"
@@ -60,36 +61,10 @@ void ExprParser::fail(uint32_t begin, uint32_t end, const std::string& message) 
   diags_->error(file_, begin, end, message);
 }
 
-bool ExprParser::isNameStart(uint32_t at) const {
-  if (at >= end_) return false;
-  if (isAsciiLetter(src_[at])) return true;
-  if (static_cast<unsigned char>(src_[at]) < 0x80) return false;
-  size_t n;
-  return isGreekLetter(decodeUtf8(src_.substr(0, end_), at, &n));
-}
+bool ExprParser::isNameStart(uint32_t at) const { return calctrail::isNameStart(src_.substr(0, end_), at); }
 
 uint32_t ExprParser::scanName(uint32_t at) const {
-  while (at < end_) {
-    const char c = src_[at];
-    if (isAsciiLetter(c) || isDigit(c) || c == '_') {
-      ++at;
-      continue;
-    }
-    // An instance's quantity: `left.T_raise` (docs/templates.md).
-    if (c == '.' && isNameStart(at + 1)) {
-      ++at;
-      continue;
-    }
-    if (static_cast<unsigned char>(c) >= 0x80) {
-      size_t n;
-      if (isGreekLetter(decodeUtf8(src_.substr(0, end_), at, &n))) {
-        at += static_cast<uint32_t>(n);
-        continue;
-      }
-    }
-    break;
-  }
-  return at;
+  return static_cast<uint32_t>(nameEnd(src_.substr(0, end_), at, /*dotted=*/true));
 }
 
 void ExprParser::failUnexpected() {

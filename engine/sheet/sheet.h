@@ -10,12 +10,24 @@
 #include <vector>
 
 #include "engine/sheet/expr.h"
+#include "engine/sheet/name_index.h"
 #include "engine/sheet/source_file.h"
 #include "engine/units/unit.h"
 #include "engine/units/unit_preferences.h"
 
 namespace calctrail {
 
+// What replaced a quantity's definition for one run (--set, or the load case run alone).
+struct QuantityOverride {
+  /// The replacement as written (the --set text, or the case's expression).
+  std::string text;
+  /// The load case whose replacement it is, "" for --set.
+  std::string case_name;
+  /// The file the replacement tree points into.
+  std::shared_ptr<SourceFile> file;
+};
+
+// Members ordered so that no padding is left between them (a Quantity per line).
 struct Quantity {
   /// The name; an instance's quantity carries its instance's dotted prefix ("left.T_raise").
   std::string name;
@@ -25,13 +37,11 @@ struct Quantity {
   std::optional<Unit> display;    // resolved display unit (also a dimension assertion)
   ExprPtr expr;
   std::string description;        // text after '#'
+  std::string section;            // the heading it stands under, "" before any
+  /// Set when overridden; held apart because almost no quantity has one (memory per line).
+  std::unique_ptr<const QuantityOverride> override_by;
   int line = 0;
   bool overridden = false;        // replaced by --set (or by the load case run alone) for this run
-  std::string override_text;      // the --set text when overridden
-  std::string override_case;      // the load case whose replacement it is, "" for --set
-  // The file `expr` points into: the worksheet, or a --set text when overridden.
-  std::shared_ptr<SourceFile> override_file;
-  std::string section;            // the heading it stands under, "" before any
 
   // Templates (docs/templates.md).
   /// Declared with `param`: a given value at its default, replaceable by a `use ... with` binding.
@@ -44,12 +54,21 @@ struct Quantity {
   int instance = -1;
   /// The instance whose file `expr` is written in: `instance`, or for a binding the using one.
   int expr_instance = -1;
+  /// For a bound `param NAME = EXPR`: the dimension of the template's default, which the binding must have.
+  std::optional<Dimension> param_dim;
   /// The file the name, unit and line point into; null for the main sheet's own quantities.
   std::shared_ptr<SourceFile> file;
   /// The file `expr` points into when not `file` (a binding); null otherwise.
   std::shared_ptr<SourceFile> expr_file;
-  /// For a bound `param NAME = EXPR`: the dimension of the template's default, which the binding must have.
-  std::optional<Dimension> param_dim;
+
+  /// The --set text when overridden, else "".
+  const std::string& overrideText() const { return override_by ? override_by->text : noOverrideText(); }
+  /// The load case whose replacement it is, "" for --set or when not overridden.
+  const std::string& overrideCase() const { return override_by ? override_by->case_name : noOverrideText(); }
+  static const std::string& noOverrideText() {
+    static const std::string empty;
+    return empty;
+  }
 };
 
 enum class Comparison { Less, LessEqual, Greater, GreaterEqual };
@@ -241,7 +260,8 @@ struct Sheet {
   std::vector<LoadCase> cases;  // in document order
   /// The `study` lines of this file, in document order (a template's own are not brought in by `use`).
   std::vector<SheetStudy> studies;
-  std::unordered_map<std::string, int> index;  // quantity name -> position
+  /// Quantity name -> position in `quantities`.
+  NameIndex index;
   /// The `use` lines of this file, in order.
   std::vector<Use> uses;
   /// Filled by the template loader: the instances expanded into `quantities` and `checks`.
@@ -276,8 +296,9 @@ struct Sheet {
   }
 
   int find(const std::string& name) const {
-    auto it = index.find(name);
-    return it == index.end() ? -1 : it->second;
+    return index.find(name, [this](int at) -> const std::string& {
+      return quantities[static_cast<size_t>(at)].name;
+    });
   }
   // The study called `name`, or -1.
   int findStudy(const std::string& name) const {

@@ -5,6 +5,7 @@
 
 #include "engine/sheet/control_chars.h"
 #include "engine/sheet/expr_parser.h"
+#include "engine/sheet/name_lexer.h"
 #include "engine/units/unit_parser.h"
 #include "engine/util/edit_distance.h"
 #include "engine/util/utf8.h"
@@ -35,8 +36,6 @@ const char* comparisonText(Comparison c) {
 namespace {
 
 bool isSpace(char c) { return c == ' ' || c == '\t'; }
-bool isAsciiLetter(char c) { return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z'); }
-bool isNameChar(char c) { return isAsciiLetter(c) || (c >= '0' && c <= '9') || c == '_'; }
 
 std::string trim(std::string_view s) {
   size_t b = 0, e = s.size();
@@ -57,25 +56,9 @@ class LineParser {
   }
 
  private:
-  // Name at `at`: ASCII letter or Greek letter first, then letters, digits, `_`.
+  // Name at `at` (engine/sheet/name_lexer.h); `at` when none starts there.
   uint32_t scanName(uint32_t at, uint32_t end) const {
-    const std::string& s = file_.bytes();
-    uint32_t p = at;
-    while (p < end) {
-      if (isNameChar(s[p]) && (p > at || isAsciiLetter(s[p]))) {
-        ++p;
-        continue;
-      }
-      if (static_cast<unsigned char>(s[p]) >= 0x80) {
-        size_t n;
-        if (isGreekLetter(decodeUtf8(std::string_view(s).substr(0, end), p, &n))) {
-          p += static_cast<uint32_t>(n);
-          continue;
-        }
-      }
-      break;
-    }
-    return p;
+    return static_cast<uint32_t>(nameEnd(std::string_view(file_.bytes()).substr(0, end), at));
   }
 
   uint32_t skipSpace(uint32_t p, uint32_t end) const {
@@ -277,16 +260,16 @@ class LineParser {
   }
 
   bool addQuantity(Statement* st, Quantity q) {
-    auto existing = sheet_->index.find(q.name);
-    if (existing != sheet_->index.end()) {
+    const int existing = sheet_->find(q.name);
+    if (existing >= 0) {
       diags_->error(file_, q.name_begin, q.name_end,
                     "`" + q.name + "` is defined twice; the first definition is on line " +
-                        std::to_string(sheet_->quantities[existing->second].line));
+                        std::to_string(sheet_->quantities[static_cast<size_t>(existing)].line));
       return false;
     }
     st->kind = Statement::Define;
     st->index = static_cast<int>(sheet_->quantities.size());
-    sheet_->index.emplace(q.name, st->index);
+    sheet_->index.insert(q.name, st->index);
     sheet_->quantities.push_back(std::move(q));
     return true;
   }

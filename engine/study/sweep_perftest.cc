@@ -7,9 +7,7 @@
 // ratio (target: at most 5x native on one core), and the speed-up of the
 // sweep on 2 threads. Figures: docs/performance.md.
 //
-// The port is copied from engine/model/evaluate_perftest.cc (the minimum:
-// the library lookups, the inputs and the calculation), so the two
-// benchmarks stay independent programs.
+// The port is engine/model/twin_screw_port.h, shared with evaluate_perftest.
 //
 //   sweep_perftest [--points N] [--worksheets DIR]
 //
@@ -27,6 +25,7 @@
 #include <vector>
 
 #include "engine/model/evaluate.h"
+#include "engine/model/twin_screw_port.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/template/template_loader.h"
 #include "engine/util/sha256.h"
@@ -34,6 +33,7 @@
 #include "engine/util/math_constants.h"
 
 using namespace calctrail;
+using namespace calctrail::perftest;
 
 namespace {
 
@@ -51,114 +51,9 @@ double cpu() {
 }
 
 // ---------------------------------------------------------------------------
-// The hand-written port of twin-screw-lift.calc (as in evaluate_perftest.cc).
 
-using Eval = double (*)(const double*);
-
-Eval fn(const char* name) {
-  const FunctionDecl* f = findFunction(name);
-  if (!f) {
-    std::fprintf(stderr, "sweep_perftest: the library has no `%s`\n", name);
-    std::exit(2);
-  }
-  return f->eval;
-}
-
-struct Library {
-  Eval trap_pitch = fn("trap_pitch"), thread_lead = fn("thread_lead"), trap_pitch_dia = fn("trap_pitch_dia"),
-       trap_minor_dia = fn("trap_minor_dia"), trap_flank_angle = fn("trap_flank_angle"),
-       starting_friction = fn("starting_friction"), lead_angle = fn("lead_angle"),
-       collar_torque = fn("collar_torque_uniform_pressure"), torque_raise = fn("torque_raise"),
-       torque_lower = fn("torque_lower"), efficiency = fn("screw_efficiency_with_collar"),
-       overall_efficiency_2 = fn("overall_efficiency"), nut_speed = fn("nut_speed"),
-       travel_time = fn("travel_time"), motor_torque = fn("motor_torque"), motor_power = fn("motor_power"),
-       standard_motor_power = fn("standard_motor_power"), body_axial_stress = fn("body_axial_stress"),
-       body_torsion_stress = fn("body_torsion_stress"), von_mises = fn("von_mises"),
-       thread_root_bending = fn("thread_root_bending"), bearing_pressure = fn("thread_bearing_pressure"),
-       nut_pv = fn("nut_pv"), output_speed = fn("output_speed"), buckling_safety = fn("buckling_safety");
-};
-
-const char* const kInputs[] = {"m_load",  "g_n",      "k_uneven", "screws",    "stroke", "t_max",
-                               "d",       "f_run",    "f_low",    "f_c",       "D_o",    "D_i",
-                               "n_motor", "i_worm",   "eta_worm", "eta_bevel", "S_y",    "L_nut",
-                               "p_allow", "pv_allow", "E",        "L_col",     "C_end"};
-constexpr int kInputCount = sizeof kInputs / sizeof kInputs[0];
-
-struct PortOut {
-  double T_motor, P_motor;
-  bool checks[7];
-};
-
-void port(const Library& L, const double* in, PortOut* out) {
-  const double m_load = in[0], g_n = in[1], k_uneven = in[2], screws = in[3], stroke = in[4], t_max = in[5],
-               d = in[6], f_run = in[7], f_low = in[8], f_c = in[9], D_o = in[10], D_i = in[11],
-               n_motor = in[12], i_worm = in[13], eta_worm = in[14], eta_bevel = in[15], S_y = in[16],
-               L_nut = in[17], p_allow = in[18], pv_allow = in[19], E = in[20], L_col = in[21],
-               C_end = in[22];
-  const double F = m_load * g_n / screws * k_uneven;
-  const double a1[] = {d};
-  const double p = L.trap_pitch(a1);
-  const double a2[] = {p, 1};
-  const double l = L.thread_lead(a2);  // metres per revolution
-  const double a3[] = {d, p};
-  const double d_m = L.trap_pitch_dia(a3);
-  const double d_r = L.trap_minor_dia(a3);
-  const double alpha = L.trap_flank_angle(nullptr);
-  const double a4[] = {f_run};
-  const double f_start = L.starting_friction(a4);
-  const double a5[] = {d_m, l};
-  volatile double lambda_s = L.lead_angle(a5);  // computed by the sheet, read by nothing
-  (void)lambda_s;
-  const double a6[] = {F, f_c, D_o, D_i};
-  const double T_collar = L.collar_torque(a6);
-  const double a7[] = {F, d_m, l, f_start, alpha};
-  const double T_thread = L.torque_raise(a7);
-  const double T_screw = T_thread + T_collar;
-  const double a8[] = {F, d_m, l, f_low, alpha};
-  const double T_hold = L.torque_lower(a8);
-  const double a9[] = {d_m, l, f_run, alpha, f_c, (D_o + D_i) / 2};
-  volatile double eta = L.efficiency(a9);
-  (void)eta;
-  const double a10[] = {eta_worm, eta_bevel};
-  const double eta_drive = L.overall_efficiency_2(a10);
-  const double a11[] = {n_motor, i_worm, l};
-  volatile double v_table = L.nut_speed(a11);
-  (void)v_table;
-  const double a12[] = {stroke, n_motor, i_worm, l};
-  const double t_lift = L.travel_time(a12);
-  const double a13[] = {T_screw, screws, i_worm, eta_drive};
-  out->T_motor = L.motor_torque(a13);
-  const double a14[] = {T_screw, screws, n_motor, i_worm, eta_drive};
-  const double P_motor = out->P_motor = L.motor_power(a14);
-  const double a15[] = {P_motor};
-  const double P_rated = L.standard_motor_power(a15);
-  const double a16[] = {F, d_r};
-  const double sigma_a = L.body_axial_stress(a16);
-  const double a17[] = {T_thread, d_r};
-  const double tau = L.body_torsion_stress(a17);
-  const double a18[] = {sigma_a, tau};
-  const double sigma_vm = L.von_mises(a18);
-  const double n_yield = S_y / sigma_vm;
-  const double a19[] = {F, d_r, p, 0.38};
-  volatile double sigma_b = L.thread_root_bending(a19);
-  (void)sigma_b;
-  const double a20[] = {F, d_m, p, L_nut / p};
-  const double p_nut = L.bearing_pressure(a20);
-  const double a21[] = {n_motor, i_worm};
-  const double a22[] = {F, d_m, p, L_nut / p, l, L.output_speed(a21)};
-  const double pv = L.nut_pv(a22);
-  const double a23[] = {F, d_r, L_col, C_end, E, S_y};
-  const double n_buckle = L.buckling_safety(a23);
-  out->checks[0] = T_hold > 0;
-  out->checks[1] = n_yield >= 3;
-  out->checks[2] = n_buckle >= 3;
-  out->checks[3] = p_nut <= p_allow;
-  out->checks[4] = pv <= pv_allow;
-  out->checks[5] = P_motor <= P_rated;
-  out->checks[6] = t_lift <= t_max;
-}
-
-// ---------------------------------------------------------------------------
+// The two results the sweep shows, in the port's outputs.
+const int kTMotor = outputIndex("T_motor"), kPMotor = outputIndex("P_motor");
 
 struct Figures {
   double engine1_us = 1e9, engine2_us = 1e9, native_us = 1e9;  // wall clock per point, best run
@@ -203,8 +98,8 @@ Figures measure(const Model& m, const Inputs& nominal, const Results& base, cons
     for (int i = 0; i < points; ++i) {
       in[index] = range.values[static_cast<size_t>(i)];
       port(L, in, &out);
-      results[2 * static_cast<size_t>(i)] = out.T_motor;
-      results[2 * static_cast<size_t>(i) + 1] = out.P_motor;
+      results[2 * static_cast<size_t>(i)] = out.v[kTMotor];
+      results[2 * static_cast<size_t>(i) + 1] = out.v[kPMotor];
       for (int k = 0; k < 7; ++k) checks[7 * static_cast<size_t>(i) + k] = out.checks[k];
     }
     f.native_us = std::min(f.native_us, (now() - t) * 1e6 / points);

@@ -196,11 +196,12 @@ class Expander {
         q.expr = qualifiedCopy(*tq.expr, own_prefix);
       }
       const int qi = static_cast<int>(out_->quantities.size());
-      if (!out_->index.emplace(q.name, qi).second) {
+      if (out_->find(q.name) >= 0) {
         error(u, use.instance_begin, use.instance_end,
               "the instance `" + use.instance + "` defines `" + q.name + "`, which the sheet has already");
         continue;
       }
+      out_->index.insert(q.name, qi);
       out_->instances[index].quantities.push_back(qi);
       if (tq.param) {
         param.quantity = qi;
