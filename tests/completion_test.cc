@@ -50,7 +50,10 @@ TEST_CASE("completion: options and the values of --format", "[completion]") {
   CHECK(complete("diff a.calc b.calc --format ''") == "text\nmd\njson\n");
   CHECK(complete("units --format ''") == "text\nmd\n");
   CHECK(complete("fmt --") == "--help\n--check\n--write\n");
-  CHECK(complete("check -") == "-h\n--help\n--set\n--case\n-q\n--quiet\n");
+  CHECK(complete("check -") == "-h\n--help\n--set\n--case\n-q\n--quiet\n-f\n--format\n-j\n--jobs\n");
+  CHECK(complete("check a.calc --format ''") == "text\njson\njunit\n");
+  CHECK(complete("check a.calc -f j") == "json\njunit\n");
+  CHECK(complete("check a.calc -j ''") == "\n");  // a number: nothing to offer
   // A number or NAME=VALUE has nothing to offer.
   CHECK(complete("report gate.calc --digits ''") == "\n");
   CHECK(complete("functions trap_pitch") == "trap_pitch\ntrap_pitch_dia\n");

@@ -1,5 +1,5 @@
-// A strict little JSON reader for tests: the report's JSON must parse, and
-// its fields are then checked by name and type.
+// The JSON a test reads, parsed by nlohmann-json (strict) and copied into a
+// plain tree whose fields the tests check by name and type.
 #pragma once
 
 #include <map>

@@ -193,3 +193,78 @@ TEST_CASE("JSON numbers are the calculation's doubles, bit for bit", "[json][sch
     }
   }
 }
+
+TEST_CASE("check --format json follows docs/check.schema.json", "[json][schema][check]") {
+  const Json schema = load(readFile(repoPath("docs/check.schema.json")));
+  const std::string dir = tempDir();
+  writeFile(dir + "/broken.calc", "a = 1 +\nb [mm] = 2 kg\ncheck c: b < 1 mm\n");
+  // Passing, failing on purpose, a parse error, load cases, templates.
+  const std::string files = "worksheets/canal-gate-hoist.calc worksheets/press-overload-fails.calc '" + dir +
+                            "/broken.calc' worksheets/bearing-press.calc worksheets/platform-lift.calc";
+  Run r = runCli("check " + files + " --format json");
+  INFO(r.out << r.err);
+  CHECK(r.status == 2);
+  const Json out = load(r.out);
+  std::vector<std::string> errors;
+  validate(schema, out, "$", &errors);
+  std::string all;
+  for (const auto& e : errors) all += e + "\n";
+  INFO(all);
+  CHECK(errors.empty());
+  REQUIRE(out["files"].array.size() == 5);
+  const Json& fails = out["files"][1];
+  CHECK(fails["path"].string == "worksheets/press-overload-fails.calc");
+  REQUIRE(fails["failed"].array.size() == 1);
+  CHECK(fails["failed"][0]["name"].string == "nut_pressure");
+  CHECK(fails["failed"][0]["case"].string == "nominal");
+  CHECK(fails["failed"][0]["line"].number == 28);
+  CHECK(fails["failed"][0]["col"].number == 7);
+  // The text is the line the text format prints.
+  const Run text = runCli("check worksheets/press-overload-fails.calc -q");
+  CHECK(text.out == fails["failed"][0]["text"].string + "\n");
+  const Json& broken = out["files"][2];
+  CHECK_FALSE(broken["evaluated"].boolean);
+  REQUIRE(broken["errors"].array.size() == 2);
+  CHECK(broken["errors"][0]["line"].number == 1);
+  CHECK(broken["errors"][0]["col"].number == 7);
+  CHECK(broken["errors"][1]["message"].string.find("length (mm)") != std::string::npos);
+  CHECK(broken["errors_count"].number == 2);
+  // bearing-press: 5 checks in the nominal and 3 cases, every one passing.
+  CHECK(out["files"][3]["checks_passed"].number == 20);
+  CHECK(out["files"][3]["checks_failed"].number == 0);
+  CHECK(out["files"][4]["evaluated"].boolean);
+  // The totals are the sums of the files.
+  double passed = 0, failed = 0, errs = 0;
+  for (const Json& f : out["files"].array) {
+    passed += f["checks_passed"].number;
+    failed += f["checks_failed"].number;
+    errs += f["errors_count"].number;
+    CHECK(f["checks_failed"].number == static_cast<double>(f["failed"].array.size()));
+  }
+  CHECK(out["totals"]["checks_passed"].number == passed);
+  CHECK(out["totals"]["checks_failed"].number == failed);
+  CHECK(out["totals"]["errors"].number == errs);
+  CHECK(out["totals"]["files"].number == 5);
+  CHECK(out["totals"]["files_with_errors"].number == 1);
+  CHECK(out["exit_status"].number == 2);
+  // The errors still go to standard error, as the contract's diagnostics.
+  CHECK(r.err.find("broken.calc:1:7: error: ") != std::string::npos);
+}
+
+TEST_CASE("check --format json of a failing case names the case", "[json][schema][check]") {
+  const Json schema = load(readFile(repoPath("docs/check.schema.json")));
+  // 30 % over the rated force: only the motor in the high-friction case is overloaded.
+  Run r = runCli("check worksheets/bearing-press.calc --set \"k_load=1.3\" --format json");
+  INFO(r.out << r.err);
+  REQUIRE(r.status == 1);
+  const Json out = load(r.out);
+  std::vector<std::string> errors;
+  validate(schema, out, "$", &errors);
+  CHECK(errors.empty());
+  REQUIRE(out["files"][0]["failed"].array.size() == 1);
+  const Json& motor = out["files"][0]["failed"][0];
+  CHECK(motor["name"].string == "motor");
+  CHECK(motor["case"].string == "friction_high");
+  CHECK(motor["message"].string.find("fails in case friction_high: ") != std::string::npos);
+  CHECK(out["files"][0]["checks_passed"].number == 19);
+}

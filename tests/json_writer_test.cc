@@ -5,7 +5,10 @@
 #include <cfloat>
 #include <cmath>
 
+#include <nlohmann/json.hpp>
+
 #include "engine/util/json_writer.h"
+#include "engine/study/json_reader.h"
 #include "tests/json_reader.h"
 
 using namespace calctrail;
@@ -72,7 +75,7 @@ TEST_CASE("JSON writer: numbers at full precision, null for what JSON cannot hol
   w.value(-7).value(false);
   w.endArray();
   CHECK(w.str() ==
-        "[\n  0.1,\n  12000,\n  -0,\n  1e-300,\n  1.7976931348623157e+308,\n  5e-324,\n  26.18,\n"
+        "[\n  0.1,\n  12000,\n  -0.0,\n  1e-300,\n  1.7976931348623157e+308,\n  5e-324,\n  26.18,\n"
         "  null,\n  null,\n  null,\n  -7,\n  false\n]\n");
 }
 
@@ -83,4 +86,31 @@ TEST_CASE("JSON writer: appends to a caller's sink", "[json_writer]") {
   w.beginObject().key("k").value("v").endObject();
   CHECK(fmt::to_string(sink) == "before {\n  \"k\": \"v\"\n}\n");
   CHECK(w.str() == fmt::to_string(sink));
+}
+
+TEST_CASE("JSON writer: -0 keeps its sign through nlohmann-json and both readers", "[json_writer]") {
+  JsonWriter w;
+  w.beginArray().value(-0.0).value(0.0).value(-5e-324).endArray();
+  // What nlohmann does with a bare -0 (the reason the writer does not write one):
+  // the integer 0, without a sign.
+  const nlohmann::json bare = nlohmann::json::parse("-0");
+  CHECK(bare.is_number_integer());
+  CHECK_FALSE(std::signbit(bare.get<double>()));
+  const nlohmann::json j = nlohmann::json::parse(w.str());
+  REQUIRE(j.size() == 3);
+  CHECK(j[0].is_number_float());
+  CHECK(j[0].get<double>() == 0.0);
+  CHECK(std::signbit(j[0].get<double>()));
+  CHECK_FALSE(std::signbit(j[1].get<double>()));
+  CHECK(j[2].get<double>() == -5e-324);
+  // The tests' reader and sweep --merge's reader read it back the same way.
+  Json t;
+  std::string error;
+  REQUIRE(parseJson(w.str(), &t, &error));
+  CHECK(std::signbit(t[0].number));
+  CHECK_FALSE(std::signbit(t[1].number));
+  calctrail::JsonValue v;
+  REQUIRE(calctrail::parseJsonText(w.str(), &v, &error));
+  CHECK(std::signbit(v.array.at(0).number));
+  CHECK_FALSE(std::signbit(v.array.at(1).number));
 }

@@ -8,6 +8,7 @@
 #include <unistd.h>
 #include <cmath>
 #include <cstdlib>
+#include <thread>
 
 #include "engine/report/json_renderer.h"
 #include "engine/report/text_renderer.h"
@@ -369,6 +370,28 @@ TEST_CASE("paths: relative to the using file, `../` allowed, a symbolic link out
   REQUIRE(symlink((f.dir + "/lib/screw.calc").c_str(), (f.dir + "/lib/alias.calc").c_str()) == 0);
   f.write("lib/user.calc", "use alias.calc as s with F = 1 kN\n");
   CHECK(f.diags(*f.calc("lib/user.calc")).empty());
+}
+
+TEST_CASE("a template shared by sheets checked on many threads is parsed once", "[template][cache][jobs]") {
+  Folder f;
+  f.write("templates/screw.calc", kScrew);
+  constexpr int kSheets = 16;
+  for (int i = 0; i < kSheets; ++i)
+    f.write("s" + std::to_string(i) + ".calc",
+            "use templates/screw.calc as x with F = " + std::to_string(i + 1) + " kN\n");
+  TemplateCache cache;
+  std::vector<std::unique_ptr<Calculation>> calcs(kSheets);
+  std::vector<std::thread> threads;
+  for (int i = 0; i < kSheets; ++i)
+    threads.emplace_back([&, i] { calcs[static_cast<size_t>(i)] = f.calc("s" + std::to_string(i) + ".calc", {}, &cache); });
+  for (std::thread& t : threads) t.join();
+  CHECK(cache.parses() == 1);
+  for (int i = 0; i < kSheets; ++i) {
+    const Calculation& c = *calcs[static_cast<size_t>(i)];
+    REQUIRE_FALSE(c.hasErrors());
+    // T = F * f * dm / 2 with the template's f = 0.1 and dm = 20 mm, as the test below.
+    CHECK(si(c, "x.T") == Approx((i + 1) * 1000.0 * 0.1 * 0.020 / 2));
+  }
 }
 
 TEST_CASE("a template shared by many sheets is parsed once per run", "[template][cache]") {

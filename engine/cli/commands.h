@@ -25,6 +25,8 @@ struct CheckArgs {
   std::vector<std::string> sets;
   std::string case_name;  // --case: that load case alone
   bool quiet = false;
+  std::string format = "text";  // text (a line per problem), json or junit (docs/json.md)
+  int jobs = 0;                 // worksheets checked at once; 0: one per core
 };
 int runCheck(const CheckArgs& args);
 

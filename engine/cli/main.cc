@@ -161,6 +161,11 @@ int main(int argc, char** argv) {
   check_cmd->add_option("--case", check.case_name, "Evaluate this load case alone (default: every case)")
       ->type_name("NAME");
   check_cmd->add_flag("--quiet,-q", check.quiet, "No summary line, only the problems");
+  check_cmd->add_option("--format,-f", check.format, "Output format: text, json or junit (JUnit XML for CI)")
+      ->check(CLI::IsMember({"text", "json", "junit"}))
+      ->default_str("text");
+  check_cmd->add_option("-j,--jobs", check.jobs, "Worksheets checked at once (default: one per core)")
+      ->check(wholeNumberIn(1, 1024));
 
   std::string fn_name, fn_format = "text";
   CLI::App* fn_cmd = app.add_subcommand("functions", "List the built-in drive functions, or show one in detail");

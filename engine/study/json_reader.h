@@ -1,7 +1,10 @@
-// A strict little JSON reader, for what calctrail itself wrote: a sweep
-// shard read back to be merged (sweep_merge.h). Objects keep their members
-// in the order written; numbers are read back exactly (strtod of the
-// shortest round-trip text JsonWriter writes).
+// JSON read back for what calctrail itself wrote: a sweep shard read back
+// to be merged (sweep_merge.h). nlohmann-json parses; this keeps the
+// members of an object in the order written, in a plain tree the merge
+// walks. Numbers are read back exactly (strtod of the shortest round-trip
+// text JsonWriter writes); negative zero keeps its sign because JsonWriter
+// writes it as -0.0, which nlohmann reads as a double (a bare -0 would be
+// the integer 0).
 #pragma once
 
 #include <string>

@@ -10,6 +10,7 @@ namespace calctrail {
 const TemplateFile* TemplateCache::get(const FileSource& source, const std::string& path,
                                        std::string* error) {
   const std::string key = source.id() + '\n' + path;
+  std::lock_guard<std::mutex> lock(mutex_);
   auto it = entries_.find(key);
   if (it == entries_.end()) {
     Entry entry;

@@ -5,6 +5,7 @@
 
 #include <map>
 #include <memory>
+#include <mutex>
 #include <optional>
 #include <string>
 #include <vector>
@@ -32,10 +33,15 @@ struct TemplateFile {
 class TemplateCache {
  public:
   // The template at `path` of `source`, read and parsed on the first call;
-  // nullptr with the reason in *error when it cannot be read.
+  // nullptr with the reason in *error when it cannot be read. Safe to call
+  // from several threads (`check -j`): one lock over the lookup and the
+  // parse, so a template is still parsed once however many sheets wait for it.
   const TemplateFile* get(const FileSource& source, const std::string& path, std::string* error);
   // How many files were read and parsed so far (one per distinct template).
-  size_t parses() const { return parses_; }
+  size_t parses() const {
+    std::lock_guard<std::mutex> lock(mutex_);
+    return parses_;
+  }
 
  private:
   struct Entry {
@@ -44,6 +50,7 @@ class TemplateCache {
   };
   std::map<std::string, Entry> entries_;  // by source id and path
   size_t parses_ = 0;
+  mutable std::mutex mutex_;  // guards entries_ and parses_; entries never move once made
 };
 
 }  // namespace calctrail

@@ -98,7 +98,11 @@ JsonWriter& JsonWriter::value(std::string_view s) {
 
 JsonWriter& JsonWriter::value(double d) {
   beforeValue();
-  fmt::format_to(std::back_inserter(*out_), "{}", std::isfinite(d) ? formatExact(d) : "null");
+  // Negative zero as -0.0: JSON readers (nlohmann-json among them) read a
+  // bare -0 as the integer 0 and lose the sign; -0.0 is read as the double.
+  const bool negative_zero = d == 0 && std::signbit(d);
+  fmt::format_to(std::back_inserter(*out_), "{}",
+                 negative_zero ? "-0.0" : std::isfinite(d) ? formatExact(d) : "null");
   return *this;
 }
 

@@ -27,7 +27,7 @@ class JsonWriter {
   JsonWriter& value(std::string_view s);
   JsonWriter& value(const char* s) { return value(std::string_view(s)); }
   JsonWriter& value(const std::string& s) { return value(std::string_view(s)); }
-  JsonWriter& value(double d);  // shortest round-trip text (formatExact); null for NaN/inf
+  JsonWriter& value(double d);  // shortest round-trip text (formatExact), -0.0 for -0; null for NaN/inf
   JsonWriter& value(int i);
   JsonWriter& value(bool b);
   JsonWriter& null();
