@@ -14,7 +14,8 @@ using namespace calctrail::test;
 
 namespace {
 
-const char* kScrew = "param F [N]\nparam f = 0.10\nd = 20 mm\nT [N*m] = F * f * d / 2\ncheck t: T < 12 [N*m]\n";
+const char* kScrew =
+    "param F [N]\nparam f = 0.10\nd = 20 mm\nT [N*m] = F * f * d / 2\ncheck t: T < 12 [N*m]\n";
 
 // Two screws, the second under half the load; its `use` line after a quantity of its own.
 const char* kPair =
@@ -88,12 +89,14 @@ TEST_CASE("textconv writes each use line's instance after that line, a failing c
   CHECK(unmarked(r.out) == sheet);
 }
 
-TEST_CASE("textconv lists 100 result lines of an instance, then counts the rest", "[textconv][template][review]") {
+TEST_CASE("textconv lists 100 result lines of an instance, then counts the rest",
+          "[textconv][template][review]") {
   const std::string dir = tempDir();
   // 130 quantities: x = 1, q1 = x + 1 = 2, ..., q129 = 130.
   std::string big = "x = 1\n";
   for (int k = 1; k < 130; ++k)
-    big += "q" + std::to_string(k) + " = " + (k == 1 ? std::string("x") : "q" + std::to_string(k - 1)) + " + 1\n";
+    big += "q" + std::to_string(k) + " = " + (k == 1 ? std::string("x") : "q" + std::to_string(k - 1)) +
+           " + 1\n";
   writeFile(dir + "/big.calc", big);
   const std::string sheet = "use big.calc as one\nuse big.calc as two\n";
   writeFile(dir + "/s.calc", sheet);
@@ -117,7 +120,8 @@ TEST_CASE("textconv of a sheet whose binding is wrong shows the error and no ins
   Run r = runCliIn(dir, "textconv bad.calc");
   INFO(r.out << r.err);
   CHECK(r.status == 0);
-  CHECK(r.out.rfind("#= calctrail: 1 error, nothing calculated\nuse screw.calc as s with F = 10 mm\n#= error: ", 0) ==
+  CHECK(r.out.rfind(
+            "#= calctrail: 1 error, nothing calculated\nuse screw.calc as s with F = 10 mm\n#= error: ", 0) ==
         0);
   CHECK(r.out.find("#= s.") == std::string::npos);
 }

@@ -42,7 +42,8 @@ void appendInstanceLines(const Calculation& calc, int instance, int digits, std:
   };
   const Instance& inst = calc.sheet.instances[static_cast<size_t>(instance)];
   std::vector<Item> items;
-  for (int q : inst.quantities) items.push_back({calc.sheet.quantities[static_cast<size_t>(q)].line, QuantityLine, q});
+  for (int q : inst.quantities)
+    items.push_back({calc.sheet.quantities[static_cast<size_t>(q)].line, QuantityLine, q});
   for (int k : inst.checks) items.push_back({calc.sheet.checks[static_cast<size_t>(k)].line, CheckLine, k});
   for (size_t i = 0; i < calc.sheet.instances.size(); ++i)
     if (calc.sheet.instances[i].parent == instance)
@@ -54,7 +55,8 @@ void appendInstanceLines(const Calculation& calc, int instance, int digits, std:
     if (item.kind == QuantityLine && calc.quantities[i].ok)
       lines->push_back(calc.sheet.quantities[i].name + " = " +
                        annotatedValue(calc.quantities[i].si, calc.quantities[i].display, digits));
-    if (item.kind == CheckLine) lines->push_back(annotatedCheck(calc.sheet.checks[i], calc.checks[i], digits));
+    if (item.kind == CheckLine)
+      lines->push_back(annotatedCheck(calc.sheet.checks[i], calc.checks[i], digits));
     if (item.kind == UseLine) appendInstanceLines(calc, item.index, digits, lines);
   }
 }
@@ -70,8 +72,8 @@ std::string useLines(const Calculation& calc, int use_index, int digits) {
     appendInstanceLines(calc, static_cast<int>(i), digits, &lines);
     for (size_t k = 0; k < lines.size() && k < kMaxInstanceResults; ++k) out += mark + lines[k] + "\n";
     if (lines.size() > kMaxInstanceResults)
-      out += mark + "and " + std::to_string(lines.size() - kMaxInstanceResults) + " more results of the instance " +
-             inst.name + "\n";
+      out += mark + "and " + std::to_string(lines.size() - kMaxInstanceResults) +
+             " more results of the instance " + inst.name + "\n";
   }
   return out;
 }
