@@ -152,11 +152,43 @@ TEST_CASE("git diff of a sheet whose template changed too computes the old side 
   Run r = shell(repo.dir, driver() + "diff HEAD~1 HEAD -- a.calc");
   INFO(r.out << r.err);
   REQUIRE(r.status == 0);
-  // Old: 2 * 15 N*m (f = 0.15 at HEAD~1), never 2 * 20 (today's template); new: 3 * 20.
-  CHECK(has(r.out, "\n-T2 [N*m] = 2 * s.T\n-#= T2 = 30 N\u00b7m\n+T2 [N*m] = 3 * s.T\n+#= T2 = 60 N\u00b7m\n"));
+  // Old: 2 * 15 N*m (f = 0.15 at HEAD~1), never 2 * 20 (today's template); new: 3 * 20. The
+  // instance's lines after the use line moved too, so git puts them between.
+  CHECK(has(r.out, "\n-#= s.f = 0.15\n+#= s.f = 0.2\n"));
+  CHECK(has(r.out, "\n-#= s.T = 15 N\u00b7m\n-#= check s.t: FAIL  15 N\u00b7m < 12 N\u00b7m\n"
+                   "-T2 [N*m] = 2 * s.T\n-#= T2 = 30 N\u00b7m\n"
+                   "+#= s.T = 20 N\u00b7m\n+#= check s.t: FAIL  20 N\u00b7m < 12 N\u00b7m\n"
+                   "+T2 [N*m] = 3 * s.T\n+#= T2 = 60 N\u00b7m\n"));
   CHECK_FALSE(has(r.out, "T2 = 40"));
   CHECK(has(r.out, "\n-#= templates and using sheets read at commit " + shortId(repo.dir, "HEAD~1") +
                        " (a.calc)\n"));
+  CHECK_FALSE(has(r.out, "error"));
+}
+
+TEST_CASE("git diff of a sheet whose binding changed shows the instance's results move after the use line",
+          "[template][review][git][textconv]") {
+  Repository repo;
+  screwRepository(repo);
+  // Back to f = 0.10, then the load on the screw from 10 kN to 12 kN in the sheet alone:
+  // T = F * 0.10 * 20 mm / 2 goes from 10 to 12 N*m, over the 12 N*m the check allows.
+  writeFile(repo.dir + "/screw.calc", kScrewTemplate);
+  git(repo.dir, "commit -q -a -m 'lubricated thread'");
+  writeFile(repo.dir + "/a.calc", "use screw.calc as s with F = 12 kN\nT2 [N*m] = 2 * s.T\n");
+  git(repo.dir, "commit -q -a -m 'heavier load'");
+  Run r = shell(repo.dir, driver() + "diff HEAD~1 HEAD");
+  INFO(r.out << r.err);
+  REQUIRE(r.status == 0);
+  CHECK(has(r.out, "diff --git a/a.calc b/a.calc"));
+  // Each side says where it read the template (a line above the use line that differs too).
+  CHECK(has(r.out, "\n-use screw.calc as s with F = 10 kN\n-#= s.F = 10000 N\n"));
+  CHECK(has(r.out, "\n+use screw.calc as s with F = 12 kN\n+#= s.F = 12000 N\n"));
+  CHECK(has(r.out, "\n-#= s.T = 10 N\u00b7m\n-#= check s.t: PASS  10 N\u00b7m < 12 N\u00b7m\n"
+                   "+#= s.T = 12 N\u00b7m\n+#= check s.t: FAIL  12 N\u00b7m < 12 N\u00b7m\n"));
+  CHECK(has(r.out, "\n-#= T2 = 20 N\u00b7m\n+#= T2 = 24 N\u00b7m\n"));
+  CHECK(has(r.out, "\n-#= calctrail: 1 check, all PASS\n"));
+  CHECK(has(r.out, "\n+#= calctrail: 1 check, 0 PASS, 1 FAIL (s.t)\n"));
+  // The template's given values did not move: they are context, not changed lines.
+  CHECK(has(r.out, "\n #= s.f = 0.1\n #= s.d = 20 mm\n"));
   CHECK_FALSE(has(r.out, "error"));
 }
 
@@ -230,9 +262,11 @@ TEST_CASE("textconv of a file git wrote finds its revision by content, or says i
   Run plain = runCliIn(repo.dir, "textconv '" + outside + "/plain.calc'");
   CHECK_FALSE(has(plain.out, "read at"));
   CHECK_FALSE(has(plain.out, "read beside"));
-  // And a sheet of the work tree shows just what it showed before.
+  // And a sheet of the work tree gets no such line: its instance's results (f = 0.15 at HEAD) and its own.
   Run here = runCliIn(repo.dir, "textconv a.calc");
   CHECK(here.out == "#= calctrail: 1 check, 0 PASS, 1 FAIL (s.t)\nuse screw.calc as s with F = 10 kN\n"
+                    "#= s.F = 10000 N\n#= s.f = 0.15\n#= s.d = 20 mm\n#= s.T = 15 N\u00b7m\n"
+                    "#= check s.t: FAIL  15 N\u00b7m < 12 N\u00b7m\n"
                     "T2 [N*m] = 2 * s.T\n#= T2 = 30 N\u00b7m\n");
   REQUIRE(std::system(("rm -rf '" + outside + "'").c_str()) == 0);
 }

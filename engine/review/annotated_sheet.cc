@@ -1,6 +1,8 @@
 #include "engine/review/annotated_sheet.h"
 
+#include <algorithm>
 #include <map>
+#include <vector>
 
 #include "engine/report/number_format.h"
 #include "engine/report/trail.h"
@@ -27,6 +29,54 @@ std::string checkSummary(const Calculation& calc) {
   if (n_failed == 0) return out + "all PASS";
   return out + std::to_string(static_cast<int>(total) - n_failed) + " PASS, " + std::to_string(n_failed) +
          " FAIL (" + failed + ")";
+}
+
+// The lines of `instance` and of the instances inside it, as the template's
+// own text would show them beside its lines (every quantity, given values
+// too: the template's lines are not in this text), under dotted names.
+void appendInstanceLines(const Calculation& calc, int instance, int digits, std::vector<std::string>* lines) {
+  enum Kind { QuantityLine, CheckLine, UseLine };
+  struct Item {
+    int line;
+    Kind kind;
+    int index;
+  };
+  const Instance& inst = calc.sheet.instances[static_cast<size_t>(instance)];
+  std::vector<Item> items;
+  for (int q : inst.quantities)
+    items.push_back({calc.sheet.quantities[static_cast<size_t>(q)].line, QuantityLine, q});
+  for (int k : inst.checks) items.push_back({calc.sheet.checks[static_cast<size_t>(k)].line, CheckLine, k});
+  for (size_t i = 0; i < calc.sheet.instances.size(); ++i)
+    if (calc.sheet.instances[i].parent == instance)
+      items.push_back({calc.sheet.instances[i].line, UseLine, static_cast<int>(i)});
+  // One statement per line: the template's line order is its document order.
+  std::stable_sort(items.begin(), items.end(), [](const Item& a, const Item& b) { return a.line < b.line; });
+  for (const Item& item : items) {
+    const size_t i = static_cast<size_t>(item.index);
+    if (item.kind == QuantityLine && calc.quantities[i].ok)
+      lines->push_back(calc.sheet.quantities[i].name + " = " +
+                       annotatedValue(calc.quantities[i].si, calc.quantities[i].display, digits));
+    if (item.kind == CheckLine)
+      lines->push_back(annotatedCheck(calc.sheet.checks[i], calc.checks[i], digits));
+    if (item.kind == UseLine) appendInstanceLines(calc, item.index, digits, lines);
+  }
+}
+
+// The marked lines after the `use` line `use_index` of the sheet, bounded.
+std::string useLines(const Calculation& calc, int use_index, int digits) {
+  const std::string mark = std::string(kAnnotationMark) + " ";
+  std::string out;
+  for (size_t i = 0; i < calc.sheet.instances.size(); ++i) {
+    const Instance& inst = calc.sheet.instances[i];
+    if (inst.parent >= 0 || inst.use_index != use_index) continue;
+    std::vector<std::string> lines;
+    appendInstanceLines(calc, static_cast<int>(i), digits, &lines);
+    for (size_t k = 0; k < lines.size() && k < kMaxInstanceResults; ++k) out += mark + lines[k] + "\n";
+    if (lines.size() > kMaxInstanceResults)
+      out += mark + "and " + std::to_string(lines.size() - kMaxInstanceResults) +
+             " more results of the instance " + inst.name + "\n";
+  }
+  return out;
 }
 
 }  // namespace
@@ -79,6 +129,7 @@ std::string annotatedSheet(const Calculation& calc, int digits) {
       if (!s.input && s.ok)
         out += mark + calc.sheet.quantities[st.index].name + " = " + annotatedValue(s.si, s.display, digits) + "\n";
     }
+    if (calculated && st.kind == Statement::UseStmt) out += useLines(calc, st.index, digits);
     if (calculated && st.kind == Statement::CheckStmt) {
       out += mark + annotatedCheck(calc.sheet.checks[st.index], calc.checks[st.index], digits) + "\n";
     }

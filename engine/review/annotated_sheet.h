@@ -6,6 +6,7 @@
 // a comment to calctrail, and read as "gives" beside the line above them.
 #pragma once
 
+#include <cstddef>
 #include <string>
 
 #include "engine/calculation.h"
@@ -15,8 +16,14 @@ namespace calctrail {
 // Our own mark, not the output mark of another tool (docs/review.md).
 constexpr const char* kAnnotationMark = "#=";
 
+// Result lines after one `use` line at most (the instance's and those nested
+// in it); the rest are counted.
+constexpr size_t kMaxInstanceResults = 100;
+
 // `digits` significant digits for the results. A worksheet with errors gets
-// its errors beside the lines they point at, and no results.
+// its errors beside the lines they point at, and no results. After each `use`
+// line come the results of its instance: a change that moves only them would
+// otherwise show in the diff in the summary line alone.
 std::string annotatedSheet(const Calculation& calc, int digits);
 
 // A result as the text shows it: `digits` significant digits in `unit`,

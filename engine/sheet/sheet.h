@@ -146,6 +146,9 @@ struct Instance {
   int parent = -1;
   /// Index of the `use` line in the using sheet's `uses`, when parent is -1 (for document order).
   int use_index = -1;
+  /// The line of the `use` line in the file that writes it (the order of a nested instance among
+  /// its template's lines).
+  int line = 0;
   /// Where the `use` line is: for diagnostics, "in the instance `left` used at FILE:LINE:COL".
   std::string context;
   /// The parameters, in the template's order.

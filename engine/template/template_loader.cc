@@ -112,6 +112,7 @@ class Expander {
       inst.title = t->sheet.meta.get("title");
       inst.parent = u.instance;
       inst.use_index = u.instance < 0 ? use_index : -1;
+      inst.line = use.line;
       const SourcePos at = u.file->position(use.instance_begin);
       inst.context = "in the instance `" + name + "` used at " + u.file->path() + ":" +
                      std::to_string(at.line) + ":" + std::to_string(at.column);
