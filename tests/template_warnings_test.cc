@@ -156,3 +156,20 @@ TEST_CASE("the same template used twice: the warning at the instance that raised
     CHECK(q["warnings"].array.size() == (q["name"].string == "dry.T" ? 1u : 0u));
   }
 }
+
+TEST_CASE("--case over an instance: the case's warning at the instance's step", "[template][warnings][cases]") {
+  Folder f;
+  f.write("screw.calc", kScrew);
+  f.write("c.calc",
+          "F_total = 20 kN\n"
+          "use screw.calc as s with F = F_total, f = 0.12\n"
+          "T2 [N*m] = 2 * s.T\n"
+          "case dry: s.f = 0.45\n");
+  const Run r = runCliIn(f.dir, "report c.calc --case dry");
+  REQUIRE(r.status == 0);
+  CHECK(r.err.rfind(std::string("screw.calc:7:35: warning: ") + kWarning, 0) == 0);
+  CHECK(contains(r.err, "(in the instance `s` used at c.calc:2:19)"));
+  CHECK(contains(r.out, "WARNING: 1 warning, flagged at its step: s.T (screw.calc line 7)\n"));
+  CHECK(contains(block(r.out, "\n  s.T\n", "\n\n"), "WARNING: `torque_raise`"));
+  CHECK_FALSE(contains(block(r.out, "\n  T2\n", "\n\n"), "WARNING"));
+}
