@@ -60,7 +60,8 @@ const char* kWarning = "`torque_raise`: f = 0.45 is outside the usual range 0.05
 
 }  // namespace
 
-TEST_CASE("a warning inside an instance points into the template, with the use line", "[template][warnings]") {
+TEST_CASE("a warning inside an instance points into the template, with the use line",
+          "[template][warnings]") {
   Folder f;
   f.write("screw.calc", kScrew);
   f.write("a.calc", kSheet);
@@ -69,9 +70,10 @@ TEST_CASE("a warning inside an instance points into the template, with the use l
   // As an error inside a template reads: the template's place, then the use line.
   const std::string headline = std::string("screw.calc:7:35: warning: ") + kWarning;
   CHECK(text.err.rfind(headline, 0) == 0);
-  CHECK(contains(text.err, "(in the instance `s` used at a.calc:4:19)\n"
-                           "    T [N*m] = torque_raise(F, d_m, l, f, trap_flank_angle())\n"
-                           "                                      ^\n"));
+  CHECK(contains(text.err,
+                 "(in the instance `s` used at a.calc:4:19)\n"
+                 "    T [N*m] = torque_raise(F, d_m, l, f, trap_flank_angle())\n"
+                 "                                      ^\n"));
   CHECK(count(text.err, "warning:") == 1);
   CHECK_FALSE(contains(text.err, "a.calc:6"));
 
@@ -95,8 +97,10 @@ TEST_CASE("a warning inside an instance points into the template, with the use l
   REQUIRE(html.status == 0);
   CHECK(contains(html.out, "1 warning, flagged at its step: s.T (screw.calc line 7)"));
   CHECK(contains(block(html.out, "<div class=\"step\" id=\"q-s.T\">", "<section"), "WARNING"));
-  CHECK_FALSE(contains(block(html.out, "<div class=\"step\" id=\"q-T2\">", "<div class=\"step\""), "WARNING"));
-  CHECK_FALSE(contains(block(html.out, "<div class=\"step\" id=\"q-s.d_m\">", "<div class=\"step\""), "WARNING"));
+  CHECK_FALSE(
+      contains(block(html.out, "<div class=\"step\" id=\"q-T2\">", "<div class=\"step\""), "WARNING"));
+  CHECK_FALSE(
+      contains(block(html.out, "<div class=\"step\" id=\"q-s.d_m\">", "<div class=\"step\""), "WARNING"));
 
   // JSON: the headline carries the file with its line; the quantity the message.
   const Run json = runCliIn(f.dir, "report a.calc --format json");
@@ -127,18 +131,21 @@ TEST_CASE("a warning three templates deep names the whole use chain and its step
   f.write("screw.calc", kScrew);
   f.write("low.calc", "param f = 0.1\nuse screw.calc as s with F = 10 kN, f = f\n");
   f.write("mid.calc", "param f = 0.1\nuse low.calc as k with f = f\n");
-  f.write("a.calc", "use mid.calc as m with f = 0.45\nx = 1\ny = 2\nz = 3\nw = 4\nv = 5\nT2 [N*m] = m.k.s.T\n");
+  f.write("a.calc",
+          "use mid.calc as m with f = 0.45\nx = 1\ny = 2\nz = 3\nw = 4\nv = 5\nT2 [N*m] = m.k.s.T\n");
   const Run r = runCliIn(f.dir, "report a.calc");
   REQUIRE(r.status == 0);
   CHECK(r.err.rfind(std::string("screw.calc:7:35: warning: ") + kWarning, 0) == 0);
-  CHECK(contains(r.err, "(in the instance `m.k.s` used at low.calc:2:19, in the instance `m.k` used at "
-                        "mid.calc:2:17, in the instance `m` used at a.calc:1:17)\n"));
+  CHECK(contains(r.err,
+                 "(in the instance `m.k.s` used at low.calc:2:19, in the instance `m.k` used at "
+                 "mid.calc:2:17, in the instance `m` used at a.calc:1:17)\n"));
   CHECK(contains(r.out, "WARNING: 1 warning, flagged at its step: m.k.s.T (screw.calc line 7)\n"));
   CHECK(contains(block(r.out, "\n  m.k.s.T\n", "\n\n"), "WARNING: `torque_raise`"));
   CHECK_FALSE(contains(block(r.out, "\n  T2\n", "\n\n"), "WARNING"));
 }
 
-TEST_CASE("the same template used twice: the warning at the instance that raised it", "[template][warnings]") {
+TEST_CASE("the same template used twice: the warning at the instance that raised it",
+          "[template][warnings]") {
   Folder f;
   f.write("screw.calc", kScrew);
   f.write("a.calc",
@@ -157,7 +164,8 @@ TEST_CASE("the same template used twice: the warning at the instance that raised
   }
 }
 
-TEST_CASE("--case over an instance: the case's warning at the instance's step", "[template][warnings][cases]") {
+TEST_CASE("a load case run alone (--case) over an instance: its warning at the instance's step",
+          "[template][warnings][cases]") {
   Folder f;
   f.write("screw.calc", kScrew);
   f.write("c.calc",
