@@ -71,19 +71,32 @@ void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& optio
   if (!diags.hasErrors()) {
     Evaluation evaluation(*model);  // one context: the cases re-use the nominal's programs
     results = evaluation.evaluate(*inputs);
-    for (const Fault& f : results.faults) {
-      // Inside an instance, the fault names the `use` line that brought it in.
-      std::string note;
-      if (f.site == Fault::Site::Quantity && f.file == &sheet.exprFile(f.index))
-        note = sheet.instanceNote(sheet.quantities[f.index].expr_instance);
-      if (f.site == Fault::Site::Check) note = sheet.instanceNote(sheet.checks[f.index].instance);
-      diags.error(*f.file, f.begin, f.end, f.message + note);
-    }
-    for (const Fault& w : results.warnings) diags.warning(*w.file, w.begin, w.end, w.message);
+    for (const Fault& f : results.faults) diags.error(*f.file, f.begin, f.end, f.message + instanceNote(f));
+    // A warning is flagged at the step it was raised in: its position alone
+    // cannot tell one instance of a template from another.
+    for (const Fault& w : results.warnings)
+      diags.warning(*w.file, w.begin, w.end, w.message + instanceNote(w), siteOf(w));
     evaluateCases(&evaluation);
   }
   fillStates();
   diags.sort();
+}
+
+// Inside an instance, a fault (or a warning) names the `use` line that
+// brought it in, as every diagnostic in a template does; a --set text is
+// the run's own and names none.
+std::string Calculation::instanceNote(const Fault& f) const {
+  if (f.site == Fault::Site::Quantity && f.file == &sheet.exprFile(f.index))
+    return sheet.instanceNote(sheet.quantities[f.index].expr_instance);
+  if (f.site == Fault::Site::Check && f.file == &sheet.checkFile(f.index))
+    return sheet.instanceNote(sheet.checks[f.index].instance);
+  return "";
+}
+
+DiagnosticSite Calculation::siteOf(const Fault& f) {
+  DiagnosticSite site;
+  (f.site == Fault::Site::Quantity ? site.quantity : site.check) = static_cast<int>(f.index);
+  return site;
 }
 
 // --case NAME: that case's replacements become the layer under --set, so

@@ -115,6 +115,8 @@ class Calculation {
   void bindShownCase(const std::string& shown);
   void bindCases(bool alone);
   void evaluateCases(Evaluation* evaluation);
+  std::string instanceNote(const Fault& f) const;
+  static DiagnosticSite siteOf(const Fault& f);
   // The model's trees of --set quantities, kept alive while `sheet` shows the --set ones.
   std::vector<ExprPtr> replaced_;
   // With --case, the shown case's replacements: the layer under --set.

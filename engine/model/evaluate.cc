@@ -139,7 +139,7 @@ void Evaluation::evaluateSlot(Slot slot, Results* results) {
   values_[i] = v;
   if (calls_.doubtfulCalls() != doubtful)
     addDoubts(model_, values_, Fault::Site::Quantity, i, b ? *b->expr : model_.formulaExpr(slot),
-              b ? *b->file : model_.file(), results);
+              b ? *b->file : model_.exprFile(slot), results);
 }
 
 void Evaluation::evaluateCheck(size_t k, Results* results) {
@@ -167,7 +167,7 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
     }
     side[j] = v;
     if (calls_.doubtfulCalls() != doubtful)
-      addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.file(),
+      addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
                 results);
   }
   r.ok = true;

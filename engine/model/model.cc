@@ -140,13 +140,16 @@ std::vector<std::string> quantityNames(const Sheet& sheet, int scope) {
 // brought it in; the main sheet's go straight through.
 class NotedDiagnostics {
  public:
-  NotedDiagnostics(Diagnostics* diags, const Sheet& sheet, int instance)
-      : diags_(diags), sheet_(sheet), instance_(instance) {}
+  // `site`: the quantity or check the problems are found in, for the trail to
+  // flag a warning at its step (a template's lines are shared by its instances).
+  NotedDiagnostics(Diagnostics* diags, const Sheet& sheet, int instance, DiagnosticSite site = {})
+      : diags_(diags), sheet_(sheet), instance_(instance), site_(site) {}
   ~NotedDiagnostics() {
     if (local_.list().empty()) return;
     const std::string note = sheet_.instanceNote(instance_);
     for (Diagnostic d : local_.list()) {
       d.message += note;
+      if (d.site.quantity < 0 && d.site.check < 0) d.site = site_;
       diags_->add(std::move(d));
     }
   }
@@ -158,6 +161,7 @@ class NotedDiagnostics {
   Diagnostics* diags_;
   const Sheet& sheet_;
   int instance_;
+  DiagnosticSite site_;
   Diagnostics local_;
 };
 
@@ -356,7 +360,8 @@ void Model::checkDimensions(Diagnostics* diags) {
       known_[i] = 1;
       continue;
     }
-    NotedDiagnostics formula_diags(diags, *sheet_, q.expr_instance);
+    const DiagnosticSite site{static_cast<int>(i), -1};
+    NotedDiagnostics formula_diags(diags, *sheet_, q.expr_instance, site);
     DimensionChecker checker(sheet_->exprFile(i), formula_diags.get(), *sheet_, dims_, known_, *library_);
     if (!checker.check(*q.expr) || unresolved_[i]) continue;
     s.dim = quantityDimension(q.expr->dim);
@@ -364,7 +369,7 @@ void Model::checkDimensions(Diagnostics* diags) {
     s.has_dim = true;
     dims_[i] = s.dim;
     known_[i] = 1;
-    NotedDiagnostics own_diags(diags, *sheet_, q.instance);
+    NotedDiagnostics own_diags(diags, *sheet_, q.instance, site);
     if (q.display) {
       s.declared = true;
       s.display = *q.display;
@@ -375,7 +380,7 @@ void Model::checkDimensions(Diagnostics* diags) {
     } else {
       s.display = undeclaredDisplayUnit(*q.expr, s.dim, sheet_->units, *library_);
       const std::string w = strayAngleWarning(q.name, s.dim, *q.expr, *sheet_);
-      if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w);
+      if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w, site);
     }
   }
 }
@@ -407,7 +412,7 @@ void Model::checkChecks(Diagnostics* diags) {
     for (const Expr* side : {c.lhs.get(), c.rhs.get()})
       forEachName(*side, [&](const Expr& e) { unknown |= sheet_->find(e.text) < 0; });
     if (unknown) continue;
-    NotedDiagnostics noted(diags, *sheet_, c.instance);
+    NotedDiagnostics noted(diags, *sheet_, c.instance, DiagnosticSite{-1, static_cast<int>(k)});
     const SourceFile& file = sheet_->checkFile(k);
     DimensionChecker checker(file, noted.get(), *sheet_, dims_, known_, *library_);
     if (!checker.check(*c.lhs) || !checker.check(*c.rhs)) continue;

@@ -102,6 +102,11 @@ void writeCase(JsonWriter& w, const TrailCase& c) {
   w.endObject();
 }
 
+// The file a step's or check's `line` is in: the sheet, or its instance's template.
+const std::string& lineFile(const Trail& t, int instance) {
+  return instance < 0 ? t.path : t.instances[static_cast<size_t>(instance)].path;
+}
+
 void writeStep(JsonWriter& w, const Trail& t, const TrailStep& s) {
   w.beginObject();
   w.key("name").value(s.name);
@@ -119,6 +124,7 @@ void writeStep(JsonWriter& w, const Trail& t, const TrailStep& s) {
   w.key("unit_declared").value(s.unit_declared);
   w.key("overridden").value(s.overridden);
   w.key("line").value(s.line);
+  w.key("file").value(lineFile(t, s.instance));
   w.key("source").value(s.origin);
   w.key("functions").beginArray();
   for (const TrailCall& c : s.calls) writeCall(w, c);
@@ -153,6 +159,7 @@ void writeCheck(JsonWriter& w, const Trail& t, const TrailCheck& c) {
   w.key("description").value(c.description);
   w.key("section").value(c.section);
   w.key("line").value(c.line);
+  w.key("file").value(lineFile(t, c.instance));
   w.key("warnings").beginArray();
   for (const std::string& m : c.warnings) w.value(m);
   w.endArray();

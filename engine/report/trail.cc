@@ -72,11 +72,16 @@ std::string verdictSentence(const Trail& t) {
 
 std::string warningSummary(const Trail& t) {
   if (t.warnings.empty()) return "";
+  // An instance's line is one of its template's: the file is named with it.
+  const auto line = [&](int instance, int at) {
+    if (instance < 0) return fmt::format("line {}", at);
+    return fmt::format("{} line {}", t.instances[static_cast<size_t>(instance)].path, at);
+  };
   std::vector<std::string> places;
   for (const TrailStep& s : t.steps)
-    if (!s.warnings.empty()) places.push_back(fmt::format("{} (line {})", s.name, s.line));
+    if (!s.warnings.empty()) places.push_back(fmt::format("{} ({})", s.name, line(s.instance, s.line)));
   for (const TrailCheck& c : t.checks)
-    if (!c.warnings.empty()) places.push_back(fmt::format("check {} (line {})", c.name, c.line));
+    if (!c.warnings.empty()) places.push_back(fmt::format("check {} ({})", c.name, line(c.instance, c.line)));
   const size_t n = t.warnings.size();
   const size_t at = static_cast<size_t>(t.warnings_at_steps);
   std::string out = fmt::format("WARNING: {} {}", n, n == 1 ? "warning" : "warnings");
@@ -829,16 +834,31 @@ Trail buildTrail(const Calculation& calc, int digits) {
   }
   flushNote();
   addInstances(sheet, &t);
-  // A warning in the worksheet is flagged at the step (or check) on its line.
+  // A warning is flagged at the step (or check) it was found in. One that
+  // does not say (a dimension warning in the main sheet) at the main sheet's
+  // step on its line: a template's lines are its own, shared by its instances.
+  std::vector<bool> has_step(t.steps.size(), false);
+  for (const TrailBlock& b : t.blocks)
+    if (b.kind == TrailBlock::Step) has_step[static_cast<size_t>(b.index)] = true;
   for (const Diagnostic& d : calc.diags.list()) {
     if (d.severity != Severity::Warning) continue;
     t.warnings.push_back(d.headline());
-    if (d.path != calc.path || d.line <= 0) continue;
     bool placed = false;
-    for (TrailStep& s : t.steps)
-      if (s.line == d.line && !s.overridden) s.warnings.push_back(d.message), placed = true;
-    for (TrailCheck& c : t.checks)
-      if (!placed && c.line == d.line) c.warnings.push_back(d.message), placed = true;
+    const auto flag = [&](std::vector<std::string>* at) {
+      at->push_back(d.message);
+      placed = true;
+    };
+    if (d.site.quantity >= 0) {
+      TrailStep& s = t.steps[static_cast<size_t>(d.site.quantity)];
+      if (!s.overridden && has_step[static_cast<size_t>(d.site.quantity)]) flag(&s.warnings);
+    } else if (d.site.check >= 0) {
+      flag(&t.checks[static_cast<size_t>(d.site.check)].warnings);
+    } else if (d.path == calc.path && d.line > 0) {
+      for (TrailStep& s : t.steps)
+        if (s.instance < 0 && s.line == d.line && !s.overridden) flag(&s.warnings);
+      for (TrailCheck& c : t.checks)
+        if (!placed && c.instance < 0 && c.line == d.line) flag(&c.warnings);
+    }
     t.warnings_at_steps += placed ? 1 : 0;
   }
   // Library functions used, each once, in order of first use.

@@ -34,9 +34,10 @@ std::string Diagnostic::render() const {
 }
 
 void Diagnostics::addAt(Severity s, const SourceFile& file, uint32_t begin, uint32_t end,
-                        const std::string& message) {
+                        const std::string& message, DiagnosticSite site) {
   Diagnostic d;
   d.severity = s;
+  d.site = site;
   d.path = file.path();
   d.message = withoutControlChars(message);
   const SourcePos pos = file.position(begin);
@@ -69,8 +70,8 @@ void Diagnostics::error(const SourceFile& file, uint32_t begin, uint32_t end,
 }
 
 void Diagnostics::warning(const SourceFile& file, uint32_t begin, uint32_t end,
-                          const std::string& message) {
-  addAt(Severity::Warning, file, begin, end, message);
+                          const std::string& message, DiagnosticSite site) {
+  addAt(Severity::Warning, file, begin, end, message, site);
 }
 
 void Diagnostics::error(const std::string& path, const std::string& message) {

@@ -12,6 +12,15 @@ namespace calctrail {
 
 enum class Severity { Error, Warning };
 
+// The step a problem belongs to, for the trail to flag it there: a
+// position alone cannot say, since every instance of a template shares its lines.
+struct DiagnosticSite {
+  /// The quantity (into Sheet::quantities), or -1.
+  int quantity = -1;
+  /// The check (into Sheet::checks), or -1.
+  int check = -1;
+};
+
 struct Diagnostic {
   Severity severity = Severity::Error;
   std::string path;
@@ -21,6 +30,7 @@ struct Diagnostic {
   std::string source_line;  // the line as written, for the caret display
   int caret_column = 0;     // 1-based code-point column of the caret
   int caret_width = 1;      // code points underlined
+  DiagnosticSite site;      // the quantity or check it was found in, when known
 
   // "FILE:LINE:COL: error: MESSAGE" (no source line).
   std::string headline() const;
@@ -32,7 +42,8 @@ class Diagnostics {
  public:
   // A problem at bytes [begin, end) of `file`.
   void error(const SourceFile& file, uint32_t begin, uint32_t end, const std::string& message);
-  void warning(const SourceFile& file, uint32_t begin, uint32_t end, const std::string& message);
+  void warning(const SourceFile& file, uint32_t begin, uint32_t end, const std::string& message,
+               DiagnosticSite site = {});
   // A problem with no source position (an unreadable file, a bad option).
   void error(const std::string& path, const std::string& message);
   // Messages and source lines are stored without control characters (each
@@ -49,7 +60,7 @@ class Diagnostics {
 
  private:
   void addAt(Severity s, const SourceFile& file, uint32_t begin, uint32_t end,
-             const std::string& message);
+             const std::string& message, DiagnosticSite site = {});
   std::vector<Diagnostic> list_;
 };
 
