@@ -448,8 +448,9 @@ TEST_CASE("the trail: files with hashes, an instance part with its parameters, c
   CHECK(notes == std::vector<std::string>{
                      "Parameters: F = F_total / 2 = 5000 N; f = 0.1 (default); d = 20 mm (default).",
                      "Parameters: F = 1 kN = 1000 N; f = 0.2; d = 20 mm (default)."});
-  CHECK(contains(text, "  parameter  value   bound by\n  F          5000 N  F_total / 2\n"
-                       "  f          0.1     (default)\n  d          20 mm   (default)\n"));
+  CHECK(contains(text,
+                 "  parameter  value   bound by\n  F          5000 N  F_total / 2\n"
+                 "  f          0.1     (default)  friction\n  d          20 mm   (default)  diameter\n"));
   CHECK(contains(text, "  pass  right.small  right.T < 100 [N*m]\n"));
 
   const std::string json = renderJson(t);

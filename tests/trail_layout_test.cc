@@ -267,15 +267,22 @@ TEST_CASE("an instance is a part of its own: heading, parameters with their valu
   // Independent check of the bound value: heavy.F = (1800 kg + 1500 kg) * 9.80665 m/s^2 * 0.62 = 20064.4 N.
   CHECK(step(t, "heavy.F").result.si == Approx(3300 * 9.80665 * 0.62).epsilon(1e-12));
   const std::string md = renderMarkdown(t);
-  CHECK(contains(md, "\n### Instance `heavy`\n\nTrapezoidal screw stage: torques, efficiency, self-locking, "
-                     "stresses, nut, buckling (`templates/trapezoidal-screw-stage.calc`)\n\n"
-                     "| Parameter | Value | Bound by |\n|---|---|---|\n| `F` | 20.06 kN | `F_total * share_heavy` |\n"
-                     "| `n` | 60 rpm | *default* |\n| `d` | 44 mm | `44 mm` |\n"));
+  CHECK(contains(
+      md,
+      "\n### Instance `heavy`\n\nTrapezoidal screw stage: torques, efficiency, self-locking, "
+      "stresses, nut, buckling (`templates/trapezoidal-screw-stage.calc`)\n\n"
+      "| Parameter | Value | Bound by |\n|---|---|---|\n| `F` | 20.06 kN | `F_total * share_heavy` |\n"
+      "| `n` | 60 rpm | *default*: screw speed |\n"
+      "| `d` | 44 mm | `44 mm`: major diameter, Tr series |\n"));
+  // Those given values (a default, a literal binding) are listed in the part, not twice in Inputs.
+  CHECK(md.find("| `heavy.n` |") == std::string::npos);
+  CHECK(contains(md, "The given parameters of the instances heavy, light, motor: in each instance's part"));
   CHECK(contains(md, "| `i` | 25.00 | `i_drive` |\n"));
-  // The part's checks close it, before the next instance.
+  // The part names its checks once, before the next instance; their rows are in the summary.
   const size_t heavy = md.find("### Instance `heavy`"), light = md.find("### Instance `light`");
-  const size_t buckling = md.find("| pass | `heavy.buckling` | `heavy.n_buckle >= 3` | 3.327 ≥ 3 | utilisation 90 % |\n",
-                                  heavy);
+  const size_t buckling =
+      md.find("Checks of heavy, each with its condition and values in Design checks: ", heavy);
+  CHECK(count(md, "| pass | `heavy.buckling` | `heavy.n_buckle >= 3` |") == 1);
   CHECK(heavy != std::string::npos);
   CHECK(buckling < light);
   CHECK(md.find("Parameters: ") == std::string::npos);  // the table, not the paragraph
@@ -286,7 +293,8 @@ TEST_CASE("an instance is a part of its own: heading, parameters with their valu
                        "templates/trapezoidal-screw-stage.calc</code>)</span></h3>\n<table class=\"params\">"));
   CHECK(contains(html, "<td class=\"value\">12.30&nbsp;kN</td><td><code>F_total * (1 - share_heavy)</code></td>"));
   CHECK(count(html, "<table class=\"params\">") == 3);
-  CHECK(count(html, "<table class=\"checks instance-checks\">") == 3);
+  CHECK(count(html, "<p class=\"note part-checks\">Checks of ") == 3);
+  CHECK(html.find("instance-checks") == std::string::npos);
   CHECK(html.find("Parameters: ") == std::string::npos);
 
   const std::string text = renderText(t);
@@ -301,6 +309,10 @@ TEST_CASE("an instance is a part of its own: heading, parameters with their valu
   INFO(diagnostics(*set));
   REQUIRE_FALSE(set->hasErrors());
   const Trail ts = buildTrail(*set, 4);
-  CHECK(contains(renderMarkdown(ts), "| `f` | 0.15 | *set on the command line* |\n"));
-  CHECK(contains(renderText(ts), "  f            0.15         [set on the command line]\n"));
+  CHECK(contains(renderMarkdown(ts),
+                 "| `f` | 0.15 | *set on the command line*: steel on bronze, greased "
+                 "(high value for torque; common practice) |\n"));
+  CHECK(contains(renderText(ts),
+                 "  f            0.15         [set on the command line]  steel on bronze, greased "
+                 "(high value for torque; common practice)\n"));
 }

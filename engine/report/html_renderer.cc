@@ -76,6 +76,8 @@ code.name { font-size: 0.75em; margin-left: 0.4em; }
 .fn mfrac > * { math-style: normal; }
 ol.sources { font-size: 0.8em; padding-left: 2em; margin: 0.3em 0; }
 table.checks { font-size: 0.92em; }
+table.checks:not(.cases) td:nth-child(4) { white-space: nowrap; }
+table.checks:not(.cases) td:nth-child(6) { min-width: 14em; }
 table.cases { margin-bottom: 0.5em; }
 td.case { white-space: normal; }
 td.case .value { white-space: nowrap; }
@@ -85,7 +87,6 @@ tr.case-values td { border-bottom: 0.25pt solid #999; padding-top: 0; }
 table.params { width: auto; margin: 0.2em 0 0.5em; font-size: 0.92em; }
 table.params td, table.params th { padding-right: 1.5em; }
 table.params th:nth-child(4), table.params td:nth-child(4) { padding-left: 1.5em; border-left: 1px solid #ccc; }
-table.instance-checks { margin: 0.4em 0 0.6em; }
 .source { font-style: italic; }
 .cautions { border: 1pt solid #000; padding: 0.2em 0.9em 0.3em; margin-top: 1em; break-inside: avoid;
   font-size: 0.92em; }
@@ -461,7 +462,7 @@ void quantityTable(Out out, const Trail& t, bool inputs) {
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
   for (const TrailStep& s : t.steps) {
-    if (s.input != inputs) continue;
+    if (s.input != inputs || (inputs && s.in_part_table)) continue;
     if (s.section != section) {
       section = s.section;
       if (!section.empty())
@@ -571,9 +572,12 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
                  rows < count ? head : "");
   const auto cells = [&](const TrailInstanceParam& p) {
     const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
-    const std::string from = s.overridden         ? std::string("<em>set on the command line</em>")
-                             : p.binding.empty() ? std::string("<em>default</em>")
-                                                 : "<code>" + esc(p.binding) + "</code>";
+    std::string from = s.overridden        ? std::string("<em>set on the command line</em>")
+                       : p.binding.empty() ? std::string("<em>default</em>")
+                                           : "<code>" + esc(p.binding) + "</code>";
+    // Left out of the Inputs list: its note is given here.
+    if (s.in_part_table && !s.description.empty())
+      from += " <span class=\"desc\">" + esc(s.description) + "</span>";
     fmt::format_to(out, "<td>{}</td><td class=\"value\">{}</td><td>{}</td>", symbolCell(p.name),
                    human(s.given ? *s.given : s.result), from);
   };
@@ -586,33 +590,22 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
   fmt::format_to(out, "</tbody>\n</table>\n");
 }
 
-// An instance's checks close its part, a row each; the summary lists them all.
-void instanceCheck(Out out, const TrailCheck& c, bool first) {
-  if (first)
-    fmt::format_to(out, "<table class=\"checks instance-checks\">\n<thead><tr><th>State</th><th>Check</th>"
-                        "<th>Condition</th><th>Values</th><th>Utilisation</th></tr></thead>\n<tbody>\n");
-  fmt::format_to(out, "<tr class=\"{}\">{}<td><code>{}</code></td><td>{}</td><td class=\"value\">{}</td><td>{}</td></tr>\n",
-                 c.passed ? "pass" : "fail",
-                 c.passed ? "<td>pass</td>" : "<td><span class=\"fail-mark\">FAIL</span></td>", esc(c.name),
-                 conditionMath(c), checkValues(c), esc(measureCell(c)));
-}
-
 void calculation(Out out, const Trail& t) {
   fmt::format_to(out, "<section class=\"calculation\">\n<h2>Calculation</h2>\n");
-  bool in_checks = false;  // within an instance's table of checks
   for (const TrailBlock& b : t.blocks) {
-    const bool check_row = b.kind == TrailBlock::CheckRef && b.instance >= 0;
-    if (in_checks && !check_row) fmt::format_to(out, "</tbody>\n</table>\n");
     if (b.kind == TrailBlock::Section && b.instance >= 0)
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     else if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(b.text));
     else if (b.kind == TrailBlock::Note && b.instance < 0)
       fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(b.text));
     else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) step(out, t, t.steps[b.index]);
-    else if (check_row) instanceCheck(out, t.checks[static_cast<size_t>(b.index)], !in_checks);
-    in_checks = check_row;
+    else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
+      // The part names its checks once, after its last step; their rows are in the summary.
+      const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
+      if (b.index == in.checks.front())
+        fmt::format_to(out, "<p class=\"note part-checks\">{}</p>\n", esc(instanceChecksLine(t, in)));
+    }
   }
-  if (in_checks) fmt::format_to(out, "</tbody>\n</table>\n");
   fmt::format_to(out, "</section>\n");
 }
 
@@ -737,6 +730,8 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
   checksSummary(out, t);
   fmt::format_to(out, "<section class=\"inputs\">\n<h2>Inputs</h2>\n");
   quantityTable(out, t, true);
+  if (!instanceInputsPointer(t).empty())
+    fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(instanceInputsPointer(t)));
   fmt::format_to(out, "</section>\n");
   calculation(out, t);
   if (!t.studies.empty()) studies(out, t);

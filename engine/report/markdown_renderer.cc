@@ -78,9 +78,11 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
   fmt::format_to(out, "\n| Parameter | Value | Bound by |\n|---|---|---|\n");
   for (const TrailInstanceParam& p : in.params) {
     const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
-    const std::string from = s.overridden         ? std::string("*set on the command line*")
-                             : p.binding.empty() ? std::string("*default*")
-                                                 : code(p.binding);
+    std::string from = s.overridden        ? std::string("*set on the command line*")
+                       : p.binding.empty() ? std::string("*default*")
+                                           : code(p.binding);
+    // Left out of the Inputs list: its note is given here.
+    if (s.in_part_table && !s.description.empty()) from += ": " + text(s.description);
     fmt::format_to(out, "| {} | {} | {} |\n", code(p.name), human(s.given ? *s.given : s.result), from);
   }
 }
@@ -213,7 +215,7 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "## Inputs\n\n| Quantity | Value | Notes |\n|---|---|---|\n");
   std::string section = "\x01";
   for (const TrailStep& s : t.steps) {
-    if (!s.input) continue;
+    if (!s.input || s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
       if (!section.empty()) fmt::format_to(out, "| **{}** | | |\n", text(section));
@@ -224,13 +226,11 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
     for (const std::string& w : s.warnings) notes += " **WARNING:** " + text(w);
     fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.given ? *s.given : s.result), notes);
   }
+  if (!instanceInputsPointer(t).empty()) fmt::format_to(out, "\n{}\n", text(instanceInputsPointer(t)));
   fmt::format_to(out, "\n");
 
   fmt::format_to(out, "## Calculation\n");
-  bool in_checks = false;  // within an instance's table of checks
   for (const TrailBlock& b : t.blocks) {
-    const bool check_row = b.kind == TrailBlock::CheckRef && b.instance >= 0;
-    in_checks = in_checks && check_row;
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
@@ -240,13 +240,9 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
     } else if (b.kind == TrailBlock::Note) {
       fmt::format_to(out, "\n{}\n", text(b.text));
     } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
-      // An instance's checks close its part, a row each; the summary lists them all.
-      const TrailCheck& c = t.checks[static_cast<size_t>(b.index)];
-      if (!in_checks) fmt::format_to(out, "\n| State | Check | Condition | Values | Utilisation or margin |\n"
-                                          "|---|---|---|---|---|\n");
-      fmt::format_to(out, "| {} | {} | {} | {} {} {} | {} |\n", c.passed ? "pass" : "**FAIL**", code(c.name),
-                     code(c.condition), human(c.lhs), relation(c.op), human(c.rhs), c.measure);
-      in_checks = true;
+      // The part names its checks once, after its last step; their rows are in the summary.
+      const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
+      if (b.index == in.checks.front()) fmt::format_to(out, "\n{}\n", text(instanceChecksLine(t, in)));
     } else if (b.kind == TrailBlock::Step) {
       const TrailStep& s = t.steps[b.index];
       if (s.input) continue;

@@ -164,9 +164,11 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
   for (size_t k = 0; k < in.params.size(); ++k) {
     const TrailInstanceParam& p = in.params[k];
     const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
-    const std::string from = s.overridden ? std::string("[set on the command line]")
-                             : p.binding.empty() ? std::string("(default)")
-                                                 : p.binding;
+    std::string from = s.overridden        ? std::string("[set on the command line]")
+                       : p.binding.empty() ? std::string("(default)")
+                                           : p.binding;
+    // Left out of the Inputs list: its note is given here.
+    if (s.in_part_table && !s.description.empty()) from += "  " + s.description;
     fmt::format_to(out, "  {}  {}  {}\n", pad(p.name, name_w), pad(values[k], value_w), from);
   }
 }
@@ -254,13 +256,13 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   auto shown = [](const TrailStep& s) { return valueText(s.given ? *s.given : s.result); };
   int name_w = 0, value_w = 0;
   for (const TrailStep& s : t.steps) {
-    if (!s.input) continue;
+    if (!s.input || s.in_part_table) continue;
     name_w = std::max(name_w, width(s.name));
     value_w = std::max(value_w, width(shown(s)));
   }
   std::string section = "\x01";
   for (const TrailStep& s : t.steps) {
-    if (!s.input) continue;
+    if (!s.input || s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
       if (!section.empty()) fmt::format_to(out, "{}\n", section);
@@ -275,6 +277,7 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
     if (s.varies) caseValues(out, t, s, "      ");
     for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
   }
+  if (!instanceInputsPointer(t).empty()) fmt::format_to(out, "{}", wrap(instanceInputsPointer(t), "  "));
   fmt::format_to(out, "\n");
 
   fmt::format_to(out, "{}", heading("CALCULATION"));
@@ -287,6 +290,10 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
       continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
       fmt::format_to(out, "\n{}", wrap(b.text, "  "));
+    } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
+      // The part names its checks once, after its last step; their rows are in the summary.
+      const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
+      if (b.index == in.checks.front()) fmt::format_to(out, "\n{}", wrap(instanceChecksLine(t, in), "  "));
     } else if (b.kind == TrailBlock::Step) {
       const TrailStep& s = t.steps[b.index];
       if (s.input) continue;

@@ -98,6 +98,31 @@ std::string replacementList(const Trail& t) {
   return fmt::format("{}", fmt::join(sets, ", "));
 }
 
+std::string instanceInputsPointer(const Trail& t) {
+  std::vector<std::string> names;
+  for (const TrailInstance& in : t.instances) {
+    bool left_out = false;
+    for (const TrailInstanceParam& p : in.params)
+      left_out = left_out || t.steps[static_cast<size_t>(p.step)].in_part_table;
+    if (left_out) names.push_back(in.name);
+  }
+  if (names.empty()) return "";
+  return fmt::format("The given parameters of the instance{} {}: in {} part, with value, binding and note.",
+                     names.size() > 1 ? "s" : "", fmt::join(names, ", "),
+                     names.size() > 1 ? "each instance's" : "its");
+}
+
+std::string instanceChecksLine(const Trail& t, const TrailInstance& in) {
+  std::vector<std::string> states;
+  for (int c : in.checks) {
+    const TrailCheck& check = t.checks[static_cast<size_t>(c)];
+    states.push_back(check.name + (check.passed ? " pass" : " FAIL"));
+  }
+  if (states.empty()) return "";
+  return fmt::format("Checks of {}, each with its condition and values in Design checks: {}.", in.name,
+                     fmt::join(states, ", "));
+}
+
 std::string modifiedNotice(const Trail& t) {
   if (t.modified_by.empty()) return "";
   return "MODIFIED: the numbers in this report come from the file AS MODIFIED by " + replacementList(t) +
@@ -899,6 +924,12 @@ Trail buildTrail(const Calculation& calc, int digits) {
     t.caution_ids.push_back(c->id);
   }
   addCases(calc, digits, &t);
+  // After the warnings and the cases: an input that has either stays in the Inputs list.
+  for (const TrailInstance& in : t.instances)
+    for (const TrailInstanceParam& p : in.params) {
+      TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+      s.in_part_table = s.input && !s.varies && s.warnings.empty();
+    }
   addStudies(calc, digits, &t);
   return t;
 }

@@ -153,6 +153,11 @@ struct TrailStep {        // one quantity
   std::vector<TrailCaseValue> cases;
   /// Some case replaces it or gives it another value than the nominal.
   bool varies = false;
+  /// An instance's given parameter (at its default, or bound to a literal) whose value,
+  /// binding and description its part's parameter table shows: the Inputs list leaves it
+  /// out rather than print the same value twice. One that varies by case or has a warning
+  /// stays in the Inputs list too, which is where cases and warnings of inputs are shown.
+  bool in_part_table = false;
 };
 
 // A check in one load case.
@@ -352,6 +357,18 @@ std::string verdictSentence(const Trail& trail);
 // The warnings in the check summary: "" when there are none, else as
 // "WARNING: 1 warning, flagged at its step: v (line 3)".
 std::string warningSummary(const Trail& trail);
+
+// The line that ends the Inputs list when instance parameters were left out
+// of it (TrailStep::in_part_table): "" when none were, else "The parameters of
+// the instances screw, motor: in each instance's part, with value, binding
+// and note."
+std::string instanceInputsPointer(const Trail& trail);
+
+// What closes an instance's part in place of a second table of its checks
+// (the Design checks summary has each one's condition, values and margin):
+// "Checks of screw, in Design checks: screw.self_locking pass, screw.strength
+// FAIL." "" for an instance without checks.
+std::string instanceChecksLine(const Trail& trail, const TrailInstance& instance);
 
 // A run changed by --set, said next to the hash: "" for the file's own
 // numbers, else "MODIFIED: the numbers in this report come from the file AS
