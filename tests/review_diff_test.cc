@@ -370,6 +370,37 @@ TEST_CASE("diff: a check that fails on both sides is listed as still failing", "
   CHECK(!passing.d.checksFail());
 }
 
+// The same in a load case: a check that passes as written but fails in a
+// case on both sides must not read as "no change".
+TEST_CASE("diff: a check that fails in a load case on both sides is listed with its case", "[review][diff][cases]") {
+  const char* sheet =
+      "f = 0.15\nF = 2 kN\nr = 0.1 m\nT [N*m] = F * r * f\ncheck t: T < 40 [N*m]\ncase dry: f = 0.25\n";
+  Pair same = diffOf(sheet, sheet);
+  CHECK(!same.d.somethingMoved());
+  CHECK(same.d.checksFail());
+  REQUIRE(same.d.still_failing.size() == 1);
+  CHECK(same.d.still_failing[0].in_case == "dry");
+  const std::string text = renderDiffText(same.d, 4);
+  CHECK(text.find("No change") == std::string::npos);
+  // 2 kN * 0.1 m * 0.25 = 50 N*m in case dry, over 40 N*m; 30 N*m as written passes.
+  CHECK(text.find("!! STILL FAILING  t in case dry: FAIL -> FAIL\n   T < 40 [N*m]: 50.00 N·m < 40 N·m is false") !=
+        std::string::npos);
+  CHECK(renderDiffMarkdown(same.d, 4).find("**Still failing: `t` in case `dry` FAIL \u2192 FAIL**") !=
+        std::string::npos);
+  Json j;
+  std::string error;
+  REQUIRE(parseJson(renderDiffJson(same.d), &j, &error));
+  REQUIRE(j["checks_still_failing"].array.size() == 1);
+  CHECK(j["checks_still_failing"][0]["case"].string == "dry");
+  CHECK(j["checks_still_failing"][0]["lhs"].number == Approx(50));
+  // Through the command line: exit 1, as `check` would.
+  const std::string dir = tempDir();
+  writeFile(dir + "/a.calc", sheet);
+  Run run = runCliIn(dir, "diff a.calc a.calc");
+  CHECK(run.status == 1);
+  CHECK(run.out.find("!! STILL FAILING  t in case dry: FAIL -> FAIL") != std::string::npos);
+}
+
 TEST_CASE("diff: inputs written as literals are shown as written on both sides", "[review][diff]") {
   Pair p = diffOf("f = 0.15\nd = 20 mm\nk = f * d\n", "f = 0.18\nd = 0.8 in\nk = f * d\n");
   const std::string text = renderDiffText(p.d, 4);

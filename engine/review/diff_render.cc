@@ -155,7 +155,8 @@ std::string renderDiffText(const SheetDiff& d, int digits) {
   }
   for (const CheckFlip& f : d.still_failing) {
     const CheckEntry& c = f.now;
-    fmt::format_to(out, "\n!! STILL FAILING  {}: FAIL -> FAIL\n", c.name);
+    fmt::format_to(out, "\n!! STILL FAILING  {}{}: FAIL -> FAIL\n", c.name,
+                   f.in_case.empty() ? "" : " in case " + f.in_case);
     fmt::format_to(out, "   {}: {} is false (was {})\n", c.condition, checkValues(c, digits),
                    oldCheckValues(f, digits));
     if (!c.description.empty()) fmt::format_to(out, "   {}\n", c.description);
@@ -251,8 +252,8 @@ std::string renderDiffMarkdown(const SheetDiff& d, int digits) {
     fmt::format_to(out, "\n");
   }
   for (const CheckFlip& f : d.still_failing)
-    fmt::format_to(out, "> **Still failing: {} FAIL \u2192 FAIL** ({})\n", mdCode(f.now.name),
-                   mdCell(checkValues(f.now, digits)));
+    fmt::format_to(out, "> **Still failing: {}{} FAIL \u2192 FAIL** ({})\n", mdCode(f.now.name),
+                   f.in_case.empty() ? "" : " in case " + mdCode(f.in_case), mdCell(checkValues(f.now, digits)));
   if (!d.flipped.empty() || !d.still_failing.empty()) fmt::format_to(out, "\n");
   fmt::format_to(out, "{} (rtol {}).\n", summary, rtolText(d.rtol));
 
@@ -398,6 +399,7 @@ std::string renderDiffJson(const SheetDiff& d) {
   for (const CheckFlip& f : d.still_failing) {
     w.beginObject();
     writeCheck(w, f.now);
+    w.key("case").value(f.in_case.empty() ? std::string("nominal") : f.in_case);
     w.key("old_unit").value(f.old_unit.text);
     w.key("old_lhs").value(f.old_unit.fromSI(f.old_lhs));
     w.key("old_rhs").value(f.old_unit.fromSI(f.old_rhs));

@@ -178,7 +178,8 @@ void diffCases(const Calculation& o, const Calculation& n, double rtol, SheetDif
       if (ok < 0) continue;
       const CheckResult& rnow = rn->results.checks[k];
       const CheckResult& rwas = ro->results.checks[ok];
-      if (rnow.passed == rwas.passed) continue;
+      // A check failing in this case on both sides is no change, but never "all good".
+      if (rnow.passed == rwas.passed && rnow.passed) continue;
       CheckFlip f;
       f.now = checkEntryOf(n, static_cast<int>(k));
       f.now.passed = rnow.passed;
@@ -189,7 +190,9 @@ void diffCases(const Calculation& o, const Calculation& n, double rtol, SheetDif
       f.old_unit = o.checks[ok].display;
       f.old_lhs_expr = o.sheet.checks[ok].lhs.get();
       f.old_rhs_expr = o.sheet.checks[ok].rhs.get();
-      cd.flipped.push_back(f);
+      f.in_case = c.name;
+      if (rnow.passed == rwas.passed) d->still_failing.push_back(f);
+      else cd.flipped.push_back(f);
     }
     std::stable_sort(cd.moved.begin(), cd.moved.end(), [](const ValueChange& a, const ValueChange& b) {
       const double ka = sortKey(a), kb = sortKey(b);

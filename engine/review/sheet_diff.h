@@ -60,6 +60,7 @@ struct CheckFlip {
   Unit old_unit;
   const Expr* old_lhs_expr = nullptr;  // the old side's, owned by its Calculation
   const Expr* old_rhs_expr = nullptr;
+  std::string in_case;  // the load case it fails in; empty for the sheet as written
 };
 
 struct MetaChange {
@@ -83,7 +84,7 @@ struct SheetDiff {
   std::string old_name, new_name;
   double rtol = 0.0;
   std::vector<CheckFlip> flipped;         // new side's document order
-  std::vector<CheckFlip> still_failing;   // checks that fail on both sides, new side's order
+  std::vector<CheckFlip> still_failing;   // checks that fail on both sides (as written, then by case), new side's order
   std::vector<ValueChange> inputs;        // given values whose text or value changed
   std::vector<FormulaChange> formulas;    // definitions and checks rewritten (not a given value re-given)
   std::vector<ValueChange> moved;         // results beyond rtol, largest relative change first
