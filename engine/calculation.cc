@@ -1,5 +1,7 @@
 #include "engine/calculation.h"
 
+#include <algorithm>
+
 #include "engine/model/evaluate.h"
 #include "engine/study/sheet_study.h"
 #include "engine/sheet/sheet_parser.h"
@@ -152,6 +154,15 @@ void Calculation::evaluateCases(Evaluation* evaluation) {
     const std::string who = "case `" + c.def->name + "`";
     for (const Fault& f : c.results.faults) c.errors.error(*f.file, f.begin, f.end, who + ": " + f.message);
     c.errors.sort();
+    // A warning only this case raises (a friction value out of range in the
+    // dry case) is the run's warning too, named with its case: never silent.
+    for (const Fault& w : c.results.warnings) {
+      const bool nominal = std::any_of(results.warnings.begin(), results.warnings.end(), [&](const Fault& n) {
+        return n.site == w.site && n.index == w.index && n.message == w.message;
+      });
+      if (!nominal)
+        diags.warning(*w.file, w.begin, w.end, who + ": " + w.message + instanceNote(w), siteOf(w));
+    }
   }
 }
 

@@ -285,7 +285,18 @@ TEST_CASE("diff compares case by case and reports cases added and removed", "[ca
   CHECK(d.formulas[0].name == "case high");
   auto same_a = Calculation::fromText("old.calc", was);
   auto same_b = Calculation::fromText("new.calc", was);
-  CHECK(diffCalculations(same_a.get(), same_b.get(), 1e-9).empty());
+  // Nothing moved; the one check that fails (torque in case overload: 14 kN *
+  // 0.12 * 20 mm / 2 = 16.8 N*m > 15 N*m) is listed as still failing, never
+  // read as "all good".
+  const SheetDiff same = diffCalculations(same_a.get(), same_b.get(), 1e-9);
+  CHECK_FALSE(same.somethingMoved());
+  REQUIRE(same.still_failing.size() == 1);
+  CHECK(same.still_failing[0].now.name == "torque");
+  CHECK(same.still_failing[0].in_case == "overload");
+  CHECK(same.still_failing[0].now.lhs == Approx(16.8));
+  SheetDiff rest = same;
+  rest.still_failing.clear();
+  CHECK(rest.empty());
 }
 
 TEST_CASE("fmt lays out case lines canonically and keeps their meaning", "[cases][review]") {
@@ -299,4 +310,34 @@ TEST_CASE("fmt lays out case lines canonically and keeps their meaning", "[cases
         "f = 0.1\n"
         "case hot: f = 0.2, F = 12 kN    # warm\n"
         "case cold: f = max(0.05, 0.06)\n");
+}
+
+// A friction value out of torque_raise's usual range only in one case must
+// not pass in silence because the nominal is fine.
+TEST_CASE("cases: a warning only a case raises is a warning of the run, named with its case", "[cases][warnings]") {
+  const std::string dir = tempDir();
+  writeFile(dir + "/c.calc",
+            "d = 20 mm\np = 4 mm\nl [mm/rev] = thread_lead(p, 1)\nd_m = trap_pitch_dia(d, p)\nf = 0.1\n"
+            "F = 10 kN\nT [N*m] = torque_raise(F, d_m, l, f, trap_flank_angle())\ncheck t: T < 100 [N*m]\n"
+            "case dry: f = 0.45\ncase oiled: f = 0.08\n");
+  Run r = runCliIn(dir, "report c.calc");
+  INFO(r.out << r.err);
+  CHECK(r.status == 0);
+  // One warning: the dry case's f, at the argument f of the torque_raise call.
+  CHECK(count(r.err, ": warning:") == 1);
+  CHECK(r.err.find("c.calc:7:35: warning: case `dry`: `torque_raise`: f = 0.45 is outside the usual range") !=
+        std::string::npos);
+  CHECK(r.out.find("WARNING: 1 warning, flagged at its step: T (line 7)") != std::string::npos);
+  // With --case dry the case is the nominal: the same warning, without the case's name.
+  Run alone = runCliIn(dir, "report c.calc --case dry");
+  CHECK(count(alone.err, ": warning:") == 1);
+  CHECK(alone.err.find("c.calc:7:35: warning: `torque_raise`: f = 0.45") != std::string::npos);
+  // A warning the nominal raises too is reported once.
+  writeFile(dir + "/n.calc",
+            "d = 20 mm\np = 4 mm\nl [mm/rev] = thread_lead(p, 1)\nd_m = trap_pitch_dia(d, p)\nf = 0.45\n"
+            "F = 10 kN\nT [N*m] = torque_raise(F, d_m, l, f, trap_flank_angle())\ncase heavy: F = 12 kN\n");
+  Run both = runCliIn(dir, "report n.calc");
+  // The heavy case re-runs T with the same f = 0.45: the same warning, once.
+  CHECK(count(both.err, ": warning:") == 1);
+  CHECK(both.err.find("case `heavy`") == std::string::npos);
 }
