@@ -165,7 +165,7 @@ TEST_CASE("a --set run's JSON follows the schema and lists every replacement", "
   // Utilisation per check: demand over capacity, null where a side is not above zero.
   for (const Json& c : out["checks"].array) {
     INFO(c["name"].string);
-    if (c["name"].string == "self_locking") CHECK(c["utilisation"].type == Json::Null);
+    if (c["name"].string == "screw.self_locking") CHECK(c["utilisation"].type == Json::Null);
     else CHECK(c["utilisation"].type == Json::Number);
   }
 }

@@ -55,11 +55,12 @@ TEST_CASE("series: the tables of the drive library, read through its functions",
 }
 
 TEST_CASE("pick: the smallest trapezoidal size equals a brute force over the table", "[study][pick]") {
-  const std::string sheet = test::readFile(test::repoPath("worksheets/twin-screw-lift.calc"));
   // Brute force: every size of the table through a --set run of its own, in order.
   double expected = 0;
   for (double d : fn::trapezoidalDiameters()) {
-    auto c = test::calc(sheet, {"d=" + std::to_string(static_cast<int>(std::lround(d * 1000))) + " mm"});
+    CalcOptions o;
+    o.sets = {"d=" + std::to_string(static_cast<int>(std::lround(d * 1000))) + " mm"};
+    auto c = Calculation::fromFile(test::repoPath("worksheets/twin-screw-lift.calc"), o);
     if (c->hasErrors() || !c->allChecksPass()) continue;
     expected = d;
     break;
@@ -81,7 +82,7 @@ TEST_CASE("pick: the smallest trapezoidal size equals a brute force over the tab
     CHECK_FALSE(tried[i]["passed"].boolean);
     CHECK_FALSE(tried[i]["failed"].array.empty());
   }
-  CHECK(tried[tried.size() - 2]["failed"][0].string == "buckling");
+  CHECK(tried[tried.size() - 2]["failed"][0].string == "screw.buckling");
 }
 
 TEST_CASE("pick: from a list, by an expression, and nothing passing", "[study][pick]") {
@@ -121,9 +122,9 @@ TEST_CASE("pick: bad studies are errors, exit 2", "[study][pick][diagnostics]") 
       {" --vary d --from trapezoidl", "no series is named `trapezoidl`"},
       {" --vary d --from motor_outputs", "the series `motor_outputs` holds power (W), but `d` is length"},
       {" --vary d --from '40 mm, 4 kg'", "`d` is length (mm) in the worksheet, but `4 kg` is mass (kg)"},
-      {" --vary p --from trapezoidal", "`p` is calculated from other quantities"},
-      {" --vary d --from trapezoidal --by P_motr", "did you mean `P_motor`"},
-      {" --vary d --from trapezoidal --by P_motor --smallest", "not both"},
+      {" --vary screw.p --from trapezoidal", "`screw.p` is calculated from other quantities"},
+      {" --vary d --from trapezoidal --by motor.P_motr", "did you mean `motor.P_motor`"},
+      {" --vary d --from trapezoidal --by motor.P_motor --smallest", "not both"},
   };
   for (const Case& c : cases) {
     const test::Run r = test::runCli(w + c.args);

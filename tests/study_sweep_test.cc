@@ -59,7 +59,8 @@ StudyRange range(const Calculation& c, const std::string& text, int steps = 11, 
 }  // namespace
 
 TEST_CASE("sweep: a point equals the --set run of the same value, bit for bit", "[study][sweep]") {
-  const std::string show = "F,T_screw,T_motor,P_motor,P_rated,n_yield,n_buckle,pv,t_lift";
+  const std::string show =
+      "F,screw.T_raise,motor.T_motor,motor.P_motor,motor.P_rated,screw.n_yield,screw.n_buckle,screw.pv,t_lift";
   const test::Run r =
       test::runCli(std::string("sweep ") + kTwin + " --vary 'm_load=3600 kg, 4200 kg, 5100 kg' --show " +
                    show + " --format json");
@@ -79,17 +80,17 @@ TEST_CASE("sweep: a point equals the --set run of the same value, bit for bit", 
   }
   // The ends of a range are the values as written: the --set runs of them.
   const test::Run e = test::runCli(std::string("sweep ") + kTwin +
-                                   " --vary 'L_col=500 mm..800 mm' --steps 4 --show n_buckle --format json");
+                                   " --vary 'L_col=500 mm..800 mm' --steps 4 --show screw.n_buckle --format json");
   REQUIRE(e.status == 0);
   const Json ej = parsed(e.out);
-  CHECK(sameBits(ej["points"][0]["results"]["n_buckle"]["si"].number,
-                 reportValues("L_col=500 mm").at("n_buckle")));
-  CHECK(sameBits(ej["points"][3]["results"]["n_buckle"]["si"].number,
-                 reportValues("L_col=800 mm").at("n_buckle")));
+  CHECK(sameBits(ej["points"][0]["results"]["screw.n_buckle"]["si"].number,
+                 reportValues("L_col=500 mm").at("screw.n_buckle")));
+  CHECK(sameBits(ej["points"][3]["results"]["screw.n_buckle"]["si"].number,
+                 reportValues("L_col=800 mm").at("screw.n_buckle")));
 }
 
 TEST_CASE("sweep: every point equals a whole evaluation, for any number of threads", "[study][sweep]") {
-  auto c = test::calc(test::readFile(test::repoPath(kTwin)));
+  auto c = Calculation::fromFile(test::repoPath(kTwin));
   REQUIRE_FALSE(c->hasErrors());
   const Model& m = *c->model;
   SweepSpec spec;
@@ -187,7 +188,7 @@ TEST_CASE("sweep: shards run by GNU parallel merge into the table one run gives"
   const std::string sweep =
       std::string("sweep ") + test::repoPath(kTwin) +
       " --vary 'm_load=2000 kg..9000 kg' --vary 'L_col=500 mm, 650 mm, 900 mm' --steps 15"
-      " --show P_motor,n_buckle";
+      " --show motor.P_motor,screw.n_buckle";
   const test::Run whole = test::runCli(sweep + " --format json -o '" + dir + "/whole.json'");
   REQUIRE(whole.status == 0);
   const std::string cmd = "cd '" + dir + "' && parallel --halt now,fail=1 \"'" +
@@ -217,20 +218,21 @@ TEST_CASE("sweep: shards run by GNU parallel merge into the table one run gives"
 
 TEST_CASE("sweep: a point that cannot be calculated is shown and named, exit 2", "[study][sweep]") {
   const test::Run r =
-      test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show p,n_buckle");
+      test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show screw.p,screw.n_buckle");
   CHECK(r.status == 2);
   CHECK(r.err.find(
-            "twin-screw-lift.calc:32:16: error: at d = 45.00 mm: `p` cannot be calculated: `trap_pitch`") !=
+            "templates/trapezoidal-screw-stage.calc:19:21: error: at d = 45.00 mm: `screw.p` cannot be calculated: "
+            "`trap_pitch`") !=
         std::string::npos);
   CHECK(r.out.find("At d = 45.00 mm: error:") != std::string::npos);
   const test::Run j =
-      test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show p -f json");
+      test::runCli(std::string("sweep ") + kTwin + " --vary 'd=40 mm..50 mm' --steps 3 --show screw.p -f json");
   const Json doc = parsed(j.out);
-  CHECK(doc["points"][1]["results"]["p"]["si"].type == Json::Null);
-  CHECK(doc["points"][1]["checks"]["buckling"].type == Json::Null);
+  CHECK(doc["points"][1]["results"]["screw.p"]["si"].type == Json::Null);
+  CHECK(doc["points"][1]["checks"]["screw.buckling"].type == Json::Null);
   CHECK(doc["points"][1]["error"].string.find("not a size of the ISO 2904") != std::string::npos);
-  CHECK(doc["points"][0]["checks"]["buckling"].boolean == false);
-  CHECK(doc["points"][2]["checks"]["buckling"].boolean == true);
+  CHECK(doc["points"][0]["checks"]["screw.buckling"].boolean == false);
+  CHECK(doc["points"][2]["checks"]["screw.buckling"].boolean == true);
 }
 
 TEST_CASE("sweep: bad studies are errors, exit 2", "[study][sweep][diagnostics]") {
@@ -239,23 +241,23 @@ TEST_CASE("sweep: bad studies are errors, exit 2", "[study][sweep][diagnostics]"
     std::string args, message;
   };
   const Case cases[] = {
-      {" --vary 'F=1 kN..2 kN' --show P_motor",
+      {" --vary 'F=1 kN..2 kN' --show motor.P_motor",
        "--vary:1:1: error: `F` is calculated from other quantities, not a given value"},
-      {" --vary 'm_lod=1 kg..2 kg' --show P_motor", "no quantity `m_lod`; did you mean `m_load`?"},
-      {" --vary 'm_load=1 kN..2 kN' --show P_motor",
+      {" --vary 'm_lod=1 kg..2 kg' --show motor.P_motor", "no quantity `m_lod`; did you mean `m_load`?"},
+      {" --vary 'm_load=1 kN..2 kN' --show motor.P_motor",
        "`m_load` is mass (kg) in the worksheet, but `1 kN` is force (N)"},
-      {" --vary 'm_load=2 kg..2 kg' --show P_motor", "it holds one value"},
-      {" --vary 'm_load=1 kg..2 kg' --steps 1 --show P_motor", "a range needs 2 points or more"},
-      {" --vary 'm_load=1 kg..' --show P_motor", "a range needs a value at both ends"},
-      {" --vary 'm_load=1 kg, ' --show P_motor", "an empty value in the list"},
-      {" --vary 'm_load=0 kg..2 kg' --log --show P_motor", "--log steps need both ends of one sign"},
-      {" --vary 'm_load=L_col' --show P_motor", "not a formula reading `L_col`"},
-      {" --vary 'm_load=1 kg..2 kg' --show P_motr", "did you mean `P_motor`"},
+      {" --vary 'm_load=2 kg..2 kg' --show motor.P_motor", "it holds one value"},
+      {" --vary 'm_load=1 kg..2 kg' --steps 1 --show motor.P_motor", "a range needs 2 points or more"},
+      {" --vary 'm_load=1 kg..' --show motor.P_motor", "a range needs a value at both ends"},
+      {" --vary 'm_load=1 kg, ' --show motor.P_motor", "an empty value in the list"},
+      {" --vary 'm_load=0 kg..2 kg' --log --show motor.P_motor", "--log steps need both ends of one sign"},
+      {" --vary 'm_load=L_col' --show motor.P_motor", "not a formula reading `L_col`"},
+      {" --vary 'm_load=1 kg..2 kg' --show motor.P_motr", "did you mean `motor.P_motor`"},
       {" --vary 'm_load=1 kg..2 kg'", "sweep needs --show"},
-      {" --vary 'm_load=1 kg..2 kg' --show P_motor --shard 3/2", "--shard takes K/N"},
-      {" --vary 'm_load=1 kg..2 kg' --vary 'm_load=1 kg, 3 kg' --show P_motor", "`m_load` is varied twice"},
-      {" --vary 'm_load=1 kg..2 kg' --show P_motor --format html", "html not in"},
-      {" --vary 'm_load=1 kg..2 kg' --vary 'L_col=1 m..2 m' --steps 10000000 --show P_motor",
+      {" --vary 'm_load=1 kg..2 kg' --show motor.P_motor --shard 3/2", "--shard takes K/N"},
+      {" --vary 'm_load=1 kg..2 kg' --vary 'm_load=1 kg, 3 kg' --show motor.P_motor", "`m_load` is varied twice"},
+      {" --vary 'm_load=1 kg..2 kg' --show motor.P_motor --format html", "html not in"},
+      {" --vary 'm_load=1 kg..2 kg' --vary 'L_col=1 m..2 m' --steps 10000000 --show motor.P_motor",
        "at most 10000000 points a run"},
   };
   for (const Case& c : cases) {

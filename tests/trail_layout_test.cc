@@ -70,14 +70,18 @@ TEST_CASE("a library function is described once and each step shows its call, va
               "Machinery&#39;s Handbook, power screws (from memory)</li>") == 1);
   // The thread formula once (in the list), not at the step that calls it.
   CHECK(count(text, "= F \u00B7 dm / 2 \u00B7 (l + \u03C0 \u00B7 f \u00B7 dm / cos(alpha))") == 1);
-  CHECK(text.find("      where torque_raise") == std::string::npos);
+  // Only where the call is a term of a sum (the stage's running torque, thread plus
+  // collar) does the step show it with its values, as any nested library call.
+  CHECK(count(text, "      where torque_raise") == 1);
+  CHECK(text.find("      where torque_raise") > text.find("  screw.T_run  "));
+  CHECK(text.find("      where torque_raise") < text.find("  screw.eta  "));
 }
 
 TEST_CASE("a table lookup shows the row it found, never the whole table", "[report][layout]") {
   auto twin = demo("twin-screw-lift");
   const Trail t = buildTrail(*twin, 4);
-  CHECK(step(t, "p").calls.at(0).row == "Tr 48x8, ISO 2904 table");
-  CHECK(step(t, "P_rated").calls.at(0).row == "5.5 kW, IEC 60072-1 series");
+  CHECK(step(t, "screw.p").calls.at(0).row == "Tr 48x8, ISO 2904 table");
+  CHECK(step(t, "motor.P_rated").calls.at(0).row == "5.5 kW, IEC 60072-1 series");
   const std::string text = renderText(t);
   CHECK(text.find("      = 8.000 mm  (Tr 48x8, ISO 2904 table)\n") != std::string::npos);
   for (const std::string& out : {text, renderMarkdown(t), renderHtml(t)}) {
@@ -136,7 +140,7 @@ TEST_CASE("trivial definitions get no block, and a nested call is shown by its v
   // The twin-screw demo: the pV step shows the speed, not the call that gives it.
   auto twin = demo("twin-screw-lift");
   const Trail tw = buildTrail(*twin, 4);
-  CHECK(lineText(step(tw, "pv").substituted).find("8.000 mm/rev, 72.50 rpm)") != std::string::npos);
+  CHECK(lineText(step(tw, "screw.pv").substituted).find("8.000 mm/rev, 72.50 rpm)") != std::string::npos);
 }
 
 TEST_CASE("a lead stays a lead where it is made and where it is read", "[report][layout]") {

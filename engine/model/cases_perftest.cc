@@ -67,8 +67,10 @@ std::vector<std::string> setsOf(int i) {
   return sets;
 }
 
-std::unique_ptr<Calculation> mustCalculate(const std::string& text, const CalcOptions& o = {}) {
-  auto c = Calculation::fromText("twin-screw-lift.calc", text, o);
+// `path` is the sheet's place on the disk: its templates are read beside it.
+std::unique_ptr<Calculation> mustCalculate(const std::string& path, const std::string& text,
+                                           const CalcOptions& o = {}) {
+  auto c = Calculation::fromText(path, text, o);
   if (c->hasErrors() || c->caseErrors()) {
     for (const Diagnostic& d : c->diags.list()) std::fprintf(stderr, "%s\n", d.headline().c_str());
     std::exit(2);
@@ -104,19 +106,20 @@ int main(int argc, char** argv) {
       return 2;
     }
   }
+  const std::string path = dir + "/twin-screw-lift.calc";
   std::string base, error;
-  if (!readFile(dir + "/twin-screw-lift.calc", &base, &error)) {
+  if (!readFile(path, &base, &error)) {
     std::fprintf(stderr, "cases_perftest: %s\n", error.c_str());
     return 2;
   }
   const std::string sheet = withCases(base, n);
 
   // The cases give, bit for bit, what their separate runs give.
-  auto all = mustCalculate(sheet);
+  auto all = mustCalculate(path, sheet);
   for (int i = 0; i < n; ++i) {
     CalcOptions o;
     o.sets = setsOf(i);
-    auto alone = mustCalculate(base, o);
+    auto alone = mustCalculate(path, base, o);
     if (std::memcmp(all->cases[static_cast<size_t>(i)].results.values.data(), alone->results.values.data(),
                     alone->results.values.size() * sizeof(double)) != 0) {
       std::fprintf(stderr, "cases_perftest: case c%d differs from its separate run\n", i);
@@ -126,13 +129,13 @@ int main(int argc, char** argv) {
 
   std::printf("twin-screw-lift.calc (%zu quantities, %zu checks), %d cases, best of %d\n\n",
               all->quantities.size(), all->checks.size(), n, repeat);
-  const double one = best(repeat, [&] { mustCalculate(base); });
-  const double with_cases = best(repeat, [&] { mustCalculate(sheet); });
+  const double one = best(repeat, [&] { mustCalculate(path, base); });
+  const double with_cases = best(repeat, [&] { mustCalculate(path, sheet); });
   const double separate = best(repeat, [&] {
     for (int i = 0; i < n; ++i) {
       CalcOptions o;
       o.sets = setsOf(i);
-      mustCalculate(base, o);
+      mustCalculate(path, base, o);
     }
   });
   std::printf("end to end (read, parse, model, evaluate):\n");

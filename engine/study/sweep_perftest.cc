@@ -53,7 +53,7 @@ double cpu() {
 // ---------------------------------------------------------------------------
 
 // The two results the sweep shows, in the port's outputs.
-const int kTMotor = outputIndex("T_motor"), kPMotor = outputIndex("P_motor");
+const int kTMotor = outputIndex("motor.T_motor"), kPMotor = outputIndex("motor.P_motor");
 
 struct Figures {
   double engine1_us = 1e9, engine2_us = 1e9, native_us = 1e9;  // wall clock per point, best run
@@ -68,7 +68,7 @@ Figures measure(const Model& m, const Inputs& nominal, const Results& base, cons
   range.input = {slot, name, m.slot(slot).display};
   for (int i = 0; i < points; ++i) range.values.push_back(from + (to - from) * i / (points - 1));
   spec.vary.push_back(range);
-  spec.show = {m.find("T_motor"), m.find("P_motor")};
+  spec.show = {m.find("motor.T_motor"), m.find("motor.P_motor")};
 
   double in[kInputCount];
   int index = 0;
