@@ -40,15 +40,21 @@ void expectLayout(const std::string& in, const std::string& out) {
   CHECK(fmt(out) == out);
 }
 
-std::vector<std::string> repositoryWorksheets() {
+// The demos, and with `templates` the template library too (whose required
+// parameters leave a template alone uncalculated).
+std::vector<std::string> repositoryWorksheets(bool templates = false) {
   std::vector<std::string> files;
-  DIR* dir = opendir(repoPath("worksheets").c_str());
-  REQUIRE(dir != nullptr);
-  while (dirent* e = readdir(dir)) {
-    const std::string name = e->d_name;
-    if (name.size() > 5 && name.compare(name.size() - 5, 5, ".calc") == 0) files.push_back("worksheets/" + name);
+  for (const char* folder : {"worksheets", "worksheets/templates"}) {
+    if (!templates && std::string(folder) != "worksheets") continue;
+    DIR* dir = opendir(repoPath(folder).c_str());
+    REQUIRE(dir != nullptr);
+    while (dirent* e = readdir(dir)) {
+      const std::string name = e->d_name;
+      if (name.size() > 5 && name.compare(name.size() - 5, 5, ".calc") == 0)
+        files.push_back(std::string(folder) + "/" + name);
+    }
+    closedir(dir);
   }
-  closedir(dir);
   std::sort(files.begin(), files.end());
   return files;
 }
@@ -244,11 +250,11 @@ TEST_CASE("fmt: descriptions stand in one column per section", "[review][fmt]") 
   expectLayout("\u03b7 = 0.5 # efficiency\nab = 1 # x\n", at("\u03b7 = 0.5", 16, "efficiency") + at("ab = 1", 16, "x"));
 }
 
-TEST_CASE("fmt: every demo worksheet has one description column per section", "[review][fmt]") {
-  for (const std::string& path : repositoryWorksheets()) {
+TEST_CASE("fmt: every demo worksheet and template is canonical, one description column per section", "[review][fmt]") {
+  for (const std::string& path : repositoryWorksheets(true)) {
     INFO(path);
     const std::string text = readFile(repoPath(path));
-    CHECK(fmt(text) == text);  // `fmt --check` passes
+    CHECK(fmt(text) == text);  // `fmt --check` passes, as .ci/test asks of the demos and templates
     std::istringstream in(text);
     std::string line;
     std::set<size_t> columns;
