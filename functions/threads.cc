@@ -418,6 +418,15 @@ const char* kAcme2GSource =
     "in) for 10 tpi and coarser, D - (p + 0.010 in) finer, minor diameter tolerance 1.5 times the pitch "
     "diameter tolerance (D, p in inches); checked against two published class 2G tables, a thread maker's "
     "and Lew Merrick's Acme thread data sheets (see docs/verification.md)";
+// The sizes the 2G and 7e tolerance functions hold, the same for each limit.
+const char* kAcme2GLimits =
+    "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
+    "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+    "multiple-start screw may be made to other limits: take them from its drawing";
+const char* kTrap7eLimits =
+    "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
+    "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+    "widens Td2 of a multiple-start thread (clause 10), which is not held here";
 const char* kTrap7eSource =
     "ISO 2903 (ISO metric trapezoidal screw threads, tolerances), class 7e of the external thread: "
     "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clauses 7 and 11.4.1), d "
@@ -723,9 +732,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "d - p/2 - 0.008*sqrt(D) in, with D = d/(1 in): the basic pitch diameter less the class 2G "
                 "allowance; each term rounded to 0.0001 in as the published 2G tables are";
     d.formula_is_expression = false;
-    d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
-               "multiple-start screw may be made to other limits: take them from its drawing";
+    d.limits = kAcme2GLimits;
     d.source = kAcme2GSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMaxPitchDia;
@@ -741,9 +748,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "acme_max_pitch_dia(d, p) - (0.006*sqrt(D) + 0.030*sqrt(P)) in, with D = d/(1 in) and "
                 "P = p/(1 in): less the class 2G pitch diameter tolerance (rounded to 0.0001 in)";
     d.formula_is_expression = false;
-    d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
-               "multiple-start screw may be made to other limits: take them from its drawing";
+    d.limits = kAcme2GLimits;
     d.source = kAcme2GSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMinPitchDia;
@@ -761,9 +766,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "root clearance c = 0.020 in for 10 threads per inch and coarser, 0.010 in finer; d - p - c and the "
                 "tolerance each rounded to 0.0001 in";
     d.formula_is_expression = false;
-    d.limits = "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-               "within 1 um. The limits of a single-start thread, as the published tables give them; a "
-               "multiple-start screw may be made to other limits: take them from its drawing";
+    d.limits = kAcme2GLimits;
     d.source = kAcme2GSource;
     d.example = {kInch, 0.2 * kInch};
     d.eval = acmeMinMinorDia;
@@ -779,9 +782,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "d - p/2 + es, with the fundamental deviation es of position e: -67 um for p = 1.5 mm, -71 um "
                 "for 2 mm, -85 um for 3 mm, -95 um for 4 mm";
     d.formula_is_expression = false;
-    d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
-               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+    d.limits = kTrap7eLimits;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMaxPitchDia;
@@ -798,9 +799,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
                 "2, 3 mm (d over 5.6 up to 11.2 mm) and 200, 224, 265 um for p = 2, 3, 4 mm (d over 11.2 up to "
                 "22.4 mm)";
     d.formula_is_expression = false;
-    d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
-               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+    d.limits = kTrap7eLimits;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinPitchDia;
@@ -817,9 +816,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "trap_minor_dia(d, p) - Td3, with Td3 = 1.25*Td2 + |es| (Td2 and es as in trap_min_pitch_dia "
                 "and trap_max_pitch_dia)";
     d.formula_is_expression = false;
-    d.limits = "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-               "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
-               "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+    d.limits = kTrap7eLimits;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinMinorDia;

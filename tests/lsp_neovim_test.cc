@@ -138,7 +138,7 @@ TEST_CASE("lsp in Neovim: diagnostics, hover and definition through its built-in
   REQUIRE(has_nvim == 0);
 
   const std::string dir = tempDir();
-  const std::string sheet = dir + "/jack.calc", script = dir + "/client.lua", out = dir + "/out";
+  const std::string sheet = dir + "/jack.calc";
   // Line 5 reads an undefined name after a Greek letter: the server says
   // UTF-16 unit 18, which Neovim turns into its byte column 19.
   writeFile(sheet,
@@ -147,18 +147,7 @@ TEST_CASE("lsp in Neovim: diagnostics, hover and definition through its built-in
             "A [mm^2] = pi * d^2 / 4\n"
             "sigma [MPa] = F / A     # stress\n"
             "τ_s [MPa] = 0.6 * S_y   # shear limit\n");
-  auto lua = [](const std::string& s) { return "'" + s + "'"; };  // temporary paths hold no quote
-  writeFile(script, "SHEET = " + lua(sheet) + "\nOUT = " + lua(out) +
-                        "\nCALCTRAIL = " + lua(CALCTRAIL_BINARY) + "\n" + kScript);
-  const std::string cmd = "cd '" + dir + "' && timeout 120 nvim --headless --clean -n -c 'luafile " + script +
-                          "' >'" + dir + "/nvim.log' 2>&1 </dev/null";
-  const int raw = std::system(cmd.c_str());
-  INFO("nvim said: " << readFile(dir + "/nvim.log"));
-  CHECK(WIFEXITED(raw));
-  CHECK(WEXITSTATUS(raw) == 0);
-  std::vector<std::string> lines;
-  std::istringstream in(readFile(out));
-  for (std::string line; std::getline(in, line);) lines.push_back(line);
+  const std::vector<std::string> lines = runNeovim(dir, sheet, kScript);
   REQUIRE(lines.size() == 6);
   CHECK(lines[0] == "client true");
   CHECK(lines[1] == "diagnostics true");
@@ -168,5 +157,5 @@ TEST_CASE("lsp in Neovim: diagnostics, hover and definition through its built-in
   CHECK(lines[4] ==
         "hover **A** [mm^2] = 706.9 mm^2\\n\\n```\\nA = pi * d^2 / 4\\n  = pi * (30.00 mm)^2 / 4\\n```\\n");
   CHECK(lines[5] == "definition " + sheet + " 2:0-2:1");
-  for (const char* f : {"/jack.calc", "/client.lua", "/out", "/nvim.log"}) std::remove((dir + f).c_str());
+  std::remove(sheet.c_str());
 }
