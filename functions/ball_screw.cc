@@ -158,11 +158,15 @@ double preloadTorque(const double* a) {
 }
 
 const char* kLifeSource =
-    "ISO 3408-5:2006 (ball screws: static and dynamic axial load ratings and operational life), basic rating "
-    "life and equivalent load of a duty cycle (from memory)";
+    "ISO 3408-5:2006 (ball screws: static and dynamic axial load ratings and operational life): basic dynamic "
+    "axial load rating Ca (clause 5.2), equivalent speed and equivalent axial load of a duty cycle (clause 7.1, "
+    "7.1.2 for a nut with backlash), nominal life L in revolutions and Lh in hours (clause 7.2.1); the clause "
+    "numbers as the standard's published contents give them, the cube law and the cubic mean from memory";
 const char* kAdjustedSource =
-    "ISO 3408-5:2006, modified rating life with the reliability factor a1 (90 % 1, 95 % 0.62, 96 % 0.53, 97 % "
-    "0.44, 98 % 0.33, 99 % 0.21, the ISO 281:1990 values; ISO 281:2007 gives 0.64, 0.55, 0.47, 0.37, 0.25); the "
+    "ISO 3408-5:2006, nominal life with the reliability factor (clause 7.2.4, where the factor is named f_ar; "
+    "a1 here) and modified life (clause 7.3), clause numbers as the standard's published contents give them; "
+    "the factor's values 90 % 1, 95 % 0.62, 96 % 0.53, 97 % 0.44, 98 % 0.33, 99 % 0.21 (the ISO 281:1990 values, "
+    "from memory; ISO 281:2007 gives 0.64, 0.55, 0.47, 0.37, 0.25); the "
     "load (operating) factor fw as in the THK and NSK ball screw catalogues: 1.0 to 1.2 smooth, 1.2 to 1.5 "
     "normal, 1.5 to 3 with shock (common practice, from memory)";
 const char* kCatalogueSource =

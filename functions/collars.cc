@@ -70,7 +70,7 @@ GroupText addCollars(std::vector<FunctionDecl>& out) {
   using namespace dims;
   const FunctionArg F = arg("F", force(), "axial load on the collar (magnitude)");
   const FunctionArg fc = usually(arg("fc", none(), "collar friction coefficient"), 0.05, 0.30, Show::Plain,
-                                  "thrust collars of steel on cast iron and on bronze run at 0.06 to 0.12 and start at 0.08 to 0.17 (Shigley's Mechanical Engineering Design, Table 8-6, from memory); widened to 0.05 to 0.30 as for the thread (common practice), a rolling bearing is thrust_bearing_torque's");
+                                  "thrust collars of steel on cast iron and on bronze run at 0.06 to 0.12 and start at 0.08 to 0.17 (Shigley's Mechanical Engineering Design, 9th ed., Table 8-6, p. 422); widened to 0.05 to 0.30 as for the thread (common practice), a rolling bearing is thrust_bearing_torque's");
   const FunctionArg Do = arg("Do", length(), "outer diameter of the bearing face");
   const FunctionArg Di = arg("Di", length(), "inner diameter of the bearing face (0 for a solid pivot)");
   {

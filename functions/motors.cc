@@ -15,9 +15,14 @@ namespace calctrail::fn {
 namespace {
 
 
-// Rated outputs of induction motors, kW: the preferred outputs of IEC 60072-1,
-// which EN 50347 assigns to the frame sizes 56 to 315 up to 200 kW (from
-// memory); above 200 kW the IEC 60072-1 series continues in larger frames.
+// Rated outputs of induction motors, kW: the preferred rated output values of
+// IEC 60072-1 (clause 9 of its 1991 edition), which EN 50347 assigns to the
+// frame sizes 56 to 315 up to 200 kW (the series and the assignment from
+// memory). Every value held from 1.1 kW up is in a published list of IEC motor ratings
+// (IPS-E-EL-100, Tables A1 and A2, tests/functions_motors_test.cc). Above
+// 200 kW that list also has 220, 280, 300, 335, 375, 425, 475, 530, 600,
+// 670, 750, 850 and 950 kW; no second source for them was at hand, so they
+// are not held, and a requirement between two held values takes the larger.
 const double kRatedKw[] = {0.06, 0.09, 0.12, 0.18, 0.25, 0.37, 0.55, 0.75, 1.1, 1.5, 2.2, 3,  4,   5.5, 7.5,
                            11,   15,   18.5, 22,   30,   37,   45,   55,   75,  90,  110, 132, 160, 200,
                            250,  315,  355,  400,  450,  500,  560,  630,  710, 800, 900, 1000};
@@ -159,9 +164,13 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.formula_is_expression = false;
     d.limits = "0 < P <= 1000 kW; above it the table ends and this is an error. Up to 200 kW the outputs have "
                "standard frame sizes (EN 50347); above, the frame is the maker's";
-    d.source = "Rated outputs from the preferred series of IEC 60072-1 (dimensions and output series for "
-               "rotating electrical machines); their assignment to the frame sizes 56 to 315 of three-phase "
-               "induction motors is EN 50347, which the motor makers' ranges follow (from memory)";
+    d.source = "Rated outputs from the preferred rated output values of IEC 60072-1 (rotating electrical "
+               "machines, dimensions and output series; clause 9 of the 1991 edition; the 2022 edition, revised "
+               "on the basis of EN 50347, also relates frame numbers 56 to 400 to the rated outputs), the clause and "
+               "editions as the publishers' catalogue pages give them; each value held from 1.1 kW up is also in "
+               "the lists of IEC motor ratings of IPS-E-EL-100 (Tables A1 and A2). The assignment of the outputs to the frame "
+               "sizes 56 to 315 of three-phase induction motors is EN 50347, which the motor makers' ranges "
+               "follow (from memory)";
     d.example = {1200};
     d.eval = standardMotorPower;
     out.push_back(std::move(d));

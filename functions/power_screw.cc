@@ -140,8 +140,10 @@ double startingFriction(const double* a) {
 }
 
 const char* kSource =
-    "Shigley's Mechanical Engineering Design, Sec. 8-2 (mechanics of power screws), and "
-    "Machinery's Handbook, power screws (from memory)";
+    "Shigley's Mechanical Engineering Design (Budynas and Nisbett, 9th ed.), Sec. 8-2 (mechanics of power "
+    "screws): the raise and lower torques of a square thread, Eqs. (8-1) and (8-2), and the self-locking "
+    "condition, f above the tangent of the lead angle, Eq. (8-3), p. 416; the flank-angle form (the friction "
+    "divided by cos(alpha)) and Machinery's Handbook, power screws (from memory)";
 const char* kFrictionCaution =
     "Friction varies widely: size motors and brakes with the high value and check holding with the low one.";
 const char* kLockCaution =
@@ -161,10 +163,10 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
   const FunctionArg dm = arg("dm", length(), "mean (pitch) diameter of the thread");
   const FunctionArg l = arg("l", length(), "lead (axial advance per revolution)", true);
   const FunctionArg f = usually(arg("f", none(), "thread friction coefficient"), 0.05, 0.30, Show::Plain,
-                                 "threaded pairs of steel screws with steel, bronze, brass and cast-iron nuts run at 0.10 to 0.25, machine oil to dry (Shigley's Mechanical Engineering Design, Table 8-5, from memory); the range is widened to 0.05 for well-lubricated and polymer nuts at the low value of a self-locking check and to 0.30 for a dry worst case (common practice). A value of 15 or 1.5 is a percent or a slip");
+                                 "threaded pairs of steel screws with steel, bronze, brass and cast-iron nuts run at 0.10 to 0.25, machine oil to dry (Shigley's Mechanical Engineering Design, 9th ed., Table 8-5, p. 422); the range is widened to 0.05 for well-lubricated and polymer nuts at the low value of a self-locking check and to 0.30 for a dry worst case (common practice). A value of 15 or 1.5 is a percent or a slip");
   const FunctionArg alpha = arg("alpha", angle(), "flank angle (half the included thread angle; 0 for square)");
   const FunctionArg fc = usually(arg("fc", none(), "collar friction coefficient"), 0.05, 0.30, Show::Plain,
-                                  "thrust collars of steel on cast iron and on bronze run at 0.06 to 0.12 and start at 0.08 to 0.17 (Shigley's Mechanical Engineering Design, Table 8-6, from memory); widened to 0.05 to 0.30 as for the thread (common practice), a rolling bearing is thrust_bearing_torque's");
+                                  "thrust collars of steel on cast iron and on bronze run at 0.06 to 0.12 and start at 0.08 to 0.17 (Shigley's Mechanical Engineering Design, 9th ed., Table 8-6, p. 422); widened to 0.05 to 0.30 as for the thread (common practice), a rolling bearing is thrust_bearing_torque's");
   const FunctionArg dc = arg("dc", length(), "collar mean diameter");
   const std::string raise = "F*dm/2 * (l + pi*f*dm/cos(alpha)) / (pi*dm - f*l/cos(alpha))";
   const std::string lower = "F*dm/2 * (pi*f*dm/cos(alpha) - l) / (pi*dm + f*l/cos(alpha))";
@@ -328,16 +330,16 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.name = "starting_friction";
     d.summary = "Starting (static) friction from running friction: 4/3 of it, common practice";
     d.args = {usually(arg("f", none(), "running friction coefficient"), 0.05, 0.30, Show::Plain,
-                      "running values of threads and collars (Shigley's Tables 8-5 and 8-6, from memory, widened as for the thread friction of torque_raise, common practice)")};
+                      "running values of threads and collars (Shigley's Mechanical Engineering Design, 9th ed., Tables 8-5 and 8-6, p. 422, widened as for the thread friction of torque_raise, common practice)")};
     d.result = none();
     d.result_unit = "1";
     d.formula = "4/3*f";
     d.limits = "0 <= f <= 0.75, so that the starting value stays <= 1. Common practice only: the pairs of the "
                "source table start at 1.25 to 1.67 times their running value";
     d.source = "Common practice: starting friction about one third above running friction, as the thrust-collar "
-               "friction coefficients of Shigley's Mechanical Engineering Design, Table 8-6, show: running/"
+               "friction coefficients of Shigley's Mechanical Engineering Design, 9th ed., Table 8-6 (p. 422) show: running/"
                "starting 0.12/0.17 soft steel on cast iron, 0.09/0.15 hard steel on cast iron, 0.08/0.10 soft "
-               "steel on bronze, 0.06/0.08 hard steel on bronze, ratios 1.25 to 1.67 (from memory of the table)";
+               "steel on bronze, 0.06/0.08 hard steel on bronze, ratios 1.25 to 1.67";
     d.caution = "Use the starting value for the breakaway torque of a motor and the running value, at its low end, "
                 "for self-locking.";
     d.example = {0.06};

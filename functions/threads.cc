@@ -44,7 +44,8 @@ const AcmeRow kAcme[] = {
 
 // ISO 2904 / DIN 103-1 metric trapezoidal series: nominal diameter and its
 // pitches (fine, preferred, coarse), in mm; 0 where the standard lists fewer
-// (from memory of the standard's table of diameter-pitch combinations).
+// (the standard's table of diameter-pitch combinations, checked against a
+// published reprint of it; its diameters 105, 115, ... 195 mm are not held).
 struct TrapRow {
   double d_mm;
   double fine, preferred, coarse;
@@ -325,22 +326,78 @@ double acmeMinMinorDia(const double* a) { return result(acme2G(a, "acme_min_mino
 // position e (Table 1) and the grade 7 pitch diameter tolerance Td2 for a
 // diameter range "over ... up to and including" (clauses 7 and 11.4.1). The
 // major and minor diameters are of position h (es = 0, clause 6), and the
-// minor diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5, from
-// memory; it reproduces every published d3 limit to the half um). Only the cells
-// that a published table of 7e limits confirms are held: diameters over 5.6
-// up to 22.4 mm with pitches 1.5 to 4 mm.
+// minor diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5; it
+// reproduces every published d3 limit to the half um). Only the cells that
+// published tables of 7e limits confirm are held: the Engineers Edge table
+// (Tr 8x1.5 to Tr 18x2, and its Tr 320x5 row for es of 5 mm) and a lead-screw
+// maker's table of 7e screws (Tr 10x2 to Tr 25x5, docs/verification.md).
+// Larger diameters and the pitches from 6 mm are not held: no published
+// value of theirs was at hand.
 struct Trap7eDeviation {
   double p_mm, es_um;
 };
-const Trap7eDeviation kTrap7eDeviation[] = {{1.5, -67}, {2, -71}, {3, -85}, {4, -95}};
+const Trap7eDeviation kTrap7eDeviation[] = {{1.5, -67}, {2, -71}, {3, -85}, {4, -95}, {5, -106}};
 
 struct Trap7eTolerance {
   double d_over_mm, d_upto_mm, p_mm, td2_um;
 };
 const Trap7eTolerance kTrap7eTolerance[] = {
-    {5.6, 11.2, 1.5, 170}, {5.6, 11.2, 2, 190}, {5.6, 11.2, 3, 212},
-    {11.2, 22.4, 2, 200},  {11.2, 22.4, 3, 224}, {11.2, 22.4, 4, 265},
+    {5.6, 11.2, 1.5, 170}, {5.6, 11.2, 2, 190}, {5.6, 11.2, 3, 212},  {11.2, 22.4, 2, 200},
+    {11.2, 22.4, 3, 224},  {11.2, 22.4, 4, 265}, {11.2, 22.4, 5, 280}, {22.4, 45, 3, 250},
+    {22.4, 45, 5, 300},
 };
+
+// "1.5, 2 and 3" mm: the list of numbers in words.
+std::string andList(const std::vector<std::string>& items) {
+  std::string s;
+  for (std::size_t k = 0; k < items.size(); ++k) {
+    if (k > 0) s += k + 1 == items.size() ? " and " : ", ";
+    s += items[k];
+  }
+  return s;
+}
+
+// The sizes held, read from the table: "over 5.6 up to 11.2 mm with p = 1.5,
+// 2 and 3 mm, over 11.2 up to 22.4 mm with ...". One text for the limits of
+// the three functions and for the error outside them.
+std::string trap7eHeldText() {
+  std::vector<std::string> ranges;
+  for (std::size_t k = 0; k < std::size(kTrap7eTolerance);) {
+    const Trap7eTolerance& first = kTrap7eTolerance[k];
+    std::vector<std::string> pitches;
+    for (; k < std::size(kTrap7eTolerance) && kTrap7eTolerance[k].d_over_mm == first.d_over_mm; ++k)
+      pitches.push_back(num(kTrap7eTolerance[k].p_mm));
+    ranges.push_back("over " + num(first.d_over_mm) + " up to " + num(first.d_upto_mm) + " mm with p = " +
+                     andList(pitches) + " mm");
+  }
+  std::string s;
+  for (std::size_t k = 0; k < ranges.size(); ++k) s += (k == 0 ? "" : k + 1 == ranges.size() ? " and " : ", ") + ranges[k];
+  return "d " + s;
+}
+
+// "-67 um for p = 1.5 mm, -71 um for 2 mm, ...".
+std::string trap7eDeviationText() {
+  std::string s;
+  for (const Trap7eDeviation& e : kTrap7eDeviation)
+    s += (s.empty() ? num(e.es_um) + " um for p = " : ", " + num(e.es_um) + " um for ") + num(e.p_mm) + " mm";
+  return s;
+}
+
+// "170, 190, 212 um for p = 1.5, 2, 3 mm (d over 5.6 up to 11.2 mm), ...".
+std::string trap7eToleranceText() {
+  std::string s;
+  for (std::size_t k = 0; k < std::size(kTrap7eTolerance);) {
+    const Trap7eTolerance& first = kTrap7eTolerance[k];
+    std::string values, pitches;
+    for (; k < std::size(kTrap7eTolerance) && kTrap7eTolerance[k].d_over_mm == first.d_over_mm; ++k) {
+      values += (values.empty() ? "" : ", ") + num(kTrap7eTolerance[k].td2_um);
+      pitches += (pitches.empty() ? "" : ", ") + num(kTrap7eTolerance[k].p_mm);
+    }
+    s += (s.empty() ? "" : "; ") + values + " um for p = " + pitches + " mm (d over " + num(first.d_over_mm) +
+         " up to " + num(first.d_upto_mm) + " mm)";
+  }
+  return s;
+}
 
 struct Trap7e {
   double d_mm, p_mm, es_um, td2_um;
@@ -366,9 +423,8 @@ Trap7e trap7e(const double* a, const char* call) {
       }
   }
   fail(-1, "the ISO 2903 class 7e tolerances of d = " + show(a[0], Show::Length) + ", p = " + show(a[1], Show::Lead) +
-               " are not held here: they are held for diameters over 5.6 up to 11.2 mm with pitches 1.5, 2 and 3 "
-               "mm and over 11.2 up to 22.4 mm with pitches 2, 3 and 4 mm (the values a published table of "
-               "limits confirms); take the limits of this size from ISO 2903");
+               " are not held here: they are held for " + trap7eHeldText() +
+               " (the values published tables of limits confirm); take the limits of this size from ISO 2903");
 }
 
 double trapMaxPitchDia(const double* a) { return result(trap7e(a, "trap_max_pitch_dia").maxPitchDia() * kMm); }
@@ -400,18 +456,24 @@ std::string trapSeriesText() {
 }
 
 const char* kAcmeSource =
-    "ASME B1.5 (Acme screw threads), general-purpose series and basic dimensions; "
-    "reprinted in Machinery's Handbook (from memory)";
+    "ASME B1.5 (Acme screw threads), general-purpose series and basic dimensions, reprinted in Machinery's "
+    "Handbook (from memory); fourteen sizes 1/4 to 3 in with their pitches also as Shigley's Mechanical "
+    "Engineering Design, 9th ed., Table 8-3 (p. 414) prints them, and 1/4-16 to 7/8-6 as Lew Merrick's Acme "
+    "thread data sheets do";
 const char* kTrapSource =
     "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions: d2, d3, D1 and D4 checked "
-    "against two published reprints of the ISO 2904 table (docs/verification.md); the series of preferred "
-    "pitches from memory";
+    "against two published reprints of the ISO 2904 table; the diameters and their coarse, normal (preferred) "
+    "and fine pitches against a published reprint of ISO 2904's diameter-pitch combinations, F-M-S's "
+    "(docs/verification.md); the root clearances ac from memory, reproduced by both reprints' d3 and D4";
 const char* kStubSource =
     "ASME B1.8 (Stub Acme screw threads): basic thread height 0.3p, 29 deg included angle, the preferred "
     "diameter-pitch combinations of the general-purpose Acme series (from memory)";
 const char* kButtressSource =
-    "ASME B1.9 (buttress inch screw threads, 7 deg/45 deg form with 0.6p basic height): basic pitch diameter "
-    "D - 0.6p, basic height of thread engagement 0.6p, sharp-V height 0.89064p (from memory)";
+    "ASME B1.9-1973, reaffirmed 2017 (buttress inch screw threads, 7 deg/45 deg form with 0.6 pitch basic "
+    "height of thread engagement, as its title says): basic pitch diameter D - 0.6p (from memory; the sharp-V "
+    "height p/(tan 7 deg + tan 45 deg) = 0.89064p, truncated alike at crest and root to the 0.6p engagement, "
+    "puts the pitch line 0.3p below the major diameter); the standard's preferred "
+    "diameter-pitch combinations (its Table 1) and pitch diameter tolerances (para. 6.1) are not held here";
 const char* kAcme2GSource =
     "ASME B1.5 (Acme screw threads), general-purpose class 2G external thread: pitch diameter allowance "
     "0.008*sqrt(D), pitch diameter tolerance 0.006*sqrt(D) + 0.030*sqrt(p), minor diameter max D - (p + 0.020 "
@@ -423,15 +485,17 @@ const char* kAcme2GLimits =
     "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
     "within 1 um. The limits of a single-start thread, as the published tables give them; a "
     "multiple-start screw may be made to other limits: take them from its drawing";
-const char* kTrap7eLimits =
-    "d over 5.6 up to 11.2 mm with p = 1.5, 2 or 3 mm, or d over 11.2 up to 22.4 mm with p = 2, 3 or "
-    "4 mm; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+// Single-start threads only, the same for the three 7e limits.
+const char* kTrap7eSingleStart =
+    "; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
     "widens Td2 of a multiple-start thread (clause 10), which is not held here";
 const char* kTrap7eSource =
     "ISO 2903 (ISO metric trapezoidal screw threads, tolerances), class 7e of the external thread: "
-    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clauses 7 and 11.4.1), d "
-    "and d3 of position h (clause 6), Td3 = 1.25*Td2 + |es| (clause 11.5); the values held are from memory of the "
-    "standard and agree with a published table of 7e limits (see docs/verification.md)";
+    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clause 7, its formula "
+    "clause 11.4.1), d and d3 of position h (clause 6), Td3 (clause 11.5) = 1.25*Td2 + |es| (the relation from "
+    "memory); clause and table numbers as the published contents and text of ISO 2903:2016 give them. Every es "
+    "and Td2 held is read from two published tables of 7e limits, Engineers Edge's and a lead-screw maker's "
+    "(see docs/verification.md)";
 const char* kSquareSource =
     "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
     "Mechanical Engineering Design, Fig. 8-3) and Machinery's Handbook: depth p/2; "
@@ -779,10 +843,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major, pitch};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "d - p/2 + es, with the fundamental deviation es of position e: -67 um for p = 1.5 mm, -71 um "
-                "for 2 mm, -85 um for 3 mm, -95 um for 4 mm";
+    d.formula = "d - p/2 + es, with the fundamental deviation es of position e: " + trap7eDeviationText();
     d.formula_is_expression = false;
-    d.limits = kTrap7eLimits;
+    d.limits = trap7eHeldText() + kTrap7eSingleStart;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMaxPitchDia;
@@ -795,11 +858,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major, pitch};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = 170, 190, 212 um for p = 1.5, "
-                "2, 3 mm (d over 5.6 up to 11.2 mm) and 200, 224, 265 um for p = 2, 3, 4 mm (d over 11.2 up to "
-                "22.4 mm)";
+    d.formula = "trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = " + trap7eToleranceText();
     d.formula_is_expression = false;
-    d.limits = kTrap7eLimits;
+    d.limits = trap7eHeldText() + kTrap7eSingleStart;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinPitchDia;
@@ -816,7 +877,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "trap_minor_dia(d, p) - Td3, with Td3 = 1.25*Td2 + |es| (Td2 and es as in trap_min_pitch_dia "
                 "and trap_max_pitch_dia)";
     d.formula_is_expression = false;
-    d.limits = kTrap7eLimits;
+    d.limits = trap7eHeldText() + kTrap7eSingleStart;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinMinorDia;

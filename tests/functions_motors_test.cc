@@ -92,6 +92,31 @@ TEST_CASE("standard_motor_power: IEC 60072-1 outputs past 200 kW, 250 ... 1000 k
   }
 }
 
+// Every rated output held from 1.1 kW up against a published list of IEC motor ratings: IPS-E-EL-100 (Iranian
+// Petroleum Standards, electric motors, Dec. 1997), Table A1 (low-voltage motors, IEC standard, 1.1 to 200 kW)
+// and Table A2 (medium-voltage motors, 185 to 2000 kW). Table A2 prints 335 twice; its 50 degC column (0.9 times
+// the rated output: 301 and 320 kW) shows that the second is 355. Table A1 also lists 9 kW, which is not an
+// IEC 60072-1 output (from memory) and is not held; Table A2's 220, 280, 300, 335, 375, ... are not held either
+// (one source only), so the held series is a subset of the published one, never a value outside it.
+TEST_CASE("standard_motor_power: every output from 1.1 kW up is in IPS-E-EL-100's lists of IEC motor ratings",
+          "[functions][motors]") {
+  const double a1[] = {1.1, 1.5, 2.2, 3, 4, 5.5, 7.5, 9, 11, 15, 18.5, 22, 30, 37, 45, 55, 75, 90, 110, 132, 160, 200};
+  const double a2[] = {185, 200, 220, 250, 280, 300, 315, 335, 355, 375, 400, 425, 450, 475, 500, 530, 560, 600,
+                       630, 670, 710, 750, 800, 850, 900, 950, 1000};
+  int checked = 0;
+  for (double p = 1.1; p <= 1000;) {
+    const double rated = call("standard_motor_power", {p * kW}) / kW;
+    INFO("rated output " << rated << " kW");
+    bool listed = false;
+    for (const double v : a1) listed |= rated <= 200 && std::fabs(rated - v) < 1e-9;
+    for (const double v : a2) listed |= rated >= 200 && std::fabs(rated - v) < 1e-9;
+    CHECK(listed);
+    ++checked;
+    p = rated * (1 + 1e-6);
+  }
+  CHECK(checked == 33);  // 1.1 ... 200 kW (21 values) and 250 ... 1000 kW (12 values)
+}
+
 TEST_CASE("standard_motor_power: above the table is an error", "[functions][motors][limits]") {
   CHECK_THAT(errorOf("standard_motor_power", {1200 * kW}), Catch::Contains("above 1000 kW"));
   CHECK_THAT(errorOf("standard_motor_power", {0}), Catch::Contains("must be > 0"));

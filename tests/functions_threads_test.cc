@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "tests/function_calls.h"
+#include "functions/series_tables.h"
 #include "functions/function_decl.h"
 
 namespace {
@@ -47,6 +48,22 @@ TEST_CASE("acme_tpi: the rows 1/4-16 to 7/8-6 as a published class 2G data sheet
   for (const auto& r : rows) {
     INFO("size " << r[0] << " in");
     CHECK(call("acme_tpi", {r[0] * in}) * in == Approx(r[1]).epsilon(1e-12));
+  }
+}
+
+// A second published source for the series: Shigley's Mechanical Engineering Design (Budynas and Nisbett, 9th ed.),
+// Table 8-3, "Preferred Pitches for Acme Threads", p. 414: fourteen sizes 1/4 to 3 in with their pitches.
+TEST_CASE("acme_tpi: the fourteen sizes of Shigley's Table 8-3, preferred pitches for Acme threads (9th ed., p. 414)",
+          "[functions][threads]") {
+  const struct {
+    double d_in, p_in;
+  } rows[] = {{0.25, 1.0 / 16}, {0.3125, 1.0 / 14}, {0.375, 1.0 / 12}, {0.5, 1.0 / 10}, {0.625, 1.0 / 8},
+              {0.75, 1.0 / 6},  {0.875, 1.0 / 6},   {1.0, 1.0 / 5},    {1.25, 1.0 / 5}, {1.5, 1.0 / 4},
+              {1.75, 1.0 / 4},  {2.0, 1.0 / 4},     {2.5, 1.0 / 3},    {3.0, 1.0 / 2}};
+  for (const auto& r : rows) {
+    INFO(r.d_in << " in");
+    CHECK(call("acme_pitch", {r.d_in * in}) == Approx(r.p_in * in));
+    CHECK(call("acme_tpi", {r.d_in * in}) * in == Approx(1 / r.p_in));
   }
 }
 
@@ -120,6 +137,36 @@ TEST_CASE("trap_pitch: ISO 2904 / DIN 103 preferred pitches, Tr 10x2, 20x4, 40x7
   CHECK(call("trap_pitch", {300 * mm}) == Approx(24 * mm));
   // Unit-system swap: a diameter written in inches that is exactly 25.4 mm is no series size.
   CHECK_THAT(errorOf("trap_pitch", {1 * in}), Catch::Contains("24 mm and 26 mm"));
+}
+
+// The series against a published reprint of the ISO 2904 diameter-pitch combinations: F-M-S (www.f-m-s.dk),
+// "ISO Trapezoidal screw threads Tr", sheet 3.11 2007/1, page 1 (scribd 415160259), columns coarse, normal, fine;
+// the rows 8 to 20 mm print two pitches (normal, fine) or one (8 mm). trap_pitch gives the normal pitch, and
+// every pitch of a row is an ISO 2904 pitch that trap_pitch_dia accepts. The reprint's 11 mm row reads "3 2 2"
+// (a doubled 2); its 105, 115, 125, ... 195 mm rows are diameters trap_pitch does not hold.
+TEST_CASE("trap_pitch: every diameter of the series against a published reprint of ISO 2904's combinations",
+          "[functions][threads]") {
+  const struct {
+    double d, coarse, normal, fine;
+  } rows[] = {{8, 0, 1.5, 0},     {9, 0, 2, 1.5},     {10, 0, 2, 1.5},    {11, 0, 3, 2},      {12, 0, 3, 2},
+              {14, 0, 3, 2},      {16, 0, 4, 2},      {18, 0, 4, 2},      {20, 0, 4, 2},      {22, 8, 5, 3},
+              {24, 8, 5, 3},      {26, 8, 5, 3},      {28, 8, 5, 3},      {30, 10, 6, 3},     {32, 10, 6, 3},
+              {34, 10, 6, 3},     {36, 10, 6, 3},     {38, 10, 7, 3},     {40, 10, 7, 3},     {42, 10, 7, 3},
+              {44, 12, 7, 3},     {46, 12, 8, 3},     {48, 12, 8, 3},     {50, 12, 8, 3},     {52, 12, 8, 3},
+              {55, 14, 9, 3},     {60, 14, 9, 3},     {65, 16, 10, 4},    {70, 16, 10, 4},    {75, 16, 10, 4},
+              {80, 16, 10, 4},    {85, 18, 12, 4},    {90, 18, 12, 4},    {95, 18, 12, 4},    {100, 20, 12, 4},
+              {110, 20, 12, 4},   {120, 22, 14, 6},   {130, 22, 14, 6},   {140, 24, 14, 6},   {150, 24, 16, 6},
+              {160, 28, 16, 6},   {170, 28, 16, 6},   {180, 28, 18, 8},   {190, 32, 18, 8},   {200, 32, 18, 8},
+              {210, 36, 20, 8},   {220, 36, 20, 8},   {230, 36, 20, 8},   {240, 36, 22, 8},   {250, 40, 22, 12},
+              {260, 40, 22, 12},  {270, 40, 24, 12},  {280, 40, 24, 12},  {290, 44, 24, 12},  {300, 44, 24, 12}};
+  for (const auto& r : rows) {
+    INFO("Tr " << r.d);
+    CHECK(call("trap_pitch", {r.d * mm}) == Approx(r.normal * mm));
+    for (const double p : {r.coarse, r.fine})
+      if (p > 0) CHECK(errorOf("trap_pitch_dia", {r.d * mm, p * mm}) == "(no error)");
+  }
+  // Independent: the diameters trap_pitch holds are exactly those rows (the probe of every whole millimetre).
+  CHECK(calctrail::fn::trapezoidalDiameters().size() == std::size(rows));
 }
 
 TEST_CASE("trap_pitch: a diameter outside the series names the nearest sizes", "[functions][threads][limits]") {
@@ -386,7 +433,7 @@ TEST_CASE("acme_min_minor_dia: a size or pitch outside the series is an error", 
 
 // Class 7e limits of the screw, against the published table of ISO metric trapezoidal external threads, class 7e
 // (Engineers Edge, "External ISO Metric Trapezoidal Screw Threads Table Chart Sizes TR8 - TR315"), printed to
-// 0.001 mm; the es and Td2 values held are also those of ISO 2903 from memory.
+// 0.001 mm; the lead-screw maker's table of the next test confirms the same es and Td2 on the rows both print.
 TEST_CASE("trap_max_pitch_dia, trap_min_pitch_dia, trap_min_minor_dia: published ISO 2903 class 7e limits",
           "[functions][threads]") {
   const struct {
@@ -409,8 +456,8 @@ TEST_CASE("trap_max_pitch_dia, trap_min_pitch_dia, trap_min_minor_dia: published
 
 TEST_CASE("trap_min_minor_dia: d3 is of position h, and Td3 = 1.25*Td2 + abs(es) (ISO 2903 clause 11.5)",
           "[functions][threads]") {
-  for (const double d : {8.0, 11.2, 11.3, 16.0, 22.4}) {
-    for (const double p : {1.5, 2.0, 3.0, 4.0}) {
+  for (const double d : {8.0, 11.2, 11.3, 16.0, 22.4, 22.5, 30.0, 45.0}) {
+    for (const double p : {1.5, 2.0, 3.0, 4.0, 5.0}) {
       const std::vector<double> dp = {d * mm, p * mm};
       if (errorOf("trap_min_minor_dia", dp) != "(no error)") continue;
       INFO("Tr " << d << "x" << p);
@@ -427,13 +474,66 @@ TEST_CASE("trap_min_minor_dia: d3 is of position h, and Td3 = 1.25*Td2 + abs(es)
         Approx(0.200));
 }
 
+// Class 7e limits of the screw, against a lead-screw maker's table of trapezoidal screws (d tolerance 4h, d2 7e,
+// d3 7h), printed to 0.001 mm: "Trapezoidal screw specifications", reprinted by its UK distributor
+// (transdev.co.uk) and as "Trapezoidal screw nut technical catalogue" (scribd 468437809), the same table;
+// single-start rows only (ISO 2903 widens Td2 of a multiple-start thread). Tr 10x3 and Tr 25x3, 25x5 are not
+// ISO 2904 combinations; the tolerances depend on the diameter range and the pitch only.
+TEST_CASE("trap_max_pitch_dia, trap_min_pitch_dia, trap_min_minor_dia: a lead-screw maker's 7e table, Tr 10x2 to "
+          "Tr 25x5", "[functions][threads]") {
+  const struct {
+    double d, p, d2_min, d2_max, d3_min, d3_max;
+  } rows[] = {{10, 2, 8.739, 8.929, 7.191, 7.500},     {10, 3, 8.203, 8.415, 6.150, 6.500},
+              {12, 3, 10.191, 10.415, 8.135, 8.500},   {14, 3, 12.191, 12.415, 10.135, 10.500},
+              {14, 4, 11.640, 11.905, 9.074, 9.500},   {16, 4, 13.640, 13.905, 11.074, 11.500},
+              {18, 4, 15.640, 15.905, 13.074, 13.500}, {20, 4, 17.640, 17.905, 15.074, 15.500},
+              {22, 5, 19.114, 19.394, 16.044, 16.500}, {24, 5, 21.094, 21.394, 18.019, 18.500},
+              {25, 3, 23.165, 23.415, 21.103, 21.500}, {25, 5, 22.094, 22.394, 19.019, 19.500}};
+  for (const auto& r : rows) {
+    INFO("Tr " << r.d << "x" << r.p << " 7e");
+    const std::vector<double> dp = {r.d * mm, r.p * mm};
+    CHECK(call("trap_max_pitch_dia", dp) / mm == Approx(r.d2_max).margin(1e-9));
+    CHECK(call("trap_min_pitch_dia", dp) / mm == Approx(r.d2_min).margin(1e-9));
+    CHECK(call("trap_minor_dia", dp) / mm == Approx(r.d3_max).margin(1e-9));
+    // Td3 = 1.25*Td2 + |es| comes to a half um on Tr 10x2 (308.5 um) and Tr 25x3 (397.5 um).
+    CHECK(call("trap_min_minor_dia", dp) / mm == Approx(r.d3_min).margin(5.0001e-4));
+  }
+  // The 5 mm deviation from a second, independent table: the Engineers Edge table of large trapezoidal screws
+  // ("External ISO Metric Trapezoidal Screw Threads Table Chart Sizes TR320 - TR1120") gives Tr 320x5 7e a
+  // maximum d2 of 317.394 mm against the basic 317.500 mm; es depends on the pitch alone.
+  CHECK((call("trap_max_pitch_dia", {24 * mm, 5 * mm}) - call("trap_pitch_dia", {24 * mm, 5 * mm})) / mm ==
+        Approx(317.394 - 317.5).margin(1e-9));
+}
+
+// Independent of the tables: ISO 2903:2016 bases its tolerance system (clause 5) on ISO 965-1, whose deviation of
+// position e is es = -(50 + 11*P) um (P in mm, from memory); rounded to the nearest number of the R40 series of
+// preferred numbers (ISO 3) it gives every held deviation.
+TEST_CASE("trap_max_pitch_dia: es of position e is -(50 + 11*P) um rounded to the R40 series", "[functions][threads]") {
+  const double r40[] = {50, 53, 56, 60, 63, 67, 71, 75, 80, 85, 90, 95, 100, 106, 112, 118, 125};
+  for (const double p : {1.5, 2.0, 3.0, 4.0, 5.0}) {
+    INFO("P = " << p << " mm");
+    const double raw = 50 + 11 * p;
+    double nearest = r40[0];
+    for (const double v : r40)
+      if (std::fabs(v - raw) < std::fabs(nearest - raw)) nearest = v;
+    const double d = p < 2.5 ? 10 : 20;  // a diameter whose range holds this pitch
+    const std::vector<double> dp = {d * mm, p * mm};
+    CHECK((call("trap_max_pitch_dia", dp) - call("trap_pitch_dia", dp)) / mm == Approx(-nearest * 1e-3).margin(1e-9));
+  }
+}
+
 TEST_CASE("trap_min_minor_dia: a size whose 7e values are not held is an error that says which are",
           "[functions][threads][limits]") {
   const std::string held =
-      "are not held here: they are held for diameters over 5.6 up to 11.2 mm with pitches 1.5, 2 and 3 mm and over "
-      "11.2 up to 22.4 mm with pitches 2, 3 and 4 mm";
+      "are not held here: they are held for d over 5.6 up to 11.2 mm with p = 1.5, 2 and 3 mm, over 11.2 up to "
+      "22.4 mm with p = 2, 3, 4 and 5 mm and over 22.4 up to 45 mm with p = 3 and 5 mm";
   CHECK_THAT(errorOf("trap_min_minor_dia", {40 * mm, 7 * mm}), Catch::Contains(held));
   CHECK_THAT(errorOf("trap_min_minor_dia", {22.5 * mm, 4 * mm}), Catch::Contains(held));
+  // The 5 mm pitch is held up to 45 mm and no further; 6 mm and above are not held at all.
+  CHECK_THAT(errorOf("trap_min_minor_dia", {46 * mm, 5 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_max_pitch_dia", {30 * mm, 6 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_min_pitch_dia", {100 * mm, 12 * mm}), Catch::Contains(held));
+  CHECK_THAT(errorOf("trap_min_pitch_dia", {8 * mm, 5 * mm}), Catch::Contains(held));
   CHECK_THAT(errorOf("trap_max_pitch_dia", {10 * mm, 4 * mm}), Catch::Contains(held));
   CHECK_THAT(errorOf("trap_min_pitch_dia", {20 * mm, 1.5 * mm}), Catch::Contains(held));
   CHECK_THAT(errorOf("trap_min_minor_dia", {20 * mm, 4.5 * mm}), Catch::Contains("is not an ISO 2904 trapezoidal pitch"));

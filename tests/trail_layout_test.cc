@@ -66,8 +66,11 @@ TEST_CASE("a library function is described once and each step shows its call, va
     CHECK(count(html, "id=\"fn-" + f.name + "\"") == 1);
   }
   CHECK(count(html,
-              "<li>Shigley&#39;s Mechanical Engineering Design, Sec. 8-2 (mechanics of power screws), and "
-              "Machinery&#39;s Handbook, power screws (from memory)</li>") == 1);
+              "<li>Shigley&#39;s Mechanical Engineering Design (Budynas and Nisbett, 9th ed.), Sec. 8-2 (mechanics "
+              "of power screws): the raise and lower torques of a square thread, Eqs. (8-1) and (8-2), and the "
+              "self-locking condition, f above the tangent of the lead angle, Eq. (8-3), p. 416; the flank-angle "
+              "form (the friction divided by cos(alpha)) and Machinery&#39;s Handbook, power screws (from "
+              "memory)</li>") == 1);
   // The thread formula once (in the list), not at the step that calls it.
   CHECK(count(text, "= F \u00B7 dm / 2 \u00B7 (l + \u03C0 \u00B7 f \u00B7 dm / cos(alpha))") == 1);
   // Only where the call is a term of a sum (the stage's running torque, thread plus
