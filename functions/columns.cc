@@ -127,8 +127,10 @@ double bucklingSafety(const double* a) {
 
 const char* kSource =
     "Euler and J. B. Johnson column formulas with end-condition constants, as in Shigley's Mechanical "
-    "Engineering Design, Ch. 4 (long and intermediate-length columns with central loading) and its table of "
-    "end-condition constants (from memory)";
+    "Engineering Design (Budynas and Nisbett, 9th ed.), Secs. 4-12 and 4-13 (long and intermediate-length "
+    "columns with central loading): Euler Pcr/A = C*pi^2*E/(l/k)^2, Eq. (4-43), the transition (l/k)1 = "
+    "(2*pi^2*C*E/Sy)^(1/2) where Pcr/A = Sy/2, Eq. (4-45), and the parabolic formula, Eq. (4-46), p. 184; its "
+    "table of end-condition constants (from memory)";
 const char* kCaution =
     "Long screws buckle: these loads assume a straight screw loaded on its axis; take the end-condition "
     "constant conservatively and apply a design factor.";
