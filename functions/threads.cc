@@ -464,7 +464,8 @@ const char* kTrapSource =
     "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions: d2, d3, D1 and D4 checked "
     "against two published reprints of the ISO 2904 table; the diameters and their coarse, normal (preferred) "
     "and fine pitches against a published reprint of ISO 2904's diameter-pitch combinations, F-M-S's "
-    "(docs/verification.md); the root clearances ac from memory, reproduced by both reprints' d3 and D4";
+    "(docs/verification.md); the root clearances ac from memory, which the reprinted d3 and D4 reproduce "
+    "(pitches 1.5 to 5, 7, 8 and 12 mm; the 1 mm of the pitches 14 to 44 mm is in no reprint at hand)";
 const char* kStubSource =
     "ASME B1.8 (Stub Acme screw threads): basic thread height 0.3p, 29 deg included angle, the preferred "
     "diameter-pitch combinations of the general-purpose Acme series (from memory)";

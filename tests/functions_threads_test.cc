@@ -522,6 +522,25 @@ TEST_CASE("trap_max_pitch_dia: es of position e is -(50 + 11*P) um rounded to th
   }
 }
 
+// Independent plausibility of every held Td2: ISO 965-1's grade 6 pitch diameter tolerance 90*P^0.4*d^0.1 um (P in
+// mm, d the geometric mean of the diameter range; from memory), times 1.25 for grade 7, lies within one step of
+// the R40 series (a factor 10^(1/40)) of each held value. It is no derivation of ISO 2903's table (it misses
+// 170, 190 and 224 um by about a step), but it catches a slip of a digit in any cell.
+TEST_CASE("trap_min_pitch_dia: every held Td2 within one R40 step of ISO 965-1's grade 7 formula",
+          "[functions][threads]") {
+  const struct {
+    double d_over, d_upto, d, p;
+  } cells[] = {{5.6, 11.2, 10, 1.5}, {5.6, 11.2, 10, 2},  {5.6, 11.2, 10, 3},  {11.2, 22.4, 20, 2}, {11.2, 22.4, 20, 3},
+               {11.2, 22.4, 20, 4},  {11.2, 22.4, 22, 5}, {22.4, 45, 30, 3},   {22.4, 45, 30, 5}};
+  for (const auto& c : cells) {
+    INFO("Tr " << c.d << "x" << c.p);
+    const std::vector<double> dp = {c.d * mm, c.p * mm};
+    const double td2_um = (call("trap_max_pitch_dia", dp) - call("trap_min_pitch_dia", dp)) / mm * 1e3;
+    const double formula_um = 1.25 * 90 * std::pow(c.p, 0.4) * std::pow(std::sqrt(c.d_over * c.d_upto), 0.1);
+    CHECK(std::fabs(std::log(td2_um / formula_um)) <= std::log(10.0) / 40);
+  }
+}
+
 TEST_CASE("trap_min_minor_dia: a size whose 7e values are not held is an error that says which are",
           "[functions][threads][limits]") {
   const std::string held =
