@@ -165,12 +165,12 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.limits = "0 < P <= 1000 kW; above it the table ends and this is an error. Up to 200 kW the outputs have "
                "standard frame sizes (EN 50347); above, the frame is the maker's";
     d.source = "Rated outputs from the preferred rated output values of IEC 60072-1 (rotating electrical "
-               "machines, dimensions and output series; clause 9 of the 1991 edition; the 2022 edition, revised "
-               "on the basis of EN 50347, also relates frame numbers 56 to 400 to the rated outputs), the clause and "
-               "editions as the publishers' catalogue pages give them; each value held from 1.1 kW up is also in "
-               "the lists of IEC motor ratings of IPS-E-EL-100 (Tables A1 and A2). The assignment of the outputs to the frame "
-               "sizes 56 to 315 of three-phase induction motors is EN 50347, which the motor makers' ranges "
-               "follow (from memory)";
+               "machines, dimensions and output series; clause 9 of the 1991 edition; the 2022 edition, "
+               "revised on the basis of EN 50347, also relates frame numbers 56 to 400 to the rated "
+               "outputs), the clause and editions as the publishers' catalogue pages give them; each value "
+               "held from 1.1 kW up is also in the lists of IEC motor ratings of IPS-E-EL-100 (Tables A1 "
+               "and A2). The assignment of the outputs to the frame sizes 56 to 315 of three-phase induction "
+               "motors is EN 50347, which the motor makers' ranges follow (from memory)";
     d.example = {1200};
     d.eval = standardMotorPower;
     out.push_back(std::move(d));

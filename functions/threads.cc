@@ -326,8 +326,9 @@ double acmeMinMinorDia(const double* a) { return result(acme2G(a, "acme_min_mino
 // position e (Table 1) and the grade 7 pitch diameter tolerance Td2 for a
 // diameter range "over ... up to and including" (clauses 7 and 11.4.1). The
 // major and minor diameters are of position h (es = 0, clause 6), and the
-// minor diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5; it
-// reproduces every published d3 limit to the half um). Only the cells that
+// minor diameter tolerance is Td3 = 1.25*Td2 + |es| (clause 11.5; the
+// relation from memory, and it reproduces every published d3 limit to the
+// half um). Only the cells that
 // published tables of 7e limits confirm are held: the Engineers Edge table
 // (Tr 8x1.5 to Tr 18x2, and its Tr 320x5 row for es of 5 mm) and a lead-screw
 // maker's table of 7e screws (Tr 10x2 to Tr 25x5, docs/verification.md).
@@ -371,7 +372,8 @@ std::string trap7eHeldText() {
                      andList(pitches) + " mm");
   }
   std::string s;
-  for (std::size_t k = 0; k < ranges.size(); ++k) s += (k == 0 ? "" : k + 1 == ranges.size() ? " and " : ", ") + ranges[k];
+  for (std::size_t k = 0; k < ranges.size(); ++k)
+    s += (k == 0 ? "" : k + 1 == ranges.size() ? " and " : ", ") + ranges[k];
   return "d " + s;
 }
 

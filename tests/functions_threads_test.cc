@@ -508,7 +508,8 @@ TEST_CASE("trap_max_pitch_dia, trap_min_pitch_dia, trap_min_minor_dia: a lead-sc
 // Independent of the tables: ISO 2903:2016 bases its tolerance system (clause 5) on ISO 965-1, whose deviation of
 // position e is es = -(50 + 11*P) um (P in mm, from memory); rounded to the nearest number of the R40 series of
 // preferred numbers (ISO 3) it gives every held deviation.
-TEST_CASE("trap_max_pitch_dia: es of position e is -(50 + 11*P) um rounded to the R40 series", "[functions][threads]") {
+TEST_CASE("trap_max_pitch_dia: es of position e is -(50 + 11*P) um rounded to the R40 series",
+          "[functions][threads]") {
   const double r40[] = {50, 53, 56, 60, 63, 67, 71, 75, 80, 85, 90, 95, 100, 106, 112, 118, 125};
   for (const double p : {1.5, 2.0, 3.0, 4.0, 5.0}) {
     INFO("P = " << p << " mm");
@@ -518,7 +519,8 @@ TEST_CASE("trap_max_pitch_dia: es of position e is -(50 + 11*P) um rounded to th
       if (std::fabs(v - raw) < std::fabs(nearest - raw)) nearest = v;
     const double d = p < 2.5 ? 10 : 20;  // a diameter whose range holds this pitch
     const std::vector<double> dp = {d * mm, p * mm};
-    CHECK((call("trap_max_pitch_dia", dp) - call("trap_pitch_dia", dp)) / mm == Approx(-nearest * 1e-3).margin(1e-9));
+    const double es = call("trap_max_pitch_dia", dp) - call("trap_pitch_dia", dp);
+    CHECK(es / mm == Approx(-nearest * 1e-3).margin(1e-9));
   }
 }
 
@@ -530,8 +532,9 @@ TEST_CASE("trap_min_pitch_dia: every held Td2 within one R40 step of ISO 965-1's
           "[functions][threads]") {
   const struct {
     double d_over, d_upto, d, p;
-  } cells[] = {{5.6, 11.2, 10, 1.5}, {5.6, 11.2, 10, 2},  {5.6, 11.2, 10, 3},  {11.2, 22.4, 20, 2}, {11.2, 22.4, 20, 3},
-               {11.2, 22.4, 20, 4},  {11.2, 22.4, 22, 5}, {22.4, 45, 30, 3},   {22.4, 45, 30, 5}};
+  } cells[] = {{5.6, 11.2, 10, 1.5}, {5.6, 11.2, 10, 2}, {5.6, 11.2, 10, 3}, {11.2, 22.4, 20, 2},
+               {11.2, 22.4, 20, 3},  {11.2, 22.4, 20, 4}, {11.2, 22.4, 22, 5}, {22.4, 45, 30, 3},
+               {22.4, 45, 30, 5}};
   for (const auto& c : cells) {
     INFO("Tr " << c.d << "x" << c.p);
     const std::vector<double> dp = {c.d * mm, c.p * mm};
