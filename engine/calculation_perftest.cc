@@ -999,11 +999,13 @@ int runErrorCases(const std::vector<std::string>& cases, int runs) {
       // longer fits the caches give 1.1 to 1.4 times the ratio of the sizes
       // (11 to 14 for 10x); a quadratic path 10 times it.
       const double times = static_cast<double>(sizes[1]) / sizes[0];
-      const double n_log_n = times * std::log(static_cast<double>(sizes[1])) / std::log(static_cast<double>(sizes[0]));
+      const double n_log_n =
+          times * std::log(static_cast<double>(sizes[1])) / std::log(static_cast<double>(sizes[0]));
       const double limit = 1.5 * times;
+      const bool flagged = calc > limit || stage > limit;
       std::printf("%-11s %.1fx N: calc %.2fx (cpu), stage %.2fx (cpu); n log n would be %.2fx%s\n", "", times, calc,
-                  stage, n_log_n, calc > limit || stage > limit ? "  ** NOT LINEAR: above 1.5x the sizes' ratio **" : "");
-      if ((calc > limit || stage > limit) && status == 0) status = 1;
+                  stage, n_log_n, flagged ? "  ** NOT LINEAR: above 1.5x the sizes' ratio **" : "");
+      if (flagged && status == 0) status = 1;
     }
   }
   return status;

@@ -47,7 +47,8 @@ TEST_CASE("find worksheets: from a start folder or any of its parents", "[find_w
   CHECK(findWorksheets("demo.calc", {root + "/other"}).empty());
   CHECK(findWorksheets("missing.calc", {root + "/src/build/bin"}).empty());
   CHECK(findWorksheets("demo.calc", {}).empty());
-  CHECK(findWorksheets("demo.calc", {"", root + "/src/build"}) == root + "/src/worksheets");  // an unknown start is skipped
+  // An unknown start is skipped.
+  CHECK(findWorksheets("demo.calc", {"", root + "/src/build"}) == root + "/src/worksheets");
   // The marker must be a file: a folder of that name does not count.
   fs::create_directories(root + "/other/worksheets/demo.calc");
   CHECK(findWorksheets("demo.calc", {root + "/other"}).empty());

@@ -29,7 +29,8 @@ std::string findWorksheets(const std::string& marker);
 /// "sweep_perftest: found no worksheets/twin-screw-lift.calc in the current directory
 /// or the program's (/x/build) or their parents; pass --worksheets DIR (the
 /// worksheets/ folder of the source tree)".
-std::string worksheetsNotFound(const std::string& program, const std::string& marker,
-                               const std::string& option = "--worksheets DIR (the worksheets/ folder of the source tree)");
+std::string worksheetsNotFound(
+    const std::string& program, const std::string& marker,
+    const std::string& option = "--worksheets DIR (the worksheets/ folder of the source tree)");
 
 }  // namespace calctrail
