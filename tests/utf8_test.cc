@@ -167,7 +167,7 @@ TEST_CASE("utf8: a reader that steps by readUtf8's length sees every byte once",
   CHECK(length == 2);
 }
 
-TEST_CASE("utf8: bytes that are not UTF-8 in a --set value are named, in valid UTF-8", "[utf8][inputs]") {
+TEST_CASE("utf8: bytes that are not UTF-8 in a --set value are named, in valid UTF-8", "[utf8][set]") {
   // The expression parser reads --set text, which no file check has seen;
   // through readUtf8 a bad byte is U+FFFD, never a character made up of it
   // and the bytes after it.
