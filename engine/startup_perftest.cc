@@ -9,7 +9,8 @@
 //   startup_perftest [--runs N] [--calctrail PATH] [--worksheet FILE] [--format F]
 //
 // PATH defaults to the calctrail beside this program (both in build/), FILE
-// to worksheets/twin-screw-lift.calc (run from the repository root).
+// to twin-screw-lift.calc in the worksheets/ found from the current directory
+// or this program's upwards (engine/util/find_worksheets.h).
 // Exit status: 0; 2 when a run fails.
 #include <algorithm>
 #include <chrono>
@@ -23,6 +24,8 @@
 #include <sys/wait.h>
 #include <unistd.h>
 #include <vector>
+
+#include "engine/util/find_worksheets.h"
 
 extern char** environ;
 
@@ -97,7 +100,7 @@ std::string besideThisProgram(const char* argv0, const char* name) {
 int main(int argc, char** argv) {
   int runs = 200;
   std::string calctrail = besideThisProgram(argv[0], "calctrail");
-  std::string worksheet = "worksheets/twin-screw-lift.calc";
+  std::string worksheet;
   std::string format = "text";
   for (int i = 1; i < argc; ++i) {
     const std::string a = argv[i];
@@ -111,6 +114,16 @@ int main(int argc, char** argv) {
       return 2;
     }
   }
+  if (worksheet.empty()) {
+    const std::string dir = calctrail::findWorksheets("twin-screw-lift.calc");
+    if (dir.empty()) {
+      std::fprintf(stderr, "%s\n",
+                   calctrail::worksheetsNotFound("startup_perftest", "twin-screw-lift.calc", "--worksheet FILE")
+                       .c_str());
+      return 2;
+    }
+    worksheet = dir + "/twin-screw-lift.calc";
+  }
   const std::vector<std::string> truth = {"/bin/true"};
   const std::vector<std::string> report = {calctrail, "report", worksheet, "--format", format};
   std::vector<Run> true_runs, report_runs;
@@ -121,8 +134,8 @@ int main(int argc, char** argv) {
       return 2;
     }
     if (!runOnce(report, &r)) {
-      std::fprintf(stderr, "startup_perftest: `%s report %s --format %s` failed (run from the repository root, "
-                   "or pass --calctrail and --worksheet)\n", calctrail.c_str(), worksheet.c_str(), format.c_str());
+      std::fprintf(stderr, "startup_perftest: `%s report %s --format %s` failed (pass --calctrail and --worksheet)\n",
+                   calctrail.c_str(), worksheet.c_str(), format.c_str());
       return 2;
     }
     true_runs.push_back(t);

@@ -8,6 +8,9 @@
 //
 //   lsp_perftest [--rounds N] [--worksheets DIR]
 //
+// DIR defaults to the worksheets/ folder found from the current directory or
+// from this program's, upwards (engine/util/find_worksheets.h).
+//
 // Exit status: 0; 2 when a sheet does not calculate cleanly.
 #include <algorithm>
 #include <chrono>
@@ -21,6 +24,7 @@
 #include "engine/lsp/json_rpc.h"
 #include "engine/lsp/lsp_server.h"
 #include "engine/sheet/source_file.h"
+#include "engine/util/find_worksheets.h"
 
 using namespace calctrail;
 using nlohmann::json;
@@ -150,15 +154,19 @@ void print(const char* what, size_t lines, const Figures& f) {
 
 int main(int argc, char** argv) {
   int rounds = 50;
-  std::string dir = "worksheets";
+  std::string dir;
   for (int i = 1; i + 1 < argc; i += 2) {
     if (!std::strcmp(argv[i], "--rounds")) rounds = std::max(2, std::atoi(argv[i + 1]));
     if (!std::strcmp(argv[i], "--worksheets")) dir = argv[i + 1];
   }
+  if (dir.empty()) dir = findWorksheets("twin-screw-lift.calc");
+  if (dir.empty()) {
+    std::fprintf(stderr, "%s\n", worksheetsNotFound("lsp_perftest", "twin-screw-lift.calc").c_str());
+    return 2;
+  }
   std::string text, error;
   if (!readFile(dir + "/twin-screw-lift.calc", &text, &error)) {
-    std::fprintf(stderr, "lsp_perftest: %s (run from the repository root or pass --worksheets DIR)\n",
-                 error.c_str());
+    std::fprintf(stderr, "lsp_perftest: %s/twin-screw-lift.calc: %s\n", dir.c_str(), error.c_str());
     return 2;
   }
   const std::string demo_path = dir + "/twin-screw-lift.calc";  // its templates beside it

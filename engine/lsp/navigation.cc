@@ -1,10 +1,8 @@
 #include "engine/lsp/navigation.h"
 
-#include <cctype>
-
 #include "engine/lsp/lsp_server.h"
 #include "engine/lsp/protocol_json.h"
-#include "engine/util/utf8.h"
+#include "engine/sheet/name_lexer.h"
 
 namespace calctrail::lsp {
 
@@ -29,21 +27,7 @@ bool isReserved(const std::string& name) {
 }  // namespace
 
 bool isValidName(const std::string& name) {
-  if (name.empty()) return false;
-  for (size_t i = 0; i < name.size();) {
-    const unsigned char c = static_cast<unsigned char>(name[i]);
-    if (c < 0x80) {
-      const bool ok = std::isalpha(c) || (i > 0 && (std::isdigit(c) || c == '_'));
-      if (!ok) return false;
-      ++i;
-      continue;
-    }
-    if (findInvalidUtf8(std::string_view(name).substr(i, 4)) == 0) return false;
-    size_t n = 0;
-    if (!isGreekLetter(decodeUtf8(name, i, &n))) return false;
-    i += n;
-  }
-  return true;
+  return !name.empty() && nameEnd(name, 0) == name.size();  // the worksheet's own name lexer
 }
 
 // The Location of bytes [begin, end) of a template file, its columns counted in its own text.

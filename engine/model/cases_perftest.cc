@@ -13,6 +13,9 @@
 //
 //   cases_perftest [--cases N] [--repeat R] [--worksheets DIR]
 //
+// DIR defaults to the worksheets/ folder found from the current directory or
+// from this program's, upwards (engine/util/find_worksheets.h).
+//
 // Exit status: 0; 2 when a sheet does not calculate cleanly or a case's
 // values differ from its separate run's (a bug).
 #include <algorithm>
@@ -25,6 +28,7 @@
 
 #include "engine/calculation.h"
 #include "engine/model/evaluate.h"
+#include "engine/util/find_worksheets.h"
 
 using namespace calctrail;
 
@@ -93,7 +97,7 @@ double best(int repeat, Fn fn) {
 
 int main(int argc, char** argv) {
   int n = 20, repeat = 7;
-  std::string dir = "worksheets";
+  std::string dir;
   for (int i = 1; i < argc; ++i) {
     if (!std::strcmp(argv[i], "--cases") && i + 1 < argc)
       n = std::atoi(argv[++i]);
@@ -106,10 +110,15 @@ int main(int argc, char** argv) {
       return 2;
     }
   }
+  if (dir.empty()) dir = findWorksheets("twin-screw-lift.calc");
+  if (dir.empty()) {
+    std::fprintf(stderr, "%s\n", worksheetsNotFound("cases_perftest", "twin-screw-lift.calc").c_str());
+    return 2;
+  }
   const std::string path = dir + "/twin-screw-lift.calc";
   std::string base, error;
   if (!readFile(path, &base, &error)) {
-    std::fprintf(stderr, "cases_perftest: %s\n", error.c_str());
+    std::fprintf(stderr, "cases_perftest: %s: %s\n", path.c_str(), error.c_str());
     return 2;
   }
   const std::string sheet = withCases(base, n);

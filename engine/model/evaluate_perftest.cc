@@ -16,6 +16,9 @@
 //
 //   evaluate_perftest [--points N] [--blocks B] [--worksheets DIR]
 //
+// DIR defaults to the worksheets/ folder found from the current directory or
+// from this program's, upwards (engine/util/find_worksheets.h).
+//
 // Exit status: 0; 2 when the worksheet does not calculate cleanly or the
 // port's values differ from the engine's (a bug in one of them).
 #include <algorithm>
@@ -36,6 +39,7 @@
 #include "engine/sheet/sheet_parser.h"
 #include "engine/sheet/source_file.h"
 #include "engine/template/template_loader.h"
+#include "engine/util/find_worksheets.h"
 #include "engine/util/sha256.h"
 #include "engine/util/math_constants.h"
 
@@ -60,7 +64,7 @@ double heapBytes() {
 std::string readAll(const std::string& path) {
   std::string bytes, error;
   if (!readFile(path, &bytes, &error)) {
-    std::fprintf(stderr, "evaluate_perftest: %s\n", error.c_str());
+    std::fprintf(stderr, "evaluate_perftest: %s: %s\n", path.c_str(), error.c_str());
     std::exit(2);
   }
   return bytes;
@@ -247,10 +251,10 @@ int main(int argc, char** argv) {
       return usage();
   }
   if (points < 1 || blocks < 1) return usage();
+  if (dir.empty()) dir = findWorksheets("twin-screw-lift.calc");
   if (dir.empty()) {
-    const std::string self = __FILE__;
-    const size_t at = self.rfind("engine/model/evaluate_perftest.cc");
-    dir = (at == std::string::npos ? std::string() : self.substr(0, at)) + "worksheets";
+    std::fprintf(stderr, "%s\n", worksheetsNotFound("evaluate_perftest", "twin-screw-lift.calc").c_str());
+    return 2;
   }
   const std::string path = dir + "/twin-screw-lift.calc";
   Diagnostics diags;

@@ -9,6 +9,7 @@
 
 #include "engine/report/mathml.h"
 #include "engine/report/xml_escape.h"
+#include "engine/util/utf8.h"
 
 namespace calctrail {
 
@@ -110,13 +111,9 @@ table.signatures td.sign { width: 38%; }
 constexpr double kFormulaRoomEm = 34.0;
 
 size_t codepointAt(const std::string& s, size_t i, char32_t* cp) {
-  const auto b = static_cast<unsigned char>(s[i]);
-  size_t n = b < 0x80 ? 1 : b < 0xE0 ? 2 : b < 0xF0 ? 3 : 4;
-  n = std::min(n, s.size() - i);
-  char32_t c = n == 1 ? b : b & (0x7F >> n);
-  for (size_t k = 1; k < n; ++k) c = (c << 6) | (static_cast<unsigned char>(s[i + k]) & 0x3F);
-  *cp = c;
-  return n;
+  const Utf8Char c = readUtf8(s, i);
+  *cp = c.cp;
+  return c.length;
 }
 
 bool superscriptDigit(char32_t c) {

@@ -11,6 +11,9 @@
 //
 //   sweep_perftest [--points N] [--worksheets DIR]
 //
+// DIR defaults to the worksheets/ folder found from the current directory or
+// from this program's, upwards (engine/util/find_worksheets.h).
+//
 // Exit status: 0; 2 when the worksheet does not calculate cleanly or the
 // port's values differ from the sweep's (a bug in one of them).
 #include <time.h>
@@ -28,6 +31,7 @@
 #include "engine/model/twin_screw_port.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/template/template_loader.h"
+#include "engine/util/find_worksheets.h"
 #include "engine/util/sha256.h"
 #include "engine/study/sweep.h"
 #include "engine/util/math_constants.h"
@@ -143,15 +147,15 @@ int main(int argc, char** argv) {
       return usage();
   }
   if (points < 2) return usage();
+  if (dir.empty()) dir = findWorksheets("twin-screw-lift.calc");
   if (dir.empty()) {
-    const std::string self = __FILE__;
-    const size_t at = self.rfind("engine/study/sweep_perftest.cc");
-    dir = (at == std::string::npos ? std::string() : self.substr(0, at)) + "worksheets";
+    std::fprintf(stderr, "%s\n", worksheetsNotFound("sweep_perftest", "twin-screw-lift.calc").c_str());
+    return 2;
   }
   const std::string path = dir + "/twin-screw-lift.calc";
   std::string bytes, error;
   if (!readFile(path, &bytes, &error)) {
-    std::fprintf(stderr, "sweep_perftest: %s\n", error.c_str());
+    std::fprintf(stderr, "sweep_perftest: %s: %s\n", path.c_str(), error.c_str());
     return 2;
   }
   Diagnostics diags;

@@ -8,6 +8,9 @@
 //
 //   template_perftest [--worksheets DIR] [--repeat R]
 //
+// DIR defaults to the worksheets/ folder found from the current directory or
+// from this program's, upwards (engine/util/find_worksheets.h).
+//
 // Exit status: 0; 2 when the sheet does not calculate cleanly.
 #include <algorithm>
 #include <chrono>
@@ -21,6 +24,7 @@
 #include "engine/model/model.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/template/template_loader.h"
+#include "engine/util/find_worksheets.h"
 #include "engine/util/sha256.h"
 
 using namespace calctrail;
@@ -85,16 +89,21 @@ Figures run(const std::string& text, const FileSource& source, int instances) {
 }  // namespace
 
 int main(int argc, char** argv) {
-  std::string dir = "worksheets";
+  std::string dir;
   int repeat = 3;
   for (int i = 1; i < argc; ++i) {
     if (!std::strcmp(argv[i], "--worksheets") && i + 1 < argc) dir = argv[++i];
     else if (!std::strcmp(argv[i], "--repeat") && i + 1 < argc) repeat = std::max(1, std::atoi(argv[++i]));
   }
+  const std::string stage = "templates/trapezoidal-screw-stage.calc";
+  if (dir.empty()) dir = findWorksheets(stage);
+  if (dir.empty()) {
+    std::fprintf(stderr, "%s\n", worksheetsNotFound("template_perftest", stage).c_str());
+    return 2;
+  }
   std::string text, error;
-  if (!readFile(dir + "/templates/trapezoidal-screw-stage.calc", &text, &error)) {
-    std::fprintf(stderr, "template_perftest: %s (run from the repository root, or pass --worksheets DIR)\n",
-                 error.c_str());
+  if (!readFile(dir + "/" + stage, &text, &error)) {
+    std::fprintf(stderr, "template_perftest: %s/%s: %s\n", dir.c_str(), stage.c_str(), error.c_str());
     return 2;
   }
   const MemorySource source(text);

@@ -8,6 +8,7 @@
 
 #include "engine/units/unit_table.h"
 #include "engine/util/edit_distance.h"
+#include "engine/util/utf8.h"
 
 namespace calctrail {
 
@@ -35,31 +36,8 @@ struct CodePoint {
 };
 
 CodePoint decode(std::string_view s, size_t i) {
-  const auto b = [&](size_t k) { return static_cast<unsigned char>(s[k]); };
-  const unsigned char c = b(i);
-  if (c < 0x80) return {c, 1};
-  size_t len = 0;
-  char32_t cp = 0;
-  if ((c & 0xE0) == 0xC0) {
-    len = 2;
-    cp = c & 0x1F;
-  } else if ((c & 0xF0) == 0xE0) {
-    len = 3;
-    cp = c & 0x0F;
-  } else if ((c & 0xF8) == 0xF0) {
-    len = 4;
-    cp = c & 0x07;
-  } else {
-    return {};
-  }
-  if (i + len > s.size()) return {};
-  for (size_t k = 1; k < len; ++k) {
-    if ((b(i + k) & 0xC0) != 0x80) return {};
-    cp = (cp << 6) | (b(i + k) & 0x3F);
-  }
-  static constexpr char32_t kMin[] = {0, 0, 0x80, 0x800, 0x10000};
-  if (cp < kMin[len] || cp > 0x10FFFF || (cp >= 0xD800 && cp <= 0xDFFF)) return {};
-  return {cp, len};
+  const Utf8Char c = readUtf8(s, i);
+  return c.valid ? CodePoint{c.cp, c.length} : CodePoint{};
 }
 
 std::string hexCode(char32_t cp) {

@@ -4,39 +4,45 @@
 
 namespace calctrail {
 
-size_t findInvalidUtf8(std::string_view s) {
-  size_t i = 0;
-  while (i < s.size()) {
-    const unsigned char c = static_cast<unsigned char>(s[i]);
-    size_t n;
-    char32_t min;
-    if (c < 0x80) { ++i; continue; }
-    if ((c & 0xE0) == 0xC0) { n = 2; min = 0x80; }
-    else if ((c & 0xF0) == 0xE0) { n = 3; min = 0x800; }
-    else if ((c & 0xF8) == 0xF0) { n = 4; min = 0x10000; }
-    else return i;
-    if (i + n > s.size()) return i;
-    char32_t cp = c & (0xFF >> (n + 1));
-    for (size_t k = 1; k < n; ++k) {
-      const unsigned char cc = static_cast<unsigned char>(s[i + k]);
-      if ((cc & 0xC0) != 0x80) return i;
-      cp = (cp << 6) | (cc & 0x3F);
-    }
-    // Overlong forms, surrogates and values past U+10FFFF are not UTF-8.
-    if (cp < min || cp > 0x10FFFF || (cp >= 0xD800 && cp <= 0xDFFF)) return i;
-    i += n;
+Utf8Char readUtf8(std::string_view s, size_t i) {
+  if (i >= s.size()) return {};
+  const unsigned char c = static_cast<unsigned char>(s[i]);
+  if (c < 0x80) return {c, 1, true};
+  constexpr Utf8Char kNotUtf8{0xFFFD, 1, false};
+  size_t n;
+  char32_t min;
+  if ((c & 0xE0) == 0xC0) {
+    n = 2, min = 0x80;
+  } else if ((c & 0xF0) == 0xE0) {
+    n = 3, min = 0x800;
+  } else if ((c & 0xF8) == 0xF0) {
+    n = 4, min = 0x10000;
+  } else {
+    return kNotUtf8;  // a continuation byte, or 0xF8 to 0xFF
   }
-  return std::string_view::npos;
+  if (n > s.size() - i) return kNotUtf8;
+  char32_t cp = c & (0xFFu >> (n + 1));
+  for (size_t k = 1; k < n; ++k) {
+    const unsigned char cc = static_cast<unsigned char>(s[i + k]);
+    if ((cc & 0xC0) != 0x80) return kNotUtf8;
+    cp = (cp << 6) | (cc & 0x3F);
+  }
+  // Overlong forms, surrogates and values past U+10FFFF are not UTF-8.
+  if (cp < min || cp > 0x10FFFF || (cp >= 0xD800 && cp <= 0xDFFF)) return kNotUtf8;
+  return {cp, n, true};
 }
 
-char32_t decodeUtf8(std::string_view s, size_t i, size_t* length) {
-  const unsigned char c = static_cast<unsigned char>(s[i]);
-  size_t n = c < 0x80 ? 1 : (c & 0xE0) == 0xC0 ? 2 : (c & 0xF0) == 0xE0 ? 3 : 4;
-  if (i + n > s.size()) n = 1;
-  char32_t cp = n == 1 ? c : static_cast<char32_t>(c & (0xFF >> (n + 1)));
-  for (size_t k = 1; k < n; ++k) cp = (cp << 6) | (static_cast<unsigned char>(s[i + k]) & 0x3F);
-  *length = n;
-  return cp;
+size_t findInvalidUtf8(std::string_view s) {
+  for (size_t i = 0; i < s.size();) {
+    if (static_cast<unsigned char>(s[i]) < 0x80) {
+      ++i;  // ASCII, most of any worksheet, without the call
+      continue;
+    }
+    const Utf8Char c = readUtf8(s, i);
+    if (!c.valid) return i;
+    i += c.length;
+  }
+  return std::string_view::npos;
 }
 
 std::string encodeUtf8(char32_t c) {
@@ -112,6 +118,7 @@ std::string describeCodePoint(char32_t c) {
   std::string out = buf;
   for (const LookAlike& l : kLookAlikes)
     if (l.cp == c) return out + " " + l.name;
+  if (c == 0xFFFD) return out + " REPLACEMENT CHARACTER";  // what readUtf8 gives for bytes that are not UTF-8
   if (c >= 0xFF01 && c <= 0xFF5E) return out + " FULLWIDTH FORM";
   return out;
 }

@@ -9,15 +9,38 @@
 
 namespace calctrail {
 
-// Offset of the first byte that is not part of valid UTF-8, or npos.
+/// One character read from UTF-8 text by readUtf8.
+struct Utf8Char {
+  /// The code point; U+FFFD REPLACEMENT CHARACTER where the bytes are not UTF-8.
+  char32_t cp = 0;
+  /// The bytes it takes, 1 to 4; 1 where the bytes are not UTF-8, so that a
+  /// reader steps over one bad byte at a time and never over good text after it.
+  size_t length = 0;
+  /// False for a byte that starts no UTF-8 sequence: a lone continuation byte,
+  /// 0xF8 to 0xFF, a sequence cut short (by the end of the text or by a byte
+  /// that does not continue it), an overlong form, a surrogate (U+D800 to
+  /// U+DFFF), or a value past U+10FFFF.
+  bool valid = false;
+};
+
+/// The one UTF-8 decoder: the character at s[i]. Past the end of s, cp 0,
+/// length 0 and not valid. Every reader of UTF-8 text calls it (or the two
+/// helpers below), so all of them agree on what is UTF-8 and what is not.
+Utf8Char readUtf8(std::string_view s, size_t i);
+
+/// Offset of the first byte that is not part of valid UTF-8, or npos.
 size_t findInvalidUtf8(std::string_view s);
 
-// Decodes the code point at s[i] (valid UTF-8 assumed) and its byte length.
-char32_t decodeUtf8(std::string_view s, size_t i, size_t* length);
+/// readUtf8's code point at s[i], its byte length in *length.
+inline char32_t decodeUtf8(std::string_view s, size_t i, size_t* length) {
+  const Utf8Char c = readUtf8(s, i);
+  *length = c.length;
+  return c.cp;
+}
 
 std::string encodeUtf8(char32_t c);
 
-// "U+2212 MINUS SIGN" for a few well-known look-alikes, else "U+XXXX".
+// "U+2212 MINUS SIGN" for a few well-known look-alikes and for U+FFFD, else "U+XXXX".
 std::string describeCodePoint(char32_t c);
 
 // The ASCII character a look-alike stands for ('-' for U+2212), or 0.
