@@ -237,6 +237,18 @@ TEST_CASE("lsp document: UTF-16 positions, incremental edits, clamping", "[lsp][
   CHECK(lsp::pathFromUri("file:///a%20b/c%C3%A9.calc") == "/a b/cé.calc");
 }
 
+TEST_CASE("lsp document: bytes that are not UTF-8 are one unit each", "[lsp][document][utf16]") {
+  // As an editor decodes them (one U+FFFD a bad byte, the WHATWG decoder):
+  // an overlong form, an encoded surrogate and a cut-short sequence are not
+  // read as one character, so positions after them stay where the editor has them.
+  CHECK(lsp::utf16Length("\xE0\x80\x80") == 3);        // overlong U+0000
+  CHECK(lsp::utf16Length("\xED\xA0\x80") == 3);        // U+D800, a surrogate
+  CHECK(lsp::utf16Length("\xF0\x9F\x94") == 3);        // the wrench cut short
+  CHECK(lsp::utf16Length("a\xF0\x9F\x94\xA7" "b") == 4);  // the wrench: two units
+  CHECK(lsp::bytesForUtf16("\xC0\xAFx", 2) == 2);       // overlong '/': two units, two bytes
+  CHECK(lsp::bytesForUtf16("\xCE\xB1x", 1) == 2);       // α: one unit, two bytes
+}
+
 TEST_CASE("lsp initialize: capabilities, and requests before it", "[lsp][initialize]") {
   Client fresh(false);
   const json early = fresh.call("textDocument/hover", textPos(0, 0));

@@ -2,20 +2,19 @@
 
 #include <algorithm>
 
+#include "engine/util/utf8.h"
+
 namespace calctrail::lsp {
 
 namespace {
 
-// Byte length of the UTF-8 sequence at s[i] and its UTF-16 units; a byte
-// that does not start a valid sequence is one byte, one unit.
+// Byte length of the character at s[i] and its UTF-16 units, by the one UTF-8
+// decoder: a byte that starts no valid sequence is one byte and one unit, as
+// an editor shows it (one U+FFFD a byte).
 void step(std::string_view s, size_t i, size_t* bytes, int* units) {
-  const unsigned char c = static_cast<unsigned char>(s[i]);
-  size_t n = c < 0x80 ? 1 : (c >> 5) == 0x6 ? 2 : (c >> 4) == 0xe ? 3 : (c >> 3) == 0x1e ? 4 : 0;
-  if (n == 0 || i + n > s.size()) n = 1;
-  for (size_t k = 1; k < n; ++k)
-    if ((static_cast<unsigned char>(s[i + k]) & 0xc0) != 0x80) n = 1;
-  *bytes = n;
-  *units = n == 4 ? 2 : 1;
+  const Utf8Char c = readUtf8(s, i);
+  *bytes = c.length;
+  *units = c.cp >= 0x10000 ? 2 : 1;
 }
 
 }  // namespace
