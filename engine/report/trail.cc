@@ -142,8 +142,10 @@ std::string signOffStatement(const Trail& t) {
 }
 
 void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
-  const std::string number = numberText(v.number, style);
-  fmt::format_to(std::back_inserter(out), "{}", joinNumberUnit(number, v.unit));
+  // joinNumberUnit(number, unit), written straight into `out`: the unit with what joins it.
+  appendNumber(out, v.number, style);
+  const std::string unit = joinNumberUnit("", v.unit);
+  out.append(unit.data(), unit.data() + unit.size());
 }
 
 std::string valueText(const TrailValue& v, NumberStyle style) {
@@ -155,10 +157,14 @@ std::string valueText(const TrailValue& v, NumberStyle style) {
 std::string lineText(const TrailLine& line, NumberStyle style) {
   fmt::memory_buffer out;
   for (const TrailPiece& p : line) {
-    if (p.value) appendValue(out, *p.value, style);
-    else
-      fmt::format_to(std::back_inserter(out), "{}",
-                     style == NumberStyle::TimesTen ? timesTenPowers(p.text) : p.text);
+    if (p.value) {
+      appendValue(out, *p.value, style);
+    } else if (style == NumberStyle::TimesTen) {
+      const std::string text = timesTenPowers(p.text);
+      out.append(text.data(), text.data() + text.size());
+    } else {
+      out.append(p.text.data(), p.text.data() + p.text.size());
+    }
   }
   return fmt::to_string(out);
 }
@@ -184,7 +190,10 @@ TrailValue written(const std::string& literal, double si, double value, const st
 constexpr char kMark = '\x1F';
 
 std::string marker(std::vector<TrailValue>* values, TrailValue v) {
-  const bool spaced = valueText(v).find(' ') != std::string::npos;
+  // valueText(v) holds a space where the number does, or the unit with what joins it to the number.
+  const bool spaced = v.number.digits.find(' ') != std::string::npos ||
+                      v.number.exponent.find(' ') != std::string::npos ||
+                      joinNumberUnit("", v.unit).find(' ') != std::string::npos;
   values->push_back(std::move(v));
   return fmt::format("{}{}{}{}", kMark, values->size() - 1, spaced ? " " : "", kMark);
 }
@@ -718,6 +727,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (!v.empty()) t.meta.emplace_back(key, v);
   }
   std::vector<const FunctionDecl*> used;
+  t.steps.reserve(sheet.quantities.size());
   for (size_t i = 0; i < sheet.quantities.size(); ++i) {
     const Quantity& q = sheet.quantities[i];
     const QuantityState& s = calc.quantities[i];
