@@ -399,16 +399,17 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
     library_args.push_back(v);
     const std::optional<Unit> lead = f.args[k].per_revolution ? leadUnit(*call.args[k], calc) : std::nullopt;
     const Unit unit = lead ? *lead : argumentUnit(*call.args[k], f.args[k], calc);
-    TrailValue shown_value = rounded(lead ? raw : v, unit, digits);
-    // Given values and literals appear as written, as in the step itself.
+    // Given values and literals appear as written, as in the step itself; others rounded.
+    std::optional<TrailValue> as_written;
     const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (given[j] && calc.quantities[j].display.text == unit.text) shown_value = *given[j];
+      if (given[j] && calc.quantities[j].display.text == unit.text) as_written = *given[j];
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
-      shown_value =
+      as_written =
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
+    TrailValue shown_value = as_written ? std::move(*as_written) : rounded(lead ? raw : v, unit, digits);
     c.arguments.push_back({fmt::format("{}{} = ", k ? ", " : "", f.args[k].name), std::nullopt});
     c.arguments.push_back({"", shown_value});
     if (k) c.with_values.push_back({", ", std::nullopt});
@@ -478,9 +479,10 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
   }
 }
 
+// `results[j]` is quantity j's value as its step shows it: rounded(si, display, digits).
 TrailLine substitute(const Expr& e, const Calculation& calc,
                      const std::vector<std::optional<TrailValue>>& given, const std::vector<TrailCall>& calls,
-                     int digits, std::vector<TrailBinding>* bindings) {
+                     const std::vector<TrailStep>& results, std::vector<TrailBinding>* bindings) {
   std::vector<TrailValue> values;
   const std::string text = renderExpr(
       e,
@@ -495,8 +497,8 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
         }
         const int j = calc.sheet.find(name.text);
         const QuantityState& s = calc.quantities[j];
-        // A given value appears as written ("950 kg", "0.35"), unrounded.
-        TrailValue v = given[j] ? *given[j] : rounded(s.si, s.display, digits);
+        // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
+        TrailValue v = given[j] ? *given[j] : results[static_cast<size_t>(j)].result;
         const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
         bindings->push_back({&name, v, negative});
         return markerInLine(&values, std::move(v), negative);
@@ -810,7 +812,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
       s.substituted_owner = std::shared_ptr<const Expr>(std::move(copy));
       s.substituted_expr = s.substituted_owner.get();
     }
-    s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, digits, &s.bindings);
+    s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, t.steps, &s.bindings);
     const std::string substituted = lineText(s.substituted);
     s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
     const Expr* x = withoutParens(&expr);
