@@ -195,7 +195,11 @@ std::string marker(std::vector<TrailValue>* values, TrailValue v) {
                       v.number.exponent.find(' ') != std::string::npos ||
                       joinNumberUnit("", v.unit).find(' ') != std::string::npos;
   values->push_back(std::move(v));
-  return fmt::format("{}{}{}{}", kMark, values->size() - 1, spaced ? " " : "", kMark);
+  std::string m(1, kMark);
+  m += std::to_string(values->size() - 1);
+  if (spaced) m += ' ';
+  m += kMark;
+  return m;
 }
 
 // A value in parentheses when it is negative, as a substituted line needs it.
@@ -206,6 +210,7 @@ std::string markerInLine(std::vector<TrailValue>* values, TrailValue v, bool neg
 
 TrailLine cutAtMarkers(const std::string& text, const std::vector<TrailValue>& values) {
   TrailLine line;
+  line.reserve(2 * values.size() + 1);  // text, value, text, ...: a piece is large (a value with its texts)
   size_t i = 0;
   while (i < text.size()) {
     const size_t at = text.find(kMark, i);
@@ -390,6 +395,8 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   std::vector<double> library_args;
+  c.arguments.reserve(2 * f.args.size());
+  c.with_values.reserve(2 * f.args.size() + 1);
   c.with_values.push_back({f.name + "(", std::nullopt});
   for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
     EvalFault fault;
