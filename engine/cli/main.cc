@@ -117,7 +117,46 @@ std::vector<std::string> unknownOptions(const CLI::App& cmd, int argc, char** ar
   return messages;
 }
 
+// What keepUntilExit keeps: freed by the static destructors of a normal exit.
+std::vector<std::shared_ptr<const void>>& kept() {
+  static std::vector<std::shared_ptr<const void>> objects;
+  return objects;
+}
+
+#if defined(__SANITIZE_ADDRESS__) || defined(__SANITIZE_THREAD__)
+constexpr bool kSanitized = true;
+#elif defined(__has_feature)
+#if __has_feature(address_sanitizer) || __has_feature(thread_sanitizer)
+constexpr bool kSanitized = true;
+#else
+constexpr bool kSanitized = false;
+#endif
+#else
+constexpr bool kSanitized = false;
+#endif
+
+// Ends the process with `status` once every output is flushed, without the
+// destructors of the command line, the calculation, the trail and the
+// static tables (the function library, the unit table): freeing them one by
+// one cost about 5 % of `calctrail report` (docs/performance.md), and the
+// system takes the memory back in one piece. A sanitizer build returns
+// normally, so that LeakSanitizer checks every run.
+int endProcess(int status) {
+  if (kSanitized) return status;
+  std::cout.flush();
+  std::cerr.flush();
+  std::clog.flush();
+  std::fflush(nullptr);
+  std::_Exit(status);
+}
+
 }  // namespace
+
+namespace calctrail {
+void keepUntilExit(std::shared_ptr<const void> object) {
+  kept().push_back(std::move(object));
+}
+}  // namespace calctrail
 
 int main(int argc, char** argv) {
   CLI::App app{
@@ -395,18 +434,18 @@ int main(int argc, char** argv) {
     return kExitError;
   }
   try {
-    if (report_cmd->parsed()) return runReport(report);
-    if (check_cmd->parsed()) return runCheck(check);
-    if (fn_cmd->parsed()) return runFunctions(fn_name, fn_format);
-    if (units_cmd->parsed()) return runUnits(units_format);
-    if (diff_cmd->parsed()) return runDiff(diff);
-    if (fmt_cmd->parsed()) return runFmt(fmt_args);
-    if (textconv_cmd->parsed()) return runTextconv(textconv_file, textconv_digits);
-    if (sweep_cmd->parsed()) return runSweepCommand(sweep);
-    if (solve_cmd->parsed()) return runSolveCommand(solve);
-    if (sens_cmd->parsed()) return runSensitivityCommand(sens);
-    if (pick_cmd->parsed()) return runPickCommand(pick);
-    if (lsp_cmd->parsed()) return runLsp();
+    if (report_cmd->parsed()) return endProcess(runReport(report));
+    if (check_cmd->parsed()) return endProcess(runCheck(check));
+    if (fn_cmd->parsed()) return endProcess(runFunctions(fn_name, fn_format));
+    if (units_cmd->parsed()) return endProcess(runUnits(units_format));
+    if (diff_cmd->parsed()) return endProcess(runDiff(diff));
+    if (fmt_cmd->parsed()) return endProcess(runFmt(fmt_args));
+    if (textconv_cmd->parsed()) return endProcess(runTextconv(textconv_file, textconv_digits));
+    if (sweep_cmd->parsed()) return endProcess(runSweepCommand(sweep));
+    if (solve_cmd->parsed()) return endProcess(runSolveCommand(solve));
+    if (sens_cmd->parsed()) return endProcess(runSensitivityCommand(sens));
+    if (pick_cmd->parsed()) return endProcess(runPickCommand(pick));
+    if (lsp_cmd->parsed()) return endProcess(runLsp());
   } catch (const std::exception& e) {
     std::cerr << "calctrail: internal error: " << e.what() << "\n";
     return kExitError;
