@@ -3,12 +3,18 @@
 // input has errors or the command line is wrong.
 #pragma once
 
+#include <memory>
 #include <string>
 #include <vector>
 
 namespace calctrail {
 
 enum ExitStatus { kExitOk = 0, kExitCheckFailed = 1, kExitError = 2 };
+
+// Keeps `object` alive until the process ends. main ends it without freeing
+// what the system takes back in one piece anyway (docs/performance.md,
+// startup_perftest); a sanitizer build frees everything, for LeakSanitizer.
+void keepUntilExit(std::shared_ptr<const void> object);
 
 struct ReportArgs {
   std::string file;  // the worksheet; "-" reads standard input

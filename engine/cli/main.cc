@@ -7,7 +7,10 @@
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
+#include <functional>
 #include <iostream>
+#include <utility>
+#include <vector>
 
 #include "engine/cli/commands.h"
 #include "engine/report/formats.h"
@@ -114,7 +117,46 @@ std::vector<std::string> unknownOptions(const CLI::App& cmd, int argc, char** ar
   return messages;
 }
 
+// What keepUntilExit keeps: freed by the static destructors of a normal exit.
+std::vector<std::shared_ptr<const void>>& kept() {
+  static std::vector<std::shared_ptr<const void>> objects;
+  return objects;
+}
+
+#if defined(__SANITIZE_ADDRESS__) || defined(__SANITIZE_THREAD__)
+constexpr bool kSanitized = true;
+#elif defined(__has_feature)
+#if __has_feature(address_sanitizer) || __has_feature(thread_sanitizer)
+constexpr bool kSanitized = true;
+#else
+constexpr bool kSanitized = false;
+#endif
+#else
+constexpr bool kSanitized = false;
+#endif
+
+// Ends the process with `status` once every output is flushed, without the
+// destructors of the command line, the calculation, the trail and the
+// static tables (the function library, the unit table): freeing them one by
+// one cost about 5 % of `calctrail report` (docs/performance.md), and the
+// system takes the memory back in one piece. A sanitizer build returns
+// normally, so that LeakSanitizer checks every run.
+int endProcess(int status) {
+  if (kSanitized) return status;
+  std::cout.flush();
+  std::cerr.flush();
+  std::clog.flush();
+  std::fflush(nullptr);
+  std::_Exit(status);
+}
+
 }  // namespace
+
+namespace calctrail {
+void keepUntilExit(std::shared_ptr<const void> object) {
+  kept().push_back(std::move(object));
+}
+}  // namespace calctrail
 
 int main(int argc, char** argv) {
   CLI::App app{
@@ -131,73 +173,103 @@ int main(int argc, char** argv) {
       "  calctrail report gate.calc --format json -o gate.json --set \"f=0.18\"\n"
       "  calctrail check worksheets/*.calc");
 
+  // A subcommand's options are defined only when the command line names it
+  // (below, before parsing): CLI11 builds each option with its strings,
+  // callbacks and validators, and defining every command's on every run cost
+  // a twentieth of `calctrail report` (docs/performance.md). `calctrail
+  // --help` lists the subcommands by name and description alone, and only the
+  // named subcommand can be parsed (require_subcommand(1)).
+  std::vector<std::pair<CLI::App*, std::function<void()>>> option_blocks;
+  const auto options = [&](CLI::App* cmd, std::function<void()> define) {
+    option_blocks.emplace_back(cmd, std::move(define));
+  };
+
   ReportArgs report;
   CLI::App* report_cmd = app.add_subcommand(
       "report", "Recalculate a worksheet and print its calculation trail (exit 0 even when a check fails)");
-  report_cmd->add_option("FILE", report.file, "The worksheet (.calc); - reads standard input")->required();
-  report_cmd->add_option("--format,-f", report.format, "Output format: " + reportFormatHelp())
-      ->check(CLI::IsMember(reportFormatNames()))
-      ->default_str("text");
-  report_cmd->add_option("-o,--output", report.output, "Write the trail to this file instead of standard output");
-  report_cmd->add_option("--set", report.sets,
-                         "Replace the definition of NAME by VALUE for this run only, e.g. --set \"d=10 mm\"")
-      ->type_name("NAME=VALUE")
-      ->allow_extra_args(false);
-  report_cmd
-      ->add_option("--case", report.case_name,
-                   "Evaluate this load case alone, as if the worksheet were written with its replacements")
-      ->type_name("NAME");
-  report_cmd->add_option("--digits", report.digits, "Significant digits in human formats (1 to 15)")
-      ->check(wholeNumberIn(1, 15))
-      ->default_str("4");
+  options(report_cmd, [&] {
+    report_cmd->add_option("FILE", report.file, "The worksheet (.calc); - reads standard input")->required();
+    report_cmd->add_option("--format,-f", report.format, "Output format: " + reportFormatHelp())
+        ->check(CLI::IsMember(reportFormatNames()))
+        ->default_str("text");
+    report_cmd->add_option("-o,--output", report.output,
+                           "Write the trail to this file instead of standard output");
+    report_cmd
+        ->add_option("--set", report.sets,
+                     "Replace the definition of NAME by VALUE for this run only, e.g. --set \"d=10 mm\"")
+        ->type_name("NAME=VALUE")
+        ->allow_extra_args(false);
+    report_cmd
+        ->add_option("--case", report.case_name,
+                     "Evaluate this load case alone, as if the worksheet were written with its replacements")
+        ->type_name("NAME");
+    report_cmd->add_option("--digits", report.digits, "Significant digits in human formats (1 to 15)")
+        ->check(wholeNumberIn(1, 15))
+        ->default_str("4");
+  });
 
   CheckArgs check;
   CLI::App* check_cmd = app.add_subcommand(
-      "check", "Evaluate worksheets; print one line per failed check and per error (exit 1 on a failed check)");
-  check_cmd->add_option("FILE", check.files, "Worksheets to check")->required();
-  check_cmd->add_option("--set", check.sets, "Replace NAME by VALUE in every file, e.g. --set \"f=0.18\"")
-      ->type_name("NAME=VALUE")
-      ->allow_extra_args(false);
-  check_cmd->add_option("--case", check.case_name, "Evaluate this load case alone (default: every case)")
-      ->type_name("NAME");
-  check_cmd->add_flag("--quiet,-q", check.quiet, "No summary line, only the problems");
-  check_cmd->add_option("--format,-f", check.format, "Output format: text, json or junit (JUnit XML for CI)")
-      ->check(CLI::IsMember({"text", "json", "junit"}))
-      ->default_str("text");
-  check_cmd->add_option("-j,--jobs", check.jobs, "Worksheets checked at once (default: one per core)")
-      ->check(wholeNumberIn(1, 1024));
+      "check",
+      "Evaluate worksheets; print one line per failed check and per error (exit 1 on a failed check)");
+  options(check_cmd, [&] {
+    check_cmd->add_option("FILE", check.files, "Worksheets to check")->required();
+    check_cmd->add_option("--set", check.sets, "Replace NAME by VALUE in every file, e.g. --set \"f=0.18\"")
+        ->type_name("NAME=VALUE")
+        ->allow_extra_args(false);
+    check_cmd->add_option("--case", check.case_name, "Evaluate this load case alone (default: every case)")
+        ->type_name("NAME");
+    check_cmd->add_flag("--quiet,-q", check.quiet, "No summary line, only the problems");
+    check_cmd
+        ->add_option("--format,-f", check.format, "Output format: text, json or junit (JUnit XML for CI)")
+        ->check(CLI::IsMember({"text", "json", "junit"}))
+        ->default_str("text");
+    check_cmd->add_option("-j,--jobs", check.jobs, "Worksheets checked at once (default: one per core)")
+        ->check(wholeNumberIn(1, 1024));
+  });
 
   std::string fn_name, fn_format = "text";
-  CLI::App* fn_cmd = app.add_subcommand("functions", "List the built-in drive functions, or show one in detail");
-  fn_cmd->add_option("NAME", fn_name, "A function name");
-  fn_cmd->add_option("--format,-f", fn_format, "Output format")
-      ->check(CLI::IsMember({"text", "json", "md"}))
-      ->default_str("text");
+  CLI::App* fn_cmd =
+      app.add_subcommand("functions", "List the built-in drive functions, or show one in detail");
+  options(fn_cmd, [&] {
+    fn_cmd->add_option("NAME", fn_name, "A function name");
+    fn_cmd->add_option("--format,-f", fn_format, "Output format")
+        ->check(CLI::IsMember({"text", "json", "md"}))
+        ->default_str("text");
+  });
 
   std::string units_format = "text";
-  CLI::App* units_cmd = app.add_subcommand("units", "List the units of measure, their definitions and sources");
-  units_cmd->add_option("--format,-f", units_format, "Output format")
-      ->check(CLI::IsMember({"text", "md"}))
-      ->default_str("text");
+  CLI::App* units_cmd =
+      app.add_subcommand("units", "List the units of measure, their definitions and sources");
+  options(units_cmd, [&] {
+    units_cmd->add_option("--format,-f", units_format, "Output format")
+        ->check(CLI::IsMember({"text", "md"}))
+        ->default_str("text");
+  });
 
   DiffArgs diff;
   CLI::App* diff_cmd = app.add_subcommand(
-      "diff", "Compare two revisions of a worksheet: flipped checks, changed inputs and formulas, moved results");
-  diff_cmd->add_option("OLD", diff.old_side, "The earlier side: a file, or REV:PATH from git (HEAD~1:gate.calc)")
-      ->required();
-  diff_cmd->add_option("NEW", diff.new_side, "The later side: a file, or REV:PATH from git")->required();
-  diff_cmd->add_option("--format,-f", diff.format, "Output format (md for a pull-request comment)")
-      ->check(CLI::IsMember({"text", "md", "json"}))
-      ->default_str("text");
-  diff_cmd->add_option("--rtol", diff.rtol, "Relative change below which a result has not moved")
-      ->check(finiteNonNegative())
-      ->default_str("1e-9");
-  diff_cmd->add_option("--set", diff.sets, "Replace NAME by VALUE on both sides, e.g. --set \"f=0.18\"")
-      ->type_name("NAME=VALUE")
-      ->allow_extra_args(false);
-  diff_cmd->add_option("--digits", diff.digits, "Significant digits of the rounded values (1 to 15)")
-      ->check(wholeNumberIn(1, 15))
-      ->default_str("4");
+      "diff",
+      "Compare two revisions of a worksheet: flipped checks, changed inputs and formulas, moved results");
+  options(diff_cmd, [&] {
+    diff_cmd
+        ->add_option("OLD", diff.old_side,
+                     "The earlier side: a file, or REV:PATH from git (HEAD~1:gate.calc)")
+        ->required();
+    diff_cmd->add_option("NEW", diff.new_side, "The later side: a file, or REV:PATH from git")->required();
+    diff_cmd->add_option("--format,-f", diff.format, "Output format (md for a pull-request comment)")
+        ->check(CLI::IsMember({"text", "md", "json"}))
+        ->default_str("text");
+    diff_cmd->add_option("--rtol", diff.rtol, "Relative change below which a result has not moved")
+        ->check(finiteNonNegative())
+        ->default_str("1e-9");
+    diff_cmd->add_option("--set", diff.sets, "Replace NAME by VALUE on both sides, e.g. --set \"f=0.18\"")
+        ->type_name("NAME=VALUE")
+        ->allow_extra_args(false);
+    diff_cmd->add_option("--digits", diff.digits, "Significant digits of the rounded values (1 to 15)")
+        ->check(wholeNumberIn(1, 15))
+        ->default_str("4");
+  });
   diff_cmd->footer(
       "\nExit status: 0 no number moved and no check fails; 1 a check flipped or still fails, a value moved\n"
       "beyond --rtol, or a quantity or check came or went; 2 a side cannot be read or has errors.\n"
@@ -206,13 +278,18 @@ int main(int argc, char** argv) {
       "  calctrail diff main:gate.calc gate.calc --format md > review.md");
 
   FmtArgs fmt_args;
-  CLI::App* fmt_cmd = app.add_subcommand(
-      "fmt", "Lay out worksheets canonically (spacing, alignment, unit spelling), keeping every comment and meaning");
-  fmt_cmd->add_option("FILE", fmt_args.files, "Worksheets (.calc); - reads standard input")->required();
-  CLI::Option* fmt_check = fmt_cmd->add_flag("--check", fmt_args.check,
-                                             "Change nothing; exit 1 when a file is not in canonical layout");
-  fmt_cmd->add_flag("--write,-w", fmt_args.write, "Rewrite the files in place (atomically; never a file with errors)")
-      ->excludes(fmt_check);
+  CLI::App* fmt_cmd = app.add_subcommand("fmt",
+                                         "Lay out worksheets canonically (spacing, alignment, unit "
+                                         "spelling), keeping every comment and meaning");
+  options(fmt_cmd, [&] {
+    fmt_cmd->add_option("FILE", fmt_args.files, "Worksheets (.calc); - reads standard input")->required();
+    CLI::Option* fmt_check = fmt_cmd->add_flag(
+        "--check", fmt_args.check, "Change nothing; exit 1 when a file is not in canonical layout");
+    fmt_cmd
+        ->add_flag("--write,-w", fmt_args.write,
+                   "Rewrite the files in place (atomically; never a file with errors)")
+        ->excludes(fmt_check);
+  });
   fmt_cmd->footer(
       "\nWithout --check or --write, prints the formatted worksheet (one file).\n"
       "Exit status: 0 done (or all canonical); 1 --check found a file to reformat; 2 a file has errors.");
@@ -220,11 +297,14 @@ int main(int argc, char** argv) {
   std::string textconv_file;
   int textconv_digits = 6;
   CLI::App* textconv_cmd = app.add_subcommand(
-      "textconv", "Print a worksheet with its recalculated results, for git's diff driver (see docs/review.md)");
-  textconv_cmd->add_option("FILE", textconv_file, "The worksheet (.calc)")->required();
-  textconv_cmd->add_option("--digits", textconv_digits, "Significant digits of the results (1 to 15)")
-      ->check(wholeNumberIn(1, 15))
-      ->default_str("6");
+      "textconv",
+      "Print a worksheet with its recalculated results, for git's diff driver (see docs/review.md)");
+  options(textconv_cmd, [&] {
+    textconv_cmd->add_option("FILE", textconv_file, "The worksheet (.calc)")->required();
+    textconv_cmd->add_option("--digits", textconv_digits, "Significant digits of the results (1 to 15)")
+        ->check(wholeNumberIn(1, 15))
+        ->default_str("6");
+  });
   textconv_cmd->footer(
       "\nSet up once per repository:\n"
       "  git config diff.calctrail.textconv \"calctrail textconv\"\n"
@@ -251,22 +331,26 @@ int main(int argc, char** argv) {
   SweepArgs sweep;
   CLI::App* sweep_cmd = app.add_subcommand(
       "sweep", "Evaluate a worksheet over a range or list of one input (or a grid of two): results, checks");
-  sweep_cmd->add_option("FILE", sweep.study.file, "The worksheet (.calc)");
-  sweep_cmd->add_option("--vary", sweep.vary, "NAME=FROM..TO or NAME=V1, V2, ... (twice for a grid)")
-      ->type_name("NAME=RANGE")
-      ->allow_extra_args(false);
-  sweep_cmd->add_option("--steps", sweep.steps, "Points of a range, both ends included")
-      ->check(CLI::Range(0, 10000000))
-      ->default_str("11");
-  sweep_cmd->add_flag("--log", sweep.log, "Logarithmic steps");
-  sweep_cmd->add_option("--show", sweep.show, "The results to record: NAME[,NAME...]")
-      ->allow_extra_args(false);
-  sweep_cmd->add_option("--shard", sweep.shard, "Compute only shard K of N (every N-th point from the K-th)")
-      ->type_name("K/N");
-  sweep_cmd->add_option("-j,--jobs", sweep.jobs, "Threads (default: one per core)");
-  sweep_cmd->add_option("--merge", sweep.merge, "Merge the JSON of the shards of a sweep (no FILE or --vary)")
-      ->type_name("SHARD.json...");
-  study_options(sweep_cmd, &sweep.study, {"text", "csv", "json", "svg"});
+  options(sweep_cmd, [&] {
+    sweep_cmd->add_option("FILE", sweep.study.file, "The worksheet (.calc)");
+    sweep_cmd->add_option("--vary", sweep.vary, "NAME=FROM..TO or NAME=V1, V2, ... (twice for a grid)")
+        ->type_name("NAME=RANGE")
+        ->allow_extra_args(false);
+    sweep_cmd->add_option("--steps", sweep.steps, "Points of a range, both ends included")
+        ->check(CLI::Range(0, 10000000))
+        ->default_str("11");
+    sweep_cmd->add_flag("--log", sweep.log, "Logarithmic steps");
+    sweep_cmd->add_option("--show", sweep.show, "The results to record: NAME[,NAME...]")
+        ->allow_extra_args(false);
+    sweep_cmd
+        ->add_option("--shard", sweep.shard, "Compute only shard K of N (every N-th point from the K-th)")
+        ->type_name("K/N");
+    sweep_cmd->add_option("-j,--jobs", sweep.jobs, "Threads (default: one per core)");
+    sweep_cmd
+        ->add_option("--merge", sweep.merge, "Merge the JSON of the shards of a sweep (no FILE or --vary)")
+        ->type_name("SHARD.json...");
+    study_options(sweep_cmd, &sweep.study, {"text", "csv", "json", "svg"});
+  });
   sweep_cmd->footer(
       "\nExit status: 0 every point calculated (checks failing at some points are shown, not an error);\n"
       "2 a point cannot be calculated, or the worksheet or the command line has errors.\n"
@@ -278,44 +362,56 @@ int main(int argc, char** argv) {
   SolveArgs solve;
   CLI::App* solve_cmd = app.add_subcommand(
       "solve", "Find the input that meets a target, or the largest/smallest for which every check passes");
-  solve_cmd->add_option("FILE", solve.study.file, "The worksheet (.calc)")->required();
-  solve_cmd->add_option("--vary", solve.vary, "The input to solve for (a given value)")->required();
-  solve_cmd->add_option("--between", solve.between, "The bracket LO..HI, with units")->required();
-  solve_cmd->add_option("--target", solve.target, "An equation EXPR = EXPR, as in \"T_motor = 12 [N*m]\"");
-  solve_cmd->add_option("--capacity", solve.capacity, "max or min: the extreme value passing every check")
-      ->check(CLI::IsMember({"max", "min"}));
-  solve_cmd->add_option("--samples", solve.samples, "Points the bracket is sampled at before solving")
-      ->check(CLI::Range(3, 100000))
-      ->default_str("41");
-  study_options(solve_cmd, &solve.study, {"text", "json"});
-  solve_cmd->footer("\nExit status: 0 solved (every check passes there); 1 no root in the bracket, nothing\n"
-                    "passes, or a check fails at the value found; 2 errors.");
+  options(solve_cmd, [&] {
+    solve_cmd->add_option("FILE", solve.study.file, "The worksheet (.calc)")->required();
+    solve_cmd->add_option("--vary", solve.vary, "The input to solve for (a given value)")->required();
+    solve_cmd->add_option("--between", solve.between, "The bracket LO..HI, with units")->required();
+    solve_cmd->add_option("--target", solve.target, "An equation EXPR = EXPR, as in \"T_motor = 12 [N*m]\"");
+    solve_cmd->add_option("--capacity", solve.capacity, "max or min: the extreme value passing every check")
+        ->check(CLI::IsMember({"max", "min"}));
+    solve_cmd->add_option("--samples", solve.samples, "Points the bracket is sampled at before solving")
+        ->check(CLI::Range(3, 100000))
+        ->default_str("41");
+    study_options(solve_cmd, &solve.study, {"text", "json"});
+  });
+  solve_cmd->footer(
+      "\nExit status: 0 solved (every check passes there); 1 no root in the bracket, nothing\n"
+      "passes, or a check fails at the value found; 2 errors.");
 
   SensitivityArgs sens;
   CLI::App* sens_cmd = app.add_subcommand(
       "sensitivity", "Rank the given values by their effect on a result (elasticity), and checks they flip");
-  sens_cmd->add_option("FILE", sens.study.file, "The worksheet (.calc)")->required();
-  sens_cmd->add_option("--of", sens.of, "The quantity studied")->required();
-  study_options(sens_cmd, &sens.study, {"text", "json"});
+  options(sens_cmd, [&] {
+    sens_cmd->add_option("FILE", sens.study.file, "The worksheet (.calc)")->required();
+    sens_cmd->add_option("--of", sens.of, "The quantity studied")->required();
+    study_options(sens_cmd, &sens.study, {"text", "json"});
+  });
   sens_cmd->footer("\nExit status: 0 done; 1 a check fails at the nominal point; 2 errors.");
 
   PickArgs pick;
   CLI::App* pick_cmd = app.add_subcommand(
       "pick", "Choose the smallest standard size (or the least --by result) for which every check passes");
-  pick_cmd->add_option("FILE", pick.study.file, "The worksheet (.calc)")->required();
-  pick_cmd->add_option("--vary", pick.vary, "The input picked for (a given value)")->required();
-  pick_cmd->add_option("--from", pick.from, "A series (trapezoidal, acme, motor_outputs) or \"V1, V2, ...\"")
-      ->required();
-  pick_cmd->add_flag("--smallest", pick.smallest, "The smallest value that passes (the default)");
-  pick_cmd->add_option("--by", pick.by, "The passing value with the least result of EXPR instead");
-  study_options(pick_cmd, &pick.study, {"text", "json"});
+  options(pick_cmd, [&] {
+    pick_cmd->add_option("FILE", pick.study.file, "The worksheet (.calc)")->required();
+    pick_cmd->add_option("--vary", pick.vary, "The input picked for (a given value)")->required();
+    pick_cmd
+        ->add_option("--from", pick.from, "A series (trapezoidal, acme, motor_outputs) or \"V1, V2, ...\"")
+        ->required();
+    pick_cmd->add_flag("--smallest", pick.smallest, "The smallest value that passes (the default)");
+    pick_cmd->add_option("--by", pick.by, "The passing value with the least result of EXPR instead");
+    study_options(pick_cmd, &pick.study, {"text", "json"});
+  });
   pick_cmd->footer("\nExit status: 0 a value passes; 1 none does; 2 errors.");
 
   CLI::App* lsp_cmd = app.add_subcommand(
       "lsp", "Serve the Language Server Protocol on standard input and output (docs/editors/lsp.md)");
-  lsp_cmd->footer("\nEditors start it themselves: diagnostics, values on hover and as inlay hints, definition,\n"
-                  "references, rename, completion and formatting as one types.");
+  lsp_cmd->footer(
+      "\nEditors start it themselves: diagnostics, values on hover and as inlay hints, definition,\n"
+      "references, rename, completion and formatting as one types.");
 
+  if (const CLI::App* named = namedSubcommand(app, argc, argv))
+    for (const auto& [cmd, define] : option_blocks)
+      if (cmd == named) define();
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -331,23 +427,25 @@ int main(int argc, char** argv) {
     if (sub && dynamic_cast<const CLI::ExtrasError*>(&e)) unknown = unknownOptions(*sub, argc, argv);
     if (unknown.empty()) std::cerr << "calctrail: error: " << e.what() << "\n";
     for (const std::string& message : unknown) std::cerr << "calctrail: error: " << message << "\n";
-    if (sub) std::cerr << "see: calctrail " << sub->get_name() << " --help\n";
-    else std::cerr << "Run `calctrail --help` for the commands and options.\n";
+    if (sub)
+      std::cerr << "see: calctrail " << sub->get_name() << " --help\n";
+    else
+      std::cerr << "Run `calctrail --help` for the commands and options.\n";
     return kExitError;
   }
   try {
-    if (report_cmd->parsed()) return runReport(report);
-    if (check_cmd->parsed()) return runCheck(check);
-    if (fn_cmd->parsed()) return runFunctions(fn_name, fn_format);
-    if (units_cmd->parsed()) return runUnits(units_format);
-    if (diff_cmd->parsed()) return runDiff(diff);
-    if (fmt_cmd->parsed()) return runFmt(fmt_args);
-    if (textconv_cmd->parsed()) return runTextconv(textconv_file, textconv_digits);
-    if (sweep_cmd->parsed()) return runSweepCommand(sweep);
-    if (solve_cmd->parsed()) return runSolveCommand(solve);
-    if (sens_cmd->parsed()) return runSensitivityCommand(sens);
-    if (pick_cmd->parsed()) return runPickCommand(pick);
-    if (lsp_cmd->parsed()) return runLsp();
+    if (report_cmd->parsed()) return endProcess(runReport(report));
+    if (check_cmd->parsed()) return endProcess(runCheck(check));
+    if (fn_cmd->parsed()) return endProcess(runFunctions(fn_name, fn_format));
+    if (units_cmd->parsed()) return endProcess(runUnits(units_format));
+    if (diff_cmd->parsed()) return endProcess(runDiff(diff));
+    if (fmt_cmd->parsed()) return endProcess(runFmt(fmt_args));
+    if (textconv_cmd->parsed()) return endProcess(runTextconv(textconv_file, textconv_digits));
+    if (sweep_cmd->parsed()) return endProcess(runSweepCommand(sweep));
+    if (solve_cmd->parsed()) return endProcess(runSolveCommand(solve));
+    if (sens_cmd->parsed()) return endProcess(runSensitivityCommand(sens));
+    if (pick_cmd->parsed()) return endProcess(runPickCommand(pick));
+    if (lsp_cmd->parsed()) return endProcess(runLsp());
   } catch (const std::exception& e) {
     std::cerr << "calctrail: internal error: " << e.what() << "\n";
     return kExitError;

@@ -1,5 +1,6 @@
 #include <cstdio>
 #include <iostream>
+#include <memory>
 
 #include "engine/calculation.h"
 #include "engine/cli/commands.h"
@@ -14,7 +15,8 @@ int runReport(const ReportArgs& args) {
   CalcOptions options;
   options.sets = args.sets;
   options.case_name = args.case_name;
-  auto calc = loadWorksheet(args.file, options);
+  const std::shared_ptr<const Calculation> calc = loadWorksheet(args.file, options);
+  keepUntilExit(calc);
   for (const Diagnostic& d : calc->diags.list()) std::cerr << d.render();
   if (calc->hasErrors()) {
     std::cerr << calc->diags.errorCount() << " error" << (calc->diags.errorCount() == 1 ? "" : "s")
@@ -27,8 +29,9 @@ int runReport(const ReportArgs& args) {
   for (const CaseRun& run : calc->cases)
     for (const Diagnostic& d : run.errors.list()) std::cerr << d.render();
   const int status = calc->caseErrors() ? kExitError : kExitOk;
-  const Trail trail = buildTrail(*calc, args.digits);
-  const std::string text = renderReport(trail, args.format);
+  const auto trail = std::make_shared<const Trail>(buildTrail(*calc, args.digits));
+  keepUntilExit(trail);
+  const std::string text = renderReport(*trail, args.format);
   if (args.output.empty() || args.output == "-") {
     std::fwrite(text.data(), 1, text.size(), stdout);
     std::fflush(stdout);

@@ -3,6 +3,7 @@
 #include <muParser.h>
 
 #include <algorithm>
+#include <charconv>
 #include <stdexcept>
 
 #include "engine/eval/math_functions.h"
@@ -13,6 +14,71 @@ namespace {
 double callLibrary(void* call, const double* args, int n) {
   return (*static_cast<const LibraryCall*>(call))(args, n);
 }
+
+// A number in the compiled text, read as muparser's own reader reads it (a
+// std::istringstream >> double, correctly rounded like std::from_chars):
+// [sign] digits [. digits] [e|E [sign] digits]. Its own builds a string
+// stream for every token it is asked about, names included, which was a
+// quarter of a one-shot parse (docs/performance.md, startup_perftest).
+int readNumber(const char* text, int* pos, double* value) {
+  const char* p = text;
+  if (*p == '+' || *p == '-') ++p;
+  const char* digits = p;
+  while (*p >= '0' && *p <= '9') ++p;
+  size_t count = static_cast<size_t>(p - digits);
+  if (*p == '.') {
+    const char* fraction = ++p;
+    while (*p >= '0' && *p <= '9') ++p;
+    count += static_cast<size_t>(p - fraction);
+  }
+  if (count == 0) return 0;
+  if (*p == 'e' || *p == 'E') {
+    const char* q = p + 1;
+    if (*q == '+' || *q == '-') ++q;
+    const char* exponent = q;
+    while (*q >= '0' && *q <= '9') ++q;
+    if (q == exponent) return 0;  // "1e": the stream fails on it too
+    p = q;
+  }
+  // from_chars takes no leading '+'; the stream does.
+  const char* first = *text == '+' ? text + 1 : text;
+  double v = 0;
+  const auto [end, error] = std::from_chars(first, p, v);
+  if (error != std::errc() || end != p) return 0;  // out of range: the stream fails too
+  *pos += static_cast<int>(p - text);
+  *value = v;
+  return 1;
+}
+
+double unaryMinus(double v) { return -v; }
+double unaryPlus(double v) { return v; }
+
+// mu::Parser without its functions and constants (none of ours: see the
+// constructor below) and with readNumber for its number reader; the same
+// name and operator characters and the same unary + and -.
+class LeanParser final : public mu::ParserBase {
+ public:
+  LeanParser() {
+    AddValIdent(readNumber);
+    InitCharSets();
+    InitFun();
+    InitConst();
+    InitOprt();
+  }
+
+ protected:
+  void InitCharSets() override {
+    DefineNameChars("0123456789_abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ");
+    DefineOprtChars("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ+-*^/?<>=#!$%&|~'_{}");
+    DefineInfixOprtChars("/+-*^?<>=#!$%&|~'_");
+  }
+  void InitFun() override {}
+  void InitConst() override {}
+  void InitOprt() override {
+    DefineInfixOprt("-", unaryMinus);
+    DefineInfixOprt("+", unaryPlus);
+  }
+};
 
 [[noreturn]] void rejected(const Program& program, const mu::Parser::exception_type& e) {
   // Generated text is always valid; say so briefly rather than print it whole.
@@ -29,12 +95,9 @@ const LibraryCall* LibraryCallStore::intern(const LibraryCall& call) {
   return &calls_.back();
 }
 
-ArithmeticParser::ArithmeticParser() : parser_(std::make_unique<mu::Parser>()) {
-  // Only our functions: muparser's own sin, ln, min... differ from ours
-  // (exact right angles) and cost memory in every parser.
-  parser_->ClearFun();
-  parser_->ClearConst();
-}
+// Only our functions: muparser's own sin, ln, min... differ from ours
+// (exact right angles) and cost memory in every parser.
+ArithmeticParser::ArithmeticParser() : parser_(std::make_unique<LeanParser>()) {}
 
 ArithmeticParser::~ArithmeticParser() = default;
 

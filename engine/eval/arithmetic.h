@@ -22,7 +22,7 @@
 #include "engine/eval/program.h"
 
 namespace mu {
-class Parser;
+class ParserBase;
 }
 
 namespace calctrail {
@@ -65,7 +65,7 @@ class ArithmeticParser {
  private:
   void define(const Program& program, LibraryCallStore* store);
 
-  std::unique_ptr<mu::Parser> parser_;
+  std::unique_ptr<mu::ParserBase> parser_;
   std::vector<std::string> defined_;  // functions defined so far, by compiled name
   uint32_t math_defined_ = 0;         // bit i: mathFunctions()[i] is defined
 };

@@ -18,21 +18,36 @@ ShownNumber roundNumber(double value, int digits) {
   // digits and the exponent after rounding (999.96 -> "1.000e+03"). All that
   // follows moves the decimal point in text, so no power of ten is ever
   // computed in floating point (1e-324 underflows to 0, 1e309 overflows).
-  const std::string sci = fmt::format("{:.{}e}", value, digits - 1);
-  const size_t at = sci.find('e');
-  const int exp10 = std::atoi(sci.c_str() + at + 1);
+  fmt::memory_buffer sci;
+  fmt::format_to(std::back_inserter(sci), "{:.{}e}", value, digits - 1);
+  sci.push_back('\0');  // for atoi; `text` is without it
+  const std::string_view text(sci.data(), sci.size() - 1);
+  const size_t at = text.find('e');
+  const int exp10 = std::atoi(sci.data() + at + 1);
   std::string mantissa;  // the significant digits, no sign, no point
+  mantissa.reserve(at);
   for (size_t i = 0; i < at; ++i)
-    if (sci[i] >= '0' && sci[i] <= '9') mantissa += sci[i];
-  const std::string sign = value < 0 ? "-" : "";
+    if (text[i] >= '0' && text[i] <= '9') mantissa += text[i];
   // Digits before the point at `point`, the rest after it.
   auto place = [&](int point) {
-    std::string m = mantissa;
-    if (static_cast<int>(m.size()) < point) m.append(static_cast<size_t>(point) - m.size(), '0');
-    if (point <= 0) return sign + "0." + std::string(static_cast<size_t>(-point), '0') + m;
-    const std::string head = m.substr(0, static_cast<size_t>(point));
-    const std::string tail = m.substr(static_cast<size_t>(point));
-    return sign + head + (tail.empty() ? "" : "." + tail);
+    std::string out;
+    out.reserve(mantissa.size() + static_cast<size_t>(std::abs(point)) + 3);
+    if (value < 0) out += '-';
+    const size_t m = mantissa.size();
+    if (point <= 0) {
+      out += "0.";
+      out.append(static_cast<size_t>(-point), '0');
+      out += mantissa;
+      return out;
+    }
+    const size_t head = static_cast<size_t>(point);
+    out.append(mantissa, 0, std::min(head, m));
+    if (head > m) out.append(head - m, '0');
+    if (head < m) {
+      out += '.';
+      out.append(mantissa, head, std::string::npos);
+    }
+    return out;
   };
   if (std::fabs(value) >= 1e-3 && exp10 < 6) {
     // Never round away integer digits: 15184.36 stays 15184.
@@ -50,10 +65,17 @@ ShownNumber writtenNumber(std::string_view literal) {
 }
 
 void appendNumber(fmt::memory_buffer& out, const ShownNumber& n, NumberStyle style) {
-  fmt::format_to(std::back_inserter(out), "{}", n.digits);
+  out.append(n.digits.data(), n.digits.data() + n.digits.size());
   if (n.exponent.empty()) return;
-  if (style == NumberStyle::ENotation) fmt::format_to(std::back_inserter(out), "{}{}", n.e, n.exponent);
-  else fmt::format_to(std::back_inserter(out), " \u00D7 10{}", superscriptExponent(n.exponent));
+  if (style == NumberStyle::ENotation) {
+    out.push_back(n.e);
+    out.append(n.exponent.data(), n.exponent.data() + n.exponent.size());
+    return;
+  }
+  const std::string_view times = " \u00D7 10";
+  out.append(times.data(), times.data() + times.size());
+  const std::string power = superscriptExponent(n.exponent);
+  out.append(power.data(), power.data() + power.size());
 }
 
 std::string numberText(const ShownNumber& n, NumberStyle style) {
@@ -65,11 +87,17 @@ std::string numberText(const ShownNumber& n, NumberStyle style) {
 std::string formatNumber(double value, int digits) { return numberText(roundNumber(value, digits)); }
 
 std::string joinNumberUnit(const std::string& number, const std::string& unit) {
-  if (unit.empty() || unit == "1") return number;
+  const std::string_view u = unit;  // compared by length first, inline
+  if (u.empty() || u == "1") return number;
   // SI Brochure: a space between number and unit, "%" included; none
   // before the degree, minute and second of plane angle.
-  if (unit == "\u00B0" || unit == "\u2032" || unit == "\u2033") return number + unit;
-  return fmt::format("{} {}", number, unit);
+  if (u == "\u00B0" || u == "\u2032" || u == "\u2033") return number + unit;
+  std::string out;
+  out.reserve(number.size() + 1 + unit.size());
+  out += number;
+  out += ' ';
+  out += unit;
+  return out;
 }
 
 std::string formatQuantity(double si, const Unit& unit, int digits, bool pretty) {

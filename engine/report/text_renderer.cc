@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <iterator>
+#include <string_view>
 
 #include "engine/util/text_width.h"
 
@@ -12,26 +13,38 @@ namespace {
 int width(const std::string& s) { return displayWidth(s); }
 std::string pad(const std::string& s, int w) { return padRight(s, w); }
 
-// Wraps words at `cols`, each line starting with `indent`.
+// Wraps words at `cols`, each line starting with `indent`. The widths are
+// counted once per word, not once per word for the whole line so far.
 std::string wrap(const std::string& text, const std::string& indent, int cols = 78) {
-  fmt::memory_buffer out;
-  std::string line;
+  std::string out;
+  out.reserve(text.size() + text.size() / 40 * (indent.size() + 1) + indent.size() + 1);
+  const std::string_view all(text);
+  const int indent_width = width(indent);
+  int line_width = -1;  // of the line so far, without the indent; -1: no word on it yet
   size_t i = 0;
-  while (i < text.size()) {
-    while (i < text.size() && text[i] == ' ') ++i;
-    size_t j = text.find(' ', i);
-    if (j == std::string::npos) j = text.size();
-    const std::string word = text.substr(i, j - i);
+  while (i < all.size()) {
+    while (i < all.size() && all[i] == ' ') ++i;
+    size_t j = all.find(' ', i);
+    if (j == std::string_view::npos) j = all.size();
+    const std::string_view word = all.substr(i, j - i);
     i = j;
     if (word.empty()) continue;
-    if (!line.empty() && width(indent) + width(line) + 1 + width(word) > cols) {
-      fmt::format_to(std::back_inserter(out), "{}{}\n", indent, line);
-      line.clear();
+    const int word_width = displayWidth(word);
+    if (line_width >= 0 && indent_width + line_width + 1 + word_width > cols) {
+      out += '\n';
+      line_width = -1;
     }
-    line += (line.empty() ? "" : " ") + word;
+    if (line_width < 0) {
+      out += indent;
+      line_width = word_width;
+    } else {
+      out += ' ';
+      line_width += 1 + word_width;
+    }
+    out += word;
   }
-  if (!line.empty()) fmt::format_to(std::back_inserter(out), "{}{}\n", indent, line);
-  return fmt::to_string(out);
+  if (line_width >= 0) out += '\n';
+  return out;
 }
 
 std::string underline(const std::string& title, char c) {

@@ -142,8 +142,10 @@ std::string signOffStatement(const Trail& t) {
 }
 
 void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
-  const std::string number = numberText(v.number, style);
-  fmt::format_to(std::back_inserter(out), "{}", joinNumberUnit(number, v.unit));
+  // joinNumberUnit(number, unit), written straight into `out`: the unit with what joins it.
+  appendNumber(out, v.number, style);
+  const std::string unit = joinNumberUnit("", v.unit);
+  out.append(unit.data(), unit.data() + unit.size());
 }
 
 std::string valueText(const TrailValue& v, NumberStyle style) {
@@ -155,10 +157,14 @@ std::string valueText(const TrailValue& v, NumberStyle style) {
 std::string lineText(const TrailLine& line, NumberStyle style) {
   fmt::memory_buffer out;
   for (const TrailPiece& p : line) {
-    if (p.value) appendValue(out, *p.value, style);
-    else
-      fmt::format_to(std::back_inserter(out), "{}",
-                     style == NumberStyle::TimesTen ? timesTenPowers(p.text) : p.text);
+    if (p.value) {
+      appendValue(out, *p.value, style);
+    } else if (style == NumberStyle::TimesTen) {
+      const std::string text = timesTenPowers(p.text);
+      out.append(text.data(), text.data() + text.size());
+    } else {
+      out.append(p.text.data(), p.text.data() + p.text.size());
+    }
   }
   return fmt::to_string(out);
 }
@@ -184,9 +190,16 @@ TrailValue written(const std::string& literal, double si, double value, const st
 constexpr char kMark = '\x1F';
 
 std::string marker(std::vector<TrailValue>* values, TrailValue v) {
-  const bool spaced = valueText(v).find(' ') != std::string::npos;
+  // valueText(v) holds a space where the number does, or the unit with what joins it to the number.
+  const bool spaced = v.number.digits.find(' ') != std::string::npos ||
+                      v.number.exponent.find(' ') != std::string::npos ||
+                      joinNumberUnit("", v.unit).find(' ') != std::string::npos;
   values->push_back(std::move(v));
-  return fmt::format("{}{}{}{}", kMark, values->size() - 1, spaced ? " " : "", kMark);
+  std::string m(1, kMark);
+  m += std::to_string(values->size() - 1);
+  if (spaced) m += ' ';
+  m += kMark;
+  return m;
 }
 
 // A value in parentheses when it is negative, as a substituted line needs it.
@@ -197,6 +210,7 @@ std::string markerInLine(std::vector<TrailValue>* values, TrailValue v, bool neg
 
 TrailLine cutAtMarkers(const std::string& text, const std::vector<TrailValue>& values) {
   TrailLine line;
+  line.reserve(2 * values.size() + 1);  // text, value, text, ...: a piece is large (a value with its texts)
   size_t i = 0;
   while (i < text.size()) {
     const size_t at = text.find(kMark, i);
@@ -381,6 +395,8 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   std::vector<double> library_args;
+  c.arguments.reserve(2 * f.args.size());
+  c.with_values.reserve(2 * f.args.size() + 1);
   c.with_values.push_back({f.name + "(", std::nullopt});
   for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
     EvalFault fault;
@@ -390,16 +406,17 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
     library_args.push_back(v);
     const std::optional<Unit> lead = f.args[k].per_revolution ? leadUnit(*call.args[k], calc) : std::nullopt;
     const Unit unit = lead ? *lead : argumentUnit(*call.args[k], f.args[k], calc);
-    TrailValue shown_value = rounded(lead ? raw : v, unit, digits);
-    // Given values and literals appear as written, as in the step itself.
+    // Given values and literals appear as written, as in the step itself; others rounded.
+    std::optional<TrailValue> as_written;
     const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (given[j] && calc.quantities[j].display.text == unit.text) shown_value = *given[j];
+      if (given[j] && calc.quantities[j].display.text == unit.text) as_written = *given[j];
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
-      shown_value =
+      as_written =
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
+    TrailValue shown_value = as_written ? std::move(*as_written) : rounded(lead ? raw : v, unit, digits);
     c.arguments.push_back({fmt::format("{}{} = ", k ? ", " : "", f.args[k].name), std::nullopt});
     c.arguments.push_back({"", shown_value});
     if (k) c.with_values.push_back({", ", std::nullopt});
@@ -469,9 +486,10 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
   }
 }
 
+// `results[j]` is quantity j's value as its step shows it: rounded(si, display, digits).
 TrailLine substitute(const Expr& e, const Calculation& calc,
                      const std::vector<std::optional<TrailValue>>& given, const std::vector<TrailCall>& calls,
-                     int digits, std::vector<TrailBinding>* bindings) {
+                     const std::vector<TrailStep>& results, std::vector<TrailBinding>* bindings) {
   std::vector<TrailValue> values;
   const std::string text = renderExpr(
       e,
@@ -486,8 +504,8 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
         }
         const int j = calc.sheet.find(name.text);
         const QuantityState& s = calc.quantities[j];
-        // A given value appears as written ("950 kg", "0.35"), unrounded.
-        TrailValue v = given[j] ? *given[j] : rounded(s.si, s.display, digits);
+        // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
+        TrailValue v = given[j] ? *given[j] : results[static_cast<size_t>(j)].result;
         const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
         bindings->push_back({&name, v, negative});
         return markerInLine(&values, std::move(v), negative);
@@ -718,6 +736,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (!v.empty()) t.meta.emplace_back(key, v);
   }
   std::vector<const FunctionDecl*> used;
+  t.steps.reserve(sheet.quantities.size());
   for (size_t i = 0; i < sheet.quantities.size(); ++i) {
     const Quantity& q = sheet.quantities[i];
     const QuantityState& s = calc.quantities[i];
@@ -800,7 +819,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
       s.substituted_owner = std::shared_ptr<const Expr>(std::move(copy));
       s.substituted_expr = s.substituted_owner.get();
     }
-    s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, digits, &s.bindings);
+    s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, t.steps, &s.bindings);
     const std::string substituted = lineText(s.substituted);
     s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
     const Expr* x = withoutParens(&expr);

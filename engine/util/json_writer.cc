@@ -1,5 +1,6 @@
 #include "engine/util/json_writer.h"
 
+#include <algorithm>
 #include <cmath>
 #include <iterator>
 
@@ -7,23 +8,30 @@
 
 namespace calctrail {
 
+namespace {
+void append(fmt::memory_buffer& out, std::string_view s) { out.append(s.data(), s.data() + s.size()); }
+}  // namespace
+
 void JsonWriter::escapeTo(fmt::memory_buffer& out, std::string_view s) {
-  auto it = std::back_inserter(out);
   out.push_back('"');
-  for (char c : s) {
+  // Runs of bytes written as they are go in at once, between the escapes.
+  size_t run = 0;
+  for (size_t i = 0; i < s.size(); ++i) {
+    const char c = s[i];
+    const auto byte = static_cast<unsigned char>(c);
+    if (c != '"' && c != '\\' && byte >= 0x20) continue;
+    append(out, s.substr(run, i - run));
+    run = i + 1;
     switch (c) {
-      case '"': fmt::format_to(it, "\\\""); break;
-      case '\\': fmt::format_to(it, "\\\\"); break;
-      case '\n': fmt::format_to(it, "\\n"); break;
-      case '\r': fmt::format_to(it, "\\r"); break;
-      case '\t': fmt::format_to(it, "\\t"); break;
-      default: {
-        const auto byte = static_cast<unsigned char>(c);
-        if (byte < 0x20) fmt::format_to(it, "\\u{:04x}", byte);
-        else out.push_back(c);
-      }
+      case '"': append(out, "\\\""); break;
+      case '\\': append(out, "\\\\"); break;
+      case '\n': append(out, "\\n"); break;
+      case '\r': append(out, "\\r"); break;
+      case '\t': append(out, "\\t"); break;
+      default: fmt::format_to(std::back_inserter(out), "\\u{:04x}", byte);
     }
   }
+  append(out, s.substr(run));
   out.push_back('"');
 }
 
@@ -35,7 +43,12 @@ std::string JsonWriter::escape(std::string_view s) {
 
 void JsonWriter::newline() {
   out_->push_back('\n');
-  fmt::format_to(std::back_inserter(*out_), "{:{}}", "", first_.size() * 2);
+  static constexpr std::string_view kSpaces = "                                ";
+  for (size_t n = first_.size() * 2; n > 0;) {  // two spaces a level
+    const size_t k = std::min(n, kSpaces.size());
+    append(*out_, kSpaces.substr(0, k));
+    n -= k;
+  }
 }
 
 void JsonWriter::beforeValue() {
@@ -85,7 +98,7 @@ JsonWriter& JsonWriter::endArray() {
 JsonWriter& JsonWriter::key(std::string_view k) {
   beforeValue();
   escapeTo(*out_, k);
-  fmt::format_to(std::back_inserter(*out_), ": ");
+  append(*out_, ": ");
   after_key_ = true;
   return *this;
 }
@@ -101,8 +114,7 @@ JsonWriter& JsonWriter::value(double d) {
   // Negative zero as -0.0: JSON readers (nlohmann-json among them) read a
   // bare -0 as the integer 0 and lose the sign; -0.0 is read as the double.
   const bool negative_zero = d == 0 && std::signbit(d);
-  fmt::format_to(std::back_inserter(*out_), "{}",
-                 negative_zero ? "-0.0" : std::isfinite(d) ? formatExact(d) : "null");
+  append(*out_, negative_zero ? "-0.0" : std::isfinite(d) ? formatExact(d) : "null");
   return *this;
 }
 
@@ -114,13 +126,13 @@ JsonWriter& JsonWriter::value(int i) {
 
 JsonWriter& JsonWriter::value(bool b) {
   beforeValue();
-  fmt::format_to(std::back_inserter(*out_), "{}", b ? "true" : "false");
+  append(*out_, b ? "true" : "false");
   return *this;
 }
 
 JsonWriter& JsonWriter::null() {
   beforeValue();
-  fmt::format_to(std::back_inserter(*out_), "null");
+  append(*out_, "null");
   return *this;
 }
 
