@@ -3,6 +3,9 @@
 #include <catch2/catch.hpp>
 
 #include <sys/stat.h>
+#include <sys/wait.h>
+
+#include <cstdlib>
 
 #include "tests/json_reader.h"
 #include "tests/test_support.h"
@@ -108,6 +111,24 @@ TEST_CASE("the output option writes the trail to a file, and errors leave it unt
   const std::string broken = sheetFile("a = (\n");
   CHECK(runCli("report '" + broken + "' -o '" + out + "'").status == 2);
   CHECK(readFile(out) == "old trail\n");
+}
+
+TEST_CASE("output that cannot be written is an error, not exit 0", "[cli]") {
+  // A full disk (/dev/full) cuts the trail off: the run must say so and exit 2.
+  const std::string f = sheetFile(kPassing);
+  const std::string err = tempDir() + "/stderr";
+  for (const char* args : {"report", "report --format json", "check", "functions"}) {
+    INFO(args);
+    const std::string sub = args;
+    const std::string cmd = std::string("'") + CALCTRAIL_BINARY + "' " + sub +
+                            (sub == "functions" ? std::string() : " '" + f + "'") + " >/dev/full 2>'" + err + "'";
+    const int raw = std::system(cmd.c_str());
+    REQUIRE(WIFEXITED(raw));
+    CHECK(WEXITSTATUS(raw) == 2);
+    CHECK(readFile(err).find("calctrail: error: cannot write standard output") != std::string::npos);
+  }
+  // The same runs with somewhere to write exit 0.
+  CHECK(runCli("report '" + f + "'").status == 0);
 }
 
 TEST_CASE("JSON: the contract's minimum, full precision", "[cli][json]") {

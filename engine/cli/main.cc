@@ -4,9 +4,11 @@
 
 #include <algorithm>
 #include <cctype>
+#include <cerrno>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
+#include <cstring>
 #include <functional>
 #include <iostream>
 #include <utility>
@@ -141,9 +143,18 @@ constexpr bool kSanitized = false;
 // one cost about 5 % of `calctrail report` (docs/performance.md), and the
 // system takes the memory back in one piece. A sanitizer build returns
 // normally, so that LeakSanitizer checks every run.
+// Output that did not reach standard output (a full disk, /dev/full, a closed
+// descriptor) is an error, never a silent exit 0 with a cut-off trail.
 int endProcess(int status) {
-  if (kSanitized) return status;
+  errno = 0;
   std::cout.flush();
+  const bool lost = !std::cout || std::fflush(stdout) != 0 || std::ferror(stdout);
+  if (lost) {
+    std::cerr << "calctrail: error: cannot write standard output"
+              << (errno != 0 ? std::string(": ") + std::strerror(errno) : std::string()) << "\n";
+    status = 2;
+  }
+  if (kSanitized) return status;
   std::cerr.flush();
   std::clog.flush();
   std::fflush(nullptr);
