@@ -6,6 +6,7 @@
 
 #include "engine/units/unit_preferences.h"
 #include "engine/util/edit_distance.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail {
 
@@ -13,7 +14,6 @@ namespace {
 
 // Exact defining values. Decimal literals are written in full where the exact
 // value is a finite decimal, so that each is rounded to double only once.
-constexpr double kPi = 3.141592653589793238462643383279502884;
 constexpr double kInch = 0.0254;            // m, exact
 constexpr double kFoot = 0.3048;            // m, exact (12 in)
 constexpr double kPound = 0.45359237;       // kg, exact
