@@ -53,6 +53,12 @@ class Evaluation {
   void evaluateSlot(Slot slot, Results* results);
   void evaluateCheck(size_t k, Results* results);
   double run(size_t id, const Program& program);
+  double runOnce(const Program& program);  // a --set program: never kept
+  bool callDirect(const Program& program, double* v);
+  double runDirect(const Program& program);
+  [[gnu::cold]] [[gnu::noinline]] void slotFailed(Slot slot, const Binding* b, const char* internal,
+                                                  Results* results);
+  [[gnu::cold]] [[gnu::noinline]] void slotDoubts(Slot slot, const Binding* b, Results* results);
   double runScratch(const Program& program);
   void fault(Fault::Site site, uint32_t index, const Expr& expr, const SourceFile& file,
              const std::string& prefix, const std::string& internal, Results* results);
@@ -73,6 +79,7 @@ class Evaluation {
   // The cone of the last evaluateCone, for the bound slots it was built for.
   std::vector<Slot> cone_key_, cone_;
   std::vector<size_t> cone_checks_;
+  std::vector<char> in_cone_, check_in_cone_;  // per slot, per check: in that cone
 };
 
 // One evaluation in a context of its own (a one-shot run).

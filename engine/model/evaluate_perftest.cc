@@ -14,7 +14,10 @@
 //    context adds after one evaluation (scratch parser only) and after a
 //    second (every formula kept set in a parser of its own).
 //
-//   evaluate_perftest [--points N] [--blocks B] [--worksheets DIR]
+//   evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME]
+//
+// --input NAME measures that input's cone alone and skips the rest (for a
+// profiler: `valgrind --tool=callgrind build/evaluate_perftest --input d`).
 //
 // Exit status: 0; 2 when the worksheet does not calculate cleanly or the
 // port's values differ from the engine's (a bug in one of them).
@@ -226,7 +229,7 @@ void memoryFigures(const Model& demo, int blocks) {
 }
 
 int usage() {
-  std::fprintf(stderr, "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR]\n");
+  std::fprintf(stderr, "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME]\n");
   return 2;
 }
 
@@ -234,7 +237,7 @@ int usage() {
 
 int main(int argc, char** argv) {
   int points = 20000, blocks = 2000;
-  std::string dir;
+  std::string dir, only;
   for (int i = 1; i < argc; ++i) {
     const std::string a = argv[i];
     if (a == "--points" && i + 1 < argc)
@@ -243,6 +246,8 @@ int main(int argc, char** argv) {
       blocks = std::atoi(argv[++i]);
     else if (a == "--worksheets" && i + 1 < argc)
       dir = argv[++i];
+    else if (a == "--input" && i + 1 < argc)
+      only = argv[++i];
     else
       return usage();
   }
@@ -272,12 +277,20 @@ int main(int argc, char** argv) {
   for (const char* name : kInputs) {
     // Whole numbers: a 5 % change leaves their limits.
     if (std::strcmp(name, "screws") == 0 || std::strcmp(name, "screw.starts") == 0) continue;
+    if (!only.empty() && only != name) continue;
     const Figures f = measure(*model, nominal, base, library, name, points);
     std::printf("  %-18s %5zu %14.3f %12.3f %6.1fx\n", f.input, f.cone, f.engine_us, f.native_us,
                 f.engine_us / f.native_us);
     engine_sum += f.engine_us;
     native_sum += f.native_us;
     ++n;
+  }
+  if (!only.empty()) {
+    if (n == 0) {
+      std::fprintf(stderr, "evaluate_perftest: `%s` is not one of the inputs measured\n", only.c_str());
+      return 2;
+    }
+    return 0;
   }
   std::printf("  %-18s %5s %14.3f %12.3f %6.1fx   (target: at most 5x)\n", "mean", "", engine_sum / n,
               native_sum / n, engine_sum / native_sum);
