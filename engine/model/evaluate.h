@@ -10,7 +10,9 @@
 // A formula is set into a parser of its own on its second evaluation in a
 // context (the first goes through one shared scratch parser), so a one-shot
 // run of a huge sheet keeps no parsers, and a sweep keeps one per formula of
-// the cone it re-runs, up to EvaluationOptions::max_kept_programs.
+// the cone it re-runs, up to EvaluationOptions::max_kept_programs. A formula
+// that is one library call of names (Program::direct_call), a lone name or a
+// lone literal needs no parser: it is called or read directly.
 #pragma once
 
 #include <memory>
