@@ -149,11 +149,11 @@ TEST_CASE("evaluator: a formula that is one library call of distinct names is ca
       "F = 6.4 kN\ndm = 30 mm\nl = 8 [mm/rev]\nf = 0.08\nalpha = 14.5 deg\n"
       "direct = torque_raise(F, dm, l, f, alpha)\n"
       "lam = lead_angle(dm, l)\n"
-      "repeated = lead_angle(dm, dm)\n"          // one name twice: v0, v0
-      "literal = lead_angle(dm, 8 mm)\n"         // a literal argument
-      "grouped = lead_angle((dm), l)\n"          // an argument in parentheses
-      "sum = lead_angle(dm, l) + 1 deg\n"        // arithmetic around the call
-      "math = sqrt(dm * dm)\n"                   // a math function
+      "repeated = lead_angle(dm, dm)\n"    // one name twice: v0, v0
+      "literal = lead_angle(dm, 8 mm)\n"   // a literal argument
+      "grouped = lead_angle((dm), l)\n"    // an argument in parentheses
+      "sum = lead_angle(dm, l) + 1 deg\n"  // arithmetic around the call
+      "math = sqrt(dm * dm)\n"             // a math function
       "nested = lead_angle(dm, thread_lead(l, 2))\n";
   Diagnostics diags;
   auto model = Model::build(parseSheet(std::make_shared<SourceFile>("d.calc", text), &diags), &diags);

@@ -61,7 +61,8 @@ struct LibraryCall {
   double callConverted(const double* in, int n, DoubtCounter* counter) const {
     const double r = decl->eval_n ? decl->eval_n(in, n) : decl->eval(in);
     // Most functions have no usual range and no advice: no call, a test of two words.
-    if (counter && (usual_args != 0 || decl->advise) && isDoubtful(*decl, in, n, usual_args)) ++counter->count;
+    if (counter && (usual_args != 0 || decl->advise) && isDoubtful(*decl, in, n, usual_args))
+      ++counter->count;
     return resultFromLibrary(r, decl->result_per_revolution);
   }
 

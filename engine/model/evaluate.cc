@@ -5,8 +5,8 @@
 #include <cstring>
 
 #include "engine/eval/tree_eval.h"
-#include "engine/util/math_constants.h"
 #include "engine/report/number_format.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail {
 
@@ -150,8 +150,8 @@ void sortWarnings(std::vector<Fault>* w) {
 void Evaluation::slotFailed(Slot slot, const Binding* b, const char* internal, Results* results) {
   const Quantity& q = model_.quantity(slot);
   fault(Fault::Site::Quantity, slot.index(), b ? *b->expr : model_.formulaExpr(slot),
-        b ? *b->file : model_.exprFile(slot), "`" + q.name + "` cannot be calculated: ",
-        internal ? std::string(internal) : std::string(), results);
+        b ? *b->file : model_.exprFile(slot),
+        "`" + q.name + "` cannot be calculated: ", internal ? std::string(internal) : std::string(), results);
 }
 
 void Evaluation::slotDoubts(Slot slot, const Binding* b, Results* results) {
@@ -205,7 +205,8 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
   const Check& c = model_.sheet().checks[k];
   const Program* programs[2] = {&info.lhs, &info.rhs};
   double side[2] = {NAN, NAN};
-  const bool read = (info.lhs.reads_one || info.lhs.is_constant) && (info.rhs.reads_one || info.rhs.is_constant);
+  const bool read =
+      (info.lhs.reads_one || info.lhs.is_constant) && (info.rhs.reads_one || info.rhs.is_constant);
   if (read) {
     // Most checks compare two names, or a name and a literal: no arithmetic, nothing to throw.
     for (int j = 0; j < 2; ++j)
@@ -229,8 +230,8 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
       }
       side[j] = v;
       if (calls_.doubtfulCalls() != doubtful)
-        addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
-                  results);
+        addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j],
+                  model_.checkFile(k), results);
     }
   }
   r.ok = true;

@@ -238,7 +238,8 @@ void memoryFigures(const Model& demo, int blocks) {
 }
 
 int usage() {
-  std::fprintf(stderr, "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME]\n");
+  std::fprintf(stderr,
+               "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME]\n");
   return 2;
 }
 
