@@ -39,6 +39,30 @@ bool isDoubtful(const FunctionDecl& decl, const double* args, int n) {
   return !decl.advise(args, n, &arg).empty();
 }
 
+bool isDoubtful(const FunctionDecl& decl, const double* args, int n, uint32_t usual_args) {
+  for (uint32_t bits = usual_args; bits != 0; bits &= bits - 1) {
+    const int k = __builtin_ctz(bits);
+    if (k >= n) break;
+    if (outside(decl.argAt(k), args[k])) return true;
+  }
+  for (int k = 32; k < n; ++k)
+    if (outside(decl.argAt(k), args[k])) return true;
+  if (!decl.advise) return false;
+  int arg = -1;
+  return !decl.advise(args, n, &arg).empty();
+}
+
+uint32_t usualArgs(const FunctionDecl& decl) {
+  const int declared = static_cast<int>(decl.args.size());
+  if (declared == 0) return 0;
+  uint32_t bits = 0;
+  for (int k = 0; k < 32; ++k) {
+    if (k >= declared && decl.repeat == 0) break;
+    if (decl.argAt(k).hasUsualRange()) bits |= 1u << k;
+  }
+  return bits;
+}
+
 std::vector<Doubt> doubtsOf(const FunctionDecl& decl, const double* args, int n) {
   std::vector<Doubt> out;
   for (int k = 0; k < n; ++k) {

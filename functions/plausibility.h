@@ -5,6 +5,7 @@
 // limits (validity.h), which make a call an error.
 #pragma once
 
+#include <cstdint>
 #include <string>
 #include <vector>
 
@@ -22,6 +23,12 @@ struct Doubt {
 // True when the call (SI values as eval() receives them, `n` arguments) has a
 // doubt. A compare per argument with a usual range: cheap enough for every call.
 bool isDoubtful(const FunctionDecl& decl, const double* args, int n);
+// The same, comparing only the arguments k < 32 whose bit is set in
+// `usual_args` (and every one from 32 on): with usualArgs(decl), the same
+// answer without looking at the arguments that have no usual range.
+bool isDoubtful(const FunctionDecl& decl, const double* args, int n, uint32_t usual_args);
+// Bit k set: argument k (k < 32) of a call of `decl` has a usual range.
+uint32_t usualArgs(const FunctionDecl& decl);
 
 // Every doubt about the call, arguments in order, then the function's own.
 std::vector<Doubt> doubtsOf(const FunctionDecl& decl, const double* args, int n);

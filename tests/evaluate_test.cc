@@ -11,6 +11,7 @@
 #include <thread>
 #include <vector>
 
+#include "engine/eval/evaluator.h"
 #include "engine/sheet/sheet_parser.h"
 #include "engine/template/template_loader.h"
 #include "engine/util/sha256.h"
@@ -97,6 +98,26 @@ TEST_CASE("evaluate: the cone of every single-input change equals a full evaluat
     CHECK(faulted > 0);                 // the faulting points were compared too
     CHECK(context.keptPrograms() > 0);  // formulas evaluated again were kept set
   }
+}
+
+TEST_CASE("evaluate: a formula called without muparser gives muparser's bits on every demo",
+          "[evaluate][direct]") {
+  int direct = 0;
+  for (const char* demo : kDemos) {
+    auto m = buildDemo(demo);
+    const Results r = evaluate(*m, Inputs(*m));
+    REQUIRE(r.faults.empty());
+    Evaluator muparser;  // sets every program in muparser, whatever its form
+    for (Slot s : m->order()) {
+      const Program& p = m->slot(s).formula;
+      if (!p.direct_call) continue;
+      INFO(demo << ": " << m->quantity(s).name);
+      const double v = muparser.run(p, r.values);
+      CHECK(std::memcmp(&v, &r.values[s.index()], sizeof v) == 0);
+      ++direct;
+    }
+  }
+  CHECK(direct >= 30);
 }
 
 TEST_CASE("evaluate: repeated cone runs in one context stay equal to full evaluations", "[evaluate][cone]") {

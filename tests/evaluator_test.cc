@@ -5,6 +5,7 @@
 
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <cstring>
 #include <memory>
 #include <string>
 
@@ -140,4 +141,48 @@ TEST_CASE("evaluator: a library function outside its limits is explained at the 
   CHECK(diagnostics(*calc("dm = 30 mm\nl = -8 mm\nx = lead_angle(dm, l)\n")) ==
         "sheet.calc:3:20: error: `x` cannot be calculated: `lead_angle`: lead l = -8 mm/rev must be > 0 "
         "(with l = -8.000 mm)\n");
+}
+
+TEST_CASE("evaluator: a formula that is one library call of distinct names is called without muparser",
+          "[evaluator][direct]") {
+  const std::string text =
+      "F = 6.4 kN\ndm = 30 mm\nl = 8 [mm/rev]\nf = 0.08\nalpha = 14.5 deg\n"
+      "direct = torque_raise(F, dm, l, f, alpha)\n"
+      "lam = lead_angle(dm, l)\n"
+      "repeated = lead_angle(dm, dm)\n"    // one name twice: v0, v0
+      "literal = lead_angle(dm, 8 mm)\n"   // a literal argument
+      "grouped = lead_angle((dm), l)\n"    // an argument in parentheses
+      "sum = lead_angle(dm, l) + 1 deg\n"  // arithmetic around the call
+      "math = sqrt(dm * dm)\n"             // a math function
+      "nested = lead_angle(dm, thread_lead(l, 2))\n";
+  Diagnostics diags;
+  auto model = Model::build(parseSheet(std::make_shared<SourceFile>("d.calc", text), &diags), &diags);
+  std::string problems;
+  for (const Diagnostic& d : diags.list()) problems += d.headline() + "\n";
+  INFO(problems);
+  REQUIRE_FALSE(diags.hasErrors());
+  auto direct = [&](const char* name) { return model->slot(model->find(name)).formula.direct_call; };
+  CHECK(direct("direct"));
+  CHECK(direct("lam"));
+  CHECK_FALSE(direct("repeated"));
+  CHECK_FALSE(direct("literal"));
+  CHECK_FALSE(direct("grouped"));
+  CHECK_FALSE(direct("sum"));
+  CHECK_FALSE(direct("math"));
+  CHECK_FALSE(direct("nested"));
+  CHECK_FALSE(direct("F"));
+  // Called directly (LibraryCall::call) or through muparser's callback: the same bits.
+  std::vector<double> values(model->slotCount(), NAN);
+  Evaluator evaluator;
+  for (Slot s : model->order()) values[s.index()] = evaluator.run(model->slot(s).formula, values);
+  for (const char* name : {"direct", "lam"}) {
+    INFO(name);
+    const Program& p = model->slot(model->find(name)).formula;
+    std::vector<double> args;
+    for (int j : p.inputs) args.push_back(values[static_cast<size_t>(j)]);
+    DoubtCounter doubts;
+    const double v = p.calls[0].call(args.data(), static_cast<int>(args.size()), &doubts);
+    CHECK(std::memcmp(&v, &values[model->find(name).index()], sizeof v) == 0);
+    CHECK(doubts.count == 0);
+  }
 }

@@ -387,3 +387,38 @@ TEST_CASE("library: docs/verification.md lists every function with tests that ex
     CHECK(cited > 0);
   }
 }
+
+TEST_CASE("library: the plausibility check on the call path gives the full check's answer",
+          "[functions][library][plausibility]") {
+  // isDoubtful(decl, args, n, usualArgs(decl)) compares only the arguments
+  // with a usual range; it must say what the check of every argument says,
+  // inside and outside the ranges, and past 32 arguments of a repeated group.
+  int doubtful = 0, compared = 0;
+  for (const FunctionDecl& d : functionLibrary()) {
+    INFO("function " << d.name);
+    const uint32_t bits = calctrail::usualArgs(d);
+    for (int k = 0; k < 32; ++k) {
+      const bool may = k < static_cast<int>(d.args.size()) || (d.repeat > 0 && !d.args.empty());
+      CHECK(((bits >> k) & 1u) == (may && d.argAt(k).hasUsualRange() ? 1u : 0u));
+    }
+    if (d.args.empty()) continue;
+    std::vector<double> base = d.example;
+    if (d.repeat > 0)  // the last group again, up to 40 arguments and more
+      while (base.size() < 40) base.insert(base.end(), d.example.end() - d.repeat, d.example.end());
+    for (size_t k = 0; k < base.size(); ++k) {
+      for (double factor : {1.0, 1e-4, 1e4, 0.0, -1.0}) {
+        std::vector<double> a = base;
+        a[k] *= factor;
+        for (int n : {static_cast<int>(d.example.size()), static_cast<int>(a.size())}) {
+          if (static_cast<size_t>(n) <= k) continue;
+          const bool full = calctrail::isDoubtful(d, a.data(), n);
+          CHECK(calctrail::isDoubtful(d, a.data(), n, bits) == full);
+          doubtful += full;
+          ++compared;
+        }
+      }
+    }
+  }
+  CHECK(doubtful > 10);  // the doubtful side was compared too
+  CHECK(compared > 1000);
+}

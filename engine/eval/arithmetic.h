@@ -39,6 +39,8 @@ class LibraryCallStore {
   const LibraryCall* intern(const LibraryCall& call);
   // Doubtful calls made through the interned calls so far.
   uint64_t doubtfulCalls() const { return doubts_.count; }
+  // The counter itself, for a call made without muparser (LibraryCall::call).
+  DoubtCounter* doubtCounter() { return &doubts_; }
 
  private:
   std::deque<LibraryCall> calls_;

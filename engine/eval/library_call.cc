@@ -17,23 +17,14 @@ double argumentToLibrary(double si, bool per_revolution, const Dimension& given)
   return givenPerAngle(per_revolution, given) ? si * kTwoPi : si;
 }
 
-double resultFromLibrary(double value, bool per_revolution) {
-  return per_revolution ? value / kTwoPi : value;
-}
-
 LibraryCall LibraryCall::at(const FunctionDecl& decl, const std::vector<Dimension>& arg_dims) {
   LibraryCall c;
   c.decl = &decl;
+  c.usual_args = usualArgs(decl);
   for (size_t k = 0; k < arg_dims.size() && k < 32; ++k)
     if (givenPerAngle(decl.argAt(static_cast<int>(k)).per_revolution, arg_dims[k])) c.per_angle_args |= 1u << k;
   return c;
 }
-
-namespace {
-double evalDecl(const FunctionDecl& d, const double* args, int n) {
-  return d.eval_n ? d.eval_n(args, n) : d.eval(args);
-}
-}  // namespace
 
 const double* LibraryCall::converted(const double* args, int n, std::vector<double>* out) const {
   out->assign(args, args + n);
@@ -42,24 +33,21 @@ const double* LibraryCall::converted(const double* args, int n, std::vector<doub
   return out->data();
 }
 
-double LibraryCall::operator()(const double* args, int n) const {
+namespace {
+// A call of more than 32 arguments with a lead among them: converted on the heap.
+[[gnu::noinline]] double callMany(const LibraryCall& c, const double* args, int n, DoubtCounter* counter) {
+  std::vector<double> v;
+  return c.callConverted(c.converted(args, n, &v), n, counter);
+}
+}  // namespace
+
+double LibraryCall::call(const double* args, int n, DoubtCounter* counter) const {
+  if (per_angle_args == 0) return callConverted(args, n, counter);
+  // Only the first 32 arguments can carry the bit; a longer call keeps the rest as given.
+  if (n > 32) return callMany(*this, args, n, counter);
   double buffer[32];
-  const double* in = args;
-  if (per_angle_args != 0) {
-    // Only the first 32 arguments can carry the bit; a longer call keeps the rest as given.
-    if (n > 32) {
-      std::vector<double> v;
-      in = converted(args, n, &v);
-      const double r = evalDecl(*decl, in, n);
-      if (doubts && isDoubtful(*decl, in, n)) ++doubts->count;
-      return resultFromLibrary(r, decl->result_per_revolution);
-    }
-    for (int k = 0; k < n; ++k) buffer[k] = per_angle_args & (1u << k) ? args[k] * kTwoPi : args[k];
-    in = buffer;
-  }
-  const double r = evalDecl(*decl, in, n);
-  if (doubts && isDoubtful(*decl, in, n)) ++doubts->count;
-  return resultFromLibrary(r, decl->result_per_revolution);
+  for (int k = 0; k < n; ++k) buffer[k] = per_angle_args & (1u << k) ? args[k] * kTwoPi : args[k];
+  return callConverted(buffer, n, counter);
 }
 
 std::string LibraryCall::compiledName() const {

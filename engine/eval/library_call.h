@@ -13,7 +13,9 @@
 #include <vector>
 
 #include "engine/units/dimension.h"
+#include "engine/util/math_constants.h"
 #include "functions/function_decl.h"
+#include "functions/plausibility.h"
 
 namespace calctrail {
 
@@ -26,12 +28,18 @@ struct DoubtCounter {
   uint64_t count = 0;
 };
 
+inline double resultFromLibrary(double value, bool per_revolution);
+
 struct LibraryCall {
   /// The function called.
   const FunctionDecl* decl = nullptr;
   /// Bit k set: argument k is a length per angle, passed per revolution
   /// (arguments past 32 of a repeated group are never leads: none is declared so).
   uint32_t per_angle_args = 0;
+  /// Bit k set: argument k (of any call of the function) may have a usual
+  /// range, so the plausibility check compares it; past 32 every argument is
+  /// compared. All set unless at() found out. Follows from `decl` alone.
+  uint32_t usual_args = ~0u;
   /// Where a doubtful call is counted; nullptr: not counted. Not part of the
   /// call's identity (operator==).
   DoubtCounter* doubts = nullptr;
@@ -42,7 +50,21 @@ struct LibraryCall {
   // SI values in, SI value out, with the per-revolution conversions. Throws
   // DomainError like FunctionDecl::eval. `n` is the number of arguments. A
   // doubtful call is counted in *doubts.
-  double operator()(const double* args, int n) const;
+  double operator()(const double* args, int n) const { return call(args, n, doubts); }
+  // The same, counting a doubtful call in *counter (nullptr: not counted):
+  // for a call site evaluated without muparser (Program::direct_call), which
+  // uses the model's LibraryCall rather than one interned in a context.
+  double call(const double* args, int n, DoubtCounter* counter) const;
+  // The same with the arguments converted already (leads per revolution, as
+  // the function receives them): the function, the plausibility check and
+  // the result's conversion, no copy.
+  double callConverted(const double* in, int n, DoubtCounter* counter) const {
+    const double r = decl->eval_n ? decl->eval_n(in, n) : decl->eval(in);
+    // Most functions have no usual range and no advice: no call, a test of two words.
+    if (counter && (usual_args != 0 || decl->advise) && isDoubtful(*decl, in, n, usual_args))
+      ++counter->count;
+    return resultFromLibrary(r, decl->result_per_revolution);
+  }
 
   // The arguments as the function receives them (leads per revolution), into
   // *out; returns out->data().
@@ -61,6 +83,8 @@ struct LibraryCall {
 // Kept for the trail, which shows what a function sees: one argument's value
 // as passed, and a result as stored. Both apply the rule above.
 double argumentToLibrary(double si, bool per_revolution, const Dimension& given);
-double resultFromLibrary(double value, bool per_revolution);
+inline double resultFromLibrary(double value, bool per_revolution) {
+  return per_revolution ? value / kTwoPi : value;
+}
 
 }  // namespace calctrail

@@ -101,6 +101,11 @@ Program compileProgram(const Expr& e, const Sheet& sheet, const std::vector<Func
   p.reads_one = x->kind == ExprKind::Name;
   p.is_constant = x->kind == ExprKind::Number;
   if (p.is_constant) p.constant = x->siValue();
+  // One library call of distinct names: the compiler numbered them v0, v1, ... in argument order.
+  if (x->kind == ExprKind::Call && p.calls.size() == 1 && p.math == 0 && !x->args.empty() &&
+      p.inputs.size() == x->args.size())
+    p.direct_call = std::all_of(x->args.begin(), x->args.end(),
+                                [](const ExprPtr& a) { return a->kind == ExprKind::Name; });
   return p;
 }
 

@@ -25,6 +25,11 @@ struct Program {
   uint32_t math = 0;
   /// The formula is one name (a check side `n_yield`): its value is v0, read without muparser.
   bool reads_one = false;
+  /// The formula is one call of calls[0] with the arguments v0, v1, ... in
+  /// that order (`torque_raise(F, d_m, l, f, alpha)`, each a distinct name):
+  /// the evaluation calls it with the values read, without muparser. There is
+  /// no arithmetic to do, so the value is the one muparser's callback gives.
+  bool direct_call = false;
   /// The formula is one literal (a check side `3`, `10 MPa`): its value is `constant`.
   bool is_constant = false;
   /// The literal's SI value, when is_constant (the number muparser would read back from the text).

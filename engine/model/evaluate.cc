@@ -6,6 +6,7 @@
 
 #include "engine/eval/tree_eval.h"
 #include "engine/report/number_format.h"
+#include "engine/util/math_constants.h"
 
 namespace calctrail {
 
@@ -41,9 +42,49 @@ double Evaluation::runScratch(const Program& program) {
   return scratch_.eval();
 }
 
+// A formula that is one library call of names (Program::direct_call): the
+// arguments gathered and converted per revolution in one pass, then the
+// call. False, and no call, when an argument is not finite.
+bool Evaluation::callDirect(const Program& program, double* v) {
+  const LibraryCall& c = program.calls[0];
+  const size_t n = program.inputs.size();
+  if (__builtin_expect(n > 16, 0)) {
+    std::vector<double> many(n);
+    for (size_t k = 0; k < n; ++k)
+      if (!std::isfinite(many[k] = values_[program.inputs[k]])) return false;
+    *v = c.call(many.data(), static_cast<int>(n), calls_.doubtCounter());
+    return true;
+  }
+  double args[16];
+  const int* in = program.inputs.data();
+  bool finite = true;
+  for (size_t k = 0; k < n; ++k) {
+    const double x = values_[in[k]];
+    finite &= std::isfinite(x);
+    args[k] = c.per_angle_args & (1u << k) ? x * kTwoPi : x;  // as LibraryCall::call converts
+  }
+  if (!finite) return false;
+  *v = c.callConverted(args, static_cast<int>(n), calls_.doubtCounter());
+  return true;
+}
+
+double Evaluation::runDirect(const Program& program) {
+  double v = NAN;  // an argument not finite: no value, as the function would refuse it
+  callDirect(program, &v);
+  return v;
+}
+
+double Evaluation::runOnce(const Program& program) {
+  if (program.reads_one) return values_[program.inputs[0]];
+  if (program.is_constant) return program.constant;
+  if (program.direct_call) return runDirect(program);
+  return runScratch(program);
+}
+
 double Evaluation::run(size_t id, const Program& program) {
   if (program.reads_one) return values_[program.inputs[0]];
   if (program.is_constant) return program.constant;
+  if (program.direct_call) return runDirect(program);
   if (const ArithmeticParser* kept = kept_[id].get()) return kept->eval();
   if (!seen_[id] || kept_count_ >= options_.max_kept_programs) {
     seen_[id] = 1;
@@ -105,7 +146,21 @@ void sortWarnings(std::vector<Fault>* w) {
 }
 }  // namespace
 
-void Evaluation::evaluateSlot(Slot slot, Results* results) {
+// Out of line: the success path of evaluateSlot builds no string.
+void Evaluation::slotFailed(Slot slot, const Binding* b, const char* internal, Results* results) {
+  const Quantity& q = model_.quantity(slot);
+  fault(Fault::Site::Quantity, slot.index(), b ? *b->expr : model_.formulaExpr(slot),
+        b ? *b->file : model_.exprFile(slot),
+        "`" + q.name + "` cannot be calculated: ", internal ? std::string(internal) : std::string(), results);
+}
+
+void Evaluation::slotDoubts(Slot slot, const Binding* b, Results* results) {
+  addDoubts(model_, values_, Fault::Site::Quantity, slot.index(), b ? *b->expr : model_.formulaExpr(slot),
+            b ? *b->file : model_.exprFile(slot), results);
+}
+
+// Inlined into the two loops over slots: one frame per loop, not one per slot.
+[[gnu::always_inline]] inline void Evaluation::evaluateSlot(Slot slot, Results* results) {
   const uint32_t i = slot.index();
   values_[i] = NAN;
   const SlotInfo& info = model_.slot(slot);
@@ -117,29 +172,29 @@ void Evaluation::evaluateSlot(Slot slot, Results* results) {
   }
   const Program& p = b ? b->program : info.formula;
   if (p.text.empty()) return;  // too long to compile: reported when the model was built
-  for (int j : p.inputs)
-    if (!std::isfinite(values_[j])) return;  // a quantity it reads failed: one cause, one error
   double v = NAN;
-  std::string internal;
   const uint64_t doubtful = calls_.doubtfulCalls();
   try {
-    v = b ? runScratch(p) : run(i, p);
+    // A quantity it reads failed (not finite): one cause, one error, so no value and no fault here.
+    if (p.direct_call) {
+      if (!callDirect(p, &v)) return;
+    } else {
+      for (int j : p.inputs)
+        if (!std::isfinite(values_[j])) return;
+      v = b ? runOnce(p) : run(i, p);
+    }
   } catch (const DomainError&) {
     v = NAN;  // explained below, with the argument at fault
   } catch (const std::exception& e) {
-    internal = e.what();
+    slotFailed(slot, b, e.what(), results);
+    return;
   }
-  if (!std::isfinite(v)) {
-    const Quantity& q = model_.quantity(slot);
-    fault(Fault::Site::Quantity, i, b ? *b->expr : model_.formulaExpr(slot),
-          b ? *b->file : model_.exprFile(slot),
-          "`" + q.name + "` cannot be calculated: ", internal, results);
+  if (__builtin_expect(!std::isfinite(v), 0)) {
+    slotFailed(slot, b, nullptr, results);
     return;
   }
   values_[i] = v;
-  if (calls_.doubtfulCalls() != doubtful)
-    addDoubts(model_, values_, Fault::Site::Quantity, i, b ? *b->expr : model_.formulaExpr(slot),
-              b ? *b->file : model_.exprFile(slot), results);
+  if (__builtin_expect(calls_.doubtfulCalls() != doubtful, 0)) slotDoubts(slot, b, results);
 }
 
 void Evaluation::evaluateCheck(size_t k, Results* results) {
@@ -149,26 +204,35 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
   if (!info.compiled) return;
   const Check& c = model_.sheet().checks[k];
   const Program* programs[2] = {&info.lhs, &info.rhs};
-  const Expr* exprs[2] = {c.lhs.get(), c.rhs.get()};
-  const size_t first_id = model_.slotCount() + 2 * k;
-  double side[2];
-  for (int j = 0; j < 2; ++j) {
-    double v = NAN;
-    const uint64_t doubtful = calls_.doubtfulCalls();
-    try {
-      v = run(first_id + static_cast<size_t>(j), *programs[j]);
-    } catch (const std::exception&) {
-      v = NAN;
+  double side[2] = {NAN, NAN};
+  const bool read =
+      (info.lhs.reads_one || info.lhs.is_constant) && (info.rhs.reads_one || info.rhs.is_constant);
+  if (read) {
+    // Most checks compare two names, or a name and a literal: no arithmetic, nothing to throw.
+    for (int j = 0; j < 2; ++j)
+      side[j] = programs[j]->reads_one ? values_[programs[j]->inputs[0]] : programs[j]->constant;
+  }
+  if (!read || !std::isfinite(side[0]) || !std::isfinite(side[1])) {
+    const Expr* exprs[2] = {c.lhs.get(), c.rhs.get()};
+    const size_t first_id = model_.slotCount() + 2 * k;
+    for (int j = 0; j < 2; ++j) {
+      double v = NAN;
+      const uint64_t doubtful = calls_.doubtfulCalls();
+      try {
+        v = run(first_id + static_cast<size_t>(j), *programs[j]);
+      } catch (const std::exception&) {
+        v = NAN;
+      }
+      if (!std::isfinite(v)) {
+        fault(Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
+              "the check `" + c.name + "` cannot be evaluated: ", "", results);
+        return;
+      }
+      side[j] = v;
+      if (calls_.doubtfulCalls() != doubtful)
+        addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j],
+                  model_.checkFile(k), results);
     }
-    if (!std::isfinite(v)) {
-      fault(Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
-            "the check `" + c.name + "` cannot be evaluated: ", "", results);
-      return;
-    }
-    side[j] = v;
-    if (calls_.doubtfulCalls() != doubtful)
-      addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
-                results);
   }
   r.ok = true;
   r.lhs = side[0];
@@ -203,13 +267,16 @@ const std::vector<Slot>& Evaluation::coneOf(const Inputs& inputs) {
   cone_key_.clear();
   for (const Binding& b : own) cone_key_.push_back(b.slot);
   cone_ = model_.downstream(cone_key_);
-  std::vector<char> in(model_.slotCount(), 0);
-  for (Slot s : cone_) in[s.index()] = 1;
+  in_cone_.assign(model_.slotCount(), 0);
+  for (Slot s : cone_) in_cone_[s.index()] = 1;
   cone_checks_.clear();
+  check_in_cone_.assign(model_.checks().size(), 0);
   for (size_t k = 0; k < model_.checks().size(); ++k) {
     const std::vector<Slot>& reads = model_.checks()[k].reads;
-    if (std::any_of(reads.begin(), reads.end(), [&](Slot r) { return in[r.index()] != 0; }))
+    if (std::any_of(reads.begin(), reads.end(), [&](Slot r) { return in_cone_[r.index()] != 0; })) {
       cone_checks_.push_back(k);
+      check_in_cone_[k] = 1;
+    }
   }
   return cone_;
 }
@@ -222,20 +289,19 @@ void Evaluation::evaluateCone(const Inputs& inputs, Results* results) {
   const std::vector<Slot>& cone = coneOf(inputs);
   std::memcpy(values_.data(), results->values.data(), values_.size() * sizeof(double));
   // The cone's warnings are found again; the others stand.
-  std::vector<char> rerun(model_.slotCount(), 0), rerun_check(model_.checks().size(), 0);
-  for (Slot s : cone) rerun[s.index()] = 1;
-  for (size_t k : cone_checks_) rerun_check[k] = 1;
   std::vector<Fault>& w = results->warnings;
-  w.erase(std::remove_if(w.begin(), w.end(),
-                         [&](const Fault& f) {
-                           return f.site == Fault::Site::Quantity ? rerun[f.index] != 0
-                                                                  : rerun_check[f.index] != 0;
-                         }),
-          w.end());
+  if (!w.empty())
+    w.erase(std::remove_if(w.begin(), w.end(),
+                           [&](const Fault& f) {
+                             return f.site == Fault::Site::Quantity ? in_cone_[f.index] != 0
+                                                                    : check_in_cone_[f.index] != 0;
+                           }),
+            w.end());
   bindInputs(inputs);
   for (Slot s : cone) evaluateSlot(s, results);
   unbindInputs();
-  for (Slot s : cone) results->values[s.index()] = values_[s.index()];
+  // Outside the cone values_ holds the base's values, copied in above: copy the whole array back.
+  std::memcpy(results->values.data(), values_.data(), values_.size() * sizeof(double));
   if (!results->faults.empty()) {
     // As evaluate(): no check is evaluated once a quantity has failed.
     std::fill(results->checks.begin(), results->checks.end(), CheckResult());
@@ -245,7 +311,7 @@ void Evaluation::evaluateCone(const Inputs& inputs, Results* results) {
     return;
   }
   for (size_t k : cone_checks_) evaluateCheck(k, results);
-  sortWarnings(&w);
+  if (w.size() > 1) sortWarnings(&w);
 }
 
 Results evaluate(const Model& model, const Inputs& inputs) {

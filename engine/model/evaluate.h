@@ -10,7 +10,9 @@
 // A formula is set into a parser of its own on its second evaluation in a
 // context (the first goes through one shared scratch parser), so a one-shot
 // run of a huge sheet keeps no parsers, and a sweep keeps one per formula of
-// the cone it re-runs, up to EvaluationOptions::max_kept_programs.
+// the cone it re-runs, up to EvaluationOptions::max_kept_programs. A formula
+// that is one library call of names (Program::direct_call), a lone name or a
+// lone literal needs no parser: it is called or read directly.
 #pragma once
 
 #include <memory>
@@ -53,6 +55,12 @@ class Evaluation {
   void evaluateSlot(Slot slot, Results* results);
   void evaluateCheck(size_t k, Results* results);
   double run(size_t id, const Program& program);
+  double runOnce(const Program& program);  // a --set program: never kept
+  bool callDirect(const Program& program, double* v);
+  double runDirect(const Program& program);
+  [[gnu::cold]] [[gnu::noinline]] void slotFailed(Slot slot, const Binding* b, const char* internal,
+                                                  Results* results);
+  [[gnu::cold]] [[gnu::noinline]] void slotDoubts(Slot slot, const Binding* b, Results* results);
   double runScratch(const Program& program);
   void fault(Fault::Site site, uint32_t index, const Expr& expr, const SourceFile& file,
              const std::string& prefix, const std::string& internal, Results* results);
@@ -73,6 +81,7 @@ class Evaluation {
   // The cone of the last evaluateCone, for the bound slots it was built for.
   std::vector<Slot> cone_key_, cone_;
   std::vector<size_t> cone_checks_;
+  std::vector<char> in_cone_, check_in_cone_;  // per slot, per check: in that cone
 };
 
 // One evaluation in a context of its own (a one-shot run).
