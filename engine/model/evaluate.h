@@ -54,7 +54,7 @@ class Evaluation {
   void evaluateCheck(size_t k, Results* results);
   double run(size_t id, const Program& program);
   double runScratch(const Program& program);
-  void fault(Fault::Site site, uint32_t index, const Expr& expr, const SourceFile& file,
+  void fault(Fault::Site site, uint32_t index, const Expr& expr, const NodeDims& dims, const SourceFile& file,
              const std::string& prefix, const std::string& internal, Results* results);
   const std::vector<Slot>& coneOf(const Inputs& inputs);
 

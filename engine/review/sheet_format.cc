@@ -55,10 +55,10 @@ void canonicalize(Expr* e, bool power_base) {
     if (canonicalSpelling(*e->unit, &text)) {
       // A base of a power keeps its brackets: `3 [mm]^2` is not `3 mm^2`,
       // which reads two ways and is an error.
-      if (!power_base && (text == "%" || isBareUnitName(text))) e->unit_written = text;
-      else e->unit_written = "[" + text + "]";
+      if (!power_base && (text == "%" || isBareUnitName(text))) e->unit->written = text;
+      else e->unit->written = "[" + text + "]";
     } else {
-      e->unit_written = trimmed(e->unit_written);
+      e->unit->written = trimmed(e->unit->written);
     }
   }
   for (size_t i = 0; i < e->args.size(); ++i) canonicalize(e->args[i].get(), e->kind == ExprKind::Power && i == 0);

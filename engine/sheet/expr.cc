@@ -1,5 +1,7 @@
 #include "engine/sheet/expr.h"
 
+#include <algorithm>
+
 namespace calctrail {
 
 ExprList::ExprList(ExprList&& o) noexcept : data_(o.data_), size_(o.size_), capacity_(o.capacity_) {
@@ -48,13 +50,35 @@ ExprPtr cloneExpr(const Expr& e) {
   c->end = e.end;
   c->text = e.text;
   c->number = e.number;
-  c->unit_written = e.unit_written;
-  if (e.unit) c->unit = std::make_unique<Unit>(*e.unit);
+  c->id = e.id;
+  if (e.unit) c->unit = std::make_unique<NumberUnit>(*e.unit);
   c->args.reserve(e.args.size());
   for (const ExprPtr& a : e.args) c->args.push_back(cloneExpr(*a));
-  c->dim = e.dim;
-  c->temperature = e.temperature;
   return c;
+}
+
+const std::string& Expr::unitWritten() const {
+  static const std::string none;
+  return unit ? unit->written : none;
+}
+
+namespace {
+// The parser limits nesting, so these walks stay shallow.
+void numberFrom(Expr& e, uint32_t* next) {
+  e.id = (*next)++;
+  for (ExprPtr& a : e.args) numberFrom(*a, next);
+}
+}  // namespace
+
+void numberNodes(Expr& root) {
+  uint32_t next = 0;
+  numberFrom(root, &next);
+}
+
+uint32_t nodeCount(const Expr& root) {
+  uint32_t n = root.id + 1;
+  for (const ExprPtr& a : root.args) n = std::max(n, nodeCount(*a));
+  return n;
 }
 
 void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
@@ -65,8 +89,8 @@ void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
 namespace {
 // A number whose unit is written without brackets where `render` shows it.
 bool numberShownWithBareUnit(const Expr& e, bool pretty) {
-  if (e.kind != ExprKind::Number || e.unit_written.empty()) return false;
-  return pretty ? e.unit != nullptr : e.unit_written[0] != '[';
+  if (e.kind != ExprKind::Number || e.unitWritten().empty()) return false;
+  return pretty ? e.unit != nullptr : e.unitWritten()[0] != '[';
 }
 
 void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::string* out) {
@@ -83,10 +107,10 @@ void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::strin
         const std::string u = e.unit->pretty();
         if (u != "\u00B0") *out += ' ';
         *out += u;
-      } else if (!e.unit_written.empty()) {
+      } else if (!e.unitWritten().empty()) {
         // "95 %", "20 kN", "9.81 [m/s^2]": one space between number and unit.
         *out += ' ';
-        *out += e.unit_written;
+        *out += e.unitWritten();
       }
       break;
     case ExprKind::Pi:

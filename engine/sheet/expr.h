@@ -26,12 +26,12 @@ enum class ExprKind : uint8_t {
   Group,     // (a): kept so the trail shows the author's parentheses
 };
 
-// What a temperature-valued node stands for. The SI value of both is in
-// kelvin, but only an interval may be scaled, negated or summed.
-enum class TemperatureKind : uint8_t {
-  Unknown,     // not a temperature, or one in K (which serves for both)
-  Absolute,    // a point on a scale with an offset: 20 degC, T1 + 5 ddegC
-  Difference,  // an interval: 5 ddegC, T2 - T1
+// The unit of a Number node: the unit resolved, and as written ("kN",
+// "[m/s^2]"). One allocation for the few nodes that have a unit, instead of
+// a string in every node (docs/performance.md, Memory).
+struct NumberUnit : Unit {
+  /// The unit as written after the number, brackets included.
+  std::string written;
 };
 
 struct Expr;
@@ -69,23 +69,35 @@ class ExprList {
   uint32_t size_ = 0, capacity_ = 0;
 };
 
-// Members ordered so that the node fits 120 bytes (a 128-byte malloc chunk).
+// A node of the tree as parsed. Nothing later writes into it: what the
+// dimension check finds (each node's dimension, its temperature kind) is
+// kept apart, by `id`, in the Model (engine/eval/node_dims.h). Members
+// ordered so that the node fits 80 bytes (a 96-byte malloc chunk).
 struct Expr {
   ExprKind kind = ExprKind::Number;
-  TemperatureKind temperature = TemperatureKind::Unknown;  // filled in by the dimension check
+  /// The node's number in its tree, in preorder from 0 at the root (numberNodes): the index
+  /// of its entry in a side table over the tree (NodeDims). A copy (cloneExpr) keeps it.
+  uint32_t id = 0;
   uint32_t begin = 0, end = 0;  // byte offsets of the whole node in its file
-  Dimension dim;  // filled in by the dimension check
   // Number: the literal as written ("0.25") and its value in that unit.
   // Name, Call: the name.
   std::string text;
   double number = 0.0;
-  // Number with a unit: the unit as written ("kN", "[m/s^2]") and resolved.
-  std::string unit_written;
-  std::unique_ptr<Unit> unit;
+  // Number with a unit: the unit resolved, and as written.
+  std::unique_ptr<NumberUnit> unit;
   ExprList args;  // operands or call arguments
 
   double siValue() const { return unit ? unit->toSI(number) : number; }
+  /// The unit as written ("kN", "[m/s^2]"); "" for a number without one and any other node.
+  const std::string& unitWritten() const;
 };
+
+// Numbers the nodes of `root` 0, 1, 2, ... in preorder (Expr::id). The
+// expression parser does it once for every tree it returns.
+void numberNodes(Expr& root);
+// The size of a side table over `root`: its largest Expr::id plus one (its
+// node count, for a tree the parser numbered).
+uint32_t nodeCount(const Expr& root);
 
 // `e` without the parentheses around it: `((a))` is `a`.
 inline const Expr* withoutParens(const Expr* e) {
