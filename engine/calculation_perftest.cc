@@ -513,6 +513,7 @@ std::vector<double> stagedRun(const std::string& text, CaseResult* r) {
     });
     input[i] = !any_name && !hasCall(*sheet.quantities[i].expr);
   }
+  graph.finish();
   for (const Check& c : sheet.checks)
     for (const Expr* side : {c.lhs.get(), c.rhs.get()})
       forEachName(*side, [&](const Expr& e) { unknown += sheet.find(e.text) < 0; });
@@ -896,6 +897,7 @@ void runErrorCase(const std::string& shape, int n, ErrorCaseResult* r) {
     } else {
       for (int k = 0; k + 1 < n; k += 2) graph.addUse(k, k + 1), graph.addUse(k + 1, k);
     }
+    graph.finish();
     std::vector<std::vector<int>> cycles;
     const double s0 = now(), sc0 = cpuNow();
     graph.order(&cycles);

@@ -55,7 +55,7 @@ bool Inputs::computeOrder(std::vector<Slot>* order) const {
   for (Slot s : m.order()) {
     const Binding* b = find(s);
     any |= b && b->reads_slots;
-    const std::vector<int>& reads = b ? b->program.inputs : m.graph().uses(static_cast<int>(s.index()));
+    const NodeList reads = b ? NodeList(b->program.inputs) : m.graph().uses(static_cast<int>(s.index()));
     for (int j : reads) {
       if (!in_model[j]) continue;  // on a cycle of the sheet: reported there
       users[j].push_back(static_cast<int>(s.index()));

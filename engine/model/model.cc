@@ -311,6 +311,7 @@ void Model::resolveNames(Diagnostics* diags) {
     });
     slots_[i].input = !any_name && !hasCall(*q.expr);
   }
+  graph_->finish();
   for (size_t k = 0; k < sheet_->checks.size(); ++k) {
     const Check& c = sheet_->checks[k];
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
@@ -542,9 +543,7 @@ size_t Model::compiledBytes() const {
   bytes += dims_.capacity() * sizeof(Dimension) + known_.capacity() + unresolved_.capacity();
   bytes += temperatures_.capacity() * sizeof(TemperatureKind) + node_dims_.capacity() * sizeof(Dimension) +
            dims_at_.capacity() * sizeof(uint32_t);
-  for (int i = 0; i < graph_->size(); ++i)
-    bytes += (graph_->uses(i).capacity() + graph_->usedBy(i).capacity()) * sizeof(int) +
-             2 * sizeof(std::vector<int>);
+  bytes += sizeof(DependencyGraph) + graph_->bytes();
   return bytes;
 }
 
