@@ -58,7 +58,7 @@ std::string dumpSheet(const Sheet& s) {
   std::string out;
   for (const Statement& st : s.statements)
     out += "st " + std::to_string(st.kind) + " " + std::to_string(st.line) + " " + std::to_string(st.index) +
-           " '" + st.text + "' '" + st.key + "'\n";
+           " '" + st.text() + "' '" + st.key() + "'\n";
   for (const Quantity& q : s.quantities) {
     out += "q " + q.name + " " + std::to_string(q.name_begin) + "-" + std::to_string(q.name_end) + " [" +
            q.unit_written + "] " + std::to_string(q.unit_begin) + "-" + std::to_string(q.unit_end) + " ";

@@ -850,7 +850,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   };
   for (const Statement& st : sheet.statements) {
     if (st.kind == Statement::Note) {
-      note += (note.empty() ? "" : " ") + st.text;
+      note += (note.empty() ? "" : " ") + st.text();
       continue;
     }
     if (st.kind == Statement::Blank || st.kind == Statement::Comment || st.kind == Statement::Meta) {
@@ -858,7 +858,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
       continue;
     }
     flushNote();
-    if (st.kind == Statement::Section) t.blocks.push_back({TrailBlock::Section, st.text, 0});
+    if (st.kind == Statement::Section) t.blocks.push_back({TrailBlock::Section, st.text(), 0});
     if (st.kind == Statement::Define) t.blocks.push_back({TrailBlock::Step, "", st.index});
     if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
   }

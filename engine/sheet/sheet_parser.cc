@@ -88,7 +88,8 @@ class LineParser {
     }
     if (s[p] == '#') {
       st->kind = Statement::Comment;
-      st->text = trim(std::string_view(s).substr(p + 1, end - p - 1));
+      st->words = std::make_shared<const StatementText>(
+          StatementText{trim(std::string_view(s).substr(p + 1, end - p - 1)), std::string()});
       return true;
     }
     const uint32_t word_end = scanName(p, end);
@@ -108,13 +109,14 @@ class LineParser {
     if (word == "use" && statement_word) return parseUse(st, line, p, word_end, next, end);
     if ((word == "section" || word == "note") && !definition_follows && nc != ':') {
       st->kind = word == "section" ? Statement::Section : Statement::Note;
-      st->text = trim(std::string_view(s).substr(next, end - next));
+      st->words = std::make_shared<const StatementText>(
+          StatementText{trim(std::string_view(s).substr(next, end - next)), std::string()});
       if (st->kind == Statement::Section) {
-        if (st->text.empty()) {
+        if (st->text().empty()) {
           diags_->error(file_, p, word_end, "a section needs a title: `section Loads and speeds`");
           return false;
         }
-        section_ = st->text;
+        section_ = st->text();
       }
       return true;
     }
@@ -186,8 +188,8 @@ class LineParser {
       return false;
     }
     st->kind = Statement::Meta;
-    st->key = key;
-    st->text = trim(std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1));
+    st->words = std::make_shared<const StatementText>(
+        StatementText{trim(std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1)), key});
     if (key == "units") {
       const std::string_view raw = std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1);
       std::string error;
@@ -198,7 +200,7 @@ class LineParser {
         return false;
       }
     }
-    sheet_->meta.values[key] = st->text;
+    sheet_->meta.values[key] = st->text();
     return true;
   }
 
