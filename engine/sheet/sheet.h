@@ -34,7 +34,9 @@ struct Quantity {
   uint32_t name_begin = 0, name_end = 0;
   std::string unit_written;       // display unit as written in [ ], "" if none
   uint32_t unit_begin = 0, unit_end = 0;
-  std::optional<Unit> display;    // resolved display unit (also a dimension assertion)
+  /// The resolved display unit (also a dimension assertion); null if none. Shared by every
+  /// quantity of the sheet that writes the same unit (one per distinct unit, memory per line).
+  std::shared_ptr<const Unit> display;
   ExprPtr expr;
   std::string description;        // text after '#'
   std::string section;            // the heading it stands under, "" before any

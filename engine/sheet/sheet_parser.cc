@@ -215,6 +215,13 @@ class LineParser {
     q->unit_begin = *at + 1;
     q->unit_end = static_cast<uint32_t>(close);
     q->unit_written = s.substr(q->unit_begin, q->unit_end - q->unit_begin);
+    // The same text is the same unit: parsed once per sheet, shared.
+    auto known = display_units_.find(q->unit_written);
+    if (known != display_units_.end()) {
+      q->display = known->second;
+      *at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
+      return true;
+    }
     Unit unit;
     UnitError err;
     if (!parseUnit(q->unit_written, &unit, &err)) {
@@ -222,7 +229,8 @@ class LineParser {
       diags_->error(file_, e, std::max(e + 1, q->unit_end), err.message);
       return false;
     }
-    q->display = std::move(unit);
+    q->display = std::make_shared<const Unit>(std::move(unit));
+    display_units_.emplace(q->unit_written, q->display);
     *at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
     return true;
   }
@@ -921,6 +929,8 @@ class LineParser {
   const SourceFile& file_;
   Diagnostics* diags_;
   std::string section_;
+  // The display units parsed so far, by their text as written.
+  std::unordered_map<std::string, std::shared_ptr<const Unit>> display_units_;
   std::unordered_map<std::string, int> check_index_;  // check name -> position, for duplicates
   std::unordered_map<std::string, int> use_index_;    // instance name -> position in uses, for duplicates
 };
