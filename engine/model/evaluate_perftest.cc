@@ -14,7 +14,12 @@
 //    context adds after one evaluation (scratch parser only) and after a
 //    second (every formula kept set in a parser of its own).
 //
-//   evaluate_perftest [--points N] [--blocks B] [--worksheets DIR]
+//   evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--memory-only]
+//                     [--write-sheet FILE]
+//
+// --memory-only skips part 1; --write-sheet writes the generated sheet of
+// part 2 to FILE and stops (for `calctrail report` under /usr/bin/time -v,
+// docs/performance.md; do not commit the file).
 //
 // Exit status: 0; 2 when the worksheet does not calculate cleanly or the
 // port's values differ from the engine's (a bug in one of them).
@@ -226,7 +231,9 @@ void memoryFigures(const Model& demo, int blocks) {
 }
 
 int usage() {
-  std::fprintf(stderr, "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR]\n");
+  std::fprintf(stderr,
+               "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--memory-only] "
+               "[--write-sheet FILE]\n");
   return 2;
 }
 
@@ -234,7 +241,8 @@ int usage() {
 
 int main(int argc, char** argv) {
   int points = 20000, blocks = 2000;
-  std::string dir;
+  std::string dir, write_sheet;
+  bool memory_only = false;
   for (int i = 1; i < argc; ++i) {
     const std::string a = argv[i];
     if (a == "--points" && i + 1 < argc)
@@ -243,6 +251,10 @@ int main(int argc, char** argv) {
       blocks = std::atoi(argv[++i]);
     else if (a == "--worksheets" && i + 1 < argc)
       dir = argv[++i];
+    else if (a == "--write-sheet" && i + 1 < argc)
+      write_sheet = argv[++i];
+    else if (a == "--memory-only")
+      memory_only = true;
     else
       return usage();
   }
@@ -258,6 +270,21 @@ int main(int argc, char** argv) {
   if (diags.hasErrors()) {
     std::fprintf(stderr, "evaluate_perftest: %s has errors\n", path.c_str());
     return 2;
+  }
+  if (!write_sheet.empty()) {
+    size_t lines = 0;
+    const std::string text = largeSheet(*model, blocks, &lines);
+    std::FILE* f = std::fopen(write_sheet.c_str(), "wb");
+    if (!f || std::fwrite(text.data(), 1, text.size(), f) != text.size() || std::fclose(f) != 0) {
+      std::fprintf(stderr, "evaluate_perftest: cannot write %s\n", write_sheet.c_str());
+      return 2;
+    }
+    std::printf("%s: %zu lines, %.1f MB\n", write_sheet.c_str(), lines, static_cast<double>(text.size()) / 1e6);
+    return 0;
+  }
+  if (memory_only) {
+    memoryFigures(*model, blocks);
+    return 0;
   }
   const Inputs nominal(*model);
   const Results base = evaluate(*model, nominal);
