@@ -1,46 +1,69 @@
 #include "engine/sheet/expr.h"
 
 #include <algorithm>
+#include <new>
 
 namespace calctrail {
 
-ExprList::ExprList(ExprList&& o) noexcept : data_(o.data_), size_(o.size_), capacity_(o.capacity_) {
-  o.data_ = nullptr;
-  o.size_ = o.capacity_ = 0;
+ExprList::ExprList() {
+  for (uint32_t i = 0; i < kInline; ++i) new (&store_.own[i]) ExprPtr();
 }
 
+ExprList::ExprList(ExprList&& o) noexcept : ExprList() { *this = std::move(o); }
+
 ExprList& ExprList::operator=(ExprList&& o) noexcept {
-  if (this != &o) {
-    delete[] data_;
-    data_ = o.data_;
-    size_ = o.size_;
+  if (this == &o) return *this;
+  clear();  // inline and empty
+  if (o.inlined()) {
+    for (uint32_t i = 0; i < o.size_; ++i) store_.own[i] = std::move(o.store_.own[i]);
+  } else {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].~ExprPtr();
+    store_.heap = o.store_.heap;
     capacity_ = o.capacity_;
-    o.data_ = nullptr;
-    o.size_ = o.capacity_ = 0;
+    for (uint32_t i = 0; i < kInline; ++i) new (&o.store_.own[i]) ExprPtr();
+    o.capacity_ = kInline;
   }
+  size_ = o.size_;
+  o.size_ = 0;
   return *this;
 }
 
-ExprList::~ExprList() { delete[] data_; }
+ExprList::~ExprList() {
+  if (inlined()) {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].~ExprPtr();
+  } else {
+    delete[] store_.heap;
+  }
+}
 
 void ExprList::reserve(size_t n) {
   if (n <= capacity_) return;
   auto* grown = new ExprPtr[n];
-  for (uint32_t i = 0; i < size_; ++i) grown[i] = std::move(data_[i]);
-  delete[] data_;
-  data_ = grown;
+  ExprPtr* from = data();
+  for (uint32_t i = 0; i < size_; ++i) grown[i] = std::move(from[i]);
+  if (inlined()) {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].~ExprPtr();
+  } else {
+    delete[] store_.heap;
+  }
+  store_.heap = grown;
   capacity_ = static_cast<uint32_t>(n);
 }
 
 void ExprList::push_back(ExprPtr e) {
-  if (size_ == capacity_) reserve(capacity_ == 0 ? 2 : size_t{capacity_} * 2);
-  data_[size_++] = std::move(e);
+  if (size_ == capacity_) reserve(size_t{capacity_} * 2);
+  data()[size_++] = std::move(e);
 }
 
 void ExprList::clear() {
-  delete[] data_;
-  data_ = nullptr;
-  size_ = capacity_ = 0;
+  if (!inlined()) {
+    delete[] store_.heap;
+    for (uint32_t i = 0; i < kInline; ++i) new (&store_.own[i]) ExprPtr();
+    capacity_ = kInline;
+  } else {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].reset();
+  }
+  size_ = 0;
 }
 
 ExprPtr cloneExpr(const Expr& e) {

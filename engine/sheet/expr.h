@@ -37,13 +37,15 @@ struct NumberUnit : Unit {
 struct Expr;
 using ExprPtr = std::unique_ptr<Expr>;
 
-// The operands of a node: a vector of ExprPtr in 16 bytes instead of 24
-// (a pointer and two 32-bit counts). Most nodes are leaves, and a large
-// sheet has millions of nodes, so the 8 bytes take every node down a malloc
-// size class (docs/performance.md, Memory).
+// The operands of a node: a vector of ExprPtr in 24 bytes whose first two
+// operands live in the node itself (an operator's two, a negation's or a
+// group's one, a call's first two): only a call of three arguments or more
+// allocates an array. A large sheet has millions of nodes, and an operand
+// array of two pointers was a 32-byte malloc chunk of its own
+// (docs/performance.md, Memory).
 class ExprList {
  public:
-  ExprList() = default;
+  ExprList();
   ExprList(ExprList&& o) noexcept;
   ExprList& operator=(ExprList&& o) noexcept;
   ExprList(const ExprList&) = delete;
@@ -52,27 +54,38 @@ class ExprList {
 
   size_t size() const { return size_; }
   bool empty() const { return size_ == 0; }
-  ExprPtr& operator[](size_t i) { return data_[i]; }
-  const ExprPtr& operator[](size_t i) const { return data_[i]; }
-  ExprPtr* begin() { return data_; }
-  ExprPtr* end() { return data_ + size_; }
-  const ExprPtr* begin() const { return data_; }
-  const ExprPtr* end() const { return data_ + size_; }
-  ExprPtr& back() { return data_[size_ - 1]; }
-  const ExprPtr& back() const { return data_[size_ - 1]; }
+  ExprPtr& operator[](size_t i) { return data()[i]; }
+  const ExprPtr& operator[](size_t i) const { return data()[i]; }
+  ExprPtr* begin() { return data(); }
+  ExprPtr* end() { return data() + size_; }
+  const ExprPtr* begin() const { return data(); }
+  const ExprPtr* end() const { return data() + size_; }
+  ExprPtr& back() { return data()[size_ - 1]; }
+  const ExprPtr& back() const { return data()[size_ - 1]; }
   void push_back(ExprPtr e);
   void reserve(size_t n);
   void clear();
 
  private:
-  ExprPtr* data_ = nullptr;  // new ExprPtr[capacity_]
-  uint32_t size_ = 0, capacity_ = 0;
+  static constexpr uint32_t kInline = 2;
+  bool inlined() const { return capacity_ <= kInline; }
+  ExprPtr* data() { return inlined() ? store_.own : store_.heap; }
+  const ExprPtr* data() const { return inlined() ? store_.own : store_.heap; }
+  // The operands in the node while capacity_ <= kInline, else new ExprPtr[capacity_].
+  union Store {
+    Store() {}
+    ~Store() {}
+    ExprPtr own[kInline];
+    ExprPtr* heap;
+  } store_;
+  uint32_t size_ = 0, capacity_ = kInline;
 };
 
 // A node of the tree as parsed. Nothing later writes into it: what the
 // dimension check finds (each node's dimension, its temperature kind) is
 // kept apart, by `id`, in the Model (engine/eval/node_dims.h). Members
-// ordered so that the node fits 80 bytes (a 96-byte malloc chunk).
+// ordered so that the node, its first two operands included, fits 88 bytes
+// (a 96-byte malloc chunk).
 struct Expr {
   ExprKind kind = ExprKind::Number;
   /// The node's number in its tree, in preorder from 0 at the root (numberNodes): the index
