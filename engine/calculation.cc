@@ -175,6 +175,12 @@ bool readsNothing(const Expr& e) {
 }
 }  // namespace
 
+NodeDims Calculation::exprDims(size_t i) const {
+  const Slot slot(static_cast<uint32_t>(i));
+  if (const Binding* b = inputs ? inputs->find(slot) : nullptr; b && b->expr) return b->dims.view();
+  return model->formulaDims(slot);
+}
+
 void Calculation::fillStates() {
   const Model& m = *model;
   graph = std::make_unique<DependencyGraph>(m.graph());

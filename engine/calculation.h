@@ -104,6 +104,9 @@ class Calculation {
   std::string shown_case;
 
   bool hasErrors() const { return diags.hasErrors(); }
+  // The dimensions of the nodes of quantity i's formula as `sheet` shows it:
+  // the --set (or shown case's) replacement's where one stands, else the model's.
+  NodeDims exprDims(size_t i) const;
   bool allChecksPass() const;
   int failedChecks() const;
   // Some load case could not be calculated (its errors are in CaseRun::errors).

@@ -537,6 +537,7 @@ std::vector<double> stagedRun(const std::string& text, CaseResult* r) {
     });
     input[i] = !any_name && !hasCall(*sheet.quantities[i].expr);
   }
+  graph.finish();
   for (const Check& c : sheet.checks)
     for (const Expr* side : {c.lhs.get(), c.rhs.get()})
       forEachName(*side, [&](const Expr& e) { unknown += sheet.find(e.text) < 0; });
@@ -549,14 +550,15 @@ std::vector<double> stagedRun(const std::string& text, CaseResult* r) {
   std::vector<Dimension> dims(n);
   std::vector<char> known(n, 0), broken(n, 0);
   std::vector<Unit> display(n);
+  std::vector<TreeDims> tree_dims(n);
   for (int i = 0; i < n; ++i)
     forEachName(*sheet.quantities[i].expr, [&](const Expr& e) { broken[i] |= sheet.find(e.text) < 0; });
   for (int i : order) {
-    Quantity& q = sheet.quantities[i];
+    const Quantity& q = sheet.quantities[i];
     if (broken[i]) continue;
     DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
-    if (!checker.check(*q.expr)) continue;
-    Dimension d = q.expr->dim;
+    if (!checker.check(*q.expr, &tree_dims[i])) continue;
+    Dimension d = tree_dims[i].of(*q.expr);
     if (workOrPower(d)) d = d.withoutAngle();
     dims[i] = d;
     known[i] = 1;
@@ -569,11 +571,13 @@ std::vector<double> stagedRun(const std::string& text, CaseResult* r) {
       (void)strayAngleWarning(q.name, d);
     }
   }
-  for (Check& c : sheet.checks) {
+  std::vector<TreeDims> check_dims(2 * sheet.checks.size());
+  for (size_t k = 0; k < sheet.checks.size(); ++k) {
+    const Check& c = sheet.checks[k];
     DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
-    if (!checker.check(*c.lhs) || !checker.check(*c.rhs)) continue;
+    if (!checker.check(*c.lhs, &check_dims[2 * k]) || !checker.check(*c.rhs, &check_dims[2 * k + 1])) continue;
     bool incompatible;
-    (void)compareForSum(c.lhs->dim, c.rhs->dim, &incompatible);
+    (void)compareForSum(check_dims[2 * k].of(*c.lhs), check_dims[2 * k + 1].of(*c.rhs), &incompatible);
   }
   r->check = now() - t;
 
@@ -581,12 +585,13 @@ std::vector<double> stagedRun(const std::string& text, CaseResult* r) {
   t = now();
   std::vector<Program> programs(n);
   for (int i : order)
-    if (known[i]) programs[i] = compileProgram(*sheet.quantities[i].expr, sheet);
+    if (known[i]) programs[i] = compileProgram(*sheet.quantities[i].expr, tree_dims[i].view(), sheet);
   std::vector<Program> check_programs;
   check_programs.reserve(2 * sheet.checks.size());
-  for (const Check& c : sheet.checks) {
-    check_programs.push_back(compileProgram(*c.lhs, sheet));
-    check_programs.push_back(compileProgram(*c.rhs, sheet));
+  for (size_t k = 0; k < sheet.checks.size(); ++k) {
+    const Check& c = sheet.checks[k];
+    check_programs.push_back(compileProgram(*c.lhs, check_dims[2 * k].view(), sheet));
+    check_programs.push_back(compileProgram(*c.rhs, check_dims[2 * k + 1].view(), sheet));
   }
   r->compile = now() - t;
 
@@ -751,14 +756,16 @@ void runParserNote(ParserNote* note) {
   std::vector<Dimension> dims(n);
   std::vector<char> known(n, 1);
   std::vector<Program> programs(n);
+  std::vector<TreeDims> tree_dims(n);
   for (int i = 0; i < n; ++i) {  // a chain: document order is dependency order
     DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
-    checker.check(*sheet.quantities[i].expr);
-    dims[i] = sheet.quantities[i].expr->dim;
+    checker.check(*sheet.quantities[i].expr, &tree_dims[i]);
+    dims[i] = tree_dims[i].of(*sheet.quantities[i].expr);
   }
   {
     const double t = now();
-    for (int i = 0; i < n; ++i) programs[i] = compileProgram(*sheet.quantities[i].expr, sheet);
+    for (int i = 0; i < n; ++i)
+      programs[i] = compileProgram(*sheet.quantities[i].expr, tree_dims[i].view(), sheet);
     note->compile_us = (now() - t) * 1000.0 / n;
   }
   std::vector<double> values(n, 1.0);
@@ -767,7 +774,8 @@ void runParserNote(ParserNote* note) {
     const double t = now();
     EvalFault fault;
     const NameValue value_of = [&](const Expr& e) { return values[sheet.find(e.text)]; };
-    for (int i = 0; i < n; ++i) values[i] = evalTree(*sheet.quantities[i].expr, value_of, &fault);
+    for (int i = 0; i < n; ++i)
+      values[i] = evalTree(*sheet.quantities[i].expr, tree_dims[i].view(), value_of, &fault);
     note->tree_us = (now() - t) * 1000.0 / n;
   }
   {
@@ -925,6 +933,7 @@ void runErrorCase(const std::string& shape, int n, ErrorCaseResult* r) {
     } else {
       for (int k = 0; k + 1 < n; k += 2) graph.addUse(k, k + 1), graph.addUse(k + 1, k);
     }
+    graph.finish();
     std::vector<std::vector<int>> cycles;
     const double s0 = now(), sc0 = cpuNow();
     graph.order(&cycles);

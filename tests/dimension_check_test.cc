@@ -30,9 +30,10 @@ Checked check(const std::string& text) {
   Checked out;
   for (size_t i = 0; i < n; ++i) {
     DimensionChecker checker(*sheet.file, &diags, sheet, dims, known);
-    out.ok = checker.check(*sheet.quantities[i].expr);
+    TreeDims tree;
+    out.ok = checker.check(*sheet.quantities[i].expr, &tree);
     if (out.ok) {
-      dims[i] = sheet.quantities[i].expr->dim;
+      dims[i] = tree.of(*sheet.quantities[i].expr);
       known[i] = 1;
       out.dim = dims[i];
     }

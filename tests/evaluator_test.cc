@@ -104,7 +104,7 @@ TEST_CASE("evaluator: the compiled path and the interpreter agree", "[evaluator]
     values[s.index()] = evaluator.run(model->slot(s).formula, values);
     EvalFault fault;
     const double tree = evalTree(
-        model->formulaExpr(s), [&](const Expr& e) { return values[model->find(e.text).index()]; }, &fault);
+        model->formulaExpr(s), model->formulaDims(s), [&](const Expr& e) { return values[model->find(e.text).index()]; }, &fault);
     INFO(model->quantity(s).name);
     REQUIRE(fault.node == nullptr);
     CHECK(tree == Approx(values[s.index()]).epsilon(1e-14));

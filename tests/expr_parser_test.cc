@@ -119,7 +119,7 @@ TEST_CASE("expr parser: units after numbers", "[expr]") {
   CHECK(treeOf("2 m / 4 s") == "(/ 2[m] 4[s])");
   Parsed p = parse("9.81 [m/s^2]");
   REQUIRE(p.expr);
-  CHECK(p.expr->unit_written == "[m/s^2]");
+  CHECK(p.expr->unitWritten() == "[m/s^2]");
   CHECK(p.expr->siValue() == Approx(9.81).epsilon(1e-15));
   // A name is never a unit: in 2*d, d is a quantity.
   CHECK(treeOf("2*d") == "(* 2 d)");

@@ -79,8 +79,9 @@ ParsedFormula parseFormula(const FunctionDecl& d) {
 
 double evalFormula(const calctrail::Expr& e, const std::map<std::string, double>& vars) {
   calctrail::EvalFault fault;
+  // The library's formulas are read without a dimension check: every node reads as plain.
   const double v = calctrail::evalTree(
-      e, [&](const calctrail::Expr& n) { return vars.count(n.text) ? vars.at(n.text) : NAN; }, &fault);
+      e, calctrail::NodeDims(), [&](const calctrail::Expr& n) { return vars.count(n.text) ? vars.at(n.text) : NAN; }, &fault);
   INFO(fault.message);
   CHECK(fault.node == nullptr);
   return v;

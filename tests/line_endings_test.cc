@@ -111,6 +111,6 @@ TEST_CASE("line endings: CRLF and a final line without LF are accepted", "[lines
   REQUIRE_FALSE(c->hasErrors());
   CHECK(si(*c, "b") == 2000);
   CHECK(si(*c, "c") == 3);
-  CHECK(c->sheet.statements[2].text == "c");
-  CHECK(c->sheet.statements[3].text == "text");
+  CHECK(c->sheet.statements[2].text() == "c");
+  CHECK(c->sheet.statements[3].text() == "text");
 }

@@ -95,7 +95,7 @@ TEST_CASE("model: evaluating never changes the model: two inputs, then the first
   auto m = build("d = 20 mm\nA [mm^2] = pi * d^2 / 4\ncheck small: A < 1000 [mm^2]\n", &diags);
   REQUIRE_FALSE(diags.hasErrors());
   const std::string formula_before = m->slot(m->find("A")).formula.text;
-  const Dimension dim_before = m->formulaExpr(m->find("A")).dim;
+  const Dimension dim_before = m->formulaDims(m->find("A")).of(m->formulaExpr(m->find("A")));
   const Inputs nominal(*m);
   Inputs bigger(*m);
   REQUIRE(bigger.set("d = 40 mm", &diags));
@@ -110,7 +110,7 @@ TEST_CASE("model: evaluating never changes the model: two inputs, then the first
   CHECK(std::memcmp(first.values.data(), again.values.data(), first.values.size() * sizeof(double)) == 0);
   CHECK(again.checks[0].passed);
   CHECK(m->slot(A).formula.text == formula_before);
-  CHECK(m->formulaExpr(A).dim == dim_before);
+  CHECK(m->formulaDims(A).of(m->formulaExpr(A)) == dim_before);
   CHECK(m->sheet().quantities[0].expr->text == "20");
   CHECK_FALSE(m->sheet().quantities[0].overridden);
 }

@@ -62,7 +62,7 @@ TEST_CASE("metadata, sections and notes", "[sheet]") {
   CHECK(s.quantities[0].section == "Loads");
   CHECK(s.quantities[1].section == "Screw");
   CHECK(s.statements[6].kind == Statement::Note);
-  CHECK(s.statements[6].text == "The gate is heavy. # hashes stay in narrative");
+  CHECK(s.statements[6].text() == "The gate is heavy. # hashes stay in narrative");
 }
 
 TEST_CASE("keywords stay usable as quantity names", "[sheet]") {

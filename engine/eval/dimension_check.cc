@@ -57,11 +57,11 @@ std::string strayAngleWarning(const std::string& name, const Dimension& dim) {
 namespace {
 // The computed quantity of plain length a product with a rotational speed
 // reads (`rpm * p`, p = a formula): "" when the length is a literal or none.
-std::string computedPlainLength(const Expr& e, const Sheet& sheet) {
+std::string computedPlainLength(const Expr& e, const NodeDims& dims, const Sheet& sheet) {
   if (e.kind == ExprKind::Multiply || e.kind == ExprKind::Divide) {
     for (const ExprPtr& a : e.args) {
       const Expr* x = withoutParens(a.get());
-      if (x->kind != ExprKind::Name || x->dim != kLength) continue;
+      if (x->kind != ExprKind::Name || dims.of(*x) != kLength) continue;
       const int q = sheet.find(x->text);
       if (q < 0) continue;
       const Quantity& given = sheet.quantities[static_cast<size_t>(q)];
@@ -70,7 +70,7 @@ std::string computedPlainLength(const Expr& e, const Sheet& sheet) {
     }
   }
   for (const ExprPtr& a : e.args) {
-    const std::string found = computedPlainLength(*a, sheet);
+    const std::string found = computedPlainLength(*a, dims, sheet);
     if (!found.empty()) return found;
   }
   return "";
@@ -78,11 +78,11 @@ std::string computedPlainLength(const Expr& e, const Sheet& sheet) {
 }  // namespace
 
 std::string strayAngleWarning(const std::string& name, const Dimension& dim, const Expr& formula,
-                              const Sheet& sheet) {
+                              const NodeDims& formula_dims, const Sheet& sheet) {
   const std::string w = strayAngleWarning(name, dim);
   if (w.empty() || dim.exponent(Base::Angle) != 1 || dim.withoutAngle() != Dimension::exponents(1, 0, -1))
     return w;
-  const std::string p = computedPlainLength(formula, sheet);
+  const std::string p = computedPlainLength(formula, formula_dims, sheet);
   if (p.empty()) return w;
   return "`" + name + "` is a rotational speed times a plain length (" + dim.siSymbol() + "): if `" + p +
          "` is a lead, this is 2*pi too large; `" + p + "` is computed, so make it a length per revolution " +
@@ -123,7 +123,8 @@ bool arithmeticOnly(const Expr& e) {
 bool constantValue(const Expr& e, double* value) {
   if (!arithmeticOnly(e)) return false;
   EvalFault fault;
-  const double v = evalTree(e, [](const Expr&) { return NAN; }, &fault);
+  // No calls, so no node's dimension is read.
+  const double v = evalTree(e, NodeDims(), [](const Expr&) { return NAN; }, &fault);
   if (fault.node || !std::isfinite(v)) return false;
   *value = v;
   return true;
@@ -131,8 +132,15 @@ bool constantValue(const Expr& e, double* value) {
 
 DimensionChecker::DimensionChecker(const SourceFile& file, Diagnostics* diags, const Sheet& sheet,
                                    const std::vector<Dimension>& dims, const std::vector<char>& known,
-                                   const std::vector<FunctionDecl>& library)
-    : file_(file), diags_(diags), sheet_(sheet), dims_(dims), known_(known), library_(library) {}
+                                   const std::vector<FunctionDecl>& library,
+                                   const std::vector<TemperatureKind>* temperatures)
+    : file_(file),
+      diags_(diags),
+      sheet_(sheet),
+      dims_(dims),
+      known_(known),
+      library_(library),
+      temperatures_(temperatures) {}
 
 namespace {
 const char* const kTemperatureFix =
@@ -145,40 +153,45 @@ std::string absoluteOperand(const Expr& x, const std::string& what) {
 }
 }  // namespace
 
-TemperatureKind temperatureKind(const Quantity& q) {
+TemperatureKind temperatureKind(const Quantity& q, TemperatureKind formula) {
   if (q.display && q.display->isAbsoluteTemperature()) return TemperatureKind::Absolute;
   if (q.display && q.display->isTemperatureDifference()) return TemperatureKind::Difference;
   // [K], or a unit of any other dimension (which the dimension check rejects).
   if (q.display) return TemperatureKind::Unknown;
-  return q.expr ? q.expr->temperature : TemperatureKind::Unknown;
+  return q.expr ? formula : TemperatureKind::Unknown;
 }
 
-std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet) {
+std::string DimensionChecker::absoluteTemperatureRule(const Expr& e) {
   using K = TemperatureKind;
-  const K a = e.args.empty() ? K::Unknown : e.args[0]->temperature;
-  const K b = e.args.size() < 2 ? K::Unknown : e.args[1]->temperature;
+  const K a = e.args.empty() ? K::Unknown : temperature(*e.args[0]);
+  const K b = e.args.size() < 2 ? K::Unknown : temperature(*e.args[1]);
   const bool any_difference = a == K::Difference || b == K::Difference;
-  const bool is_temperature = e.dim == Dimension::of(Base::Temperature);
-  e.temperature = K::Unknown;
+  const bool is_temperature = dim(e) == Dimension::of(Base::Temperature);
+  K& kind = temperature(e);
+  kind = K::Unknown;
   switch (e.kind) {
     case ExprKind::Number:
-      if (e.unit && e.unit->isAbsoluteTemperature()) e.temperature = K::Absolute;
-      else if (e.unit && e.unit->isTemperatureDifference()) e.temperature = K::Difference;
+      if (e.unit && e.unit->isAbsoluteTemperature()) kind = K::Absolute;
+      else if (e.unit && e.unit->isTemperatureDifference()) kind = K::Difference;
       return "";
     case ExprKind::Name: {
-      const int i = sheet.find(e.text);
-      if (i >= 0) e.temperature = temperatureKind(sheet.quantities[i]);
+      const int i = sheet_.find(e.text);
+      if (i >= 0) {
+        const size_t at = static_cast<size_t>(i);
+        const K formula = temperatures_ && at < temperatures_->size() ? (*temperatures_)[at] : K::Unknown;
+        kind = temperatureKind(sheet_.quantities[at], formula);
+      }
       return "";
     }
     case ExprKind::Group:
-      e.temperature = a;
+      kind = a;
       return "";
     case ExprKind::Negate:
       if (a == K::Absolute) {
         return absoluteOperand(*e.args[0], "its negative (below absolute zero)") +
                "; a temperature below the zero of its scale is written as one number, `-40 degC`";
       }
-      e.temperature = a;
+      kind = a;
       return "";
     case ExprKind::Add:
       if (a == K::Absolute && b == K::Absolute) {
@@ -186,16 +199,16 @@ std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet) {
                "add a temperature difference, in ddegC, ddegF or K (as in `T + 5 ddegC`), or declare the "
                "quantities in [K] to use them as thermodynamic temperatures";
       }
-      if (a == K::Absolute || b == K::Absolute) e.temperature = K::Absolute;
-      else if (any_difference && is_temperature) e.temperature = K::Difference;
+      if (a == K::Absolute || b == K::Absolute) kind = K::Absolute;
+      else if (any_difference && is_temperature) kind = K::Difference;
       return "";
     case ExprKind::Subtract:
       if (a == K::Difference && b == K::Absolute) {
         return "subtracting an absolute temperature from a temperature difference has no physical meaning "
                "(`T2 - T1` of two absolute temperatures is a difference); " + std::string(kTemperatureFix);
       }
-      if (a == K::Absolute) e.temperature = b == K::Absolute ? K::Difference : K::Absolute;
-      else if (b == K::Absolute || (any_difference && is_temperature)) e.temperature = K::Difference;
+      if (a == K::Absolute) kind = b == K::Absolute ? K::Difference : K::Absolute;
+      else if (b == K::Absolute || (any_difference && is_temperature)) kind = K::Difference;
       return "";
     case ExprKind::Multiply:
     case ExprKind::Divide:
@@ -205,27 +218,27 @@ std::string absoluteTemperatureRule(Expr& e, const Sheet& sheet) {
                                                       : "a power of it";
       if (a == K::Absolute) return absoluteOperand(*e.args[0], what);
       if (b == K::Absolute) return absoluteOperand(*e.args[1], what);
-      if (any_difference && is_temperature) e.temperature = K::Difference;
+      if (any_difference && is_temperature) kind = K::Difference;
       return "";
     }
     case ExprKind::Call: {
       bool absolute = false, difference = false;
       for (const ExprPtr& x : e.args) {
-        absolute |= x->temperature == K::Absolute;
-        difference |= x->temperature == K::Difference;
+        absolute |= temperature(*x) == K::Absolute;
+        difference |= temperature(*x) == K::Difference;
       }
       if (!absolute && !difference) return "";
       // min, max and abs keep the kind of their arguments; any other function of an
       // absolute temperature is an error.
       const bool keeps = e.text == "min" || e.text == "max" || e.text == "abs";
       for (const ExprPtr& x : e.args) {
-        if (x->temperature == K::Absolute && !keeps) return absoluteOperand(*x, "`" + e.text + "` of it");
+        if (temperature(*x) == K::Absolute && !keeps) return absoluteOperand(*x, "`" + e.text + "` of it");
       }
       if (absolute && difference) {
         return "`" + e.text + "` compares absolute temperatures with temperature differences, which has no "
                "physical meaning; " + std::string(kTemperatureFix);
       }
-      if (keeps || is_temperature) e.temperature = absolute ? K::Absolute : K::Difference;
+      if (keeps || is_temperature) kind = absolute ? K::Absolute : K::Difference;
       return "";
     }
     case ExprKind::Pi:
@@ -260,7 +273,21 @@ std::string DimensionChecker::plainTrigArgumentWarning(const std::string& fn, co
          "(" + shown + " deg)`, for radians `" + fn + "(" + shown + " rad)`";
 }
 
-bool DimensionChecker::check(Expr& e) { return visit(e) && checkTemperatureOwner(e); }
+bool DimensionChecker::check(const Expr& e, TreeDims* out) {
+  out->dims.assign(nodeCount(e), Dimension());
+  return check(e, out->dims.data(), static_cast<uint32_t>(out->dims.size()), &out->temperature);
+}
+
+bool DimensionChecker::check(const Expr& e, Dimension* dims, uint32_t count, TemperatureKind* root_temperature) {
+  dims_out_ = dims;
+  temperatures_out_.assign(count, TemperatureKind::Unknown);
+  const bool ok = visit(e) && checkTemperatureOwner(e);
+  *root_temperature = temperature(e);
+  previous_root_ = &e;
+  previous_temperature_ = *root_temperature;
+  dims_out_ = nullptr;
+  return ok;
+}
 
 // A formula's temperature kind must suit what receives it: a difference
 // shown in [degC] would be off by the zero of the scale, and a check must
@@ -268,16 +295,17 @@ bool DimensionChecker::check(Expr& e) { return visit(e) && checkTemperatureOwner
 // pointer, and only for temperature-valued roots, which are few.
 bool DimensionChecker::checkTemperatureOwner(const Expr& root) {
   using K = TemperatureKind;
-  if (root.temperature == K::Unknown) return true;
+  const K kind = temperature(root);
+  if (kind == K::Unknown) return true;
   for (const Quantity& q : sheet_.quantities) {
     if (q.expr.get() != &root) continue;
     if (!q.display) return true;
-    if (root.temperature == K::Difference && q.display->isAbsoluteTemperature()) {
+    if (kind == K::Difference && q.display->isAbsoluteTemperature()) {
       return fail(root, "`" + q.name + "` is a temperature difference, but [" + q.unit_written +
                             "] shows absolute temperatures: the number shown would be off by the zero of the "
                             "scale; declare it in [ddegC], [ddegF] or [K]");
     }
-    if (root.temperature == K::Absolute && q.display->isTemperatureDifference()) {
+    if (kind == K::Absolute && q.display->isTemperatureDifference()) {
       return fail(root, "`" + q.name + "` is an absolute temperature, but [" + q.unit_written +
                             "] is a unit of temperature differences; declare it in [degC], [degF] or [K]");
     }
@@ -285,7 +313,8 @@ bool DimensionChecker::checkTemperatureOwner(const Expr& root) {
   }
   for (const Check& c : sheet_.checks) {
     if (c.rhs.get() != &root) continue;
-    const K l = c.lhs->temperature, r = root.temperature;
+    // The left side is the tree checked just before (Model::checkChecks checks both in turn).
+    const K l = previous_root_ == c.lhs.get() ? previous_temperature_ : K::Unknown, r = kind;
     if ((l == K::Absolute && r == K::Difference) || (l == K::Difference && r == K::Absolute)) {
       return fail(root, "the check `" + c.name +
                             "` compares an absolute temperature with a temperature difference; write a limit "
@@ -302,38 +331,38 @@ bool DimensionChecker::fail(const Expr& at, const std::string& message) {
   return false;
 }
 
-bool DimensionChecker::visit(Expr& e) {
+bool DimensionChecker::visit(const Expr& e) {
   if (!visitNode(e)) return false;
-  const std::string temperature_error = absoluteTemperatureRule(e, sheet_);
+  const std::string temperature_error = absoluteTemperatureRule(e);
   return temperature_error.empty() || fail(e, temperature_error);
 }
 
-bool DimensionChecker::visitNode(Expr& e) {
+bool DimensionChecker::visitNode(const Expr& e) {
   switch (e.kind) {
     case ExprKind::Number:
-      e.dim = e.unit ? e.unit->dim : kNone;
+      dim(e) = e.unit ? e.unit->dim : kNone;
       return true;
     case ExprKind::Pi:
-      e.dim = kNone;
+      dim(e) = kNone;
       return true;
     case ExprKind::Name: {
       const int i = sheet_.find(e.text);
       if (i < 0 || !known_[i]) return false;  // reported where it was defined
-      e.dim = dims_[i];
+      dim(e) = dims_[i];
       return true;
     }
     case ExprKind::Group:
     case ExprKind::Negate:
       if (!visit(*e.args[0])) return false;
-      e.dim = e.args[0]->dim;
+      dim(e) = dim(*e.args[0]);
       return true;
     case ExprKind::Call:
       return checkCall(e);
     default:
       break;
   }
-  Expr& l = *e.args[0];
-  Expr& r = *e.args[1];
+  const Expr& l = *e.args[0];
+  const Expr& r = *e.args[1];
   // Both sides, so an independent problem on the right is reported with one on the left.
   const bool left_ok = visit(l);
   const bool right_ok = visit(r);
@@ -342,30 +371,30 @@ bool DimensionChecker::visitNode(Expr& e) {
     case ExprKind::Add:
     case ExprKind::Subtract: {
       bool incompatible;
-      const std::string warning = compareForSum(l.dim, r.dim, &incompatible);
+      const std::string warning = compareForSum(dim(l), dim(r), &incompatible);
       if (incompatible) {
         return fail(e, std::string("cannot ") + (e.kind == ExprKind::Add ? "add " : "subtract ") +
-                           words(r.dim) + (e.kind == ExprKind::Add ? " to " : " from ") + words(l.dim));
+                           words(dim(r)) + (e.kind == ExprKind::Add ? " to " : " from ") + words(dim(l)));
       }
       if (!warning.empty()) diags_->warning(file_, e.begin, e.end, warning);
-      e.dim = l.dim;
+      dim(e) = dim(l);
       return true;
     }
     case ExprKind::Multiply:
-      e.dim = l.dim * r.dim;
+      dim(e) = dim(l) * dim(r);
       return true;
     case ExprKind::Divide:
-      e.dim = l.dim / r.dim;
+      dim(e) = dim(l) / dim(r);
       return true;
     case ExprKind::Power: {
-      if (!r.dim.dimensionless()) return fail(r, "an exponent must be a plain number, not " + words(r.dim));
-      if (l.dim.dimensionless()) {
-        e.dim = kNone;
+      if (!dim(r).dimensionless()) return fail(r, "an exponent must be a plain number, not " + words(dim(r)));
+      if (dim(l).dimensionless()) {
+        dim(e) = kNone;
         return true;
       }
       double p;
       if (!constantValue(r, &p)) {
-        return fail(r, "the base is " + words(l.dim) +
+        return fail(r, "the base is " + words(dim(l)) +
                            ", so the exponent must be a fixed number (like 2 or 0.5), not a formula of quantities");
       }
       // Whole powers, and roots that leave whole exponents (an area to the 0.5 is a length).
@@ -373,12 +402,12 @@ bool DimensionChecker::visitNode(Expr& e) {
         const double num = p * den;
         if (std::fabs(num - std::round(num)) < 1e-9) {
           Dimension rooted;
-          if (!l.dim.root(den, &rooted)) break;
-          e.dim = rooted.pow(static_cast<int>(std::lround(num)));
+          if (!dim(l).root(den, &rooted)) break;
+          dim(e) = rooted.pow(static_cast<int>(std::lround(num)));
           return true;
         }
       }
-      return fail(e, "raising " + words(l.dim) + " to the power " + r.text +
+      return fail(e, "raising " + words(dim(l)) + " to the power " + r.text +
                          " gives no dimension with whole exponents");
     }
     default:
@@ -386,7 +415,7 @@ bool DimensionChecker::visitNode(Expr& e) {
   }
 }
 
-bool DimensionChecker::checkCall(Expr& e) {
+bool DimensionChecker::checkCall(const Expr& e) {
   // Every argument, and the function's name, even when one argument has a
   // problem (or reads a quantity whose definition failed): each independent
   // problem is reported in the same run.
@@ -401,10 +430,10 @@ bool DimensionChecker::checkCall(Expr& e) {
       return fail(e, "`" + e.text + "` takes " + want + " argument" + (want == "1" ? "" : "s") + ", not " +
                          std::to_string(n));
     }
-    const Dimension& a = e.args[0]->dim;
+    const Dimension a = dim(*e.args[0]);
     switch (m->rule) {
       case MathRule::Sqrt:
-        if (!a.root(2, &e.dim)) {
+        if (!a.root(2, &dim(e))) {
           return fail(*e.args[0], "sqrt of " + words(a) +
                                       " has no dimension with whole exponents; only even powers have a square root");
         }
@@ -416,31 +445,31 @@ bool DimensionChecker::checkCall(Expr& e) {
           const std::string w = plainTrigArgumentWarning(e.text, *e.args[0]);
           if (!w.empty()) diags_->warning(file_, e.args[0]->begin, e.args[0]->end, w);
         }
-        e.dim = kNone;
+        dim(e) = kNone;
         return true;
       case MathRule::InverseTrig:
         if (!a.dimensionless()) return fail(*e.args[0], "`" + e.text + "` takes a plain number, not " + words(a));
-        e.dim = kAngle;
+        dim(e) = kAngle;
         return true;
       case MathRule::Atan2:
-        if (!a.sameIgnoringAngle(e.args[1]->dim))
-          return fail(e, "atan2(y, x) needs y and x alike; here " + words(a) + " and " + words(e.args[1]->dim));
-        e.dim = kAngle;
+        if (!a.sameIgnoringAngle(dim(*e.args[1])))
+          return fail(e, "atan2(y, x) needs y and x alike; here " + words(a) + " and " + words(dim(*e.args[1])));
+        dim(e) = kAngle;
         return true;
       case MathRule::Dimensionless:
         if (!a.dimensionless()) return fail(*e.args[0], "`" + e.text + "` takes a plain number, not " + words(a));
-        e.dim = kNone;
+        dim(e) = kNone;
         return true;
       case MathRule::SameAsArg:
-        e.dim = a;
+        dim(e) = a;
         return true;
       case MathRule::AllAlike:
         for (int i = 1; i < n; ++i) {
-          if (!e.args[i]->dim.sameIgnoringAngle(a))
+          if (!dim(*e.args[i]).sameIgnoringAngle(a))
             return fail(*e.args[i], "`" + e.text + "` compares alike values; argument " + std::to_string(i + 1) +
-                                        " is " + words(e.args[i]->dim) + ", the first is " + words(a));
+                                        " is " + words(dim(*e.args[i])) + ", the first is " + words(a));
         }
-        e.dim = a;
+        dim(e) = a;
         return true;
     }
     return false;
@@ -478,7 +507,7 @@ bool DimensionChecker::checkCall(Expr& e) {
   }
   for (int i = 0; i < n; ++i) {
     const FunctionArg& arg = f->argAt(i);
-    const Dimension& got = e.args[static_cast<size_t>(i)]->dim;
+    const Dimension got = dim(*e.args[static_cast<size_t>(i)]);
     if (got == arg.dim) continue;
     if (arg.per_revolution && got == arg.dim / kAngle) continue;  // [mm/rev]
     std::string msg = "argument " + std::to_string(i + 1) + " of `" + f->name + "` (" + f->argName(i) + ", " +
@@ -508,7 +537,7 @@ bool DimensionChecker::checkCall(Expr& e) {
     }
     return fail(*e.args[static_cast<size_t>(i)], msg);
   }
-  e.dim = f->result_per_revolution ? f->result / kAngle : f->result;
+  dim(e) = f->result_per_revolution ? f->result / kAngle : f->result;
   return true;
 }
 

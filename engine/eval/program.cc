@@ -25,6 +25,7 @@ const FunctionDecl* findIn(const std::vector<FunctionDecl>& library, const std::
 }
 
 struct Compiler {
+  const NodeDims& dims;
   const Sheet& sheet;
   const std::vector<FunctionDecl>& library;
   Program* program;
@@ -69,9 +70,9 @@ struct Compiler {
       *out += m->name;
     } else {
       const FunctionDecl* f = findIn(library, e.text);
-      std::vector<Dimension> dims;
-      for (const ExprPtr& a : e.args) dims.push_back(a->dim);
-      const LibraryCall c = LibraryCall::at(*f, dims);
+      std::vector<Dimension> arg_dims;
+      for (const ExprPtr& a : e.args) arg_dims.push_back(dims.of(*a));
+      const LibraryCall c = LibraryCall::at(*f, arg_dims);
       if (f->args.empty()) {
         // A constant of the library (a flank angle): muparser callbacks need an argument.
         appendNumber(c(nullptr, 0), out);
@@ -92,9 +93,10 @@ struct Compiler {
 
 }  // namespace
 
-Program compileProgram(const Expr& e, const Sheet& sheet, const std::vector<FunctionDecl>& library) {
+Program compileProgram(const Expr& e, const NodeDims& dims, const Sheet& sheet,
+                       const std::vector<FunctionDecl>& library) {
   Program p;
-  Compiler c{sheet, library, &p};
+  Compiler c{dims, sheet, library, &p};
   c.emit(e, &p.text);
   // A lone name or literal needs no arithmetic: the evaluation reads it directly.
   const Expr* x = withoutParens(&e);

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "engine/eval/library_call.h"
+#include "engine/eval/node_dims.h"
 #include "engine/sheet/expr.h"
 #include "engine/sheet/sheet.h"
 
@@ -36,9 +37,10 @@ struct Program {
   double constant = 0.0;
 };
 
-// `e` must have passed the dimension check (Expr::dim filled in). Names are
-// resolved with `sheet.find`. Drive functions come from `library`.
-Program compileProgram(const Expr& e, const Sheet& sheet,
+// `e` must have passed the dimension check; `dims` is what it found (a
+// library call's conversions depend on its arguments' dimensions). Names
+// are resolved with `sheet.find`. Drive functions come from `library`.
+Program compileProgram(const Expr& e, const NodeDims& dims, const Sheet& sheet,
                        const std::vector<FunctionDecl>& library = functionLibrary());
 
 }  // namespace calctrail

@@ -18,6 +18,7 @@ std::string num(double v) {
 }
 
 struct Interpreter {
+  const NodeDims& dims;
   const NameValue& value_of;
   EvalFault* fault;
   const std::vector<FunctionDecl>& library;
@@ -94,10 +95,10 @@ struct Interpreter {
     for (const FunctionDecl& d : library)
       if (d.name == e.text) f = &d;
     if (!f || !f->eval) return failAt(e, "unknown function `" + e.text + "`");
-    std::vector<Dimension> dims;
-    for (const ExprPtr& a : e.args) dims.push_back(a->dim);
+    std::vector<Dimension> arg_dims;
+    for (const ExprPtr& a : e.args) arg_dims.push_back(dims.of(*a));
     try {
-      const LibraryCall c = LibraryCall::at(*f, dims);
+      const LibraryCall c = LibraryCall::at(*f, arg_dims);
       const int n = static_cast<int>(args.size());
       const double r = c(args.data(), n);
       if (!std::isfinite(r)) return failAt(e, "`" + f->name + "` gives no finite value for these inputs");
@@ -118,18 +119,18 @@ struct Interpreter {
 
 }  // namespace
 
-double evalTree(const Expr& e, const NameValue& value_of, EvalFault* fault,
+double evalTree(const Expr& e, const NodeDims& dims, const NameValue& value_of, EvalFault* fault,
                 const std::vector<FunctionDecl>& library) {
-  Interpreter in{value_of, fault, library};
+  Interpreter in{dims, value_of, fault, library};
   const double v = in.eval(e);
   return fault->node ? NAN : v;
 }
 
-std::vector<CallDoubt> doubtsInTree(const Expr& e, const NameValue& value_of,
+std::vector<CallDoubt> doubtsInTree(const Expr& e, const NodeDims& dims, const NameValue& value_of,
                                     const std::vector<FunctionDecl>& library) {
   std::vector<CallDoubt> out;
   EvalFault fault;
-  Interpreter in{value_of, &fault, library, &out};
+  Interpreter in{dims, value_of, &fault, library, &out};
   in.eval(e);
   return out;
 }

@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "engine/eval/library_call.h"
+#include "engine/eval/node_dims.h"
 #include "engine/sheet/expr.h"
 
 namespace calctrail {
@@ -25,7 +26,9 @@ using NameValue = std::function<double(const Expr& name_node)>;
 
 // The SI value of `e`; on the first problem returns NaN and fills *fault.
 // Drive functions are looked up in `library`.
-double evalTree(const Expr& e, const NameValue& value_of, EvalFault* fault,
+// `dims`: the dimension check's result for `e` (a library call's conversions
+// depend on its arguments' dimensions; a tree without calls reads none).
+double evalTree(const Expr& e, const NodeDims& dims, const NameValue& value_of, EvalFault* fault,
                 const std::vector<FunctionDecl>& library = functionLibrary());
 
 struct CallDoubt {
@@ -37,7 +40,7 @@ struct CallDoubt {
 
 // Every doubtful library call in `e` (functions/plausibility.h), in the order
 // they are evaluated, found by evaluating `e` with the interpreter.
-std::vector<CallDoubt> doubtsInTree(const Expr& e, const NameValue& value_of,
+std::vector<CallDoubt> doubtsInTree(const Expr& e, const NodeDims& dims, const NameValue& value_of,
                                     const std::vector<FunctionDecl>& library = functionLibrary());
 
 }  // namespace calctrail

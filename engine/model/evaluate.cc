@@ -103,12 +103,13 @@ double Evaluation::run(size_t id, const Program& program) {
 // A formula gave NaN or inf (or a library function refused): the tree
 // interpreter finds the operation at fault, reported with the values of the
 // quantities it reads.
-void Evaluation::fault(Fault::Site site, uint32_t index, const Expr& expr, const SourceFile& file,
+void Evaluation::fault(Fault::Site site, uint32_t index, const Expr& expr, const NodeDims& dims,
+                       const SourceFile& file,
                        const std::string& prefix, const std::string& internal, Results* results) {
   const Sheet& sheet = model_.sheet();
   EvalFault f;
   evalTree(
-      expr, [&](const Expr& e) { return values_[sheet.find(e.text)]; }, &f, model_.library());
+      expr, dims, [&](const Expr& e) { return values_[sheet.find(e.text)]; }, &f, model_.library());
   const Expr& at = f.node ? *f.node : expr;
   std::string msg = prefix + (f.node             ? f.message
                               : internal.empty() ? "the value is not a finite number"
@@ -131,10 +132,10 @@ namespace {
 // The compiled arithmetic counted a doubtful library call: the interpreter
 // says which call and why, with its position in the formula.
 void addDoubts(const Model& model, const std::vector<double>& values, Fault::Site site, uint32_t index,
-               const Expr& expr, const SourceFile& file, Results* results) {
+               const Expr& expr, const NodeDims& dims, const SourceFile& file, Results* results) {
   const Sheet& sheet = model.sheet();
   for (CallDoubt& d :
-       doubtsInTree(expr, [&](const Expr& e) { return values[sheet.find(e.text)]; }, model.library()))
+       doubtsInTree(expr, dims, [&](const Expr& e) { return values[sheet.find(e.text)]; }, model.library()))
     results->warnings.push_back({site, index, &file, d.at->begin, d.at->end, std::move(d.message)});
 }
 
@@ -150,13 +151,13 @@ void sortWarnings(std::vector<Fault>* w) {
 void Evaluation::slotFailed(Slot slot, const Binding* b, const char* internal, Results* results) {
   const Quantity& q = model_.quantity(slot);
   fault(Fault::Site::Quantity, slot.index(), b ? *b->expr : model_.formulaExpr(slot),
-        b ? *b->file : model_.exprFile(slot),
+        b ? b->dims.view() : model_.formulaDims(slot), b ? *b->file : model_.exprFile(slot),
         "`" + q.name + "` cannot be calculated: ", internal ? std::string(internal) : std::string(), results);
 }
 
 void Evaluation::slotDoubts(Slot slot, const Binding* b, Results* results) {
   addDoubts(model_, values_, Fault::Site::Quantity, slot.index(), b ? *b->expr : model_.formulaExpr(slot),
-            b ? *b->file : model_.exprFile(slot), results);
+            b ? b->dims.view() : model_.formulaDims(slot), b ? *b->file : model_.exprFile(slot), results);
 }
 
 // Inlined into the two loops over slots: one frame per loop, not one per slot.
@@ -224,13 +225,13 @@ void Evaluation::evaluateCheck(size_t k, Results* results) {
         v = NAN;
       }
       if (!std::isfinite(v)) {
-        fault(Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkFile(k),
+        fault(Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkDims(k, j), model_.checkFile(k),
               "the check `" + c.name + "` cannot be evaluated: ", "", results);
         return;
       }
       side[j] = v;
       if (calls_.doubtfulCalls() != doubtful)
-        addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j],
+        addDoubts(model_, values_, Fault::Site::Check, static_cast<uint32_t>(k), *exprs[j], model_.checkDims(k, j),
                   model_.checkFile(k), results);
     }
   }

@@ -62,7 +62,7 @@ class Evaluation {
                                                   Results* results);
   [[gnu::cold]] [[gnu::noinline]] void slotDoubts(Slot slot, const Binding* b, Results* results);
   double runScratch(const Program& program);
-  void fault(Fault::Site site, uint32_t index, const Expr& expr, const SourceFile& file,
+  void fault(Fault::Site site, uint32_t index, const Expr& expr, const NodeDims& dims, const SourceFile& file,
              const std::string& prefix, const std::string& internal, Results* results);
   const std::vector<Slot>& coneOf(const Inputs& inputs);
 

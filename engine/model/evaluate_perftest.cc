@@ -15,9 +15,13 @@
 //    second (every formula kept set in a parser of its own).
 //
 //   evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME]
+//                     [--memory-only] [--write-sheet FILE]
 //
 // --input NAME measures that input's cone alone and skips the rest (for a
 // profiler: `valgrind --tool=callgrind build/evaluate_perftest --input d`).
+// --memory-only skips part 1; --write-sheet writes the generated sheet of
+// part 2 to FILE and stops (for `calctrail report` under /usr/bin/time -v,
+// docs/performance.md; do not commit the file).
 //
 // DIR defaults to the worksheets/ folder found from the current directory or
 // from this program's, upwards (engine/util/find_worksheets.h).
@@ -243,7 +247,8 @@ void memoryFigures(const Model& demo, int blocks) {
 
 int usage() {
   std::fprintf(stderr,
-               "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME]\n");
+               "usage: evaluate_perftest [--points N] [--blocks B] [--worksheets DIR] [--input NAME] "
+               "[--memory-only] [--write-sheet FILE]\n");
   return 2;
 }
 
@@ -251,7 +256,8 @@ int usage() {
 
 int main(int argc, char** argv) {
   int points = 20000, blocks = 2000;
-  std::string dir, only;
+  std::string dir, only, write_sheet;
+  bool memory_only = false;
   for (int i = 1; i < argc; ++i) {
     const std::string a = argv[i];
     if (a == "--points" && i + 1 < argc)
@@ -262,6 +268,10 @@ int main(int argc, char** argv) {
       dir = argv[++i];
     else if (a == "--input" && i + 1 < argc)
       only = argv[++i];
+    else if (a == "--write-sheet" && i + 1 < argc)
+      write_sheet = argv[++i];
+    else if (a == "--memory-only")
+      memory_only = true;
     else
       return usage();
   }
@@ -277,6 +287,21 @@ int main(int argc, char** argv) {
   if (diags.hasErrors()) {
     std::fprintf(stderr, "evaluate_perftest: %s has errors\n", path.c_str());
     return 2;
+  }
+  if (!write_sheet.empty()) {
+    size_t lines = 0;
+    const std::string text = largeSheet(*model, blocks, &lines);
+    std::FILE* f = std::fopen(write_sheet.c_str(), "wb");
+    if (!f || std::fwrite(text.data(), 1, text.size(), f) != text.size() || std::fclose(f) != 0) {
+      std::fprintf(stderr, "evaluate_perftest: cannot write %s\n", write_sheet.c_str());
+      return 2;
+    }
+    std::printf("%s: %zu lines, %.1f MB\n", write_sheet.c_str(), lines, static_cast<double>(text.size()) / 1e6);
+    return 0;
+  }
+  if (memory_only) {
+    memoryFigures(*model, blocks);
+    return 0;
   }
   const Inputs nominal(*model);
   const Results base = evaluate(*model, nominal);

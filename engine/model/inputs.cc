@@ -55,7 +55,7 @@ bool Inputs::computeOrder(std::vector<Slot>* order) const {
   for (Slot s : m.order()) {
     const Binding* b = find(s);
     any |= b && b->reads_slots;
-    const std::vector<int>& reads = b ? b->program.inputs : m.graph().uses(static_cast<int>(s.index()));
+    const NodeList reads = b ? NodeList(b->program.inputs) : m.graph().uses(static_cast<int>(s.index()));
     for (int j : reads) {
       if (!in_model[j]) continue;  // on a cycle of the sheet: reported there
       users[j].push_back(static_cast<int>(s.index()));
@@ -137,16 +137,18 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
   }
   if (!expr) return false;
 
-  if (!checkOverModel(m, *file, *expr, diags)) return false;
+  TreeDims dims;
+  if (!checkOverModel(m, *file, *expr, diags, &dims)) return false;
   const Quantity& q = m.quantity(slot);
   const SlotInfo& info = m.slot(slot);
-  const Dimension dim = quantityDimension(expr->dim);
+  const Dimension dim = quantityDimension(dims.of(*expr));
   if (q.display && from_set) {
-    if (!fitsDeclaredUnit(q, *expr, m.sheet(), m.sheet().quantityFile(slot.index()), dim, diags)) return false;
+    if (!fitsDeclaredUnit(q, *expr, dims.view(), m.sheet(), m.sheet().quantityFile(slot.index()), dim, diags))
+      return false;
   } else if (q.display) {
     // The worksheet's own message, but at the replacement that is wrong.
     Diagnostics why;
-    if (!fitsDeclaredUnit(q, *expr, m.sheet(), m.sheet().quantityFile(slot.index()), dim, &why)) {
+    if (!fitsDeclaredUnit(q, *expr, dims.view(), m.sheet(), m.sheet().quantityFile(slot.index()), dim, &why)) {
       std::string msg = why.list().front().message;
       const size_t at = msg.find("its formula gives");
       if (at != std::string::npos) msg.replace(at, 17, "the value given is");
@@ -165,7 +167,7 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
   bnd.slot = slot;
   bnd.text = file->bytes().substr(expr->begin, expr->end - expr->begin);
   if (from_set) bnd.text = file->bytes().substr(file->bytes().find('=') + 1);
-  bnd.program = compileProgram(*expr, m.sheet(), m.library());
+  bnd.program = compileProgram(*expr, dims.view(), m.sheet(), m.library());
   if (bnd.program.text.size() > kMaxProgramLength) {
     diags->error(*file, expr->begin, expr->end, tooLongMessage("`" + name + "`", bnd.program.text.size()));
     return false;
@@ -187,7 +189,7 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
     if (!std::isfinite(v)) {
       EvalFault fault;
       evalTree(
-          *expr, [](const Expr&) { return NAN; }, &fault, m.library());
+          *expr, dims.view(), [](const Expr&) { return NAN; }, &fault, m.library());
       const Expr& at = fault.node ? *fault.node : *expr;
       diags->error(*file, at.begin, at.end,
                    (from_set ? std::string() : who + ": ") + "`" + name + "` cannot be calculated: " +
@@ -199,6 +201,7 @@ bool Inputs::bindExpr(const std::string& name, uint32_t nb, uint32_t ne, ExprPtr
   }
   bnd.file = file;
   bnd.expr = std::shared_ptr<const Expr>(std::move(expr));
+  bnd.dims = std::move(dims);
   own_.push_back(std::move(bnd));
   if (own_.back().reads_slots || !order_.empty()) {
     std::vector<Slot> order;

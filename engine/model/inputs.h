@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "engine/eval/node_dims.h"
 #include "engine/eval/program.h"
 #include "engine/eval/slot.h"
 #include "engine/model/model.h"
@@ -24,8 +25,10 @@ struct Binding {
   std::string text;
   /// The text the expression points into ("--set"); null for a bound value.
   std::shared_ptr<const SourceFile> file;
-  /// The replacement, dimension-checked (Expr::dim filled); null for a bound value.
+  /// The replacement, dimension-checked; null for a bound value.
   std::shared_ptr<const Expr> expr;
+  /// The dimension check's result for `expr` (its nodes' dimensions).
+  TreeDims dims;
   /// It reads other quantities: evaluated with them, through `program`.
   bool reads_slots = false;
   /// The compiled replacement, when it reads other quantities.

@@ -49,8 +49,8 @@ std::string tooLongMessage(const std::string& what, size_t length) {
          "); split it into named steps";
 }
 
-bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const Sheet& sheet, const SourceFile& sheet_file,
-                      const Dimension& dim, Diagnostics* diags) {
+bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const NodeDims& formula_dims, const Sheet& sheet,
+                      const SourceFile& sheet_file, const Dimension& dim, Diagnostics* diags) {
   const UnitFit fit = fitUnit(dim, q.display->dim);
   if (fit == UnitFit::Incompatible) {
     diags->error(sheet_file, q.unit_begin, q.unit_end,
@@ -67,7 +67,7 @@ bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const Sheet& sheet
                       ": they differ by an angle, so the number shown would be off by 2*pi";
     // The same fix as the undeclared path gives (dimension_check): for a
     // computed lead, thread_lead or `/ 1 [rev]`; for a literal, [mm/rev].
-    const std::string why = strayAngleWarning(q.name, dim, formula, sheet);
+    const std::string why = strayAngleWarning(q.name, dim, formula, formula_dims, sheet);
     if (!why.empty())
       msg += "; " + why.substr(why.find("): ") + 3);
     else if (dim.exponent(Base::Angle) < 0)
@@ -90,7 +90,7 @@ std::unique_ptr<const Model> Model::build(Sheet sheet, Diagnostics* diags,
   return m;
 }
 
-std::unique_ptr<const Model> Model::borrow(Sheet* sheet, Diagnostics* diags,
+std::unique_ptr<const Model> Model::borrow(const Sheet* sheet, Diagnostics* diags,
                                            const std::vector<FunctionDecl>& library) {
   std::unique_ptr<Model> m(new Model());
   m->sheet_ = sheet;
@@ -106,8 +106,19 @@ void Model::run(Diagnostics* diags) {
   dims_.assign(n, Dimension());
   known_.assign(n, 0);
   unresolved_.assign(n, 0);
+  temperatures_.assign(n, TemperatureKind::Unknown);
   exprs_.reserve(n);
   for (const Quantity& q : sheet_->quantities) exprs_.push_back(q.expr.get());
+  // The side table of the nodes' dimensions: one slice per formula and check side.
+  dims_at_.reserve(n + 2 * sheet_->checks.size() + 1);
+  uint32_t at = 0;
+  dims_at_.push_back(at);
+  for (const Expr* e : exprs_) dims_at_.push_back(at += e ? nodeCount(*e) : 0);
+  for (const Check& c : sheet_->checks) {
+    dims_at_.push_back(at += nodeCount(*c.lhs));
+    dims_at_.push_back(at += nodeCount(*c.rhs));
+  }
+  node_dims_.assign(at, Dimension());
   resolveNames(diags);
   orderAndFindCycles(diags);
   checkDimensions(diags);
@@ -300,6 +311,7 @@ void Model::resolveNames(Diagnostics* diags) {
     });
     slots_[i].input = !any_name && !hasCall(*q.expr);
   }
+  graph_->finish();
   for (size_t k = 0; k < sheet_->checks.size(); ++k) {
     const Check& c = sheet_->checks[k];
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
@@ -340,11 +352,10 @@ void Model::orderAndFindCycles(Diagnostics* diags) {
 }
 
 void Model::checkDimensions(Diagnostics* diags) {
-  // The model owns its sheet: the check fills Expr::dim here, while the model
-  // is being built, and nothing writes into the tree afterwards.
+  // The check's findings go to the model's own table (formulaDims); the tree is only read.
   for (Slot slot : order_) {
     const uint32_t i = slot.index();
-    Quantity& q = sheet_->quantities[i];
+    const Quantity& q = sheet_->quantities[i];
     SlotInfo& s = slots_[i];
     // A formula that names something undefined (reported already) is still
     // checked, so an unknown function in it shows in the same run; it gets no
@@ -362,9 +373,14 @@ void Model::checkDimensions(Diagnostics* diags) {
     }
     const DiagnosticSite site{static_cast<int>(i), -1};
     NotedDiagnostics formula_diags(diags, *sheet_, q.expr_instance, site);
-    DimensionChecker checker(sheet_->exprFile(i), formula_diags.get(), *sheet_, dims_, known_, *library_);
-    if (!checker.check(*q.expr) || unresolved_[i]) continue;
-    s.dim = quantityDimension(q.expr->dim);
+    DimensionChecker checker(sheet_->exprFile(i), formula_diags.get(), *sheet_, dims_, known_, *library_,
+                             &temperatures_);
+    const NodeDims formula_dims = formulaDims(slot);
+    TemperatureKind temperature;
+    const bool consistent = checker.check(*q.expr, dimsSlice(i), formula_dims.size(), &temperature);
+    temperatures_[i] = temperature;
+    if (!consistent || unresolved_[i]) continue;
+    s.dim = quantityDimension(formula_dims.of(*q.expr));
     if (q.bound && !bindingFits(i, s.dim, formula_diags.get())) continue;
     s.has_dim = true;
     dims_[i] = s.dim;
@@ -373,13 +389,14 @@ void Model::checkDimensions(Diagnostics* diags) {
     if (q.display) {
       s.declared = true;
       s.display = *q.display;
-      if (!fitsDeclaredUnit(q, *q.expr, *sheet_, sheet_->quantityFile(i), s.dim, own_diags.get())) {
+      if (!fitsDeclaredUnit(q, *q.expr, formula_dims, *sheet_, sheet_->quantityFile(i), s.dim,
+                            own_diags.get())) {
         known_[i] = 0;
         s.has_dim = false;
       }
     } else {
       s.display = undeclaredDisplayUnit(*q.expr, s.dim, sheet_->units, *library_);
-      const std::string w = strayAngleWarning(q.name, s.dim, *q.expr, *sheet_);
+      const std::string w = strayAngleWarning(q.name, s.dim, *q.expr, formula_dims, *sheet_);
       if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w, site);
     }
   }
@@ -406,7 +423,7 @@ bool Model::bindingFits(uint32_t i, const Dimension& dim, Diagnostics* diags) co
 
 void Model::checkChecks(Diagnostics* diags) {
   for (size_t k = 0; k < sheet_->checks.size(); ++k) {
-    Check& c = sheet_->checks[k];
+    const Check& c = sheet_->checks[k];
     CheckInfo& s = checks_[k];
     bool unknown = false;
     for (const Expr* side : {c.lhs.get(), c.rhs.get()})
@@ -414,21 +431,28 @@ void Model::checkChecks(Diagnostics* diags) {
     if (unknown) continue;
     NotedDiagnostics noted(diags, *sheet_, c.instance, DiagnosticSite{-1, static_cast<int>(k)});
     const SourceFile& file = sheet_->checkFile(k);
-    DimensionChecker checker(file, noted.get(), *sheet_, dims_, known_, *library_);
-    if (!checker.check(*c.lhs) || !checker.check(*c.rhs)) continue;
+    DimensionChecker checker(file, noted.get(), *sheet_, dims_, known_, *library_, &temperatures_);
+    const NodeDims lhs = checkDims(k, 0), rhs = checkDims(k, 1);
+    const size_t f = slots_.size() + 2 * k;
+    TemperatureKind unused;
+    if (!checker.check(*c.lhs, dimsSlice(f), lhs.size(), &unused) ||
+        !checker.check(*c.rhs, dimsSlice(f + 1), rhs.size(), &unused))
+      continue;
+    const Dimension& lhs_dim = lhs.of(*c.lhs);
+    const Dimension& rhs_dim = rhs.of(*c.rhs);
     bool incompatible;
-    const std::string warning = compareForSum(c.lhs->dim, c.rhs->dim, &incompatible);
+    const std::string warning = compareForSum(lhs_dim, rhs_dim, &incompatible);
     const uint32_t op_end = c.op_begin + static_cast<uint32_t>(std::string(comparisonText(c.op)).size());
     if (incompatible) {
       noted.get()->error(
           file, c.op_begin, op_end,
-          "the check `" + c.name + "` compares " + c.lhs->dim.describe() + " with " + c.rhs->dim.describe());
+          "the check `" + c.name + "` compares " + lhs_dim.describe() + " with " + rhs_dim.describe());
       continue;
     }
     if (!warning.empty())
       noted.get()->warning(file, c.op_begin, op_end, "the check `" + c.name + "` " + warning);
     s.has_dim = true;
-    s.dim = c.lhs->dim;
+    s.dim = lhs_dim;
     // Show both sides in the unit of the quantity (or literal) the check names first.
     const Unit* unit = nullptr;
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
@@ -449,7 +473,7 @@ void Model::compile(Diagnostics* diags) {
     if (!s.has_dim) continue;
     const Quantity& q = sheet_->quantities[slot.index()];
     if (!q.expr) continue;  // a required parameter: no formula of its own
-    Program p = compileProgram(*q.expr, *sheet_, *library_);
+    Program p = compileProgram(*q.expr, formulaDims(slot), *sheet_, *library_);
     if (p.text.size() > kMaxProgramLength) {
       NotedDiagnostics noted(diags, *sheet_, q.expr_instance);
       noted.get()->error(sheet_->exprFile(slot.index()), q.expr->begin, q.expr->end,
@@ -462,8 +486,8 @@ void Model::compile(Diagnostics* diags) {
     CheckInfo& s = checks_[k];
     if (!s.has_dim) continue;
     const Check& c = sheet_->checks[k];
-    s.lhs = compileProgram(*c.lhs, *sheet_, *library_);
-    s.rhs = compileProgram(*c.rhs, *sheet_, *library_);
+    s.lhs = compileProgram(*c.lhs, checkDims(k, 0), *sheet_, *library_);
+    s.rhs = compileProgram(*c.rhs, checkDims(k, 1), *sheet_, *library_);
     bool fits = true;
     for (const auto& side : {std::make_pair(&s.lhs, c.lhs.get()), std::make_pair(&s.rhs, c.rhs.get())}) {
       if (side.first->text.size() <= kMaxProgramLength) continue;
@@ -517,13 +541,14 @@ size_t Model::compiledBytes() const {
     bytes += program(c.lhs) + program(c.rhs) + c.reads.capacity() * sizeof(Slot);
   bytes += order_.capacity() * sizeof(Slot) + rank_.capacity() * sizeof(uint32_t);
   bytes += dims_.capacity() * sizeof(Dimension) + known_.capacity() + unresolved_.capacity();
-  for (int i = 0; i < graph_->size(); ++i)
-    bytes += (graph_->uses(i).capacity() + graph_->usedBy(i).capacity()) * sizeof(int) +
-             2 * sizeof(std::vector<int>);
+  bytes += temperatures_.capacity() * sizeof(TemperatureKind) + node_dims_.capacity() * sizeof(Dimension) +
+           dims_at_.capacity() * sizeof(uint32_t);
+  bytes += sizeof(DependencyGraph) + graph_->bytes();
   return bytes;
 }
 
-bool checkOverModel(const Model& m, const SourceFile& file, Expr& expr, Diagnostics* diags) {
+bool checkOverModel(const Model& m, const SourceFile& file, const Expr& expr, Diagnostics* diags,
+                    TreeDims* dims) {
   bool unknown = false;
   std::vector<std::string> names;  // built on the first unknown name only
   forEachName(expr, [&](const Expr& x) {
@@ -534,8 +559,8 @@ bool checkOverModel(const Model& m, const SourceFile& file, Expr& expr, Diagnost
     unknown = true;
   });
   if (unknown) return false;
-  DimensionChecker checker(file, diags, m.sheet(), m.dims(), m.known(), m.library());
-  return checker.check(expr);
+  DimensionChecker checker(file, diags, m.sheet(), m.dims(), m.known(), m.library(), &m.temperatures());
+  return checker.check(expr, dims);
 }
 
 }  // namespace calctrail

@@ -12,6 +12,7 @@
 #include <string>
 #include <vector>
 
+#include "engine/eval/node_dims.h"
 #include "engine/eval/program.h"
 #include "engine/eval/slot.h"
 #include "engine/graph/dependency_graph.h"
@@ -60,12 +61,12 @@ class Model {
   // set of drive functions formulas may call; it must outlive the model.
   static std::unique_ptr<const Model> build(Sheet sheet, Diagnostics* diags,
                                             const std::vector<FunctionDecl>& library = functionLibrary());
-  // The same over a sheet the caller keeps alive. The build fills Expr::dim
-  // in it; afterwards the model only reads it, and reads each formula through
-  // the tree it captured (formulaExpr), so a caller may swap a quantity's
-  // tree in its sheet for display (Calculation does, for --set) as long as
-  // it keeps the captured one alive.
-  static std::unique_ptr<const Model> borrow(Sheet* sheet, Diagnostics* diags,
+  // The same over a sheet the caller keeps alive. Building never writes into
+  // the sheet (the dimensions go to the model's own table, formulaDims); the
+  // model reads each formula through the tree it captured (formulaExpr), so a
+  // caller may swap a quantity's tree in its sheet for display (Calculation
+  // does, for --set) as long as it keeps the captured one alive.
+  static std::unique_ptr<const Model> borrow(const Sheet* sheet, Diagnostics* diags,
                                              const std::vector<FunctionDecl>& library = functionLibrary());
 
   const Sheet& sheet() const { return *sheet_; }
@@ -78,6 +79,14 @@ class Model {
   const Quantity& quantity(Slot s) const { return sheet_->quantities[s.index()]; }
   // The formula of a slot as the model compiled it.
   const Expr& formulaExpr(Slot s) const { return *exprs_[s.index()]; }
+  // The dimension of every node of that formula (by Expr::id), as the
+  // dimension check found it; empty for a slot without one (no formula, or
+  // one that failed the check before it was reached).
+  NodeDims formulaDims(Slot s) const { return dimsOf(s.index()); }
+  // The same for the left (side 0) or right (side 1) side of check k.
+  NodeDims checkDims(size_t k, int side) const {
+    return dimsOf(slots_.size() + 2 * k + static_cast<size_t>(side));
+  }
   // The main worksheet's file.
   const SourceFile& file() const { return *sheet_->file; }
   // The file a slot's formula points into (a template's, for an instance's
@@ -104,6 +113,9 @@ class Model {
   // quantities (an Inputs binding): each slot's dimension and whether it has one.
   const std::vector<Dimension>& dims() const { return dims_; }
   const std::vector<char>& known() const { return known_; }
+  // Per slot, the temperature kind of its formula (absolute, a difference, or
+  // neither), for the same checker.
+  const std::vector<TemperatureKind>& temperatures() const { return temperatures_; }
 
   // Heap bytes the model keeps beyond its Sheet (slots, programs, graph): a
   // figure for the benchmark.
@@ -119,9 +131,14 @@ class Model {
   // A bound parameter's binding has the parameter's dimension; else reports it at the binding.
   bool bindingFits(uint32_t i, const Dimension& dim, Diagnostics* diags) const;
   void compile(Diagnostics* diags);
+  // Formula f: slot f, or for f >= slotCount() a side of a check (checkDims).
+  NodeDims dimsOf(size_t f) const {
+    return NodeDims(node_dims_.data() + dims_at_[f], dims_at_[f + 1] - dims_at_[f]);
+  }
+  Dimension* dimsSlice(size_t f) { return node_dims_.data() + dims_at_[f]; }
 
-  std::unique_ptr<Sheet> owned_;  // the sheet, when the model owns it
-  Sheet* sheet_ = nullptr;        // written only while building
+  std::unique_ptr<const Sheet> owned_;  // the sheet, when the model owns it
+  const Sheet* sheet_ = nullptr;        // never written
   const std::vector<FunctionDecl>* library_ = nullptr;
   std::vector<const Expr*> exprs_;  // per slot: the formula tree, captured when built
   std::vector<SlotInfo> slots_;
@@ -131,14 +148,20 @@ class Model {
   std::vector<uint32_t> rank_;
   std::vector<Dimension> dims_;
   std::vector<char> known_;
+  std::vector<TemperatureKind> temperatures_;
+  // The dimension of every node of every formula and check side, by Expr::id:
+  // formula f's nodes are node_dims_[dims_at_[f], dims_at_[f + 1]).
+  std::vector<Dimension> node_dims_;
+  std::vector<uint32_t> dims_at_;
   std::vector<char> unresolved_;  // per slot: the formula names something undefined (reported)
 };
 
 // An expression written over the model's quantities (a --set, a load case, a
 // study's target): every name it reads is a quantity (each unknown one is
-// reported, with suggestions) and it passes the dimension check, which fills
-// its Expr::dim. False when a problem went to *diags.
-bool checkOverModel(const Model& m, const SourceFile& file, Expr& expr, Diagnostics* diags);
+// reported, with suggestions) and it passes the dimension check, whose
+// result goes to *dims. False when a problem went to *diags.
+bool checkOverModel(const Model& m, const SourceFile& file, const Expr& expr, Diagnostics* diags,
+                    TreeDims* dims);
 
 // A lone literal with a unit (`20 kN`, `-3 degC`): the unit it was written in; else nullptr.
 const Unit* unitAsWritten(const Expr& e);
@@ -153,10 +176,11 @@ Unit undeclaredDisplayUnit(const Expr& formula, const Dimension& dim, const Unit
 // A formula of dimension `dim` for quantity `q`, which declares a display
 // unit: reports the error and returns false when the unit does not fit (a
 // different dimension, or one that would put a number off by 2*pi on the page).
-// `formula` (dimension-checked, in `sheet`) is what gives the value: the
-// quantity's own or a replacement; the 2*pi hint names a computed lead in it.
-bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const Sheet& sheet, const SourceFile& sheet_file,
-                      const Dimension& dim, Diagnostics* diags);
+// `formula` (dimension-checked, in `sheet`, its nodes' dimensions in
+// `formula_dims`) is what gives the value: the quantity's own or a
+// replacement; the 2*pi hint names a computed lead in it.
+bool fitsDeclaredUnit(const Quantity& q, const Expr& formula, const NodeDims& formula_dims, const Sheet& sheet,
+                      const SourceFile& sheet_file, const Dimension& dim, Diagnostics* diags);
 
 // A formula's dimension as a quantity keeps it: torque and power lose a stray
 // angle (N*m*rad/s is W).

@@ -146,7 +146,7 @@ std::string numberElements(const Expr& e) {
     out = "<mn>" + escapeXml(e.text.substr(0, at)) + "</mn>" + mo("\u00D7") + "<msup><mn>10</mn>" + power +
           "</msup>";
   }
-  const std::string unit = e.unit ? e.unit->pretty() : e.unit_written;
+  const std::string unit = e.unit ? e.unit->pretty() : e.unitWritten();
   if (at == std::string::npos && (unit.empty() || unit == "1")) return out;
   if (!unit.empty() && unit != "1") {
     // SI Brochure: a space between number and unit, none before the degree sign.
@@ -265,7 +265,7 @@ double width(const Expr& e, const MathValueOf* values) {
   switch (e.kind) {
     case ExprKind::Number: {
       double w = 0.5 * static_cast<double>(e.text.size());
-      const std::string unit = e.unit ? e.unit->pretty() : e.unit_written;
+      const std::string unit = e.unit ? e.unit->pretty() : e.unitWritten();
       if (!unit.empty() && unit != "1") w += 0.25 + 0.55 * static_cast<double>(glyphs(unit));
       return w;
     }

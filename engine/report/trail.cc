@@ -361,21 +361,22 @@ const LookupTable* lookupTable(const std::string& function) {
 // The unit a per-revolution argument is shown in when it is a lead (a length
 // per angle): its quantity's or its literal's own ("8.000 mm/rev"), so that
 // a lead never shows as a plain length.
-std::optional<Unit> leadUnit(const Expr& arg, const Calculation& calc) {
+std::optional<Unit> leadUnit(const Expr& arg, const Dimension& dim, const Calculation& calc) {
   const Expr* x = withoutParens(&arg);
-  if (arg.dim.exponent(Base::Angle) != -1) return std::nullopt;
+  if (dim.exponent(Base::Angle) != -1) return std::nullopt;
   if (x->kind == ExprKind::Name) {
     const int j = calc.sheet.find(x->text);
-    if (j >= 0 && calc.quantities[j].display.dim == arg.dim) return calc.quantities[j].display;
+    if (j >= 0 && calc.quantities[j].display.dim == dim) return calc.quantities[j].display;
   }
-  if (x->kind == ExprKind::Number && x->unit && x->unit->dim == arg.dim) return *x->unit;
+  if (x->kind == ExprKind::Number && x->unit && x->unit->dim == dim) return *x->unit;
   Unit u;
   UnitError err;
-  if (parseUnit("mm/rev", &u, &err) && u.dim == arg.dim) return u;
+  if (parseUnit("mm/rev", &u, &err) && u.dim == dim) return u;
   return std::nullopt;
 }
 
-TrailCall auditCall(const Expr& call, const Calculation& calc,
+// `dims`: the dimensions of the nodes of the formula `call` is in.
+TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& calc,
                     const std::vector<std::optional<TrailValue>>& given, const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
@@ -400,11 +401,13 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
   c.with_values.push_back({f.name + "(", std::nullopt});
   for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
     EvalFault fault;
-    const double raw = evalTree(*call.args[k], value_of, &fault);
+    const double raw = evalTree(*call.args[k], dims, value_of, &fault);
     if (fault.node) return c;
-    const double v = argumentToLibrary(raw, f.args[k].per_revolution, call.args[k]->dim);  // what it sees
+    const Dimension& arg_dim = dims.of(*call.args[k]);
+    const double v = argumentToLibrary(raw, f.args[k].per_revolution, arg_dim);  // what it sees
     library_args.push_back(v);
-    const std::optional<Unit> lead = f.args[k].per_revolution ? leadUnit(*call.args[k], calc) : std::nullopt;
+    const std::optional<Unit> lead =
+        f.args[k].per_revolution ? leadUnit(*call.args[k], arg_dim, calc) : std::nullopt;
     const Unit unit = lead ? *lead : argumentUnit(*call.args[k], f.args[k], calc);
     // Given values and literals appear as written, as in the step itself; others rounded.
     std::optional<TrailValue> as_written;
@@ -440,21 +443,22 @@ TrailCall auditCall(const Expr& call, const Calculation& calc,
     c.show_substituted = !c.substituted.empty() && lineText(c.substituted) != c.pretty;
   }
   EvalFault fault;
-  const double r = evalTree(call, value_of, &fault);
+  const double r = evalTree(call, dims, value_of, &fault);
+  const Dimension& call_dim = dims.of(call);
   if (!fault.node) {
     // In the step's own unit where it fits (lbf*in in a US sheet, mm/rev for
     // a lead), else the function's (a lead in it per revolution) as the
     // sheet's `units:` line weighs it.
     Unit unit;
     UnitError err;
-    if (step_unit.dim == call.dim) unit = step_unit;
+    if (step_unit.dim == call_dim) unit = step_unit;
     else if (auto u = unitFor(step_unit, f.result); u && !f.result_per_revolution) unit = *u;
     else if (Unit natural; !f.result_unit.empty() &&
              parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
-             natural.dim == call.dim)
-      unit = calc.sheet.units.choose(call.dim, &natural);
+             natural.dim == call_dim)
+      unit = calc.sheet.units.choose(call_dim, &natural);
     else
-      unit = calc.sheet.units.choose(call.dim);
+      unit = calc.sheet.units.choose(call_dim);
     c.result = rounded(r, unit, digits);
     if (const LookupTable* table = lookupTable(f.name); table && library_args.size() == f.args.size())
       c.row = table->row(library_args, f.result_per_revolution ? r * kTwoPi : r, f);
@@ -804,8 +808,9 @@ Trail buildTrail(const Calculation& calc, int digits) {
     const Expr& expr = *sheet.quantities[s.index].expr;
     std::vector<const Expr*> calls;
     collectCalls(expr, &calls);
+    const NodeDims dims = calc.exprDims(static_cast<size_t>(s.index));
     for (const Expr* call : calls)
-      s.calls.push_back(auditCall(*call, calc, given, calc.quantities[s.index].display, digits));
+      s.calls.push_back(auditCall(*call, dims, calc, given, calc.quantities[s.index].display, digits));
     // A call inside another's arguments is shown there by its value.
     for (size_t k = 0; k < calls.size(); ++k)
       for (size_t o = 0; o < calls.size(); ++o)
@@ -864,7 +869,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   };
   for (const Statement& st : sheet.statements) {
     if (st.kind == Statement::Note) {
-      note += (note.empty() ? "" : " ") + st.text;
+      note += (note.empty() ? "" : " ") + st.text();
       continue;
     }
     if (st.kind == Statement::Blank || st.kind == Statement::Comment || st.kind == Statement::Meta) {
@@ -872,7 +877,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
       continue;
     }
     flushNote();
-    if (st.kind == Statement::Section) t.blocks.push_back({TrailBlock::Section, st.text, 0});
+    if (st.kind == Statement::Section) t.blocks.push_back({TrailBlock::Section, st.text(), 0});
     if (st.kind == Statement::Define) t.blocks.push_back({TrailBlock::Step, "", st.index});
     if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
   }

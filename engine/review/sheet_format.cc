@@ -55,10 +55,10 @@ void canonicalize(Expr* e, bool power_base) {
     if (canonicalSpelling(*e->unit, &text)) {
       // A base of a power keeps its brackets: `3 [mm]^2` is not `3 mm^2`,
       // which reads two ways and is an error.
-      if (!power_base && (text == "%" || isBareUnitName(text))) e->unit_written = text;
-      else e->unit_written = "[" + text + "]";
+      if (!power_base && (text == "%" || isBareUnitName(text))) e->unit->written = text;
+      else e->unit->written = "[" + text + "]";
     } else {
-      e->unit_written = trimmed(e->unit_written);
+      e->unit->written = trimmed(e->unit->written);
     }
   }
   for (size_t i = 0; i < e->args.size(); ++i) canonicalize(e->args[i].get(), e->kind == ExprKind::Power && i == 0);
@@ -154,9 +154,9 @@ std::string statementMismatch(const Sheet& a, const Sheet& b, const Statement& s
     case Statement::Comment:
     case Statement::Section:
     case Statement::Note:
-      return sa.text == sb.text ? "" : "another text";
+      return sa.text() == sb.text() ? "" : "another text";
     case Statement::Meta:
-      return sa.key == sb.key && sa.text == sb.text ? "" : "another metadata value";
+      return sa.key() == sb.key() && sa.text() == sb.text() ? "" : "another metadata value";
     case Statement::Define: {
       const Quantity& qa = a.quantities[sa.index];
       const Quantity& qb = b.quantities[sb.index];
@@ -296,14 +296,14 @@ std::string formatWorksheet(const std::string& display_path, const std::string& 
         line.code = commentLine(*file, st.line);
         break;
       case Statement::Meta:
-        line.code = st.key + ":" + (st.text.empty() ? "" : " " + st.text);
+        line.code = st.key() + ":" + (st.text().empty() ? "" : " " + st.text());
         break;
       case Statement::Section:
-        line.code = "section " + st.text;
+        line.code = "section " + st.text();
         line.section = true;
         break;
       case Statement::Note:
-        line.code = "note " + st.text;
+        line.code = "note " + st.text();
         break;
       case Statement::Define: {
         const Quantity& q = sheet.quantities[st.index];

@@ -1,44 +1,69 @@
 #include "engine/sheet/expr.h"
 
+#include <algorithm>
+#include <new>
+
 namespace calctrail {
 
-ExprList::ExprList(ExprList&& o) noexcept : data_(o.data_), size_(o.size_), capacity_(o.capacity_) {
-  o.data_ = nullptr;
-  o.size_ = o.capacity_ = 0;
+ExprList::ExprList() {
+  for (uint32_t i = 0; i < kInline; ++i) new (&store_.own[i]) ExprPtr();
 }
 
+ExprList::ExprList(ExprList&& o) noexcept : ExprList() { *this = std::move(o); }
+
 ExprList& ExprList::operator=(ExprList&& o) noexcept {
-  if (this != &o) {
-    delete[] data_;
-    data_ = o.data_;
-    size_ = o.size_;
+  if (this == &o) return *this;
+  clear();  // inline and empty
+  if (o.inlined()) {
+    for (uint32_t i = 0; i < o.size_; ++i) store_.own[i] = std::move(o.store_.own[i]);
+  } else {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].~ExprPtr();
+    store_.heap = o.store_.heap;
     capacity_ = o.capacity_;
-    o.data_ = nullptr;
-    o.size_ = o.capacity_ = 0;
+    for (uint32_t i = 0; i < kInline; ++i) new (&o.store_.own[i]) ExprPtr();
+    o.capacity_ = kInline;
   }
+  size_ = o.size_;
+  o.size_ = 0;
   return *this;
 }
 
-ExprList::~ExprList() { delete[] data_; }
+ExprList::~ExprList() {
+  if (inlined()) {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].~ExprPtr();
+  } else {
+    delete[] store_.heap;
+  }
+}
 
 void ExprList::reserve(size_t n) {
   if (n <= capacity_) return;
   auto* grown = new ExprPtr[n];
-  for (uint32_t i = 0; i < size_; ++i) grown[i] = std::move(data_[i]);
-  delete[] data_;
-  data_ = grown;
+  ExprPtr* from = data();
+  for (uint32_t i = 0; i < size_; ++i) grown[i] = std::move(from[i]);
+  if (inlined()) {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].~ExprPtr();
+  } else {
+    delete[] store_.heap;
+  }
+  store_.heap = grown;
   capacity_ = static_cast<uint32_t>(n);
 }
 
 void ExprList::push_back(ExprPtr e) {
-  if (size_ == capacity_) reserve(capacity_ == 0 ? 2 : size_t{capacity_} * 2);
-  data_[size_++] = std::move(e);
+  if (size_ == capacity_) reserve(size_t{capacity_} * 2);
+  data()[size_++] = std::move(e);
 }
 
 void ExprList::clear() {
-  delete[] data_;
-  data_ = nullptr;
-  size_ = capacity_ = 0;
+  if (!inlined()) {
+    delete[] store_.heap;
+    for (uint32_t i = 0; i < kInline; ++i) new (&store_.own[i]) ExprPtr();
+    capacity_ = kInline;
+  } else {
+    for (uint32_t i = 0; i < kInline; ++i) store_.own[i].reset();
+  }
+  size_ = 0;
 }
 
 ExprPtr cloneExpr(const Expr& e) {
@@ -48,13 +73,35 @@ ExprPtr cloneExpr(const Expr& e) {
   c->end = e.end;
   c->text = e.text;
   c->number = e.number;
-  c->unit_written = e.unit_written;
-  if (e.unit) c->unit = std::make_unique<Unit>(*e.unit);
+  c->id = e.id;
+  if (e.unit) c->unit = std::make_unique<NumberUnit>(*e.unit);
   c->args.reserve(e.args.size());
   for (const ExprPtr& a : e.args) c->args.push_back(cloneExpr(*a));
-  c->dim = e.dim;
-  c->temperature = e.temperature;
   return c;
+}
+
+const std::string& Expr::unitWritten() const {
+  static const std::string none;
+  return unit ? unit->written : none;
+}
+
+namespace {
+// The parser limits nesting, so these walks stay shallow.
+void numberFrom(Expr& e, uint32_t* next) {
+  e.id = (*next)++;
+  for (ExprPtr& a : e.args) numberFrom(*a, next);
+}
+}  // namespace
+
+void numberNodes(Expr& root) {
+  uint32_t next = 0;
+  numberFrom(root, &next);
+}
+
+uint32_t nodeCount(const Expr& root) {
+  uint32_t n = root.id + 1;
+  for (const ExprPtr& a : root.args) n = std::max(n, nodeCount(*a));
+  return n;
 }
 
 void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
@@ -65,8 +112,8 @@ void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn) {
 namespace {
 // A number whose unit is written without brackets where `render` shows it.
 bool numberShownWithBareUnit(const Expr& e, bool pretty) {
-  if (e.kind != ExprKind::Number || e.unit_written.empty()) return false;
-  return pretty ? e.unit != nullptr : e.unit_written[0] != '[';
+  if (e.kind != ExprKind::Number || e.unitWritten().empty()) return false;
+  return pretty ? e.unit != nullptr : e.unitWritten()[0] != '[';
 }
 
 void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::string* out) {
@@ -83,10 +130,10 @@ void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::strin
         const std::string u = e.unit->pretty();
         if (u != "\u00B0") *out += ' ';
         *out += u;
-      } else if (!e.unit_written.empty()) {
+      } else if (!e.unitWritten().empty()) {
         // "95 %", "20 kN", "9.81 [m/s^2]": one space between number and unit.
         *out += ' ';
-        *out += e.unit_written;
+        *out += e.unitWritten();
       }
       break;
     case ExprKind::Pi:

@@ -26,24 +26,26 @@ enum class ExprKind : uint8_t {
   Group,     // (a): kept so the trail shows the author's parentheses
 };
 
-// What a temperature-valued node stands for. The SI value of both is in
-// kelvin, but only an interval may be scaled, negated or summed.
-enum class TemperatureKind : uint8_t {
-  Unknown,     // not a temperature, or one in K (which serves for both)
-  Absolute,    // a point on a scale with an offset: 20 degC, T1 + 5 ddegC
-  Difference,  // an interval: 5 ddegC, T2 - T1
+// The unit of a Number node: the unit resolved, and as written ("kN",
+// "[m/s^2]"). One allocation for the few nodes that have a unit, instead of
+// a string in every node (docs/performance.md, Memory).
+struct NumberUnit : Unit {
+  /// The unit as written after the number, brackets included.
+  std::string written;
 };
 
 struct Expr;
 using ExprPtr = std::unique_ptr<Expr>;
 
-// The operands of a node: a vector of ExprPtr in 16 bytes instead of 24
-// (a pointer and two 32-bit counts). Most nodes are leaves, and a large
-// sheet has millions of nodes, so the 8 bytes take every node down a malloc
-// size class (docs/performance.md, Memory).
+// The operands of a node: a vector of ExprPtr in 24 bytes whose first two
+// operands live in the node itself (an operator's two, a negation's or a
+// group's one, a call's first two): only a call of three arguments or more
+// allocates an array. A large sheet has millions of nodes, and an operand
+// array of two pointers was a 32-byte malloc chunk of its own
+// (docs/performance.md, Memory).
 class ExprList {
  public:
-  ExprList() = default;
+  ExprList();
   ExprList(ExprList&& o) noexcept;
   ExprList& operator=(ExprList&& o) noexcept;
   ExprList(const ExprList&) = delete;
@@ -52,40 +54,63 @@ class ExprList {
 
   size_t size() const { return size_; }
   bool empty() const { return size_ == 0; }
-  ExprPtr& operator[](size_t i) { return data_[i]; }
-  const ExprPtr& operator[](size_t i) const { return data_[i]; }
-  ExprPtr* begin() { return data_; }
-  ExprPtr* end() { return data_ + size_; }
-  const ExprPtr* begin() const { return data_; }
-  const ExprPtr* end() const { return data_ + size_; }
-  ExprPtr& back() { return data_[size_ - 1]; }
-  const ExprPtr& back() const { return data_[size_ - 1]; }
+  ExprPtr& operator[](size_t i) { return data()[i]; }
+  const ExprPtr& operator[](size_t i) const { return data()[i]; }
+  ExprPtr* begin() { return data(); }
+  ExprPtr* end() { return data() + size_; }
+  const ExprPtr* begin() const { return data(); }
+  const ExprPtr* end() const { return data() + size_; }
+  ExprPtr& back() { return data()[size_ - 1]; }
+  const ExprPtr& back() const { return data()[size_ - 1]; }
   void push_back(ExprPtr e);
   void reserve(size_t n);
   void clear();
 
  private:
-  ExprPtr* data_ = nullptr;  // new ExprPtr[capacity_]
-  uint32_t size_ = 0, capacity_ = 0;
+  static constexpr uint32_t kInline = 2;
+  bool inlined() const { return capacity_ <= kInline; }
+  ExprPtr* data() { return inlined() ? store_.own : store_.heap; }
+  const ExprPtr* data() const { return inlined() ? store_.own : store_.heap; }
+  // The operands in the node while capacity_ <= kInline, else new ExprPtr[capacity_].
+  union Store {
+    Store() {}
+    ~Store() {}
+    ExprPtr own[kInline];
+    ExprPtr* heap;
+  } store_;
+  uint32_t size_ = 0, capacity_ = kInline;
 };
 
-// Members ordered so that the node fits 120 bytes (a 128-byte malloc chunk).
+// A node of the tree as parsed. Nothing later writes into it: what the
+// dimension check finds (each node's dimension, its temperature kind) is
+// kept apart, by `id`, in the Model (engine/eval/node_dims.h). Members
+// ordered so that the node, its first two operands included, fits 88 bytes
+// (a 96-byte malloc chunk).
 struct Expr {
   ExprKind kind = ExprKind::Number;
-  TemperatureKind temperature = TemperatureKind::Unknown;  // filled in by the dimension check
+  /// The node's number in its tree, in preorder from 0 at the root (numberNodes): the index
+  /// of its entry in a side table over the tree (NodeDims). A copy (cloneExpr) keeps it.
+  uint32_t id = 0;
   uint32_t begin = 0, end = 0;  // byte offsets of the whole node in its file
-  Dimension dim;  // filled in by the dimension check
   // Number: the literal as written ("0.25") and its value in that unit.
   // Name, Call: the name.
   std::string text;
   double number = 0.0;
-  // Number with a unit: the unit as written ("kN", "[m/s^2]") and resolved.
-  std::string unit_written;
-  std::unique_ptr<Unit> unit;
+  // Number with a unit: the unit resolved, and as written.
+  std::unique_ptr<NumberUnit> unit;
   ExprList args;  // operands or call arguments
 
   double siValue() const { return unit ? unit->toSI(number) : number; }
+  /// The unit as written ("kN", "[m/s^2]"); "" for a number without one and any other node.
+  const std::string& unitWritten() const;
 };
+
+// Numbers the nodes of `root` 0, 1, 2, ... in preorder (Expr::id). The
+// expression parser does it once for every tree it returns.
+void numberNodes(Expr& root);
+// The size of a side table over `root`: its largest Expr::id plus one (its
+// node count, for a tree the parser numbered).
+uint32_t nodeCount(const Expr& root);
 
 // `e` without the parentheses around it: `((a))` is `a`.
 inline const Expr* withoutParens(const Expr* e) {

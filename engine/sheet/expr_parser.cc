@@ -117,6 +117,7 @@ ExprPtr ExprParser::parseWhole() {
     }
     return nullptr;
   }
+  numberNodes(*e);
   return e;
 }
 
@@ -161,6 +162,8 @@ bool ExprParser::parseCondition(ExprPtr* lhs, Comparison* op, uint32_t* op_begin
     failUnexpected();
     return false;
   }
+  numberNodes(**lhs);
+  numberNodes(**rhs);
   return true;
 }
 
@@ -237,7 +240,7 @@ bool ExprParser::rejectAmbiguousDivision(const Expr& lhs, uint32_t op, const Exp
     return false;
   }
   if (l->kind != ExprKind::Number || l->unit || l->text.find('/') != std::string::npos) return true;
-  const std::string u = r->unit_written, d = r->text;
+  const std::string u = r->unitWritten(), d = r->text;
   const bool whole = plainIntegerEnd(l->begin) == l->end && plainIntegerEnd(r->begin) == r->begin + d.size();
   const std::string fraction =
       whole ? "`" + l_text + "/" + d + " " + u + "` (no blanks)" : "`" + l_text + " " + u + " / " + d + "`";
@@ -446,7 +449,7 @@ ExprPtr ExprParser::parseNumber() {
           // `1-1/2 %` could also be 1 - 0.5 %, a number too: no way to tell.
           const size_t dash = text.find('-');
           const std::string whole = text.substr(0, dash), part = text.substr(dash + 1);
-          const std::string u = fraction.unit_written;
+          const std::string u = fraction.unitWritten();
           fail(begin, fraction.end,
                "`" + text + " " + u + "` can be read two ways: write `(" + whole + " + " + part + ") * 1 " +
                    u + "` for " + whole + " and " + part + " " + u + ", or `" + whole + " - " + part + " " +
@@ -568,7 +571,7 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
     pos_ = p;
   }
   if (src_[begin] != '[' && !rejectPowerAfterUnit(number, begin, unit_text)) return false;
-  number->unit_written.assign(src_.substr(begin, pos_ - begin));
+  const std::string_view written = src_.substr(begin, pos_ - begin);
   Unit unit;
   UnitError err;
   const bool bare = src_[begin] != '[' && src_[begin] != '%';
@@ -583,7 +586,9 @@ bool ExprParser::parseUnitAfterNumber(Expr* number) {
     return false;
   }
   if (bare && !rejectCompoundAfterUnit(number, begin, unit_text)) return false;
-  number->unit = std::make_unique<Unit>(std::move(unit));
+  number->unit = std::make_unique<NumberUnit>();
+  static_cast<Unit&>(*number->unit) = std::move(unit);
+  number->unit->written.assign(written);
   number->end = pos_;
   return true;
 }

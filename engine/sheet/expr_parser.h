@@ -19,9 +19,11 @@ class ExprParser {
  public:
   ExprParser(const SourceFile& file, uint32_t begin, uint32_t end, Diagnostics* diags);
 
-  // A whole expression filling the range; nullptr after reporting an error.
+  // A whole expression filling the range, its nodes numbered (numberNodes); nullptr
+  // after reporting an error.
   ExprPtr parseWhole();
-  // A condition `EXPR op EXPR` filling the range; false after reporting an error.
+  // A condition `EXPR op EXPR` filling the range, each side numbered from 0; false after
+  // reporting an error.
   bool parseCondition(ExprPtr* lhs, Comparison* op, uint32_t* op_begin, ExprPtr* rhs);
 
   static constexpr int kMaxDepth = 128;

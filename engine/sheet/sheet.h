@@ -34,7 +34,9 @@ struct Quantity {
   uint32_t name_begin = 0, name_end = 0;
   std::string unit_written;       // display unit as written in [ ], "" if none
   uint32_t unit_begin = 0, unit_end = 0;
-  std::optional<Unit> display;    // resolved display unit (also a dimension assertion)
+  /// The resolved display unit (also a dimension assertion); null if none. Shared by every
+  /// quantity of the sheet that writes the same unit (one per distinct unit, memory per line).
+  std::shared_ptr<const Unit> display;
   ExprPtr expr;
   std::string description;        // text after '#'
   std::string section;            // the heading it stands under, "" before any
@@ -234,6 +236,15 @@ constexpr int kMaxStudyPoints = 1000;
 // The name of the sheet as written, without any case's replacements.
 constexpr const char* kNominalCase = "nominal";
 
+// The words of a comment, meta, section or note line, held apart from its
+// Statement because most lines have none (docs/performance.md, Memory).
+struct StatementText {
+  /// Comment, Meta value, Section title, Note text.
+  std::string text;
+  /// Meta key.
+  std::string key;
+};
+
 // One line of the file, in order, for the trail and for canonical formatting.
 struct Statement {
   // A `param` line is a Define (its quantity has Quantity::param); a `use` line is UseStmt.
@@ -241,8 +252,17 @@ struct Statement {
   Kind kind = Blank;
   int line = 0;
   int index = -1;     // into quantities, checks, cases, uses or studies, for Define, CheckStmt, CaseStmt, UseStmt, StudyStmt
-  std::string text;   // Comment, Meta value, Section title, Note text
-  std::string key;    // Meta key
+  /// The line's words; null for a line without (a definition, a check, a blank line).
+  std::shared_ptr<const StatementText> words;
+
+  /// Comment, Meta value, Section title, Note text; "" for any other line.
+  const std::string& text() const { return words ? words->text : noText(); }
+  /// Meta key; "" for any other line.
+  const std::string& key() const { return words ? words->key : noText(); }
+  static const std::string& noText() {
+    static const std::string empty;
+    return empty;
+  }
 };
 
 struct Metadata {

@@ -88,7 +88,8 @@ class LineParser {
     }
     if (s[p] == '#') {
       st->kind = Statement::Comment;
-      st->text = trim(std::string_view(s).substr(p + 1, end - p - 1));
+      st->words = std::make_shared<const StatementText>(
+          StatementText{trim(std::string_view(s).substr(p + 1, end - p - 1)), std::string()});
       return true;
     }
     const uint32_t word_end = scanName(p, end);
@@ -108,13 +109,14 @@ class LineParser {
     if (word == "use" && statement_word) return parseUse(st, line, p, word_end, next, end);
     if ((word == "section" || word == "note") && !definition_follows && nc != ':') {
       st->kind = word == "section" ? Statement::Section : Statement::Note;
-      st->text = trim(std::string_view(s).substr(next, end - next));
+      st->words = std::make_shared<const StatementText>(
+          StatementText{trim(std::string_view(s).substr(next, end - next)), std::string()});
       if (st->kind == Statement::Section) {
-        if (st->text.empty()) {
+        if (st->text().empty()) {
           diags_->error(file_, p, word_end, "a section needs a title: `section Loads and speeds`");
           return false;
         }
-        section_ = st->text;
+        section_ = st->text();
       }
       return true;
     }
@@ -186,8 +188,8 @@ class LineParser {
       return false;
     }
     st->kind = Statement::Meta;
-    st->key = key;
-    st->text = trim(std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1));
+    st->words = std::make_shared<const StatementText>(
+        StatementText{trim(std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1)), key});
     if (key == "units") {
       const std::string_view raw = std::string_view(file_.bytes()).substr(colon + 1, end - colon - 1);
       std::string error;
@@ -198,7 +200,7 @@ class LineParser {
         return false;
       }
     }
-    sheet_->meta.values[key] = st->text;
+    sheet_->meta.values[key] = st->text();
     return true;
   }
 
@@ -213,6 +215,13 @@ class LineParser {
     q->unit_begin = *at + 1;
     q->unit_end = static_cast<uint32_t>(close);
     q->unit_written = s.substr(q->unit_begin, q->unit_end - q->unit_begin);
+    // The same text is the same unit: parsed once per sheet, shared.
+    auto known = display_units_.find(q->unit_written);
+    if (known != display_units_.end()) {
+      q->display = known->second;
+      *at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
+      return true;
+    }
     Unit unit;
     UnitError err;
     if (!parseUnit(q->unit_written, &unit, &err)) {
@@ -220,7 +229,8 @@ class LineParser {
       diags_->error(file_, e, std::max(e + 1, q->unit_end), err.message);
       return false;
     }
-    q->display = std::move(unit);
+    q->display = std::make_shared<const Unit>(std::move(unit));
+    display_units_.emplace(q->unit_written, q->display);
     *at = skipSpace(static_cast<uint32_t>(close) + 1, body_end);
     return true;
   }
@@ -919,6 +929,8 @@ class LineParser {
   const SourceFile& file_;
   Diagnostics* diags_;
   std::string section_;
+  // The display units parsed so far, by their text as written.
+  std::unordered_map<std::string, std::shared_ptr<const Unit>> display_units_;
   std::unordered_map<std::string, int> check_index_;  // check name -> position, for duplicates
   std::unordered_map<std::string, int> use_index_;    // instance name -> position in uses, for duplicates
 };

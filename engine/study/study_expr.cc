@@ -12,13 +12,14 @@ bool compileStudyExpr(const Model& m, std::shared_ptr<const SourceFile> file, ui
   ExprParser parser(*file, begin, end, diags);
   ExprPtr expr = parser.parseWhole();
   if (!expr) return false;
-  if (!checkOverModel(m, *file, *expr, diags)) return false;
-  out->program = compileProgram(*expr, m.sheet(), m.library());
+  TreeDims dims;
+  if (!checkOverModel(m, *file, *expr, diags, &dims)) return false;
+  out->program = compileProgram(*expr, dims.view(), m.sheet(), m.library());
   if (out->program.text.size() > kMaxProgramLength) {
     diags->error(*file, expr->begin, expr->end, tooLongMessage("the expression", out->program.text.size()));
     return false;
   }
-  out->dim = quantityDimension(expr->dim);
+  out->dim = quantityDimension(dims.of(*expr));
   // A lone name is shown as the sheet shows it; a lone literal in the unit written.
   const Unit* written = unitAsWritten(*expr);
   const Slot named = expr->kind == ExprKind::Name ? m.find(expr->text) : Slot();

@@ -111,10 +111,11 @@ bool parseStudyValue(const Model& m, const StudyInput& input, const SourceFile& 
     reads = true;
   });
   if (reads) return false;
-  DimensionChecker checker(file, diags, m.sheet(), m.dims(), m.known(), m.library());
-  if (!checker.check(*expr)) return false;
+  DimensionChecker checker(file, diags, m.sheet(), m.dims(), m.known(), m.library(), &m.temperatures());
+  TreeDims dims;
+  if (!checker.check(*expr, &dims)) return false;
   const SlotInfo& info = m.slot(input.slot);
-  const Dimension dim = quantityDimension(expr->dim);
+  const Dimension dim = quantityDimension(dims.of(*expr));
   if (info.has_dim && dim != info.dim) {
     diags->error(file, expr->begin, expr->end,
                  "`" + input.name + "` is " + info.dim.describe() + " in the worksheet, but `" +
@@ -122,7 +123,7 @@ bool parseStudyValue(const Model& m, const StudyInput& input, const SourceFile& 
     return false;
   }
   // The same arithmetic as --set (Inputs::set): the program of the literal, run once.
-  const Program program = compileProgram(*expr, m.sheet(), m.library());
+  const Program program = compileProgram(*expr, dims.view(), m.sheet(), m.library());
   double v = NAN;
   try {
     Evaluator once;
@@ -133,7 +134,7 @@ bool parseStudyValue(const Model& m, const StudyInput& input, const SourceFile& 
   if (!std::isfinite(v)) {
     EvalFault fault;
     evalTree(
-        *expr, [](const Expr&) { return NAN; }, &fault, m.library());
+        *expr, dims.view(), [](const Expr&) { return NAN; }, &fault, m.library());
     const Expr& at = fault.node ? *fault.node : *expr;
     diags->error(file, at.begin, at.end,
                  "the value cannot be calculated: " +

@@ -16,7 +16,7 @@ std::vector<Slot> upstreamInputs(const Model& m, const Inputs& inputs, Slot slot
     stack.pop_back();
     if (isGivenValue(m, inputs, s)) continue;
     const Binding* b = inputs.find(s);
-    const std::vector<int>& reads = b ? b->program.inputs : m.graph().uses(static_cast<int>(s.index()));
+    const NodeList reads = b ? NodeList(b->program.inputs) : m.graph().uses(static_cast<int>(s.index()));
     for (int j : reads) {
       if (seen[j]) continue;
       seen[j] = 1;

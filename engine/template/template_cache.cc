@@ -22,7 +22,7 @@ const TemplateFile* TemplateCache::get(const FileSource& source, const std::stri
       t->sha256 = sha256Hex(bytes);
       t->sheet = parseSheet(std::make_shared<SourceFile>(path, std::move(bytes)), &t->diags);
       // A param without a unit has the dimension of its default, which reads
-      // no quantity: checked here once, on a copy, against an empty sheet. Its
+      // no quantity: checked here once, against an empty sheet. Its
       // problems are the Model's to report (the default is a formula of the instance).
       const Sheet none;
       const std::vector<Dimension> no_dims;
@@ -31,10 +31,10 @@ const TemplateFile* TemplateCache::get(const FileSource& source, const std::stri
       for (size_t i = 0; i < t->sheet.quantities.size(); ++i) {
         const Quantity& q = t->sheet.quantities[i];
         if (!q.param || q.display || !q.expr) continue;
-        ExprPtr copy = cloneExpr(*q.expr);
         Diagnostics reported_by_the_model;
         DimensionChecker checker(*t->sheet.file, &reported_by_the_model, none, no_dims, no_known);
-        if (checker.check(*copy)) t->param_dims[i] = quantityDimension(copy->dim);
+        TreeDims dims;
+        if (checker.check(*q.expr, &dims)) t->param_dims[i] = quantityDimension(dims.of(*q.expr));
       }
       entry.file = std::move(t);
     }

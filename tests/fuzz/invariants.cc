@@ -309,10 +309,10 @@ std::vector<std::string> meaningOf(Sheet* sheet) {
     switch (st.kind) {
       case Statement::Blank: continue;
       case Statement::Invalid: line = "invalid"; break;
-      case Statement::Comment: line = "comment " + st.text; break;
-      case Statement::Meta: line = "meta " + st.key + ": " + st.text; break;
-      case Statement::Section: line = "section " + st.text; break;
-      case Statement::Note: line = "note " + st.text; break;
+      case Statement::Comment: line = "comment " + st.text(); break;
+      case Statement::Meta: line = "meta " + st.key() + ": " + st.text(); break;
+      case Statement::Section: line = "section " + st.text(); break;
+      case Statement::Note: line = "note " + st.text(); break;
       case Statement::Define: {
         const Quantity& q = sheet->quantities[st.index];
         const std::string expr = q.expr ? renderExpr(*q.expr) : "";  // none for a required parameter
