@@ -428,9 +428,9 @@ TEST_CASE("values are written from their numbers in each format's style", "[repo
   REQUIRE(t.steps[0].given);
   CHECK(valueText(*t.steps[0].given) == "1.5e9 W");
   CHECK(lineText(q.substituted) == "1.5e9 W \u00B7 2");
-  REQUIRE(q.substituted.size() == 2);
-  CHECK(q.substituted[0].value);
-  CHECK(q.substituted[1].text == " \u00B7 2");
+  CHECK(q.substituted.marked() == "\x1E \u00B7 2");  // a value, then the text
+  REQUIRE(q.substituted.values().size() == 1);
+  CHECK(valueText(q.substituted.values()[0]) == "1.5e9 W");
   CHECK(lineText(t.steps[3].substituted) == "(2e-7 m)^2 \u00B7 3");
   CHECK(lineText(t.steps[3].substituted, NumberStyle::TimesTen) == "(2 \u00D7 10\u207B\u2077 m)^2 \u00B7 3");
   CHECK(renderMarkdown(t).find("| `Q` | 3.000 \u00D7 10\u2079 W |") != std::string::npos);

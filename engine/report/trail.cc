@@ -156,15 +156,23 @@ std::string valueText(const TrailValue& v, NumberStyle style) {
 
 std::string lineText(const TrailLine& line, NumberStyle style) {
   fmt::memory_buffer out;
-  for (const TrailPiece& p : line) {
-    if (p.value) {
-      appendValue(out, *p.value, style);
-    } else if (style == NumberStyle::TimesTen) {
-      const std::string text = timesTenPowers(p.text);
-      out.append(text.data(), text.data() + text.size());
-    } else {
-      out.append(p.text.data(), p.text.data() + p.text.size());
+  const std::string& text = line.marked();
+  size_t next_value = 0;
+  for (size_t i = 0; i < text.size();) {
+    if (text[i] == TrailLine::kValueMark) {
+      appendValue(out, line.values()[next_value++], style);
+      ++i;
+      continue;
     }
+    size_t end = text.find(TrailLine::kValueMark, i);
+    if (end == std::string::npos) end = text.size();
+    if (style == NumberStyle::TimesTen) {
+      const std::string run = timesTenPowers(text.substr(i, end - i));
+      out.append(run.data(), run.data() + run.size());
+    } else {
+      out.append(text.data() + i, text.data() + end);
+    }
+    i = end;
   }
   return fmt::to_string(out);
 }
@@ -210,17 +218,17 @@ std::string markerInLine(std::vector<TrailValue>* values, TrailValue v, bool neg
 
 TrailLine cutAtMarkers(const std::string& text, const std::vector<TrailValue>& values) {
   TrailLine line;
-  line.reserve(2 * values.size() + 1);  // text, value, text, ...: a piece is large (a value with its texts)
+  line.reserveValues(values.size());
   size_t i = 0;
   while (i < text.size()) {
     const size_t at = text.find(kMark, i);
     if (at == std::string::npos) {
-      line.push_back({text.substr(i), std::nullopt});
+      line.addText(std::string_view(text).substr(i));
       break;
     }
-    if (at > i) line.push_back({text.substr(i, at - i), std::nullopt});
+    if (at > i) line.addText(std::string_view(text).substr(i, at - i));
     const size_t end = text.find(kMark, at + 1);
-    line.push_back({"", values.at(std::strtoul(text.c_str() + at + 1, nullptr, 10))});
+    line.addValue(values.at(std::strtoul(text.c_str() + at + 1, nullptr, 10)));
     i = end + 1;
   }
   return line;
@@ -396,9 +404,10 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   std::vector<double> library_args;
-  c.arguments.reserve(2 * f.args.size());
-  c.with_values.reserve(2 * f.args.size() + 1);
-  c.with_values.push_back({f.name + "(", std::nullopt});
+  c.arguments.reserveValues(f.args.size());
+  c.with_values.reserveValues(f.args.size());
+  c.with_values.addText(f.name);
+  c.with_values.addText("(");
   for (size_t k = 0; k < f.args.size() && k < call.args.size(); ++k) {
     EvalFault fault;
     const double raw = evalTree(*call.args[k], dims, value_of, &fault);
@@ -420,13 +429,13 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
     TrailValue shown_value = as_written ? std::move(*as_written) : rounded(lead ? raw : v, unit, digits);
-    c.arguments.push_back({fmt::format("{}{} = ", k ? ", " : "", f.args[k].name), std::nullopt});
-    c.arguments.push_back({"", shown_value});
-    if (k) c.with_values.push_back({", ", std::nullopt});
-    c.with_values.push_back({"", shown_value});
+    c.arguments.addText(fmt::format("{}{} = ", k ? ", " : "", f.args[k].name));
+    c.arguments.addValue(shown_value);
+    if (k) c.with_values.addText(", ");
+    c.with_values.addValue(shown_value);
     shown[f.args[k].name] = {std::move(shown_value), v < 0};
   }
-  c.with_values.push_back({")", std::nullopt});
+  c.with_values.addText(")");
   if (const Expr* formula = parsedFormula(f)) {
     c.pretty = renderExpr(*formula, nullptr, true);
     std::vector<TrailValue> values;

@@ -8,6 +8,7 @@
 #include <memory>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -29,12 +30,30 @@ struct TrailValue {
 };
 
 // A line of text with values in it, such as "6.400 kN · 30.00 mm / 2":
-// formula text and values, in order.
-struct TrailPiece {
-  std::string text;     // formula text ("· ", "(", " / 2"); empty for a value
-  std::optional<TrailValue> value;  // the value this piece shows, if it is one
+// formula text and values, in order. One string with a mark byte where each
+// value goes, and the values: a report of a large sheet holds one line per
+// step and call, and a piece per run of text, each with room for a whole
+// value, was a third of its memory (docs/performance.md). lineText() writes it.
+class TrailLine {
+ public:
+  static constexpr char kValueMark = '\x1E';  // no worksheet or library text holds it
+
+  void addText(std::string_view text) { text_.append(text.data(), text.size()); }
+  void addValue(TrailValue value) {
+    text_ += kValueMark;
+    values_.push_back(std::move(value));
+  }
+  void reserveValues(size_t n) { values_.reserve(n); }
+  bool empty() const { return text_.empty(); }
+  /// The text, each value's place one kValueMark.
+  const std::string& marked() const { return text_; }
+  /// The values, in the order of their marks.
+  const std::vector<TrailValue>& values() const { return values_; }
+
+ private:
+  std::string text_;
+  std::vector<TrailValue> values_;
 };
-using TrailLine = std::vector<TrailPiece>;
 
 // A node of a formula tree (a name, or a nested call) and the value shown in
 // its place, so that a typeset format can set the substituted formula from
