@@ -28,8 +28,7 @@ LibraryCall LibraryCall::at(const FunctionDecl& decl, const std::vector<Dimensio
 
 const double* LibraryCall::converted(const double* args, int n, std::vector<double>* out) const {
   out->assign(args, args + n);
-  for (int k = 0; k < n && k < 32; ++k)
-    if (per_angle_args & (1u << k)) (*out)[static_cast<size_t>(k)] *= kTwoPi;
+  for (int k = 0; k < n && k < 32; ++k) (*out)[static_cast<size_t>(k)] = argumentIn(k, args[k]);
   return out->data();
 }
 
@@ -46,7 +45,7 @@ double LibraryCall::call(const double* args, int n, DoubtCounter* counter) const
   // Only the first 32 arguments can carry the bit; a longer call keeps the rest as given.
   if (n > 32) return callMany(*this, args, n, counter);
   double buffer[32];
-  for (int k = 0; k < n; ++k) buffer[k] = per_angle_args & (1u << k) ? args[k] * kTwoPi : args[k];
+  for (int k = 0; k < n; ++k) buffer[k] = argumentIn(k, args[k]);
   return callConverted(buffer, n, counter);
 }
 

@@ -66,6 +66,10 @@ struct LibraryCall {
     return resultFromLibrary(r, decl->result_per_revolution);
   }
 
+  // Argument k as the function receives it: a lead per revolution (the one
+  // place the 2*pi of a lead is applied to an argument; k < 32).
+  double argumentIn(int k, double si) const { return per_angle_args & (1u << k) ? si * kTwoPi : si; }
+
   // The arguments as the function receives them (leads per revolution), into
   // *out; returns out->data().
   const double* converted(const double* args, int n, std::vector<double>* out) const;

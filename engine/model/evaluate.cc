@@ -6,7 +6,6 @@
 
 #include "engine/eval/tree_eval.h"
 #include "engine/report/number_format.h"
-#include "engine/util/math_constants.h"
 
 namespace calctrail {
 
@@ -43,8 +42,9 @@ double Evaluation::runScratch(const Program& program) {
 }
 
 // A formula that is one library call of names (Program::direct_call): the
-// arguments gathered and converted per revolution in one pass, then the
-// call. False, and no call, when an argument is not finite.
+// arguments gathered and converted as the function receives them
+// (LibraryCall::argumentIn) in one pass, then the call. False, and no call,
+// when an argument is not finite.
 bool Evaluation::callDirect(const Program& program, double* v) {
   const LibraryCall& c = program.calls[0];
   const size_t n = program.inputs.size();
@@ -61,7 +61,7 @@ bool Evaluation::callDirect(const Program& program, double* v) {
   for (size_t k = 0; k < n; ++k) {
     const double x = values_[in[k]];
     finite &= std::isfinite(x);
-    args[k] = c.per_angle_args & (1u << k) ? x * kTwoPi : x;  // as LibraryCall::call converts
+    args[k] = c.argumentIn(static_cast<int>(k), x);
   }
   if (!finite) return false;
   *v = c.callConverted(args, static_cast<int>(n), calls_.doubtCounter());

@@ -43,12 +43,9 @@ std::string JsonWriter::escape(std::string_view s) {
 
 void JsonWriter::newline() {
   out_->push_back('\n');
-  static constexpr std::string_view kSpaces = "                                ";
-  for (size_t n = first_.size() * 2; n > 0;) {  // two spaces a level
-    const size_t k = std::min(n, kSpaces.size());
-    append(*out_, kSpaces.substr(0, k));
-    n -= k;
-  }
+  const size_t at = out_->size(), n = first_.size() * 2;  // two spaces a level
+  out_->resize(at + n);
+  std::fill_n(out_->data() + at, n, ' ');
 }
 
 void JsonWriter::beforeValue() {
