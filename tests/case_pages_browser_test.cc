@@ -94,7 +94,8 @@ void printCases(int n, const std::string& paper) {
   // T = (10 + k) kN * (0.10 + 0.01 k) * 20 mm, e.g. k = 12: 22 kN * 0.22 *
   // 0.02 m = 96.80 N*m.
   for (int k = 1; k <= n; ++k) {
-    const TrailStep& T = t.steps[3];
+    const TrailSteps::Held T_held = t.steps.get(3);
+    const TrailStep& T = *T_held;
     REQUIRE(T.name == "T");
     CHECK(T.cases[static_cast<size_t>(k)].value.si ==
           Approx((10.0 + k) * 1000.0 * (0.10 + 0.01 * k) * 0.020).epsilon(1e-12));

@@ -155,7 +155,7 @@ TEST_CASE("cases: --case evaluates one case alone as the nominal, and an unknown
   CHECK(F.overrideCase() == "overload");
   const Trail t = buildTrail(*c, 4);
   CHECK(t.shown_case == "overload");
-  CHECK(t.steps[0].origin == "replaced in case overload");
+  CHECK(t.steps.get(0)->origin == "replaced in case overload");
   auto n = Calculation::fromText("sheet.calc", kSheet, options("nominal"));
   CHECK(n->cases.empty());
   CHECK(si(*n, "T") == Approx(10.0));
@@ -172,13 +172,14 @@ TEST_CASE("the trail: a value per case, what varies, each check per case and the
   REQUIRE(t.cases.size() == 3);
   CHECK(t.cases[0].name == "nominal");
   CHECK(t.cases[2].replacements == "F = 14 kN, f = max(0.08, 0.12)");
-  const TrailStep& T = t.steps[3];
+  const TrailSteps::Held T_held = t.steps.get(3);
+  const TrailStep& T = *T_held;
   REQUIRE(T.cases.size() == 3);
   CHECK(T.varies);
   CHECK(valueText(T.cases[1].value) == "15.00 N·m");
-  CHECK_FALSE(t.steps[2].varies);  // d: no case changes it
-  CHECK(t.steps[1].cases[1].replaced);
-  CHECK(t.steps[1].cases[1].formula == "0.15");
+  CHECK_FALSE(t.steps.get(2)->varies);  // d: no case changes it
+  CHECK(t.steps.get(1)->cases[1].replaced);
+  CHECK(t.steps.get(1)->cases[1].formula == "0.15");
   const TrailCheck& torque = t.checks[0];
   CHECK(torque.governing == 2);  // overload: 16.8 N*m against 15
   CHECK_FALSE(torque.cases[2].passed);

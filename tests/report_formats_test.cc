@@ -321,11 +321,11 @@ TEST_CASE("HTML and Markdown: library calls are audited, each function described
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   const Trail t = buildTrail(*c, 4);
-  const std::string src = t.steps[5].calls.at(0).source;
+  const std::string src = t.steps.get(5)->calls.at(0).source;
   REQUIRE_FALSE(src.empty());
   // T is the call alone: its chain goes on into the function's formula with the values.
-  CHECK(t.steps[5].single_call);
-  CHECK_FALSE(t.steps[6].single_call);
+  CHECK(t.steps.get(5)->single_call);
+  CHECK_FALSE(t.steps.get(6)->single_call);
   const std::string html = renderHtml(t);
   // The source, the formula and the limits once, in "Library functions used", with both users.
   CHECK(count(html, escapeXml(src)) == 1);
@@ -419,20 +419,21 @@ TEST_CASE("values are written from their numbers in each format's style", "[repo
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   const Trail t = buildTrail(*c, 4);
-  const TrailStep& q = t.steps[1];
+  const TrailSteps::Held q_held = t.steps.get(1);
+  const TrailStep& q = *q_held;
   CHECK(q.result.number.digits == "3.000");
   CHECK(q.result.number.exponent == "9");
   CHECK(valueText(q.result) == "3.000e9 W");
   CHECK(valueText(q.result, NumberStyle::TimesTen) == "3.000 \u00D7 10\u2079 W");
   // The given literal as written, and the substituted line cut into text and values.
-  REQUIRE(t.steps[0].given);
-  CHECK(valueText(*t.steps[0].given) == "1.5e9 W");
+  REQUIRE(t.steps.get(0)->given);
+  CHECK(valueText(*t.steps.get(0)->given) == "1.5e9 W");
   CHECK(lineText(q.substituted) == "1.5e9 W \u00B7 2");
   CHECK(q.substituted.marked() == "\x1E \u00B7 2");  // a value, then the text
   REQUIRE(q.substituted.values().size() == 1);
   CHECK(valueText(q.substituted.values()[0]) == "1.5e9 W");
-  CHECK(lineText(t.steps[3].substituted) == "(2e-7 m)^2 \u00B7 3");
-  CHECK(lineText(t.steps[3].substituted, NumberStyle::TimesTen) == "(2 \u00D7 10\u207B\u2077 m)^2 \u00B7 3");
+  CHECK(lineText(t.steps.get(3)->substituted) == "(2e-7 m)^2 \u00B7 3");
+  CHECK(lineText(t.steps.get(3)->substituted, NumberStyle::TimesTen) == "(2 \u00D7 10\u207B\u2077 m)^2 \u00B7 3");
   CHECK(renderMarkdown(t).find("| `Q` | 3.000 \u00D7 10\u2079 W |") != std::string::npos);
   CHECK(renderText(t).find("= 3.000e9 W\n") != std::string::npos);
 }

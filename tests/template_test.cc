@@ -434,10 +434,11 @@ TEST_CASE("the trail: files with hashes, an instance part with its parameters, c
   CHECK(t.instances[0].params[0].binding == "F_total / 2");
   CHECK(t.instances[0].params[1].binding.empty());
   // Within its part, an instance's formula reads in the template's names.
-  const TrailStep& torque = t.steps[c->sheet.find("left.T")];
+  const TrailSteps::Held torque_held = t.steps.get(c->sheet.find("left.T"));
+  const TrailStep& torque = *torque_held;
   CHECK(torque.formula == "F * f * d / 2");
   CHECK(torque.local_name == "T");
-  CHECK(t.steps[c->sheet.find("left.F")].formula == "F_total / 2");
+  CHECK(t.steps.get(c->sheet.find("left.F"))->formula == "F_total / 2");
 
   const std::string text = renderText(t);
   CHECK(contains(text, "template  templates/screw.calc\nsha256    " + sha256Hex(kScrew) + "\n"));

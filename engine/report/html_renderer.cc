@@ -458,8 +458,8 @@ void quantityTable(Out out, const Trail& t, bool inputs) {
   fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Quantity</th><th>{}</th></tr>"
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
-  for (const TrailStep& s : t.steps) {
-    if (s.input != inputs || (inputs && s.in_part_table)) continue;
+  for (const TrailStep& s : inputs ? t.steps.inputs() : t.steps.calculated()) {
+    if (inputs && s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
       if (!section.empty())
@@ -568,7 +568,8 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
   fmt::format_to(out, "<table class=\"params\">\n<thead><tr>{}{}</tr></thead>\n<tbody>\n", head,
                  rows < count ? head : "");
   const auto cells = [&](const TrailInstanceParam& p) {
-    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
+    const TrailStep& s = *held;
     std::string from = s.overridden        ? std::string("<em>set on the command line</em>")
                        : p.binding.empty() ? std::string("<em>default</em>")
                                            : "<code>" + esc(p.binding) + "</code>";
@@ -595,7 +596,8 @@ void calculation(Out out, const Trail& t) {
     else if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(b.text));
     else if (b.kind == TrailBlock::Note && b.instance < 0)
       fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(b.text));
-    else if (b.kind == TrailBlock::Step && !t.steps[b.index].input) step(out, t, t.steps[b.index]);
+    else if (b.kind == TrailBlock::Step && !t.steps.isInput(static_cast<size_t>(b.index)))
+      step(out, t, *t.steps.get(static_cast<size_t>(b.index)));
     else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
       // The part names its checks once, after its last step; their rows are in the summary.
       const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];

@@ -174,7 +174,8 @@ void writeInstance(JsonWriter& w, const Trail& t, const TrailInstance& i) {
   w.key("title").value(i.title);
   w.key("parameters").beginArray();
   for (const TrailInstanceParam& p : i.params) {
-    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
+    const TrailStep& s = *held;
     w.beginObject();
     w.key("name").value(p.name);
     w.key("quantity").value(s.name);
@@ -293,8 +294,7 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   for (const auto& [k, v] : t.meta) w.key(k).value(v);
   w.endObject();
   w.key("inputs").beginArray();
-  for (const TrailStep& s : t.steps)
-    if (s.input) w.value(s.name);
+  for (const TrailStep& s : t.steps.inputs()) w.value(s.name);
   w.endArray();
   w.key("quantities").beginArray();
   for (const TrailStep& s : t.steps) writeStep(w, t, s);

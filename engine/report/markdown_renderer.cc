@@ -77,7 +77,8 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
   if (in.params.empty()) return;
   fmt::format_to(out, "\n| Parameter | Value | Bound by |\n|---|---|---|\n");
   for (const TrailInstanceParam& p : in.params) {
-    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
+    const TrailStep& s = *held;
     std::string from = s.overridden        ? std::string("*set on the command line*")
                        : p.binding.empty() ? std::string("*default*")
                                            : code(p.binding);
@@ -214,8 +215,8 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
 
   fmt::format_to(out, "## Inputs\n\n| Quantity | Value | Notes |\n|---|---|---|\n");
   std::string section = "\x01";
-  for (const TrailStep& s : t.steps) {
-    if (!s.input || s.in_part_table) continue;
+  for (const TrailStep& s : t.steps.inputs()) {
+    if (s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
       if (!section.empty()) fmt::format_to(out, "| **{}** | | |\n", text(section));
@@ -244,8 +245,9 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
       const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
       if (b.index == in.checks.front()) fmt::format_to(out, "\n{}\n", text(instanceChecksLine(t, in)));
     } else if (b.kind == TrailBlock::Step) {
-      const TrailStep& s = t.steps[b.index];
-      if (s.input) continue;
+      if (t.steps.isInput(static_cast<size_t>(b.index))) continue;
+      const TrailSteps::Held held = t.steps.get(static_cast<size_t>(b.index));
+      const TrailStep& s = *held;
       // One paragraph a step, its lines joined by hard breaks ("\" at the end).
       fmt::format_to(out, "\n**{}**", code(s.name));
       if (!s.description.empty()) fmt::format_to(out, " {}", text(s.description));
@@ -271,14 +273,11 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "\n");
 
   // Every computed value at a glance, for the reviewer of a change.
-  bool any_result = false;
-  for (const TrailStep& s : t.steps) any_result = any_result || !s.input;
-  if (any_result) {
+  if (t.steps.anyCalculated()) {
     if (t.cases.empty()) {
       fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
-      for (const TrailStep& s : t.steps)
-        if (!s.input)
-          fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
+      for (const TrailStep& s : t.steps.calculated())
+        fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
     } else {
       // One value column per load case, nominal first; a bold value differs from the nominal.
       fmt::format_to(out, "## Results\n");

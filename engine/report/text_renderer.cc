@@ -168,7 +168,8 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
   std::vector<std::string> values;
   int name_w = width("parameter"), value_w = width("value");
   for (const TrailInstanceParam& p : in.params) {
-    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
+    const TrailStep& s = *held;
     values.push_back(valueText(s.given ? *s.given : s.result));
     name_w = std::max(name_w, width(p.name));
     value_w = std::max(value_w, width(values.back()));
@@ -176,7 +177,8 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
   fmt::format_to(out, "  {}  {}  bound by\n", pad("parameter", name_w), pad("value", value_w));
   for (size_t k = 0; k < in.params.size(); ++k) {
     const TrailInstanceParam& p = in.params[k];
-    const TrailStep& s = t.steps[static_cast<size_t>(p.step)];
+    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
+    const TrailStep& s = *held;
     std::string from = s.overridden        ? std::string("[set on the command line]")
                        : p.binding.empty() ? std::string("(default)")
                                            : p.binding;
@@ -268,14 +270,14 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "{}", heading("INPUTS"));
   auto shown = [](const TrailStep& s) { return valueText(s.given ? *s.given : s.result); };
   int name_w = 0, value_w = 0;
-  for (const TrailStep& s : t.steps) {
-    if (!s.input || s.in_part_table) continue;
+  for (const TrailStep& s : t.steps.inputs()) {
+    if (s.in_part_table) continue;
     name_w = std::max(name_w, width(s.name));
     value_w = std::max(value_w, width(shown(s)));
   }
   std::string section = "\x01";
-  for (const TrailStep& s : t.steps) {
-    if (!s.input || s.in_part_table) continue;
+  for (const TrailStep& s : t.steps.inputs()) {
+    if (s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
       if (!section.empty()) fmt::format_to(out, "{}\n", section);
@@ -308,8 +310,9 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
       const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
       if (b.index == in.checks.front()) fmt::format_to(out, "\n{}", wrap(instanceChecksLine(t, in), "  "));
     } else if (b.kind == TrailBlock::Step) {
-      const TrailStep& s = t.steps[b.index];
-      if (s.input) continue;
+      if (t.steps.isInput(static_cast<size_t>(b.index))) continue;
+      const TrailSteps::Held held = t.steps.get(static_cast<size_t>(b.index));
+      const TrailStep& s = *held;
       fmt::format_to(out, "\n  {}", s.name);
       if (!s.description.empty()) fmt::format_to(out, "  {}", s.description);
       if (s.overridden) fmt::format_to(out, "  [set on the command line]");

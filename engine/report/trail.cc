@@ -78,8 +78,10 @@ std::string warningSummary(const Trail& t) {
     return fmt::format("{} line {}", t.instances[static_cast<size_t>(instance)].path, at);
   };
   std::vector<std::string> places;
-  for (const TrailStep& s : t.steps)
-    if (!s.warnings.empty()) places.push_back(fmt::format("{} ({})", s.name, line(s.instance, s.line)));
+  for (int q : t.warned_steps) {
+    const TrailSteps::Held s = t.steps.get(static_cast<size_t>(q));
+    places.push_back(fmt::format("{} ({})", s->name, line(s->instance, s->line)));
+  }
   for (const TrailCheck& c : t.checks)
     if (!c.warnings.empty()) places.push_back(fmt::format("check {} ({})", c.name, line(c.instance, c.line)));
   const size_t n = t.warnings.size();
@@ -103,7 +105,7 @@ std::string instanceInputsPointer(const Trail& t) {
   for (const TrailInstance& in : t.instances) {
     bool left_out = false;
     for (const TrailInstanceParam& p : in.params)
-      left_out = left_out || t.steps[static_cast<size_t>(p.step)].in_part_table;
+      left_out = left_out || p.in_part_table;
     if (left_out) names.push_back(in.name);
   }
   if (names.empty()) return "";
@@ -383,9 +385,11 @@ std::optional<Unit> leadUnit(const Expr& arg, const Dimension& dim, const Calcul
   return std::nullopt;
 }
 
-// `dims`: the dimensions of the nodes of the formula `call` is in.
-TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& calc,
-                    const std::vector<std::optional<TrailValue>>& given, const Unit& step_unit, int digits) {
+// `dims`: the dimensions of the nodes of the formula `call` is in;
+// `given(j)`: quantity j's value as written, when it is given as one literal.
+template <class Given>
+TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& calc, const Given& given,
+                    const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
   c.name = f.name;
@@ -423,7 +427,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (given[j] && calc.quantities[j].display.text == unit.text) as_written = *given[j];
+      if (calc.quantities[j].display.text == unit.text) as_written = given(static_cast<size_t>(j));
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
       as_written =
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
@@ -499,10 +503,11 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
   }
 }
 
-// `results[j]` is quantity j's value as its step shows it: rounded(si, display, digits).
-TrailLine substitute(const Expr& e, const Calculation& calc,
-                     const std::vector<std::optional<TrailValue>>& given, const std::vector<TrailCall>& calls,
-                     const std::vector<TrailStep>& results, std::vector<TrailBinding>* bindings) {
+// `steps.given(j)`: quantity j's value as written, when it is given as one
+// literal; `steps.shown(j)`: its value as its step shows it.
+template <class Steps>
+TrailLine substitute(const Expr& e, const Calculation& calc, const Steps& steps, const std::vector<TrailCall>& calls,
+                     std::vector<TrailBinding>* bindings) {
   std::vector<TrailValue> values;
   const std::string text = renderExpr(
       e,
@@ -518,7 +523,8 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
         const int j = calc.sheet.find(name.text);
         const QuantityState& s = calc.quantities[j];
         // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
-        TrailValue v = given[j] ? *given[j] : results[static_cast<size_t>(j)].result;
+        std::optional<TrailValue> given = steps.given(static_cast<size_t>(j));
+        TrailValue v = given ? std::move(*given) : steps.shown(static_cast<size_t>(j));
         const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
         bindings->push_back({&name, v, negative});
         return markerInLine(&values, std::move(v), negative);
@@ -610,8 +616,9 @@ TrailCaseCheck caseCheck(const Check& c, const CheckResult& r, const Unit& unit,
   return cc;
 }
 
-// The columns of the load cases: per step a value per case, per check the
-// result per case and the governing case (least margin; the first on a tie).
+// The load cases: each case's header, and per check the result per case and
+// the governing case (least margin; the first on a tie). A step's value per
+// case is its builder's (TrailStepBuilder::addCaseValues).
 void addCases(const Calculation& calc, int digits, Trail* t) {
   const Sheet& sheet = calc.sheet;
   t->shown_case = calc.shown_case;
@@ -633,26 +640,6 @@ void addCases(const Calculation& calc, int digits, Trail* t) {
     t->cases.push_back(std::move(tc));
     results.push_back(&run.results);
   }
-  for (TrailStep& step : t->steps) {
-    const QuantityState& s = calc.quantities[step.index];
-    const Slot slot(static_cast<uint32_t>(step.index));
-    for (size_t k = 0; k < results.size(); ++k) {
-      TrailCaseValue v;
-      const Results& r = *results[k];
-      v.ok = k == 0 ? s.ok : calc.cases[k - 1].ok() && r.ok(slot);
-      v.value = rounded(v.ok ? r.value(slot) : 0.0, s.display, digits);
-      v.formula = step.formula;
-      if (k > 0)
-        for (const Binding& b : calc.cases[k - 1].inputs->own())
-          if (b.slot == slot && b.expr) {
-            v.replaced = true;
-            v.formula = renderExpr(*b.expr);
-          }
-      if (k > 0 && (v.replaced || v.ok != step.cases[0].ok || v.value.si != step.cases[0].value.si))
-        step.varies = true;
-      step.cases.push_back(std::move(v));
-    }
-  }
   for (TrailCheck& tc : t->checks) {
     const Check& c = sheet.checks[tc.index];
     const Unit& unit = calc.checks[tc.index].display;
@@ -673,10 +660,222 @@ void addCases(const Calculation& calc, int digits, Trail* t) {
   }
 }
 
+}  // namespace
+
+// Builds one step of the trail from the Calculation, whenever a renderer
+// asks for it: what a step needs of the others (their values as shown, the
+// warnings flagged at it, whether its part's table lists it) is found from
+// the Calculation and the few tables below, never from other built steps,
+// so that a step costs the same built alone as built with all the rest.
+class TrailStepBuilder {
+ public:
+  TrailStepBuilder(const Calculation& calc, int digits) : calc_(calc), digits_(digits) {
+    results_.push_back(&calc.results);
+    for (const CaseRun& run : calc.cases) results_.push_back(&run.results);
+  }
+
+  // The fields a step has without explaining its value: name, texts,
+  // given value, result and units.
+  TrailStep head(size_t i) const;
+  // The whole step: head, origin, the calls' audits, the substituted line,
+  // its warnings and its values per load case.
+  TrailStep build(size_t i) const;
+
+  bool isInput(size_t i) const { return calc_.quantities[i].input; }
+  // A given value written as one literal in its display unit, as written; else nothing.
+  std::optional<TrailValue> given(size_t i) const;
+  // Quantity i's value as its step shows it (0 in its unit when it has none).
+  TrailValue shown(size_t i) const {
+    const QuantityState& s = calc_.quantities[i];
+    return rounded(s.si, s.display, digits_);
+  }
+
+  // Every warning flagged at a step, by quantity, each quantity's in the
+  // order of the diagnostics.
+  struct Flagged {
+    int quantity;
+    size_t order;  // into Trail::warnings
+    std::string message;
+  };
+  std::vector<Flagged> warnings;
+  // Per quantity: a parameter of some instance (its part's table shows it).
+  std::vector<char> param;
+
+ private:
+  void explain(TrailStep* s) const;
+  void addCaseValues(TrailStep* s) const;
+
+  const Calculation& calc_;
+  const int digits_;
+  std::vector<const Results*> results_;  // the nominal's, then each case's
+};
+
+std::optional<TrailValue> TrailStepBuilder::given(size_t i) const {
+  const Quantity& q = calc_.sheet.quantities[i];
+  const QuantityState& s = calc_.quantities[i];
+  if (!s.ok) return std::nullopt;
+  const Expr* x = withoutParens(q.expr.get());
+  if (x->kind != ExprKind::Number) return std::nullopt;
+  const bool same_unit = x->unit ? (s.display.text == x->unit->text && !s.declared) ||
+                                       (q.display && q.display->text == x->unit->text)
+                                 : s.display.text == "1" || s.display.text.empty();
+  if (!same_unit) return std::nullopt;
+  return written(x->text, s.si, s.display.fromSI(s.si), x->unit ? x->unit->pretty() : "");
+}
+
+TrailStep TrailStepBuilder::head(size_t i) const {
+  const Sheet& sheet = calc_.sheet;
+  const Quantity& q = sheet.quantities[i];
+  const QuantityState& s = calc_.quantities[i];
+  TrailStep step;
+  step.index = static_cast<int>(i);
+  step.name = q.name;
+  step.description = q.description;
+  step.section = q.section;
+  step.line = q.line;
+  step.input = s.input;
+  step.overridden = q.overridden;
+  step.instance = q.instance;
+  step.local_name = sheet.localName(q.instance, q.name);
+  // In the names of the scope the formula is written in (a --set one in the main sheet's).
+  const int scope = q.overridden ? -1 : q.expr_instance;
+  const NameRenderer local = [&](const Expr& n) { return sheet.localName(scope, n.text); };
+  step.formula = renderExpr(*q.expr, scope < 0 ? nullptr : local);
+  step.pretty = renderExpr(*q.expr, scope < 0 ? nullptr : local, true);
+  step.expr = q.expr.get();
+  step.ok = s.ok;
+  step.result = shown(i);
+  step.given = given(i);
+  step.formula_in_notes = !step.given && step.formula != (s.ok ? valueText(step.result) : "");
+  step.unit = s.display.text;
+  // The contract: the declared display unit as written, else the engine's choice.
+  step.unit_declared = s.declared;
+  step.unit_written = s.declared ? q.unit_written : step.unit;
+  step.si_unit = s.dim.siSymbol();
+  step.unit_pretty = s.display.pretty();
+  step.dimension = s.dim.name();
+  return step;
+}
+
+// Where the value comes from (given in the worksheet, set on the command
+// line, calculated, or calculated with the cited library methods), each
+// library call's audit, and the formula with the values it read.
+void TrailStepBuilder::explain(TrailStep* step) const {
+  TrailStep& s = *step;
+  const Sheet& sheet = calc_.sheet;
+  const std::string& by_case = sheet.quantities[s.index].overrideCase();
+  s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
+             : s.input    ? "given"
+                          : "calculated";
+  if (!calc_.quantities[s.index].ok) return;
+  const Expr& expr = *sheet.quantities[s.index].expr;
+  std::vector<const Expr*> calls;
+  collectCalls(expr, &calls);
+  const NodeDims dims = calc_.exprDims(static_cast<size_t>(s.index));
+  const auto given_of = [this](size_t j) { return given(j); };
+  for (const Expr* call : calls)
+    s.calls.push_back(auditCall(*call, dims, calc_, given_of, calc_.quantities[s.index].display, digits_));
+  // A call inside another's arguments is shown there by its value.
+  for (size_t k = 0; k < calls.size(); ++k)
+    for (size_t o = 0; o < calls.size(); ++o)
+      if (o != k && calls[o]->begin <= calls[k]->begin && calls[k]->end <= calls[o]->end)
+        s.calls[k].nested = true;
+  s.substituted_expr = &expr;
+  if (hasNestedCall(expr, false)) {
+    ExprPtr copy = cloneExpr(expr);
+    int next = 0;
+    markNestedCalls(*copy, false, &next);
+    s.substituted_owner = std::shared_ptr<const Expr>(std::move(copy));
+    s.substituted_expr = s.substituted_owner.get();
+  }
+  s.substituted = substitute(*s.substituted_expr, calc_, *this, s.calls, &s.bindings);
+  const std::string substituted = lineText(s.substituted);
+  s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
+  const Expr* x = withoutParens(&expr);
+  if (!calls.empty() && x == calls[0]) s.calls[0].whole = true;
+  s.single_call = !calls.empty() && s.calls[0].whole && s.calls[0].formula_is_expression &&
+                  s.calls[0].show_substituted;
+  for (const TrailCall& c : s.calls) s.origin += "; " + c.name + ": " + c.source;
+}
+
+// The step's value in each load case, the nominal first; `varies` when a
+// case replaces it or gives it another value.
+void TrailStepBuilder::addCaseValues(TrailStep* step) const {
+  if (calc_.cases.empty()) return;
+  TrailStep& s = *step;
+  const QuantityState& state = calc_.quantities[s.index];
+  const Slot slot(static_cast<uint32_t>(s.index));
+  for (size_t k = 0; k < results_.size(); ++k) {
+    TrailCaseValue v;
+    const Results& r = *results_[k];
+    v.ok = k == 0 ? state.ok : calc_.cases[k - 1].ok() && r.ok(slot);
+    v.value = rounded(v.ok ? r.value(slot) : 0.0, state.display, digits_);
+    v.formula = s.formula;
+    if (k > 0)
+      for (const Binding& b : calc_.cases[k - 1].inputs->own())
+        if (b.slot == slot && b.expr) {
+          v.replaced = true;
+          v.formula = renderExpr(*b.expr);
+        }
+    if (k > 0 && (v.replaced || v.ok != s.cases[0].ok || v.value.si != s.cases[0].value.si)) s.varies = true;
+    s.cases.push_back(std::move(v));
+  }
+}
+
+TrailStep TrailStepBuilder::build(size_t i) const {
+  TrailStep s = head(i);
+  explain(&s);
+  const auto first = std::lower_bound(warnings.begin(), warnings.end(), static_cast<int>(i),
+                                      [](const Flagged& w, int q) { return w.quantity < q; });
+  for (auto w = first; w != warnings.end() && w->quantity == static_cast<int>(i); ++w)
+    s.warnings.push_back(w->message);
+  addCaseValues(&s);
+  // After the warnings and the cases: an input that has either stays in the Inputs list.
+  s.in_part_table = param[i] && s.input && !s.varies && s.warnings.empty();
+  return s;
+}
+
+size_t TrailSteps::size() const { return kept_ ? kept_->size() : builder_ ? builder_->param.size() : 0; }
+
+// A kept trail reads only itself, so that it may outlive its Calculation.
+bool TrailSteps::isInput(size_t i) const { return kept_ ? (*kept_)[i].input : builder_->isInput(i); }
+
+std::shared_ptr<const TrailStep> TrailSteps::get(size_t i) const {
+  if (kept_) return std::shared_ptr<const TrailStep>(kept_, &(*kept_)[i]);
+  return std::make_shared<const TrailStep>(builder_->build(i));
+}
+
+bool TrailSteps::passes(size_t i, Filter filter) const {
+  return filter == Filter::All || isInput(i) == (filter == Filter::Inputs);
+}
+
+bool TrailSteps::anyCalculated() const {
+  for (size_t i = 0; i < size(); ++i)
+    if (!isInput(i)) return true;
+  return false;
+}
+
+namespace {
+
+// The quantities of an instance its part shows as steps. A parameter bound
+// to a number or to one name of the using sheet has its value and its
+// binding in the part's table already: a step would repeat that row.
+std::vector<int> instanceSteps(const Sheet& sheet, const Instance& inst) {
+  std::vector<int> in_table, steps;
+  for (const InstanceParam& p : inst.params) {
+    const Quantity& q = sheet.quantities[static_cast<size_t>(p.quantity)];
+    const bool plain = q.expr && (q.expr->kind == ExprKind::Number || q.expr->kind == ExprKind::Name);
+    if (!p.binding.empty() && !q.overridden && plain) in_table.push_back(p.quantity);
+  }
+  for (int q : inst.quantities)
+    if (std::find(in_table.begin(), in_table.end(), q) == in_table.end()) steps.push_back(q);
+  return steps;
+}
+
 // Each instance as a part of its own after the main sheet's blocks: a
 // heading naming the instance, its template's title and file; its
 // parameters with their bound values and bindings; then its steps and checks.
-void addInstances(const Sheet& sheet, Trail* t) {
+void addInstances(const Sheet& sheet, const TrailStepBuilder& builder, Trail* t) {
   for (const Instance& inst : sheet.instances) {
     TrailInstance ti;
     ti.name = inst.name;
@@ -687,8 +886,8 @@ void addInstances(const Sheet& sheet, Trail* t) {
                  (inst.title.empty() ? std::string("template") : inst.title) + " (" + inst.path + ")";
     std::string params;
     for (const InstanceParam& p : inst.params) {
-      const TrailStep& s = t->steps[static_cast<size_t>(p.quantity)];
-      TrailInstanceParam tp{s.local_name, p.quantity, p.binding};
+      const TrailStep s = builder.build(static_cast<size_t>(p.quantity));
+      TrailInstanceParam tp{s.local_name, p.quantity, p.binding, s.in_part_table};
       params += (params.empty() ? "" : "; ") + tp.name + " = ";
       const std::string value = valueText(s.given ? *s.given : s.result);
       if (!p.binding.empty() && p.binding != value) params += p.binding + " = ";
@@ -697,16 +896,7 @@ void addInstances(const Sheet& sheet, Trail* t) {
       else if (p.binding.empty()) params += " (default)";
       ti.params.push_back(std::move(tp));
     }
-    // A parameter bound to a number or to one name of the using sheet has its value and
-    // its binding in the table already: a step would repeat that row.
-    std::vector<bool> in_table(sheet.quantities.size(), false);
-    for (const InstanceParam& p : inst.params) {
-      const Quantity& q = sheet.quantities[static_cast<size_t>(p.quantity)];
-      const bool plain = q.expr && (q.expr->kind == ExprKind::Number || q.expr->kind == ExprKind::Name);
-      if (!p.binding.empty() && !q.overridden && plain) in_table[static_cast<size_t>(p.quantity)] = true;
-    }
-    for (int q : inst.quantities)
-      if (!in_table[static_cast<size_t>(q)]) ti.steps.push_back(q);
+    ti.steps = instanceSteps(sheet, inst);
     ti.checks = inst.checks;
     const int at = static_cast<int>(t->instances.size());
     t->blocks.push_back({TrailBlock::Section, ti.heading, 0, at});
@@ -715,6 +905,75 @@ void addInstances(const Sheet& sheet, Trail* t) {
     for (int c : ti.checks) t->blocks.push_back({TrailBlock::CheckRef, "", c, at});
     t->instances.push_back(std::move(ti));
   }
+}
+
+// A warning is flagged at the step (or check) it was found in. One that does
+// not say (a dimension warning in the main sheet) at the main sheet's steps on
+// its line, else at the first check there: a template's lines are its own,
+// shared by its instances. Fills builder->warnings, the checks' warnings,
+// Trail::warnings and warnings_at_steps.
+void placeWarnings(const Calculation& calc, TrailStepBuilder* builder, Trail* t) {
+  const Sheet& sheet = calc.sheet;
+  // The steps the trail shows: the main sheet's blocks (made already) and the instances' parts.
+  std::vector<bool> has_step(sheet.quantities.size(), false);
+  for (const TrailBlock& b : t->blocks)
+    if (b.kind == TrailBlock::Step) has_step[static_cast<size_t>(b.index)] = true;
+  for (const Instance& inst : sheet.instances)
+    for (int q : instanceSteps(sheet, inst)) has_step[static_cast<size_t>(q)] = true;
+  struct ByLine {
+    int line;
+    size_t order;  // into the warnings
+    std::string message;
+  };
+  std::vector<ByLine> by_line;
+  std::vector<char> placed;
+  for (const Diagnostic& d : calc.diags.list()) {
+    if (d.severity != Severity::Warning) continue;
+    const size_t order = t->warnings.size();
+    t->warnings.push_back(d.headline());
+    placed.push_back(false);
+    if (d.site.quantity >= 0) {
+      const size_t q = static_cast<size_t>(d.site.quantity);
+      if (!sheet.quantities[q].overridden && has_step[q]) {
+        builder->warnings.push_back({d.site.quantity, order, d.message});
+        placed.back() = true;
+      }
+    } else if (d.site.check >= 0) {
+      t->checks[static_cast<size_t>(d.site.check)].warnings.push_back(d.message);
+      placed.back() = true;
+    } else if (d.path == calc.path && d.line > 0) {
+      by_line.push_back({d.line, order, d.message});
+    }
+  }
+  // The main sheet's steps on a warning's line, in one pass over the quantities.
+  std::stable_sort(by_line.begin(), by_line.end(), [](const ByLine& a, const ByLine& b) { return a.line < b.line; });
+  if (!by_line.empty())
+    for (size_t i = 0; i < sheet.quantities.size(); ++i) {
+      const Quantity& q = sheet.quantities[i];
+      if (q.instance >= 0 || q.overridden) continue;
+      auto [first, last] = std::equal_range(by_line.begin(), by_line.end(), ByLine{q.line, 0, ""},
+                                            [](const ByLine& a, const ByLine& b) { return a.line < b.line; });
+      for (auto w = first; w != last; ++w) {
+        builder->warnings.push_back({static_cast<int>(i), w->order, w->message});
+        placed[w->order] = true;
+      }
+    }
+  // Within a quantity, the order of the diagnostics.
+  std::sort(builder->warnings.begin(), builder->warnings.end(), [](const auto& a, const auto& b) {
+    return a.quantity != b.quantity ? a.quantity < b.quantity : a.order < b.order;
+  });
+  std::vector<const ByLine*> in_order;
+  for (const ByLine& w : by_line) in_order.push_back(&w);
+  std::sort(in_order.begin(), in_order.end(), [](const ByLine* a, const ByLine* b) { return a->order < b->order; });
+  for (const ByLine* w : in_order)
+    for (TrailCheck& c : t->checks)
+      if (!placed[w->order] && c.instance < 0 && c.line == w->line) {
+        c.warnings.push_back(w->message);
+        placed[w->order] = true;
+      }
+  for (char p : placed) t->warnings_at_steps += p ? 1 : 0;
+  for (const auto& w : builder->warnings)
+    if (t->warned_steps.empty() || t->warned_steps.back() != w.quantity) t->warned_steps.push_back(w.quantity);
 }
 
 }  // namespace
@@ -733,7 +992,7 @@ std::vector<std::pair<size_t, size_t>> caseGroups(size_t cases, size_t most) {
   return groups;
 }
 
-Trail buildTrail(const Calculation& calc, int digits) {
+Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   const Sheet& sheet = calc.sheet;
   Trail t;
   t.digits = digits;
@@ -748,99 +1007,38 @@ Trail buildTrail(const Calculation& calc, int digits) {
     const std::string v = sheet.meta.get(key);
     if (!v.empty()) t.meta.emplace_back(key, v);
   }
+  auto builder = std::make_shared<TrailStepBuilder>(calc, digits);
+  builder->param.assign(sheet.quantities.size(), 0);
+  for (const Instance& inst : sheet.instances)
+    for (const InstanceParam& p : inst.params) builder->param[static_cast<size_t>(p.quantity)] = 1;
+  // Every library function called, in order of first use, and the quantities
+  // that call each (those calculated, whose steps audit their calls).
   std::vector<const FunctionDecl*> used;
-  t.steps.reserve(sheet.quantities.size());
+  std::vector<std::vector<std::string>> used_by;
+  std::vector<int> first_caller;  // per function used: the first calculated quantity calling it, -1 for none
+  std::vector<const Expr*> calls;
   for (size_t i = 0; i < sheet.quantities.size(); ++i) {
     const Quantity& q = sheet.quantities[i];
-    const QuantityState& s = calc.quantities[i];
     if (q.overridden) {
       std::string value = q.overrideText();
       while (!value.empty() && value.front() == ' ') value.erase(0, 1);
       while (!value.empty() && value.back() == ' ') value.pop_back();
       t.modified_by.push_back({q.name, value, q.line});
     }
-    TrailStep step;
-    step.index = static_cast<int>(i);
-    step.name = q.name;
-    step.description = q.description;
-    step.section = q.section;
-    step.line = q.line;
-    step.input = s.input;
-    step.overridden = q.overridden;
-    step.instance = q.instance;
-    step.local_name = sheet.localName(q.instance, q.name);
-    // In the names of the scope the formula is written in (a --set one in the main sheet's).
-    const int scope = q.overridden ? -1 : q.expr_instance;
-    const NameRenderer local = [&](const Expr& n) { return sheet.localName(scope, n.text); };
-    step.formula = renderExpr(*q.expr, scope < 0 ? nullptr : local);
-    step.pretty = renderExpr(*q.expr, scope < 0 ? nullptr : local, true);
-    step.expr = q.expr.get();
-    step.ok = s.ok;
-    // Substituted is filled below, once every given value is known.
-    step.result = rounded(s.si, s.display, digits);
-    {
-      const Expr* x = withoutParens(q.expr.get());
-      const bool literal = x->kind == ExprKind::Number;
-      const bool same_unit = x->unit ? (s.display.text == x->unit->text && !s.declared) ||
-                                           (q.display && q.display->text == x->unit->text)
-                                     : s.display.text == "1" || s.display.text.empty();
-      if (s.ok && literal && same_unit) {
-        step.given = written(x->text, s.si, s.display.fromSI(s.si), x->unit ? x->unit->pretty() : "");
-      }
-    }
-    step.formula_in_notes = !step.given && step.formula != (s.ok ? valueText(step.result) : "");
-    step.unit = s.display.text;
-    // The contract: the declared display unit as written, else the engine's choice.
-    step.unit_declared = s.declared;
-    step.unit_written = s.declared ? q.unit_written : step.unit;
-    step.si_unit = s.dim.siSymbol();
-    step.unit_pretty = s.display.pretty();
-    step.dimension = s.dim.name();
-    std::vector<const Expr*> calls;
+    calls.clear();
     collectCalls(*q.expr, &calls);
     for (const Expr* call : calls) {
       const FunctionDecl* f = findFunction(call->text);
-      if (std::find(used.begin(), used.end(), f) == used.end()) used.push_back(f);
+      size_t k = static_cast<size_t>(std::find(used.begin(), used.end(), f) - used.begin());
+      if (k == used.size()) {
+        used.push_back(f);
+        used_by.emplace_back();
+        first_caller.push_back(-1);
+      }
+      if (!calc.quantities[i].ok) continue;
+      if (used_by[k].empty() || used_by[k].back() != q.name) used_by[k].push_back(q.name);
+      if (first_caller[k] < 0) first_caller[k] = static_cast<int>(i);
     }
-    t.steps.push_back(std::move(step));
-  }
-  std::vector<std::optional<TrailValue>> given;
-  for (const TrailStep& s : t.steps) given.push_back(s.given);
-  for (TrailStep& s : t.steps) {
-    // Where the value comes from: given in the worksheet, set on the command
-    // line, calculated, or calculated with the cited library methods.
-    const std::string& by_case = sheet.quantities[s.index].overrideCase();
-    s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
-               : s.input    ? "given"
-                            : "calculated";
-    if (!calc.quantities[s.index].ok) continue;
-    const Expr& expr = *sheet.quantities[s.index].expr;
-    std::vector<const Expr*> calls;
-    collectCalls(expr, &calls);
-    const NodeDims dims = calc.exprDims(static_cast<size_t>(s.index));
-    for (const Expr* call : calls)
-      s.calls.push_back(auditCall(*call, dims, calc, given, calc.quantities[s.index].display, digits));
-    // A call inside another's arguments is shown there by its value.
-    for (size_t k = 0; k < calls.size(); ++k)
-      for (size_t o = 0; o < calls.size(); ++o)
-        if (o != k && calls[o]->begin <= calls[k]->begin && calls[k]->end <= calls[o]->end)
-          s.calls[k].nested = true;
-    s.substituted_expr = &expr;
-    if (hasNestedCall(expr, false)) {
-      ExprPtr copy = cloneExpr(expr);
-      int next = 0;
-      markNestedCalls(*copy, false, &next);
-      s.substituted_owner = std::shared_ptr<const Expr>(std::move(copy));
-      s.substituted_expr = s.substituted_owner.get();
-    }
-    s.substituted = substitute(*s.substituted_expr, calc, given, s.calls, t.steps, &s.bindings);
-    const std::string substituted = lineText(s.substituted);
-    s.show_substituted = substituted != s.pretty && substituted != valueText(s.result);
-    const Expr* x = withoutParens(&expr);
-    if (!calls.empty() && x == calls[0]) s.calls[0].whole = true;
-    s.single_call = !calls.empty() && s.calls[0].whole && s.calls[0].formula_is_expression &&
-                    s.calls[0].show_substituted;
-    for (const TrailCall& c : s.calls) s.origin += "; " + c.name + ": " + c.source;
   }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
@@ -891,40 +1089,18 @@ Trail buildTrail(const Calculation& calc, int digits) {
     if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
   }
   flushNote();
-  addInstances(sheet, &t);
-  // A warning is flagged at the step (or check) it was found in. One that
-  // does not say (a dimension warning in the main sheet) at the main sheet's
-  // step on its line: a template's lines are its own, shared by its instances.
-  std::vector<bool> has_step(t.steps.size(), false);
-  for (const TrailBlock& b : t.blocks)
-    if (b.kind == TrailBlock::Step) has_step[static_cast<size_t>(b.index)] = true;
-  for (const Diagnostic& d : calc.diags.list()) {
-    if (d.severity != Severity::Warning) continue;
-    t.warnings.push_back(d.headline());
-    bool placed = false;
-    const auto flag = [&](std::vector<std::string>* at) {
-      at->push_back(d.message);
-      placed = true;
-    };
-    if (d.site.quantity >= 0) {
-      TrailStep& s = t.steps[static_cast<size_t>(d.site.quantity)];
-      if (!s.overridden && has_step[static_cast<size_t>(d.site.quantity)]) flag(&s.warnings);
-    } else if (d.site.check >= 0) {
-      flag(&t.checks[static_cast<size_t>(d.site.check)].warnings);
-    } else if (d.path == calc.path && d.line > 0) {
-      for (TrailStep& s : t.steps)
-        if (s.instance < 0 && s.line == d.line && !s.overridden) flag(&s.warnings);
-      for (TrailCheck& c : t.checks)
-        if (!placed && c.instance < 0 && c.line == d.line) flag(&c.warnings);
-    }
-    t.warnings_at_steps += placed ? 1 : 0;
-  }
+  // The warnings before any step is built: a step holds those flagged at
+  // it, and an instance's parameter table reads whether its step has one.
+  placeWarnings(calc, builder.get(), &t);
+  addCases(calc, digits, &t);
+  addInstances(sheet, *builder, &t);
   // Library functions used, each once, in order of first use.
-  for (const FunctionDecl* f : used) {
+  for (size_t k = 0; k < used.size(); ++k) {
+    const FunctionDecl* f = used[k];
     TrailFunction fn;
     fn.name = f->name;
     fn.signature = f->name + "(";
-    for (size_t k = 0; k < f->args.size(); ++k) fn.signature += (k ? ", " : "") + f->args[k].name;
+    for (size_t a = 0; a < f->args.size(); ++a) fn.signature += (a ? ", " : "") + f->args[a].name;
     fn.signature += ")";
     fn.summary = f->summary;
     fn.method = methodOf(*f);
@@ -935,13 +1111,21 @@ Trail buildTrail(const Calculation& calc, int digits) {
     fn.source = f->source;
     fn.verification = verificationOf(*f);
     fn.trivial = f->args.empty();
-    for (const TrailStep& s : t.steps)
-      for (const TrailCall& c : s.calls)
-        if (c.name == f->name) {
-          if (fn.value.empty() && c.result) fn.value = valueText(*c.result);
-          if (std::find(fn.used_by.begin(), fn.used_by.end(), s.name) == fn.used_by.end())
-            fn.used_by.push_back(s.name);
+    // The value a call of it gave: a constant's, listed with it (the first call's that has one).
+    for (size_t i = static_cast<size_t>(std::max(first_caller[k], 0)); first_caller[k] >= 0 && fn.value.empty() &&
+                                                                         i < sheet.quantities.size();
+         ++i) {
+      if (!calc.quantities[i].ok) continue;
+      calls.clear();
+      collectCalls(*sheet.quantities[i].expr, &calls);
+      if (std::none_of(calls.begin(), calls.end(), [&](const Expr* c) { return c->text == f->name; })) continue;
+      for (const TrailCall& c : builder->build(i).calls)
+        if (c.name == f->name && c.result) {
+          fn.value = valueText(*c.result);
+          break;
         }
+    }
+    fn.used_by = std::move(used_by[k]);
     t.functions.push_back(std::move(fn));
   }
   // Cautions from the one catalogue: the general ones, then those of the
@@ -956,13 +1140,15 @@ Trail buildTrail(const Calculation& calc, int digits) {
     t.cautions.push_back(c->text);
     t.caution_ids.push_back(c->id);
   }
-  addCases(calc, digits, &t);
-  // After the warnings and the cases: an input that has either stays in the Inputs list.
-  for (const TrailInstance& in : t.instances)
-    for (const TrailInstanceParam& p : in.params) {
-      TrailStep& s = t.steps[static_cast<size_t>(p.step)];
-      s.in_part_table = s.input && !s.varies && s.warnings.empty();
-    }
+  const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && sheet.quantities.size() <= kKeptSteps);
+  if (keep_all) {
+    auto kept = std::make_shared<std::vector<TrailStep>>();
+    kept->reserve(sheet.quantities.size());
+    for (size_t i = 0; i < sheet.quantities.size(); ++i) kept->push_back(builder->build(i));
+    t.steps.kept_ = std::move(kept);
+  } else {
+    t.steps.builder_ = std::move(builder);
+  }
   addStudies(calc, digits, &t);
   return t;
 }

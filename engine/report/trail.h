@@ -5,6 +5,8 @@
 // JSON at full precision). A renderer reads a Trail and nothing else.
 #pragma once
 
+#include <cstddef>
+#include <iterator>
 #include <memory>
 #include <optional>
 #include <string>
@@ -252,6 +254,7 @@ struct TrailInstanceParam {
   std::string name;       // the parameter's name in its template: "F"
   int step = 0;           // into steps: its value, unit and description
   std::string binding;    // the binding as written in the using sheet ("F_total / 2"); "" at its default
+  bool in_part_table = false;  // its step's in_part_table: the Inputs list leaves it out
 };
 
 struct TrailInstance {    // a template used as an instance: its own part of the trail
@@ -318,6 +321,91 @@ struct TrailStudy {
   std::string limiting_check;
 };
 
+// Whether a trail keeps its steps (TrailSteps): by the sheet's size (up to
+// kKeptSteps quantities), or always, or never (tests hold both ways equal).
+enum class TrailKeep { BySize, All, None };
+constexpr size_t kKeptSteps = 4096;
+
+struct Trail;
+Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep = TrailKeep::BySize);
+
+class TrailStepBuilder;  // trail.cc: makes a step from the Calculation
+
+// The steps of a trail, one per quantity in sheet order. A small sheet's are
+// built once and kept; a large sheet's are built each time a renderer reads
+// one and dropped after it, so that a report of a sheet of many thousands of
+// lines holds the texts of one step at a time, not of all (a kept step is
+// some 3 KB: docs/performance.md). Both ways give the same steps. A kept
+// trail reads nothing but itself; one that builds its steps reads the
+// Calculation it was built from, which must then outlive it.
+class TrailSteps {
+ public:
+  using Held = std::shared_ptr<const TrailStep>;
+  enum class Filter { All, Inputs, Calculated };
+
+  // Walks the steps, building each as it is reached: `*it` is valid until `++it`.
+  class Iterator {
+   public:
+    using iterator_category = std::input_iterator_tag;
+    using value_type = TrailStep;
+    using difference_type = std::ptrdiff_t;
+    using pointer = const TrailStep*;
+    using reference = const TrailStep&;
+    Iterator(const TrailSteps* steps, size_t i, Filter filter) : steps_(steps), i_(i), filter_(filter) { skip(); }
+    const TrailStep& operator*() {
+      if (!held_) held_ = steps_->get(i_);
+      return *held_;
+    }
+    const TrailStep* operator->() { return &**this; }
+    Iterator& operator++() {
+      ++i_;
+      held_.reset();
+      skip();
+      return *this;
+    }
+    bool operator==(const Iterator& o) const { return i_ == o.i_; }
+    bool operator!=(const Iterator& o) const { return i_ != o.i_; }
+
+   private:
+    void skip() {
+      while (i_ < steps_->size() && !steps_->passes(i_, filter_)) ++i_;
+    }
+    const TrailSteps* steps_;
+    size_t i_;
+    Filter filter_;
+    Held held_;
+  };
+  struct Range {
+    Iterator first, last;
+    Iterator begin() const { return first; }
+    Iterator end() const { return last; }
+  };
+
+  size_t size() const;
+  bool empty() const { return size() == 0; }
+  // Step i (into the sheet's quantities), kept or built now; the pointer holds it.
+  Held get(size_t i) const;
+  // Step i is a given value (TrailStep::input), known without building it.
+  bool isInput(size_t i) const;
+  // Some step is calculated (not an input).
+  bool anyCalculated() const;
+  Iterator begin() const { return Iterator(this, 0, Filter::All); }
+  Iterator end() const { return Iterator(this, size(), Filter::All); }
+  // The given values alone, and the calculated ones alone, each built as reached.
+  Range inputs() const { return {Iterator(this, 0, Filter::Inputs), Iterator(this, size(), Filter::Inputs)}; }
+  Range calculated() const {
+    return {Iterator(this, 0, Filter::Calculated), Iterator(this, size(), Filter::Calculated)};
+  }
+  // Every step was built once and is kept.
+  bool kept() const { return kept_ != nullptr; }
+
+ private:
+  friend Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep);
+  bool passes(size_t i, Filter filter) const;
+  std::shared_ptr<const TrailStepBuilder> builder_;
+  std::shared_ptr<const std::vector<TrailStep>> kept_;
+};
+
 struct Trail {
   std::string title;
   std::vector<std::pair<std::string, std::string>> meta;  // key order of the format
@@ -330,12 +418,13 @@ struct Trail {
   // Every --set replacement of this run, in worksheet order: when there is
   // one, the numbers are the file's AS MODIFIED, and every format says so.
   std::vector<TrailReplacement> modified_by;
-  std::vector<TrailStep> steps;   // every quantity, document order
+  TrailSteps steps;                // every quantity, sheet order
   std::vector<TrailCheck> checks;
   std::vector<TrailBlock> blocks;
   std::vector<TrailFunction> functions;  // every library function called, in order of first use
   std::vector<std::string> warnings;  // FILE:LINE:COL: warning: ...
   int warnings_at_steps = 0;          // how many of them are flagged at a step or a check
+  std::vector<int> warned_steps;      // the steps with a warning flagged at them, in sheet order
   std::vector<std::string> cautions;  // the catalogue's entries that apply, each once (cautions.h)
   std::vector<std::string> caution_ids;  // their identities, in the same order
   int passed = 0, failed = 0;
@@ -348,8 +437,6 @@ struct Trail {
   /// Checks that fail (or could not be evaluated) in some case, and cases that failed to calculate.
   int failed_in_cases = 0, cases_failed = 0;
 };
-
-Trail buildTrail(const Calculation& calc, int digits);
 
 // Runs the worksheet's studies and fills Trail::studies (engine/report/trail_studies.cc).
 void addStudies(const Calculation& calc, int digits, Trail* trail);

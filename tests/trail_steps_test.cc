@@ -1,0 +1,112 @@
+// A trail's steps kept (a small sheet) or built each time a renderer reads
+// one (a large sheet, engine/report/trail.h TrailSteps): both ways must give
+// every format byte for byte, on every demo, with --set and per load case.
+#include <catch2/catch.hpp>
+
+#include <filesystem>
+#include <string>
+#include <vector>
+
+#include "engine/report/formats.h"
+#include "engine/report/trail.h"
+#include "tests/test_support.h"
+
+using namespace calctrail;
+using namespace calctrail::test;
+
+namespace {
+
+std::unique_ptr<Calculation> demoWith(const std::string& name, const CalcOptions& given = {}) {
+  const std::string display = "worksheets/" + name + ".calc";
+  CalcOptions options = given;
+  options.source_path = repoPath(display);
+  return Calculation::fromText(display, readFile(repoPath(display)), options);
+}
+
+std::vector<std::string> demoNames() {
+  std::vector<std::string> names;
+  for (const auto& e : std::filesystem::directory_iterator(repoPath("worksheets")))
+    if (e.path().extension() == ".calc") names.push_back(e.path().stem().string());
+  std::sort(names.begin(), names.end());
+  return names;
+}
+
+void sameBothWays(const Calculation& c) {
+  const Trail kept = buildTrail(c, 4, TrailKeep::All);
+  const Trail built = buildTrail(c, 4, TrailKeep::None);
+  REQUIRE(kept.steps.kept());
+  REQUIRE_FALSE(built.steps.kept());
+  REQUIRE(kept.steps.size() == c.sheet.quantities.size());
+  REQUIRE(built.steps.size() == kept.steps.size());
+  for (const ReportFormat& f : reportFormats()) {
+    INFO("format " << f.name);
+    CHECK(renderReport(kept, f.name) == renderReport(built, f.name));
+  }
+}
+
+}  // namespace
+
+TEST_CASE("trail steps built when read give every format the same bytes as kept steps", "[trail][report]") {
+  const std::vector<std::string> names = demoNames();
+  REQUIRE(names.size() >= 7);
+  for (const std::string& name : names) {
+    INFO("demo " << name);
+    auto c = demoWith(name);
+    REQUIRE_FALSE(c->hasErrors());
+    sameBothWays(*c);
+    // Each load case shown alone, as --case does.
+    for (const LoadCase& lc : c->sheet.cases) {
+      INFO("case " << lc.name);
+      CalcOptions one;
+      one.case_name = lc.name;
+      auto alone = demoWith(name, one);
+      REQUIRE_FALSE(alone->hasErrors());
+      sameBothWays(*alone);
+    }
+  }
+}
+
+TEST_CASE("trail steps built when read: --set, warnings at steps and checks, failed values", "[trail][report]") {
+  // --set: the modified notice, the replaced step, an undeclared unit chosen anew.
+  auto set = demoWith("twin-screw-lift", [] {
+    CalcOptions o;
+    o.sets = {"f_run=0.15"};
+    return o;
+  }());
+  REQUIRE_FALSE(set->hasErrors());
+  sameBothWays(*set);
+  // A warning at a step (a doubtful library argument) and a failing check.
+  auto warned = calc(
+      "F = 5 kN\nd_m = 30 mm\nl = 6 mm\nf = 0.9\n"
+      "T [N*m] = torque_raise(F, d_m, l, f, 15 deg)\n"
+      "check T_small: T < 1 [N*m]\n");
+  INFO(diagnostics(*warned));
+  REQUIRE_FALSE(warned->hasErrors());
+  const Trail kept = buildTrail(*warned, 4, TrailKeep::All);
+  REQUIRE_FALSE(kept.warnings.empty());
+  CHECK(kept.warnings_at_steps > 0);
+  sameBothWays(*warned);
+}
+
+TEST_CASE("a trail keeps the steps of a small sheet and builds those of a large one", "[trail][report]") {
+  std::string small, large;
+  for (size_t i = 0; i < kKeptSteps; ++i) small += "a" + std::to_string(i) + " = " + std::to_string(i) + " mm\n";
+  large = small + "b = a0 * 2\n";
+  auto s = calc(small), l = calc(large);
+  REQUIRE_FALSE(s->hasErrors());
+  REQUIRE_FALSE(l->hasErrors());
+  const Trail ts = buildTrail(*s, 4), tl = buildTrail(*l, 4);
+  CHECK(ts.steps.kept());
+  CHECK_FALSE(tl.steps.kept());
+  // Built when read, a step is the same each time and the same as kept.
+  const Trail all = buildTrail(*l, 4, TrailKeep::All);
+  const size_t b = static_cast<size_t>(l->sheet.find("b"));
+  CHECK(tl.steps.get(b)->result.si == all.steps.get(b)->result.si);
+  CHECK(lineText(tl.steps.get(b)->substituted) == "0 mm · 2");
+  CHECK(lineText(all.steps.get(b)->substituted) == lineText(tl.steps.get(b)->substituted));
+  CHECK_FALSE(tl.steps.isInput(b));
+  CHECK(tl.steps.isInput(0));
+  size_t inputs = 0;
+  for (const TrailStep& st : tl.steps.inputs()) inputs += st.input ? 1 : 100;
+  CHECK(inputs == kKeptSteps);
+}
