@@ -361,7 +361,7 @@ TEST_CASE("formats: each registered once, dispatched by name", "[report][formats
   CHECK(renderReport(t, "json") == renderJson(*c, t));
   ReportSink sink;
   CHECK_FALSE(renderReport(t, "pdf", sink));
-  CHECK(sink.size() == 0);
+  CHECK(sink.text().empty());
   CHECK(renderReport(t, "pdf") == renderText(t));  // the default
 }
 
@@ -370,11 +370,51 @@ TEST_CASE("renderers append to the sink they are given", "[report][formats]") {
   const Trail t = buildTrail(*c, 4);
   for (const ReportFormat& f : reportFormats()) {
     ReportSink sink;
-    fmt::format_to(std::back_inserter(sink), "kept\n");
+    fmt::format_to(std::back_inserter(sink.buffer()), "kept\n");
     f.render(t, sink);
     INFO(f.name);
-    CHECK(fmt::to_string(sink) == "kept\n" + renderReport(t, f.name));
+    CHECK(sink.text() == "kept\n" + renderReport(t, f.name));
   }
+}
+
+TEST_CASE("a sink with a writer hands a large report on in pieces, in order", "[report][formats]") {
+  // A sheet larger than a kept trail (kKeptSteps quantities), so that it is built and written a step at a time.
+  std::string sheet;
+  for (size_t i = 0; i <= kKeptSteps; ++i)
+    sheet += "F" + std::to_string(i) + " = " + std::to_string(i + 1) + " kN\nT" + std::to_string(i) +
+             " [N*m] = F" + std::to_string(i) + " * 12 mm / 2\n";
+  auto c = calc(sheet);
+  REQUIRE_FALSE(c->hasErrors());
+  const Trail t = buildTrail(*c, 4);
+  REQUIRE_FALSE(t.steps.kept());
+  for (const ReportFormat& f : reportFormats()) {
+    INFO(f.name);
+    std::vector<size_t> sizes;
+    std::string whole;
+    ReportSink sink([&](std::string_view piece) {
+      sizes.push_back(piece.size());
+      whole.append(piece);
+      return true;
+    });
+    f.render(t, sink);
+    REQUIRE(sink.finish());
+    CHECK(whole == renderReport(t, f.name));
+    REQUIRE(sizes.size() > 1);
+    // Every piece but the last is at least a chunk, and none holds much more than one step past it.
+    for (size_t k = 0; k + 1 < sizes.size(); ++k) {
+      CHECK(sizes[k] >= ReportSink::kChunk);
+      CHECK(sizes[k] < ReportSink::kChunk + 4096);
+    }
+  }
+  // A writer that fails: finish() says so, and nothing more is handed on.
+  int calls = 0;
+  ReportSink failing([&](std::string_view) {
+    ++calls;
+    return false;
+  });
+  renderText(t, failing);
+  CHECK_FALSE(failing.finish());
+  CHECK(calls == 1);
 }
 
 TEST_CASE("the trail is all a renderer reads: JSON, text and Markdown outlive the calculation",

@@ -445,7 +445,7 @@ TEST_CASE("the trail: files with hashes, an instance part with its parameters, c
   CHECK(contains(text, "\nInstance left: Test screw (templates/screw.calc)\n"));
   std::vector<std::string> notes;
   for (const TrailBlock& b : t.blocks)
-    if (b.kind == TrailBlock::Note) notes.push_back(b.text);
+    if (b.kind == TrailBlock::Note) notes.push_back(t.blockText(b));
   CHECK(notes == std::vector<std::string>{
                      "Parameters: F = F_total / 2 = 5000 N; f = 0.1 (default); d = 20 mm (default).",
                      "Parameters: F = 1 kN = 1000 N; f = 0.2; d = 20 mm (default)."});

@@ -31,14 +31,20 @@ int runReport(const ReportArgs& args) {
   const int status = calc->caseErrors() ? kExitError : kExitOk;
   const auto trail = std::make_shared<const Trail>(buildTrail(*calc, args.digits));
   keepUntilExit(trail);
-  const std::string text = renderReport(*trail, args.format);
+  // Written as it is made: a report of a large sheet is never held whole.
+  const auto render = [&](const ReportSink::Writer& write) {
+    ReportSink sink(write);
+    if (!renderReport(*trail, args.format, sink)) reportFormats().front().render(*trail, sink);
+    return sink.finish();
+  };
   if (args.output.empty() || args.output == "-") {
-    std::fwrite(text.data(), 1, text.size(), stdout);
+    // A failed write shows in the stream's error state, which the exit reports (main.cc).
+    render([](std::string_view piece) { return std::fwrite(piece.data(), 1, piece.size(), stdout) == piece.size(); });
     std::fflush(stdout);
     return status;
   }
   std::string error;
-  if (!writeOutputFile(args.output, text, {args.file}, &error)) {
+  if (!writeOutputFile(args.output, render, {args.file}, &error)) {
     std::cerr << args.output << ":1:1: error: " << error << "\n";
     return kExitError;
   }

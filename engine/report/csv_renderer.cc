@@ -32,7 +32,8 @@ const char* verdict(bool ok, bool passed) {
 
 }  // namespace
 
-void renderCsv(const Trail& t, fmt::memory_buffer& out) {
+void renderCsv(const Trail& t, ReportSink& sink) {
+  fmt::memory_buffer& out = sink.buffer();
   // Without cases, one column of values, named after the case shown.
   std::vector<std::string> header = {"name", "unit"};
   if (t.cases.empty()) header.push_back(t.shown_case.empty() ? kNominalCase : t.shown_case);
@@ -40,6 +41,7 @@ void renderCsv(const Trail& t, fmt::memory_buffer& out) {
   header.push_back("description");
   appendRow(out, header);
   for (const TrailStep& s : t.steps) {
+    sink.checkpoint();
     std::vector<std::string> row = {s.name, s.unit_written};
     if (t.cases.empty()) row.push_back(s.ok ? formatExact(s.result.value) : "");
     for (const TrailCaseValue& v : s.cases) row.push_back(v.ok ? formatExact(v.value.value) : "");
@@ -74,9 +76,9 @@ void renderCsv(const Trail& t, fmt::memory_buffer& out) {
 }
 
 std::string renderCsv(const Trail& t) {
-  fmt::memory_buffer out;
-  renderCsv(t, out);
-  return fmt::to_string(out);
+  ReportSink sink;
+  renderCsv(t, sink);
+  return sink.text();
 }
 
 }  // namespace calctrail

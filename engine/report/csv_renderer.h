@@ -8,12 +8,13 @@
 
 #include <fmt/format.h>
 
+#include "engine/report/report_sink.h"
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
 // Appends the CSV of `trail` to `out`. Reads the trail alone.
-void renderCsv(const Trail& trail, fmt::memory_buffer& out);
+void renderCsv(const Trail& trail, ReportSink& sink);
 std::string renderCsv(const Trail& trail);
 
 // One field as RFC 4180 writes it: in double quotes, each quote doubled,

@@ -49,7 +49,7 @@ bool renderReport(const Trail& trail, std::string_view format, ReportSink& out) 
 std::string renderReport(const Trail& trail, std::string_view format) {
   ReportSink out;
   if (!renderReport(trail, format, out)) reportFormats().front().render(trail, out);
-  return fmt::to_string(out);
+  return out.text();
 }
 
 }  // namespace calctrail

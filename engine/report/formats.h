@@ -9,12 +9,11 @@
 
 #include <fmt/format.h>
 
+#include "engine/report/report_sink.h"
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
-// Where a renderer writes: bytes are appended, never cleared.
-using ReportSink = fmt::memory_buffer;
 using ReportRenderer = void (*)(const Trail& trail, ReportSink& out);
 
 struct ReportFormat {
@@ -36,7 +35,8 @@ std::vector<std::string> reportFormatNames();
 std::string reportFormatHelp();
 
 // The report of `trail` in `format`; false (and nothing written) for an
-// unknown format.
+// unknown format. A sink with a writer has the report handed on as it is
+// made; call its finish() after.
 bool renderReport(const Trail& trail, std::string_view format, ReportSink& out);
 // The same as a string; an unknown format gives the text trail (the default).
 std::string renderReport(const Trail& trail, std::string_view format);

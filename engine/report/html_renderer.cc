@@ -454,11 +454,13 @@ std::string symbolCell(const std::string& name) {
 
 // The inputs (every result is in its step): quantity, value, notes,
 // grouped under sections.
-void quantityTable(Out out, const Trail& t, bool inputs) {
+void quantityTable(ReportSink& sink, const Trail& t, bool inputs) {
+  Out out = std::back_inserter(sink.buffer());
   fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Quantity</th><th>{}</th></tr>"
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
   for (const TrailStep& s : inputs ? t.steps.inputs() : t.steps.calculated()) {
+    sink.checkpoint();
     if (inputs && s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
@@ -588,14 +590,16 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
   fmt::format_to(out, "</tbody>\n</table>\n");
 }
 
-void calculation(Out out, const Trail& t) {
+void calculation(ReportSink& sink, const Trail& t) {
+  Out out = std::back_inserter(sink.buffer());
   fmt::format_to(out, "<section class=\"calculation\">\n<h2>Calculation</h2>\n");
   for (const TrailBlock& b : t.blocks) {
+    sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0)
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
-    else if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(b.text));
+    else if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(t.blockText(b)));
     else if (b.kind == TrailBlock::Note && b.instance < 0)
-      fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(b.text));
+      fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(t.blockText(b)));
     else if (b.kind == TrailBlock::Step && !t.steps.isInput(static_cast<size_t>(b.index)))
       step(out, t, *t.steps.get(static_cast<size_t>(b.index)));
     else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
@@ -716,7 +720,8 @@ void studies(Out out, const Trail& t) {
 
 }  // namespace
 
-void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
+void renderHtml(const Trail& t, ReportSink& sink) {
+  fmt::memory_buffer& buffer = sink.buffer();
   auto out = std::back_inserter(buffer);
   fmt::format_to(out, "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
   fmt::format_to(out, "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
@@ -728,11 +733,11 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
   header(out, t);
   checksSummary(out, t);
   fmt::format_to(out, "<section class=\"inputs\">\n<h2>Inputs</h2>\n");
-  quantityTable(out, t, true);
+  quantityTable(sink, t, true);
   if (!instanceInputsPointer(t).empty())
     fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(instanceInputsPointer(t)));
   fmt::format_to(out, "</section>\n");
-  calculation(out, t);
+  calculation(sink, t);
   if (!t.studies.empty()) studies(out, t);
   if (!t.warnings.empty()) {
     fmt::format_to(out, "<section class=\"warnings\">\n<h2>Warnings</h2>\n<ul>\n");
@@ -748,9 +753,9 @@ void renderHtml(const Trail& t, fmt::memory_buffer& buffer) {
 }
 
 std::string renderHtml(const Trail& t) {
-  fmt::memory_buffer out;
-  renderHtml(t, out);
-  return fmt::to_string(out);
+  ReportSink sink;
+  renderHtml(t, sink);
+  return sink.text();
 }
 
 }  // namespace calctrail

@@ -9,6 +9,7 @@
 
 #include <fmt/format.h>
 
+#include "engine/report/report_sink.h"
 #include "engine/report/trail.h"
 
 namespace calctrail {
@@ -16,7 +17,7 @@ namespace calctrail {
 // `trail` must come from a Calculation that is still alive: the formulas
 // are typeset from its expression trees (TrailStep::expr).
 // Appends the HTML document to `out`.
-void renderHtml(const Trail& trail, fmt::memory_buffer& out);
+void renderHtml(const Trail& trail, ReportSink& sink);
 std::string renderHtml(const Trail& trail);
 
 }  // namespace calctrail

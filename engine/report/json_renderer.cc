@@ -255,7 +255,8 @@ void writeStudies(JsonWriter& w, const Trail& t) {
 
 }  // namespace
 
-void renderJson(const Trail& t, fmt::memory_buffer& out) {
+void renderJson(const Trail& t, ReportSink& sink) {
+  fmt::memory_buffer& out = sink.buffer();
   JsonWriter w(out);
   w.beginObject();
   w.key("schema").value(kJsonSchemaVersion);
@@ -297,7 +298,10 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
   for (const TrailStep& s : t.steps.inputs()) w.value(s.name);
   w.endArray();
   w.key("quantities").beginArray();
-  for (const TrailStep& s : t.steps) writeStep(w, t, s);
+  for (const TrailStep& s : t.steps) {
+    writeStep(w, t, s);
+    sink.checkpoint();
+  }
   w.endArray();
   w.key("checks").beginArray();
   for (const TrailCheck& c : t.checks) writeCheck(w, t, c);
@@ -348,9 +352,9 @@ void renderJson(const Trail& t, fmt::memory_buffer& out) {
 }
 
 std::string renderJson(const Trail& t) {
-  fmt::memory_buffer out;
-  renderJson(t, out);
-  return fmt::to_string(out);
+  ReportSink sink;
+  renderJson(t, sink);
+  return sink.text();
 }
 
 std::string renderJson(const Calculation&, const Trail& t) { return renderJson(t); }

@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include "engine/calculation.h"
+#include "engine/report/report_sink.h"
 #include "engine/report/trail.h"
 
 namespace calctrail {
@@ -15,7 +16,7 @@ namespace calctrail {
 constexpr const char* kJsonSchemaVersion = "calctrail-trail/1";
 
 // Appends the JSON of `trail` to `out`. Reads the trail alone.
-void renderJson(const Trail& trail, fmt::memory_buffer& out);
+void renderJson(const Trail& trail, ReportSink& sink);
 std::string renderJson(const Trail& trail);
 
 // The old entry point, kept for engine/cli/report_command.cc until it moves

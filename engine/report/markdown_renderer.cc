@@ -201,7 +201,8 @@ void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
 
 }  // namespace
 
-void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
+void renderMarkdown(const Trail& t, ReportSink& sink) {
+  fmt::memory_buffer& buffer = sink.buffer();
   auto out = std::back_inserter(buffer);
   fmt::format_to(out, "# {}\n\n", text(t.title.empty() ? "Calculation trail" : t.title));
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "- **{}:** {}\n", key, text(value));
@@ -216,6 +217,7 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   fmt::format_to(out, "## Inputs\n\n| Quantity | Value | Notes |\n|---|---|---|\n");
   std::string section = "\x01";
   for (const TrailStep& s : t.steps.inputs()) {
+    sink.checkpoint();
     if (s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
@@ -232,14 +234,15 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
 
   fmt::format_to(out, "## Calculation\n");
   for (const TrailBlock& b : t.blocks) {
+    sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
-      fmt::format_to(out, "\n### {}\n", text(b.text));
+      fmt::format_to(out, "\n### {}\n", text(t.blockText(b)));
     } else if (b.kind == TrailBlock::Note && b.instance >= 0) {
       continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
-      fmt::format_to(out, "\n{}\n", text(b.text));
+      fmt::format_to(out, "\n{}\n", text(t.blockText(b)));
     } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
       // The part names its checks once, after its last step; their rows are in the summary.
       const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
@@ -276,8 +279,10 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
   if (t.steps.anyCalculated()) {
     if (t.cases.empty()) {
       fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
-      for (const TrailStep& s : t.steps.calculated())
+      for (const TrailStep& s : t.steps.calculated()) {
+        sink.checkpoint();
         fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
+      }
     } else {
       // One value column per load case, nominal first; a bold value differs from the nominal.
       fmt::format_to(out, "## Results\n");
@@ -288,6 +293,7 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
         for (size_t k = first; k <= last; ++k) fmt::format_to(out, "---|");
         fmt::format_to(out, "\n");
         for (const TrailStep& s : t.steps) {
+          sink.checkpoint();
           if (s.input && !s.varies) continue;
           fmt::format_to(out, "| {} |", code(s.name));
           for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", caseCell(s, k));
@@ -332,9 +338,9 @@ void renderMarkdown(const Trail& t, fmt::memory_buffer& buffer) {
 }
 
 std::string renderMarkdown(const Trail& t) {
-  fmt::memory_buffer out;
-  renderMarkdown(t, out);
-  return fmt::to_string(out);
+  ReportSink sink;
+  renderMarkdown(t, sink);
+  return sink.text();
 }
 
 }  // namespace calctrail

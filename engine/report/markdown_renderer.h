@@ -7,12 +7,13 @@
 
 #include <fmt/format.h>
 
+#include "engine/report/report_sink.h"
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
 // Appends the Markdown trail to `out`.
-void renderMarkdown(const Trail& trail, fmt::memory_buffer& out);
+void renderMarkdown(const Trail& trail, ReportSink& sink);
 std::string renderMarkdown(const Trail& trail);
 
 }  // namespace calctrail

@@ -244,7 +244,8 @@ void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
 
 }  // namespace
 
-void renderText(const Trail& t, fmt::memory_buffer& buffer) {
+void renderText(const Trail& t, ReportSink& sink) {
+  fmt::memory_buffer& buffer = sink.buffer();
   auto out = std::back_inserter(buffer);
   fmt::format_to(out, "{}", underline(t.title.empty() ? "Calculation trail" : t.title, '='));
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "{}{}\n", pad(key, 10), value);
@@ -271,12 +272,14 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
   auto shown = [](const TrailStep& s) { return valueText(s.given ? *s.given : s.result); };
   int name_w = 0, value_w = 0;
   for (const TrailStep& s : t.steps.inputs()) {
+    sink.checkpoint();
     if (s.in_part_table) continue;
     name_w = std::max(name_w, width(s.name));
     value_w = std::max(value_w, width(shown(s)));
   }
   std::string section = "\x01";
   for (const TrailStep& s : t.steps.inputs()) {
+    sink.checkpoint();
     if (s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
@@ -297,14 +300,15 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
 
   fmt::format_to(out, "{}", heading("CALCULATION"));
   for (const TrailBlock& b : t.blocks) {
+    sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
-      fmt::format_to(out, "\n{}\n", b.text);
+      fmt::format_to(out, "\n{}\n", t.blockText(b));
     } else if (b.kind == TrailBlock::Note && b.instance >= 0) {
       continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
-      fmt::format_to(out, "\n{}", wrap(b.text, "  "));
+      fmt::format_to(out, "\n{}", wrap(t.blockText(b), "  "));
     } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
       // The part names its checks once, after its last step; their rows are in the summary.
       const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
@@ -391,9 +395,9 @@ void renderText(const Trail& t, fmt::memory_buffer& buffer) {
 }
 
 std::string renderText(const Trail& t) {
-  fmt::memory_buffer out;
-  renderText(t, out);
-  return fmt::to_string(out);
+  ReportSink sink;
+  renderText(t, sink);
+  return sink.text();
 }
 
 }  // namespace calctrail

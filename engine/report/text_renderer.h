@@ -6,12 +6,13 @@
 
 #include <fmt/format.h>
 
+#include "engine/report/report_sink.h"
 #include "engine/report/trail.h"
 
 namespace calctrail {
 
 // Appends the text trail to `out`.
-void renderText(const Trail& trail, fmt::memory_buffer& out);
+void renderText(const Trail& trail, ReportSink& sink);
 std::string renderText(const Trail& trail);
 
 }  // namespace calctrail

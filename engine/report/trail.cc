@@ -857,6 +857,12 @@ bool TrailSteps::anyCalculated() const {
 
 namespace {
 
+// A Section or a Note, its text kept beside the blocks.
+void addTextBlock(Trail* t, TrailBlock::Kind kind, std::string text, int instance) {
+  t->blocks.push_back({kind, static_cast<int>(t->block_texts.size()), instance});
+  t->block_texts.push_back(std::move(text));
+}
+
 // The quantities of an instance its part shows as steps. A parameter bound
 // to a number or to one name of the using sheet has its value and its
 // binding in the part's table already: a step would repeat that row.
@@ -899,10 +905,10 @@ void addInstances(const Sheet& sheet, const TrailStepBuilder& builder, Trail* t)
     ti.steps = instanceSteps(sheet, inst);
     ti.checks = inst.checks;
     const int at = static_cast<int>(t->instances.size());
-    t->blocks.push_back({TrailBlock::Section, ti.heading, 0, at});
-    if (!params.empty()) t->blocks.push_back({TrailBlock::Note, "Parameters: " + params + ".", 0, at});
-    for (int q : ti.steps) t->blocks.push_back({TrailBlock::Step, "", q, at});
-    for (int c : ti.checks) t->blocks.push_back({TrailBlock::CheckRef, "", c, at});
+    addTextBlock(t, TrailBlock::Section, ti.heading, at);
+    if (!params.empty()) addTextBlock(t, TrailBlock::Note, "Parameters: " + params + ".", at);
+    for (int q : ti.steps) t->blocks.push_back({TrailBlock::Step, q, at});
+    for (int c : ti.checks) t->blocks.push_back({TrailBlock::CheckRef, c, at});
     t->instances.push_back(std::move(ti));
   }
 }
@@ -1071,9 +1077,13 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   std::string note;
   auto flushNote = [&] {
     if (note.empty()) return;
-    t.blocks.push_back({TrailBlock::Note, note, 0});
+    addTextBlock(&t, TrailBlock::Note, note, -1);
     note.clear();
   };
+  // One block a statement at most, and an instance's part's: exact, not grown by doubling.
+  size_t most = sheet.statements.size();
+  for (const Instance& inst : sheet.instances) most += 2 + inst.quantities.size() + inst.checks.size();
+  t.blocks.reserve(most);
   for (const Statement& st : sheet.statements) {
     if (st.kind == Statement::Note) {
       note += (note.empty() ? "" : " ") + st.text();
@@ -1084,9 +1094,9 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
       continue;
     }
     flushNote();
-    if (st.kind == Statement::Section) t.blocks.push_back({TrailBlock::Section, st.text(), 0});
-    if (st.kind == Statement::Define) t.blocks.push_back({TrailBlock::Step, "", st.index});
-    if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, "", st.index});
+    if (st.kind == Statement::Section) addTextBlock(&t, TrailBlock::Section, st.text(), -1);
+    if (st.kind == Statement::Define) t.blocks.push_back({TrailBlock::Step, st.index, -1});
+    if (st.kind == Statement::CheckStmt) t.blocks.push_back({TrailBlock::CheckRef, st.index, -1});
   }
   flushNote();
   // The warnings before any step is built: a step holds those flagged at

@@ -6,6 +6,7 @@
 #pragma once
 
 #include <cstddef>
+#include <cstdint>
 #include <iterator>
 #include <memory>
 #include <optional>
@@ -269,10 +270,11 @@ struct TrailInstance {    // a template used as an instance: its own part of the
 
 struct TrailBlock {       // document order: headings, narrative, steps, checks
   // An instance's part follows the main sheet's blocks: its heading as a
-  // Section, its parameters as a Note, then its steps and checks.
-  enum Kind { Section, Note, Step, CheckRef } kind = Step;
-  std::string text;       // Section title, Note paragraph
-  int index = 0;          // into steps or checks
+  // Section, its parameters as a Note, then its steps and checks. Twelve
+  // bytes: a large sheet has one a line.
+  enum Kind : uint8_t { Section, Note, Step, CheckRef } kind = Step;
+  /// Into steps or checks; for a Section or a Note, into Trail::block_texts (Trail::blockText).
+  int index = 0;
   /// The instance whose part this heading, parameter note or check opens or
   /// belongs to (into Trail::instances); -1 for the main sheet's own. A
   /// format may set an instance's heading and parameters its own way.
@@ -421,6 +423,9 @@ struct Trail {
   TrailSteps steps;                // every quantity, sheet order
   std::vector<TrailCheck> checks;
   std::vector<TrailBlock> blocks;
+  std::vector<std::string> block_texts;  // the Section titles and Note paragraphs of `blocks`
+  // A Section's title or a Note's paragraph.
+  const std::string& blockText(const TrailBlock& b) const { return block_texts[static_cast<size_t>(b.index)]; }
   std::vector<TrailFunction> functions;  // every library function called, in order of first use
   std::vector<std::string> warnings;  // FILE:LINE:COL: warning: ...
   int warnings_at_steps = 0;          // how many of them are flagged at a step or a check

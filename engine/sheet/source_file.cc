@@ -85,6 +85,11 @@ class LimitedText {
   }
 
   std::string& text() { return text_; }
+  // Room for `n` bytes at once: a file's size is known, and a string grown by
+  // doubling would hold up to twice the sheet for as long as the sheet lives.
+  void reserve(size_t n) {
+    if (keep_) text_.reserve(n);
+  }
 
  private:
   std::string what_;   // names the input in messages: "the file", "standard input"
@@ -95,9 +100,10 @@ class LimitedText {
   size_t run_ = 0;     // bytes of that line so far, since its start or a CR
 };
 
-// Reads `fd` to its end in bounded steps.
-bool readBounded(int fd, const std::string& what, std::string* bytes, ReadError* error) {
+// Reads `fd` to its end in bounded steps; `expected`: its size when known (a regular file's), else 0.
+bool readBounded(int fd, const std::string& what, std::string* bytes, ReadError* error, size_t expected = 0) {
   LimitedText text(what, true);
+  text.reserve(expected);
   char buf[65536];
   for (;;) {
     const ssize_t n = read(fd, buf, sizeof buf);
@@ -133,7 +139,7 @@ bool readFile(const std::string& path, std::string* bytes, ReadError* error) {
     *error = {tooLarge("the file"), 0};
     ok = false;
   } else {
-    ok = readBounded(fd, "the file", bytes, error);
+    ok = readBounded(fd, "the file", bytes, error, S_ISREG(st.st_mode) ? static_cast<size_t>(st.st_size) : 0);
   }
   close(fd);
   return ok;

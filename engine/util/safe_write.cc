@@ -4,6 +4,7 @@
 #include <csignal>
 #include <cstdlib>
 #include <cstring>
+#include <string_view>
 #include <fcntl.h>
 #include <sys/stat.h>
 #include <unistd.h>
@@ -18,7 +19,7 @@ bool sameFile(const struct stat& a, const struct stat& b) {
   return a.st_dev == b.st_dev && a.st_ino == b.st_ino;
 }
 
-bool writeAll(int fd, const std::string& text) {
+bool writeAll(int fd, std::string_view text) {
   for (size_t done = 0; done < text.size();) {
     const ssize_t n = write(fd, text.data() + done, text.size() - done);
     if (n < 0 && errno == EINTR) continue;
@@ -30,7 +31,7 @@ bool writeAll(int fd, const std::string& text) {
 
 // Writes into a character device or FIFO as a stream: no creation, no
 // truncation, no rename, so the node stays what it is.
-bool writeStream(const std::string& target, const struct stat& expected, const std::string& text,
+bool writeStream(const std::string& target, const struct stat& expected, const OutputProducer& produce,
                  std::string* error) {
   // Non-blocking only to open: a FIFO nobody reads is an error now, not a hang.
   const int fd = open(target.c_str(), O_WRONLY | O_NOCTTY | O_CLOEXEC | O_NONBLOCK);
@@ -53,7 +54,7 @@ bool writeStream(const std::string& target, const struct stat& expected, const s
   struct sigaction ignore {}, old {};
   ignore.sa_handler = SIG_IGN;
   sigaction(SIGPIPE, &ignore, &old);
-  bool ok = writeAll(fd, text);
+  bool ok = produce([fd](std::string_view piece) { return writeAll(fd, piece); });
   if (!ok) *error = cannotWrite();
   if (close(fd) != 0 && ok) {
     *error = cannotWrite();
@@ -65,7 +66,7 @@ bool writeStream(const std::string& target, const struct stat& expected, const s
 
 // Writes a regular file through a temporary in its folder and a rename.
 // `original` is the file being replaced, or null for a new one.
-bool writeRegular(const std::string& target, const struct stat* original, const std::string& text,
+bool writeRegular(const std::string& target, const struct stat* original, const OutputProducer& produce,
                   std::string* error) {
   if (original) {
     if (access(target.c_str(), W_OK) != 0) {
@@ -116,7 +117,14 @@ bool writeRegular(const std::string& target, const struct stat* original, const 
   }
   // Before the rename: the final name never shows wider permissions.
   if (fchmod(fd, mode) != 0) return fail(cannotWrite(), true);
-  if (!writeAll(fd, text) || fsync(fd) != 0) return fail(cannotWrite(), true);
+  bool written = false;
+  try {
+    written = produce([fd](std::string_view piece) { return writeAll(fd, piece); });
+  } catch (...) {
+    fail("", true);  // no half-made temporary left beside the file
+    throw;
+  }
+  if (!written || fsync(fd) != 0) return fail(cannotWrite(), true);
   if (close(fd) != 0) return fail(cannotWrite(), false);
   if (rename(temp.c_str(), target.c_str()) != 0)
     return fail(std::string("cannot replace the file: ") + std::strerror(errno), false);
@@ -143,9 +151,19 @@ bool followLinks(const std::string& path, std::string* target, std::string* erro
   return true;
 }
 
+// The whole text as one piece.
+OutputProducer wholeText(const std::string& text) {
+  return [&text](const OutputWriter& write) { return write(text); };
+}
+
 }  // namespace
 
 bool writeOutputFile(const std::string& path, const std::string& text, const std::vector<std::string>& inputs,
+                     std::string* error) {
+  return writeOutputFile(path, wholeText(text), inputs, error);
+}
+
+bool writeOutputFile(const std::string& path, const OutputProducer& produce, const std::vector<std::string>& inputs,
                      std::string* error) {
   struct stat st;
   if (lstat(path.c_str(), &st) != 0) {
@@ -153,7 +171,7 @@ bool writeOutputFile(const std::string& path, const std::string& text, const std
       *error = cannotWrite();
       return false;
     }
-    return writeRegular(path, nullptr, text, error);
+    return writeRegular(path, nullptr, produce, error);
   }
   std::string target = path;
   if (S_ISLNK(st.st_mode)) {
@@ -173,7 +191,7 @@ bool writeOutputFile(const std::string& path, const std::string& text, const std
       return false;
     }
   }
-  if (S_ISCHR(st.st_mode) || S_ISFIFO(st.st_mode)) return writeStream(target, st, text, error);
+  if (S_ISCHR(st.st_mode) || S_ISFIFO(st.st_mode)) return writeStream(target, st, produce, error);
   if (S_ISDIR(st.st_mode)) {
     *error = "cannot write: it is a directory";
     return false;
@@ -182,7 +200,7 @@ bool writeOutputFile(const std::string& path, const std::string& text, const std
     *error = "cannot write: it is a block device or a socket, where calctrail writes no output";
     return false;
   }
-  return writeRegular(target, &st, text, error);
+  return writeRegular(target, &st, produce, error);
 }
 
 bool replaceFileContents(const std::string& path, const std::string& text, std::string* error) {
@@ -197,7 +215,7 @@ bool replaceFileContents(const std::string& path, const std::string& text, std::
     *error = "cannot write: it is not a regular file, so it is not rewritten";
     return false;
   }
-  return writeRegular(target, &st, text, error);
+  return writeRegular(target, &st, wholeText(text), error);
 }
 
 }  // namespace calctrail

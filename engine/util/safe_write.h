@@ -4,7 +4,9 @@
 // (docs/limits.md, "Files calctrail writes").
 #pragma once
 
+#include <functional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace calctrail {
@@ -18,6 +20,18 @@ namespace calctrail {
 //    created through a temporary file, with the mode the umask gives.
 // False with a one-line reason in *error; then nothing has changed.
 bool writeOutputFile(const std::string& path, const std::string& text, const std::vector<std::string>& inputs,
+                     std::string* error);
+
+// Hands a piece of the output on, in order; false when it could not be written.
+using OutputWriter = std::function<bool(std::string_view piece)>;
+// Writes the whole output through `write`, piece by piece (a large report is
+// never held whole); false when a write failed.
+using OutputProducer = std::function<bool(const OutputWriter& write)>;
+
+// The same, the output made piece by piece while it is written: into the
+// temporary file of a regular one (renamed only when all of it is written),
+// or into the stream.
+bool writeOutputFile(const std::string& path, const OutputProducer& produce, const std::vector<std::string>& inputs,
                      std::string* error);
 
 // Replaces the contents of the existing regular file `path` (after symbolic
