@@ -683,11 +683,14 @@ class TrailStepBuilder {
 
   bool isInput(size_t i) const { return calc_.quantities[i].input; }
   // A given value written as one literal in its display unit, as written; else nothing.
-  std::optional<TrailValue> given(size_t i) const;
+  std::optional<TrailValue> given(size_t i) const { return memo_.empty() ? findGiven(i) : memo_[i].given; }
   // Quantity i's value as its step shows it (0 in its unit when it has none).
-  TrailValue shown(size_t i) const {
-    const QuantityState& s = calc_.quantities[i];
-    return rounded(s.si, s.display, digits_);
+  TrailValue shown(size_t i) const { return memo_.empty() ? findShown(i) : memo_[i].shown; }
+  // Finds every quantity's shown and given value once, for a trail that
+  // builds every step: each is read by every formula that names it.
+  void remember() {
+    memo_.reserve(calc_.sheet.quantities.size());
+    for (size_t i = 0; i < calc_.sheet.quantities.size(); ++i) memo_.push_back({findShown(i), findGiven(i)});
   }
 
   // Every warning flagged at a step, by quantity, each quantity's in the
@@ -704,13 +707,23 @@ class TrailStepBuilder {
  private:
   void explain(TrailStep* s) const;
   void addCaseValues(TrailStep* s) const;
+  std::optional<TrailValue> findGiven(size_t i) const;
+  TrailValue findShown(size_t i) const {
+    const QuantityState& s = calc_.quantities[i];
+    return rounded(s.si, s.display, digits_);
+  }
 
   const Calculation& calc_;
   const int digits_;
   std::vector<const Results*> results_;  // the nominal's, then each case's
+  struct Shown {
+    TrailValue shown;
+    std::optional<TrailValue> given;
+  };
+  std::vector<Shown> memo_;  // per quantity, when remember() was called
 };
 
-std::optional<TrailValue> TrailStepBuilder::given(size_t i) const {
+std::optional<TrailValue> TrailStepBuilder::findGiven(size_t i) const {
   const Quantity& q = calc_.sheet.quantities[i];
   const QuantityState& s = calc_.quantities[i];
   if (!s.ok) return std::nullopt;
@@ -881,7 +894,7 @@ std::vector<int> instanceSteps(const Sheet& sheet, const Instance& inst) {
 // Each instance as a part of its own after the main sheet's blocks: a
 // heading naming the instance, its template's title and file; its
 // parameters with their bound values and bindings; then its steps and checks.
-void addInstances(const Sheet& sheet, const TrailStepBuilder& builder, Trail* t) {
+void addInstances(const Sheet& sheet, Trail* t) {
   for (const Instance& inst : sheet.instances) {
     TrailInstance ti;
     ti.name = inst.name;
@@ -892,7 +905,8 @@ void addInstances(const Sheet& sheet, const TrailStepBuilder& builder, Trail* t)
                  (inst.title.empty() ? std::string("template") : inst.title) + " (" + inst.path + ")";
     std::string params;
     for (const InstanceParam& p : inst.params) {
-      const TrailStep s = builder.build(static_cast<size_t>(p.quantity));
+      const TrailSteps::Held held = t->steps.get(static_cast<size_t>(p.quantity));
+      const TrailStep& s = *held;
       TrailInstanceParam tp{s.local_name, p.quantity, p.binding, s.in_part_table};
       params += (params.empty() ? "" : "; ") + tp.name + " = ";
       const std::string value = valueText(s.given ? *s.given : s.result);
@@ -1102,8 +1116,19 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   // The warnings before any step is built: a step holds those flagged at
   // it, and an instance's parameter table reads whether its step has one.
   placeWarnings(calc, builder.get(), &t);
+  // The steps, kept or built when read; from here on every step is read through t.steps.
+  const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && sheet.quantities.size() <= kKeptSteps);
+  if (keep_all) {
+    builder->remember();
+    auto kept = std::make_shared<std::vector<TrailStep>>();
+    kept->reserve(sheet.quantities.size());
+    for (size_t i = 0; i < sheet.quantities.size(); ++i) kept->push_back(builder->build(i));
+    t.steps.kept_ = std::move(kept);
+  } else {
+    t.steps.builder_ = std::move(builder);
+  }
   addCases(calc, digits, &t);
-  addInstances(sheet, *builder, &t);
+  addInstances(sheet, &t);
   // Library functions used, each once, in order of first use.
   for (size_t k = 0; k < used.size(); ++k) {
     const FunctionDecl* f = used[k];
@@ -1129,7 +1154,8 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
       calls.clear();
       collectCalls(*sheet.quantities[i].expr, &calls);
       if (std::none_of(calls.begin(), calls.end(), [&](const Expr* c) { return c->text == f->name; })) continue;
-      for (const TrailCall& c : builder->build(i).calls)
+      const TrailSteps::Held step = t.steps.get(i);  // held: the loop reads into it
+      for (const TrailCall& c : step->calls)
         if (c.name == f->name && c.result) {
           fn.value = valueText(*c.result);
           break;
@@ -1149,15 +1175,6 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   for (const Caution* c : cautions) {
     t.cautions.push_back(c->text);
     t.caution_ids.push_back(c->id);
-  }
-  const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && sheet.quantities.size() <= kKeptSteps);
-  if (keep_all) {
-    auto kept = std::make_shared<std::vector<TrailStep>>();
-    kept->reserve(sheet.quantities.size());
-    for (size_t i = 0; i < sheet.quantities.size(); ++i) kept->push_back(builder->build(i));
-    t.steps.kept_ = std::move(kept);
-  } else {
-    t.steps.builder_ = std::move(builder);
   }
   addStudies(calc, digits, &t);
   return t;
