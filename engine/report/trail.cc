@@ -278,7 +278,7 @@ std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
 Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& calc) {
   const Expr* x = withoutParens(&arg);
   if (x->kind == ExprKind::Name) {
-    if (auto u = unitFor(calc.quantities[calc.sheet.find(x->text)].display, decl.dim)) return *u;
+    if (auto u = unitFor(calc.display(calc.sheet.find(x->text)), decl.dim)) return *u;
   }
   if (x->kind == ExprKind::Number && x->unit) {
     if (auto u = unitFor(*x->unit, decl.dim)) return *u;
@@ -374,7 +374,7 @@ std::optional<Unit> leadUnit(const Expr& arg, const Dimension& dim, const Calcul
   if (dim.exponent(Base::Angle) != -1) return std::nullopt;
   if (x->kind == ExprKind::Name) {
     const int j = calc.sheet.find(x->text);
-    if (j >= 0 && calc.quantities[j].display.dim == dim) return calc.quantities[j].display;
+    if (j >= 0 && calc.display(j).dim == dim) return calc.display(j);
   }
   if (x->kind == ExprKind::Number && x->unit && x->unit->dim == dim) return *x->unit;
   Unit u;
@@ -400,7 +400,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   c.formula_expr = parsedFormula(f);
   auto value_of = [&](const Expr& e) {
     const int j = calc.sheet.find(e.text);
-    return j >= 0 && calc.quantities[j].ok ? calc.quantities[j].si : NAN;
+    return j >= 0 && calc.ok(j) ? calc.si(j) : NAN;
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   std::vector<double> library_args;
@@ -423,7 +423,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (given[j] && calc.quantities[j].display.text == unit.text) as_written = *given[j];
+      if (given[j] && calc.display(j).text == unit.text) as_written = *given[j];
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
       as_written =
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
@@ -516,7 +516,7 @@ TrailLine substitute(const Expr& e, const Calculation& calc,
           return markerInLine(&values, v, v.si < 0);
         }
         const int j = calc.sheet.find(name.text);
-        const QuantityState& s = calc.quantities[j];
+        const QuantityView s = calc.quantity(j);
         // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
         TrailValue v = given[j] ? *given[j] : results[static_cast<size_t>(j)].result;
         const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
@@ -560,7 +560,7 @@ std::string percentText(double u) {
 
 // Demand and capacity of a check, by its comparison: `x <= limit` has the
 // demand on the left, `x >= need` on the right.
-void measureCheck(TrailCheck* tc, const CheckState& s, const Check& c, int digits) {
+void measureCheck(TrailCheck* tc, const CheckView& s, const Check& c, int digits) {
   const bool demand_left = c.op == Comparison::Less || c.op == Comparison::LessEqual;
   const double demand = demand_left ? s.lhs : s.rhs, capacity = demand_left ? s.rhs : s.lhs;
   tc->margin = rounded(capacity - demand, s.display, digits);
@@ -634,7 +634,7 @@ void addCases(const Calculation& calc, int digits, Trail* t) {
     results.push_back(&run.results);
   }
   for (TrailStep& step : t->steps) {
-    const QuantityState& s = calc.quantities[step.index];
+    const QuantityView s = calc.quantity(step.index);
     const Slot slot(static_cast<uint32_t>(step.index));
     for (size_t k = 0; k < results.size(); ++k) {
       TrailCaseValue v;
@@ -655,7 +655,7 @@ void addCases(const Calculation& calc, int digits, Trail* t) {
   }
   for (TrailCheck& tc : t->checks) {
     const Check& c = sheet.checks[tc.index];
-    const Unit& unit = calc.checks[tc.index].display;
+    const Unit& unit = calc.checkDisplay(tc.index);
     double least = 0.0;
     for (size_t k = 0; k < results.size(); ++k) {
       const bool ran = k == 0 || calc.cases[k - 1].ok();
@@ -752,7 +752,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   t.steps.reserve(sheet.quantities.size());
   for (size_t i = 0; i < sheet.quantities.size(); ++i) {
     const Quantity& q = sheet.quantities[i];
-    const QuantityState& s = calc.quantities[i];
+    const QuantityView s = calc.quantity(i);
     if (q.overridden) {
       std::string value = q.overrideText();
       while (!value.empty() && value.front() == ' ') value.erase(0, 1);
@@ -813,13 +813,13 @@ Trail buildTrail(const Calculation& calc, int digits) {
     s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
                : s.input    ? "given"
                             : "calculated";
-    if (!calc.quantities[s.index].ok) continue;
+    if (!calc.ok(s.index)) continue;
     const Expr& expr = *sheet.quantities[s.index].expr;
     std::vector<const Expr*> calls;
     collectCalls(expr, &calls);
     const NodeDims dims = calc.exprDims(static_cast<size_t>(s.index));
     for (const Expr* call : calls)
-      s.calls.push_back(auditCall(*call, dims, calc, given, calc.quantities[s.index].display, digits));
+      s.calls.push_back(auditCall(*call, dims, calc, given, calc.display(s.index), digits));
     // A call inside another's arguments is shown there by its value.
     for (size_t k = 0; k < calls.size(); ++k)
       for (size_t o = 0; o < calls.size(); ++o)
@@ -844,7 +844,7 @@ Trail buildTrail(const Calculation& calc, int digits) {
   }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
-    const CheckState& s = calc.checks[k];
+    const CheckView s = calc.check(k);
     TrailCheck tc;
     tc.index = static_cast<int>(k);
     tc.name = c.name;
