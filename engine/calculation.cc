@@ -41,7 +41,7 @@ bool Calculation::caseErrors() const {
 
 int Calculation::failedChecks() const {
   int n = 0;
-  for (const CheckState& c : checks) n += c.ok && !c.passed;
+  for (size_t k = 0; k < checkCount(); ++k) n += checkResult(k).ok && !checkResult(k).passed;
   return n;
 }
 
@@ -80,7 +80,7 @@ void Calculation::run(std::shared_ptr<SourceFile> file, const CalcOptions& optio
       diags.warning(*w.file, w.begin, w.end, w.message + instanceNote(w), siteOf(w));
     evaluateCases(&evaluation);
   }
-  fillStates();
+  showReplacements();
   diags.sort();
 }
 
@@ -181,59 +181,76 @@ NodeDims Calculation::exprDims(size_t i) const {
   return model->formulaDims(slot);
 }
 
-void Calculation::fillStates() {
+const Calculation::ShownReplacement* Calculation::shownReplacement(size_t i) const {
+  if (replaced_.empty()) return nullptr;  // the common case: no --set
+  const Slot slot = slotOf(i);
+  auto it = std::lower_bound(replaced_.begin(), replaced_.end(), slot,
+                             [](const ShownReplacement& r, Slot s) { return r.slot < s; });
+  return it != replaced_.end() && it->slot == slot ? &*it : nullptr;
+}
+
+const Unit& Calculation::display(size_t i) const {
+  const ShownReplacement* r = shownReplacement(i);
+  return r ? r->display : model->slot(slotOf(i)).display;
+}
+
+bool Calculation::isInput(size_t i) const {
+  const ShownReplacement* r = shownReplacement(i);
+  return r ? r->input : model->slot(slotOf(i)).input;
+}
+
+QuantityView Calculation::quantity(size_t i) const {
+  const SlotInfo& info = model->slot(slotOf(i));
+  return QuantityView{info.dim, info.has_dim, display(i), info.declared, isInput(i), ok(i), si(i)};
+}
+
+const CheckResult& Calculation::checkResult(size_t k) const {
+  static const CheckResult not_evaluated;
+  if (results.values.empty() || !model->checks()[k].has_dim) return not_evaluated;
+  return results.checks[k];
+}
+
+CheckView Calculation::check(size_t k) const {
+  const CheckInfo& info = model->checks()[k];
+  const CheckResult& r = checkResult(k);
+  return CheckView{r.ok, r.lhs, r.rhs, r.passed, info.dim, info.display};
+}
+
+const std::vector<Slot>& Calculation::order() const {
+  static const std::vector<Slot> none;
+  if (!model) return none;
+  return inputs && inputs->readsSlots() ? inputs->order() : model->order();
+}
+
+// Shows each --set formula (and the shown case's) where the sheet's stood,
+// keeping the model's tree alive, and notes what the replacement changes.
+void Calculation::showReplacements() {
+  if (!model) return;
   const Model& m = *model;
-  graph = std::make_unique<DependencyGraph>(m.graph());
-  const std::vector<Slot>& slots = inputs->readsSlots() ? inputs->order() : m.order();
-  order.clear();
-  for (Slot s : slots) order.push_back(static_cast<int>(s.index()));
-  const bool evaluated = !results.values.empty();
-  quantities.assign(m.slotCount(), QuantityState());
-  for (size_t i = 0; i < m.slotCount(); ++i) {
-    const Slot slot(static_cast<uint32_t>(i));
-    const SlotInfo& info = m.slot(slot);
-    QuantityState& s = quantities[i];
-    s.dim = info.dim;
-    s.has_dim = info.has_dim;
-    s.display = info.display;
-    s.declared = info.declared;
-    s.input = info.input;
-    s.ok = evaluated && results.ok(slot);
-    s.si = s.ok ? results.value(slot) : 0.0;
-  }
-  // Show each --set formula (and the shown case's) where the sheet's stood;
-  // keep the model's tree alive.
   std::vector<const Binding*> shown;
   for (const Inputs* layer = inputs.get(); layer; layer = layer->parent())
     for (const Binding& b : layer->own())
       if (b.expr && inputs->find(b.slot) == &b) shown.push_back(&b);
+  replaced_.reserve(shown.size());
   for (const Binding* bp : shown) {
     const Binding& b = *bp;
+    const SlotInfo& info = m.slot(b.slot);
     Quantity& q = sheet.quantities[b.slot.index()];
-    QuantityState& s = quantities[b.slot.index()];
-    replaced_.push_back(std::move(q.expr));
+    ShownReplacement r;
+    r.slot = b.slot;
+    r.model_expr = std::move(q.expr);
     q.expr = cloneExpr(*b.expr);
     q.overridden = true;
     q.override_by.reset(new QuantityOverride{b.text, b.file == sheet.file ? shown_case : std::string(),
                                              std::const_pointer_cast<SourceFile>(b.file)});
-    s.input = readsNothing(*q.expr);
-    if (!s.declared && s.has_dim) {
-      s.display = undeclaredDisplayUnit(*q.expr, s.dim, m.sheet().units, m.library());
-    }
+    r.input = readsNothing(*q.expr);
+    r.display = !info.declared && info.has_dim
+                    ? undeclaredDisplayUnit(*q.expr, info.dim, m.sheet().units, m.library())
+                    : info.display;
+    replaced_.push_back(std::move(r));
   }
-  checks.assign(m.checks().size(), CheckState());
-  for (size_t k = 0; k < m.checks().size(); ++k) {
-    const CheckInfo& info = m.checks()[k];
-    CheckState& s = checks[k];
-    s.dim = info.dim;
-    s.display = info.display;
-    if (!evaluated || !info.has_dim) continue;
-    const CheckResult& r = results.checks[k];
-    s.ok = r.ok;
-    s.lhs = r.lhs;
-    s.rhs = r.rhs;
-    s.passed = r.passed;
-  }
+  std::sort(replaced_.begin(), replaced_.end(),
+            [](const ShownReplacement& a, const ShownReplacement& b) { return a.slot < b.slot; });
 }
 
 }  // namespace calctrail

@@ -659,16 +659,16 @@ void runCase(const std::string& shape, int lines, bool staged, CaseResult* r) {
     r->faults_k = static_cast<double>(minorFaults() - f0) / 1000.0;
     r->rss_peak_mb = peakRssMb();
     r->trail_mb = static_cast<double>(out.size()) / (1024.0 * 1024.0);
-    r->quantities = static_cast<int>(calc->quantities.size());
-    r->checks = static_cast<int>(calc->checks.size());
-    r->checks_passed = static_cast<int>(calc->checks.size()) - calc->failedChecks();
+    r->quantities = static_cast<int>(calc->quantityCount());
+    r->checks = static_cast<int>(calc->checkCount());
+    r->checks_passed = static_cast<int>(calc->checkCount()) - calc->failedChecks();
     r->errors = calc->diags.errorCount();
     for (const Diagnostic& d : calc->diags.list()) {
       if (d.severity != Severity::Error) continue;
       std::snprintf(r->first_error, sizeof r->first_error, "%s", d.headline().c_str());
       break;
     }
-    for (const QuantityState& q : calc->quantities) reference.push_back(q.ok ? q.si : NAN);
+    for (size_t i = 0; i < calc->quantityCount(); ++i) reference.push_back(calc->ok(i) ? calc->si(i) : NAN);
   }
   if (!staged) return;
   const std::vector<double> values = stagedRun(text, r);

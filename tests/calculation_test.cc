@@ -17,7 +17,7 @@ TEST_CASE("definitions evaluate in dependency order, not file order", "[calc]") 
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   CHECK(si(*c, "c") == Approx(0.009).epsilon(1e-15));
-  CHECK(c->order == std::vector<int>{2, 1, 0});
+  CHECK(c->order() == std::vector<Slot>{Slot(2), Slot(1), Slot(0)});
 }
 
 TEST_CASE("the contract's expression forms", "[calc]") {
@@ -86,11 +86,11 @@ TEST_CASE("angles: torque times rpm is power, rpm times a lead per rev is a spee
   CHECK(si(*c, "P") == Approx(100 * 1450 * 2 * M_PI / 60).epsilon(1e-14));
   CHECK(si(*c, "P2") == si(*c, "P"));
   const int p2 = c->sheet.find("P2");
-  CHECK(c->quantities[p2].display.text == "W");
+  CHECK(c->display(p2).text == "W");
   // 1450 rev/min * 5 mm/rev = 7250 mm/min exactly.
   CHECK(si(*c, "v") == Approx(7250.0 / 1000 / 60).epsilon(1e-14));
   CHECK(si(*c, "v_us") == Approx(1450 * 0.2 * 0.0254 / 60).epsilon(1e-14));
-  CHECK(c->checks[0].passed);
+  CHECK(c->checkResult(0).passed);
 }
 
 TEST_CASE("rpm times a plain length is loud, with the fix", "[calc][units][angles]") {
@@ -115,9 +115,9 @@ TEST_CASE("a display unit converts the result and asserts its dimension", "[calc
   auto c = calc("F = 1000 lbf\nF_kN [kN] = F\nd [mm] = 1 in\n");
   REQUIRE_FALSE(c->hasErrors());
   const int i = c->sheet.find("F_kN");
-  CHECK(c->quantities[i].display.fromSI(c->quantities[i].si) == Approx(4.4482216152605).epsilon(1e-13));
+  CHECK(c->display(i).fromSI(c->si(i)) == Approx(4.4482216152605).epsilon(1e-13));
   const int j = c->sheet.find("d");
-  CHECK(c->quantities[j].display.fromSI(c->quantities[j].si) == Approx(25.4).epsilon(1e-15));
+  CHECK(c->display(j).fromSI(c->si(j)) == Approx(25.4).epsilon(1e-15));
 }
 
 TEST_CASE("dimension errors name both sides in words and units", "[calc][diagnostics]") {
@@ -214,7 +214,7 @@ TEST_CASE("temperatures: degC and degF are absolute, ddegC a difference", "[calc
   CHECK(si(*c, "t") == Approx(293.15).epsilon(1e-15));
   CHECK(si(*c, "t2") == Approx(233.15).epsilon(1e-14));  // -40 degF = -40 degC
   const int i = c->sheet.find("t3");
-  CHECK(c->quantities[i].display.fromSI(c->quantities[i].si) == Approx(30).epsilon(1e-13));
+  CHECK(c->display(i).fromSI(c->si(i)) == Approx(30).epsilon(1e-13));
 }
 
 TEST_CASE("an override with --set replaces a definition for one run", "[calc][set]") {
@@ -261,7 +261,92 @@ TEST_CASE("an override with --set may read other quantities, and the sheet shows
   CHECK(d.overridden);
   CHECK(d.overrideText() == " L / 4");
   CHECK(renderExpr(*d.expr) == "L / 4");
-  CHECK_FALSE(c->quantities[0].input);
+  CHECK_FALSE(c->isInput(0));
   // The model keeps the worksheet's own formula.
   CHECK(renderExpr(c->model->formulaExpr(c->model->find("d"))) == "20 mm");
+}
+
+TEST_CASE("what a quantity shows is read from the stages, a --set changing only its own slot", "[calc][set]") {
+  auto c = calc("a = 2000 N\nb = a * 2\nw = 10 mm\ns = b / w\ncheck ok: b < 50 kN\n", {"b = 20 kN"});
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  REQUIRE(c->quantityCount() == 4);
+  const Slot b = c->model->find("b");
+  // The model, built before --set, shows b as calculated, in the unit of a's.
+  REQUIRE_FALSE(c->model->slot(b).input);
+  REQUIRE(c->model->slot(b).display.text == "N");
+  // The --set literal makes it a given value, shown in the unit it was written in.
+  CHECK(c->isInput(b.index()));
+  CHECK(c->display(b.index()).text == "kN");
+  CHECK(c->quantity(b.index()).display.text == "kN");
+  CHECK(c->si(b.index()) == 20000.0);
+  // Every other slot is the model's, with the results' values.
+  for (const char* name : {"a", "w", "s"}) {
+    const Slot s = c->model->find(name);
+    INFO(name);
+    CHECK(&c->display(s.index()) == &c->model->slot(s).display);
+    CHECK(c->isInput(s.index()) == c->model->slot(s).input);
+    CHECK(c->ok(s.index()));
+    CHECK(c->si(s.index()) == c->results.value(s));
+  }
+  CHECK(c->si(c->model->find("s").index()) == Approx(2e6).epsilon(1e-15));
+  REQUIRE(c->checkCount() == 1);
+  CHECK(c->checkResult(0).ok);
+  CHECK(c->checkResult(0).passed);
+  CHECK(c->check(0).lhs == 20000.0);
+  CHECK(c->check(0).rhs == 50000.0);
+  CHECK(c->checkDisplay(0).text == c->model->checks()[0].display.text);
+  // No --set formula reads another quantity: the model's order.
+  CHECK(&c->order() == &c->model->order());
+}
+
+TEST_CASE("a --set that reads another quantity evaluates in the order its Inputs worked out", "[calc][set]") {
+  auto c = calc("x = 1 mm\ny = 2 mm\nz = x + y\n", {"x = y * 3"});
+  INFO(diagnostics(*c));
+  REQUIRE_FALSE(c->hasErrors());
+  REQUIRE(c->inputs->readsSlots());
+  CHECK(&c->order() == &c->inputs->order());
+  CHECK(c->order() == std::vector<Slot>{Slot(1), Slot(0), Slot(2)});
+  CHECK_FALSE(c->isInput(0));
+  CHECK(si(*c, "z") == Approx(0.008).epsilon(1e-15));
+}
+
+TEST_CASE("a worksheet with errors shows no value and no check result", "[calc][diagnostics]") {
+  SECTION("an error found before evaluation: nothing is evaluated") {
+    auto c = calc("a = 2 mm\nb = a + 1 s\ncheck big: a > 1 m\n");
+    REQUIRE(c->hasErrors());
+    REQUIRE(c->results.values.empty());
+    REQUIRE(c->quantityCount() == 2);
+    for (size_t i = 0; i < c->quantityCount(); ++i) {
+      CHECK_FALSE(c->ok(i));
+      CHECK(c->si(i) == 0.0);
+    }
+    CHECK_FALSE(c->checkResult(0).ok);
+    CHECK_FALSE(c->checkResult(0).passed);
+  }
+  SECTION("a fault in evaluation: the faulted quantity has no value, the checks are not evaluated") {
+    auto c = calc("a = 2 mm\nb = a / (a - a)\ncheck big: a > 1 m\n");
+    REQUIRE(c->hasErrors());
+    CHECK(c->ok(0));
+    CHECK(c->si(0) == 0.002);
+    CHECK_FALSE(c->ok(1));
+    CHECK(c->si(1) == 0.0);
+    const CheckView k = c->check(0);
+    CHECK_FALSE(k.ok);
+    CHECK_FALSE(k.passed);
+    CHECK(k.lhs == 0.0);
+    CHECK(k.rhs == 0.0);
+    CHECK(c->failedChecks() == 0);
+    CHECK(&k.display == &c->model->checks()[0].display);
+  }
+}
+
+TEST_CASE("a file that cannot be read has no quantities, checks or order", "[calc][diagnostics]") {
+  auto c = Calculation::fromFile("no-such-dir/no-such-sheet.calc");
+  REQUIRE(c->hasErrors());
+  CHECK(c->model == nullptr);
+  CHECK(c->quantityCount() == 0);
+  CHECK(c->checkCount() == 0);
+  CHECK(c->order().empty());
+  CHECK(c->allChecksPass());
 }

@@ -86,7 +86,7 @@ TEST_CASE("the worksheet's graph gives the downstream cone of an input", "[graph
   auto c = test::calc("d = 40 mm\np = 7 mm\nd_m = d - p / 2\nd_r = d - p\nA = pi * d_r^2 / 4\nW = 3 kN\n");
   REQUIRE_FALSE(c->hasErrors());
   std::vector<std::string> names;
-  for (int i : c->graph->downstream(c->sheet.find("p"))) names.push_back(c->sheet.quantities[i].name);
+  for (int i : c->model->graph().downstream(c->sheet.find("p"))) names.push_back(c->sheet.quantities[i].name);
   CHECK(names == std::vector<std::string>{"p", "d_m", "d_r", "A"});
 }
 

@@ -424,8 +424,8 @@ TEST_CASE("the trail is all a renderer reads: JSON, text and Markdown outlive th
   const std::string json = renderJson(*c, t), text = renderText(t), md = renderMarkdown(t);
   // The trail keeps the numbers themselves, not only their text.
   for (const TrailStep& s : t.steps) {
-    CHECK(s.result.si == c->quantities[s.index].si);
-    CHECK(s.result.value == c->quantities[s.index].display.fromSI(c->quantities[s.index].si));
+    CHECK(s.result.si == c->si(s.index));
+    CHECK(s.result.value == c->display(s.index).fromSI(c->si(s.index)));
   }
   c.reset();
   CHECK(renderJson(t) == json);

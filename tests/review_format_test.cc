@@ -63,21 +63,21 @@ bool sameBits(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }
 
 // Both calculations give bit-identical numbers and the same check states.
 void expectSameNumbers(const Calculation& a, const Calculation& b) {
-  REQUIRE(a.quantities.size() == b.quantities.size());
-  for (size_t i = 0; i < a.quantities.size(); ++i) {
+  REQUIRE(a.quantityCount() == b.quantityCount());
+  for (size_t i = 0; i < a.quantityCount(); ++i) {
     INFO("quantity " << a.sheet.quantities[i].name);
     CHECK(a.sheet.quantities[i].name == b.sheet.quantities[i].name);
-    CHECK(a.quantities[i].ok == b.quantities[i].ok);
-    CHECK(sameBits(a.quantities[i].si, b.quantities[i].si));
-    CHECK(a.quantities[i].display.text == b.quantities[i].display.text);
-    CHECK(a.quantities[i].input == b.quantities[i].input);
+    CHECK(a.ok(i) == b.ok(i));
+    CHECK(sameBits(a.si(i), b.si(i)));
+    CHECK(a.display(i).text == b.display(i).text);
+    CHECK(a.isInput(i) == b.isInput(i));
   }
-  REQUIRE(a.checks.size() == b.checks.size());
-  for (size_t k = 0; k < a.checks.size(); ++k) {
+  REQUIRE(a.checkCount() == b.checkCount());
+  for (size_t k = 0; k < a.checkCount(); ++k) {
     INFO("check " << a.sheet.checks[k].name);
-    CHECK(a.checks[k].passed == b.checks[k].passed);
-    CHECK(sameBits(a.checks[k].lhs, b.checks[k].lhs));
-    CHECK(sameBits(a.checks[k].rhs, b.checks[k].rhs));
+    CHECK(a.checkResult(k).passed == b.checkResult(k).passed);
+    CHECK(sameBits(a.checkResult(k).lhs, b.checkResult(k).lhs));
+    CHECK(sameBits(a.checkResult(k).rhs, b.checkResult(k).rhs));
   }
 }
 

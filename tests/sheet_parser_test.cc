@@ -85,7 +85,7 @@ TEST_CASE("CRLF line endings and a byte-order mark are accepted", "[sheet][diagn
   INFO(diagnostics(*c));
   REQUIRE_FALSE(c->hasErrors());
   CHECK(test::si(*c, "b") == 2000);
-  CHECK(c->checks[0].passed);
+  CHECK(c->checkResult(0).passed);
 }
 
 TEST_CASE("every error of a file is reported in one run, line by line", "[sheet][diagnostics]") {

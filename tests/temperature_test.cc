@@ -99,10 +99,10 @@ TEST_CASE("temperature: absolute plus or minus a difference, differences, compar
   CHECK(si(*c, "ratio") == Approx(293.15 / 300).epsilon(1e-14));
   CHECK(si(*c, "strain") == Approx(60e-6).epsilon(1e-9));
   CHECK(si(*c, "hot") == Approx(298.15).epsilon(1e-14));
-  for (const auto& check : c->checks) CHECK(check.passed);
+  for (size_t k = 0; k < c->checkCount(); ++k) CHECK(c->checkResult(k).passed);
   // A difference shows as one: 5 K (not as an absolute temperature).
   const int i = c->sheet.find("dT");
-  CHECK(c->quantities[i].display.text == "K");
+  CHECK(c->display(i).text == "K");
 }
 
 TEST_CASE("temperature: a difference declared in [degC] and an absolute in [ddegC] are errors",

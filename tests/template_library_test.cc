@@ -77,15 +77,15 @@ TEST_CASE("trapezoidal screw stage: thread of the series, frictionless limit, fr
   // The margin asked against yield is a parameter (3 by default).
   auto strict = library("trapezoidal-screw-stage.calc", {"F=20 kN", "n_yield_min=" + std::to_string(si(*c, "n_yield") + 0.1)});
   CHECK(si(*strict, "n_yield") == si(*c, "n_yield"));
-  CHECK_FALSE(strict->checks[1].passed);
-  CHECK(c->checks[1].passed);
+  CHECK_FALSE(strict->checkResult(1).passed);
+  CHECK(c->checkResult(1).passed);
 
   // Without friction the screw is a perfect wedge: T = F*l/(2*pi) both ways, efficiency 1.
   auto ideal = library("trapezoidal-screw-stage.calc", {"F=20 kN", "f=0", "f_low=0", "f_c=0"});
   CHECK(si(*ideal, "T_raise") == Approx(F * l / (2 * M_PI)).epsilon(1e-12));
   CHECK(si(*ideal, "T_lower") == Approx(-F * l / (2 * M_PI)).epsilon(1e-12));
   CHECK(si(*ideal, "eta") == Approx(1.0));
-  CHECK(ideal->checks[0].passed == false);  // without friction nothing holds the load
+  CHECK(ideal->checkResult(0).passed == false);  // without friction nothing holds the load
 }
 
 TEST_CASE("Acme screw stage: the 1 in size, and the frictionless limit", "[template][library]") {

@@ -157,7 +157,7 @@ TEST_CASE("a template runs on its own: params at their defaults, a required one 
   auto set = f.calc("screw.calc", {"F=1 kN"});
   REQUIRE_FALSE(set->hasErrors());
   CHECK(si(*set, "T") == Approx(1000 * 0.1 * 0.020 / 2));
-  CHECK(set->quantities[set->sheet.find("f")].input);
+  CHECK(set->isInput(set->sheet.find("f")));
   auto wrong = f.calc("screw.calc", {"F=1 mm"});
   CHECK(contains(f.diags(*wrong), "error: `F` is declared in [N], force"));
 }

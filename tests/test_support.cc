@@ -27,8 +27,8 @@ double si(const Calculation& c, const std::string& name) {
   const int i = c.sheet.find(name);
   INFO("quantity " << name << "\n" << diagnostics(c));
   REQUIRE(i >= 0);
-  REQUIRE(c.quantities[i].ok);
-  return c.quantities[i].si;
+  REQUIRE(c.ok(i));
+  return c.si(i);
 }
 
 std::string repoPath(const std::string& relative) { return std::string(CALCTRAIL_SOURCE_DIR) + "/" + relative; }

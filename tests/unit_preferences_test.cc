@@ -19,7 +19,7 @@ using calctrail::test::si;
 namespace {
 
 std::string shownUnit(const Calculation& c, const std::string& name) {
-  return c.quantities[static_cast<size_t>(c.sheet.find(name))].display.text;
+  return c.display(static_cast<size_t>(c.sheet.find(name))).text;
 }
 
 Unit parsed(const char* text) {
@@ -77,7 +77,7 @@ TEST_CASE("a library result is shown in the unit its function declares", "[units
   const double rev = 2 * M_PI;
   CHECK(si(*c, "L") / rev == Approx(std::pow(30.0 / 3.5, 3) * 1e6).epsilon(1e-12));
   // 1 in Acme: 5 threads per inch (ASME B1.5 Table of the general-purpose series).
-  CHECK(c->quantities[static_cast<size_t>(c->sheet.find("tpi"))].display.fromSI(si(*c, "tpi")) ==
+  CHECK(c->display(static_cast<size_t>(c->sheet.find("tpi"))).fromSI(si(*c, "tpi")) ==
         Approx(5.0).epsilon(1e-12));
 }
 

@@ -52,7 +52,7 @@ FileCheck checkFile(const std::string& file, const CheckArgs& args, TemplateCach
   // Each check in each case; a case that could not be calculated is an error
   // of the file, the other cases still checked.
   auto record = [&](const std::string& in_case, const std::vector<CheckResult>& results) {
-    for (size_t k = 0; k < calc->checks.size(); ++k) {
+    for (size_t k = 0; k < calc->checkCount(); ++k) {
       const CheckResult& r = results[k];
       const Check& c = calc->sheet.checks[k];
       CheckOutcome o;
@@ -66,7 +66,7 @@ FileCheck checkFile(const std::string& file, const CheckArgs& args, TemplateCach
       o.line = pos.line;
       o.column = pos.column;
       if (!r.passed) {
-        const Unit& unit = calc->checks[k].display;
+        const Unit& unit = calc->checkDisplay(k);
         o.message = "check `" + c.name + "` fails" + (in_case.empty() ? "" : " in case " + in_case) + ": " +
                     side(*c.lhs, r.ok, r.lhs, unit) + " " + comparisonText(c.op) + " " +
                     side(*c.rhs, r.ok, r.rhs, unit) + " is false";

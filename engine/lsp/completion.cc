@@ -58,9 +58,8 @@ nlohmann::json completion(const Analysis& a, const Document& doc, uint32_t offse
       const Sheet& sheet = a.calc->sheet;
       for (size_t i = 0; i < sheet.quantities.size(); ++i) {
         const Quantity& q = sheet.quantities[i];
-        const QuantityState* s = i < a.calc->quantities.size() ? &a.calc->quantities[i] : nullptr;
         std::string detail;
-        if (a.evaluated() && s && s->ok)
+        if (a.evaluated() && i < a.calc->quantityCount() && a.calc->ok(i))
           detail = "= " + valueText(a, static_cast<int>(i));
         else if (!q.unit_written.empty())
           detail = "[" + q.unit_written + "]";

@@ -19,12 +19,12 @@ std::string unitOf(const Dimension& dim) {
 // A name's value as the substituted formula shows it; the name itself when it has none.
 std::string substituted(const Analysis& a, const Expr& name) {
   const int i = a.calc->sheet.find(name.text);
-  return i >= 0 && a.calc->quantities[i].ok ? valueText(a, i) : name.text;
+  return i >= 0 && a.calc->ok(i) ? valueText(a, i) : name.text;
 }
 
 std::string quantityHover(const Analysis& a, int i) {
   const Quantity& q = a.calc->sheet.quantities[i];
-  const QuantityState& s = a.calc->quantities[i];
+  const QuantityView s = a.calc->quantity(i);
   std::string out = "**" + q.name + "**";
   if (!q.unit_written.empty()) out += " [" + q.unit_written + "]";
   if (s.ok)
@@ -49,7 +49,7 @@ std::string quantityHover(const Analysis& a, int i) {
 
 std::string checkHover(const Analysis& a, int k) {
   const Check& c = a.calc->sheet.checks[k];
-  const CheckState& s = a.calc->checks[k];
+  const CheckView s = a.calc->check(k);
   std::string out = "**check " + c.name + "**";
   if (a.evaluated() && s.ok) out += s.passed ? ": pass" : ": FAIL";
   out += "\n";
@@ -90,8 +90,7 @@ std::string functionHover(const std::string& name) {
 }  // namespace
 
 std::string valueText(const Analysis& a, int i) {
-  const QuantityState& s = a.calc->quantities[i];
-  return formatQuantity(s.si, s.display, kDigits, false);
+  return formatQuantity(a.calc->si(i), a.calc->display(i), kDigits, false);
 }
 
 std::string signature(const FunctionDecl& f) {

@@ -11,7 +11,7 @@ std::string quantityHint(const Analysis& a, int i) {
 }
 
 std::string checkHint(const Analysis& a, int k) {
-  const CheckState& s = a.calc->checks[k];
+  const CheckView s = a.calc->check(k);
   const Check& c = a.calc->sheet.checks[k];
   return std::string(s.passed ? "pass" : "FAIL") + " (" + formatQuantity(s.lhs, s.display, 4, false) + " " +
          comparisonText(c.op) + " " + formatQuantity(s.rhs, s.display, 4, false) + ")";
@@ -27,10 +27,10 @@ nlohmann::json inlayHints(const Analysis& a, const Document& doc, int64_t first,
     if (st.kind == Statement::Define) {
       const Quantity& q = a.calc->sheet.quantities[st.index];
       // A lone literal shows its value already.
-      if (!q.expr || q.expr->kind == ExprKind::Number || !a.calc->quantities[st.index].ok) continue;
+      if (!q.expr || q.expr->kind == ExprKind::Number || !a.calc->ok(st.index)) continue;
       label = quantityHint(a, st.index);
     } else if (st.kind == Statement::CheckStmt) {
-      if (!a.calc->checks[st.index].ok) continue;
+      if (!a.calc->checkResult(st.index).ok) continue;
       label = checkHint(a, st.index);
     } else {
       continue;

@@ -137,7 +137,7 @@ int main(int argc, char** argv) {
   }
 
   std::printf("twin-screw-lift.calc (%zu quantities, %zu checks), %d cases, best of %d\n\n",
-              all->quantities.size(), all->checks.size(), n, repeat);
+              all->quantityCount(), all->checkCount(), n, repeat);
   const double one = best(repeat, [&] { mustCalculate(path, base); });
   const double with_cases = best(repeat, [&] { mustCalculate(path, sheet); });
   const double separate = best(repeat, [&] {

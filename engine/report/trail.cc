@@ -280,7 +280,7 @@ std::optional<Unit> unitFor(const Unit& u, const Dimension& want) {
 Unit argumentUnit(const Expr& arg, const FunctionArg& decl, const Calculation& calc) {
   const Expr* x = withoutParens(&arg);
   if (x->kind == ExprKind::Name) {
-    if (auto u = unitFor(calc.quantities[calc.sheet.find(x->text)].display, decl.dim)) return *u;
+    if (auto u = unitFor(calc.display(calc.sheet.find(x->text)), decl.dim)) return *u;
   }
   if (x->kind == ExprKind::Number && x->unit) {
     if (auto u = unitFor(*x->unit, decl.dim)) return *u;
@@ -376,7 +376,7 @@ std::optional<Unit> leadUnit(const Expr& arg, const Dimension& dim, const Calcul
   if (dim.exponent(Base::Angle) != -1) return std::nullopt;
   if (x->kind == ExprKind::Name) {
     const int j = calc.sheet.find(x->text);
-    if (j >= 0 && calc.quantities[j].display.dim == dim) return calc.quantities[j].display;
+    if (j >= 0 && calc.display(j).dim == dim) return calc.display(j);
   }
   if (x->kind == ExprKind::Number && x->unit && x->unit->dim == dim) return *x->unit;
   Unit u;
@@ -404,7 +404,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   c.formula_expr = parsedFormula(f);
   auto value_of = [&](const Expr& e) {
     const int j = calc.sheet.find(e.text);
-    return j >= 0 && calc.quantities[j].ok ? calc.quantities[j].si : NAN;
+    return j >= 0 && calc.ok(j) ? calc.si(j) : NAN;
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   std::vector<double> library_args;
@@ -427,7 +427,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (calc.quantities[j].display.text == unit.text) as_written = given(static_cast<size_t>(j));
+      if (calc.display(j).text == unit.text) as_written = given(static_cast<size_t>(j));
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
       as_written =
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
@@ -521,7 +521,7 @@ TrailLine substitute(const Expr& e, const Calculation& calc, const Steps& steps,
           return markerInLine(&values, v, v.si < 0);
         }
         const int j = calc.sheet.find(name.text);
-        const QuantityState& s = calc.quantities[j];
+        const QuantityView s = calc.quantity(j);
         // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
         std::optional<TrailValue> given = steps.given(static_cast<size_t>(j));
         TrailValue v = given ? std::move(*given) : steps.shown(static_cast<size_t>(j));
@@ -566,7 +566,7 @@ std::string percentText(double u) {
 
 // Demand and capacity of a check, by its comparison: `x <= limit` has the
 // demand on the left, `x >= need` on the right.
-void measureCheck(TrailCheck* tc, const CheckState& s, const Check& c, int digits) {
+void measureCheck(TrailCheck* tc, const CheckView& s, const Check& c, int digits) {
   const bool demand_left = c.op == Comparison::Less || c.op == Comparison::LessEqual;
   const double demand = demand_left ? s.lhs : s.rhs, capacity = demand_left ? s.rhs : s.lhs;
   tc->margin = rounded(capacity - demand, s.display, digits);
@@ -642,7 +642,7 @@ void addCases(const Calculation& calc, int digits, Trail* t) {
   }
   for (TrailCheck& tc : t->checks) {
     const Check& c = sheet.checks[tc.index];
-    const Unit& unit = calc.checks[tc.index].display;
+    const Unit& unit = calc.checkDisplay(tc.index);
     double least = 0.0;
     for (size_t k = 0; k < results.size(); ++k) {
       const bool ran = k == 0 || calc.cases[k - 1].ok();
@@ -681,7 +681,7 @@ class TrailStepBuilder {
   // its warnings and its values per load case.
   TrailStep build(size_t i) const;
 
-  bool isInput(size_t i) const { return calc_.quantities[i].input; }
+  bool isInput(size_t i) const { return calc_.isInput(i); }
   // A given value written as one literal in its display unit, as written; else nothing.
   std::optional<TrailValue> given(size_t i) const { return memo_.empty() ? findGiven(i) : memo_[i].given; }
   // Quantity i's value as its step shows it (0 in its unit when it has none).
@@ -709,7 +709,7 @@ class TrailStepBuilder {
   void addCaseValues(TrailStep* s) const;
   std::optional<TrailValue> findGiven(size_t i) const;
   TrailValue findShown(size_t i) const {
-    const QuantityState& s = calc_.quantities[i];
+    const QuantityView s = calc_.quantity(i);
     return rounded(s.si, s.display, digits_);
   }
 
@@ -725,7 +725,7 @@ class TrailStepBuilder {
 
 std::optional<TrailValue> TrailStepBuilder::findGiven(size_t i) const {
   const Quantity& q = calc_.sheet.quantities[i];
-  const QuantityState& s = calc_.quantities[i];
+  const QuantityView s = calc_.quantity(i);
   if (!s.ok) return std::nullopt;
   const Expr* x = withoutParens(q.expr.get());
   if (x->kind != ExprKind::Number) return std::nullopt;
@@ -739,7 +739,7 @@ std::optional<TrailValue> TrailStepBuilder::findGiven(size_t i) const {
 TrailStep TrailStepBuilder::head(size_t i) const {
   const Sheet& sheet = calc_.sheet;
   const Quantity& q = sheet.quantities[i];
-  const QuantityState& s = calc_.quantities[i];
+  const QuantityView s = calc_.quantity(i);
   TrailStep step;
   step.index = static_cast<int>(i);
   step.name = q.name;
@@ -780,14 +780,14 @@ void TrailStepBuilder::explain(TrailStep* step) const {
   s.origin = s.overridden ? (by_case.empty() ? "set on the command line" : "replaced in case " + by_case)
              : s.input    ? "given"
                           : "calculated";
-  if (!calc_.quantities[s.index].ok) return;
+  if (!calc_.ok(s.index)) return;
   const Expr& expr = *sheet.quantities[s.index].expr;
   std::vector<const Expr*> calls;
   collectCalls(expr, &calls);
   const NodeDims dims = calc_.exprDims(static_cast<size_t>(s.index));
   const auto given_of = [this](size_t j) { return given(j); };
   for (const Expr* call : calls)
-    s.calls.push_back(auditCall(*call, dims, calc_, given_of, calc_.quantities[s.index].display, digits_));
+    s.calls.push_back(auditCall(*call, dims, calc_, given_of, calc_.display(s.index), digits_));
   // A call inside another's arguments is shown there by its value.
   for (size_t k = 0; k < calls.size(); ++k)
     for (size_t o = 0; o < calls.size(); ++o)
@@ -816,7 +816,7 @@ void TrailStepBuilder::explain(TrailStep* step) const {
 void TrailStepBuilder::addCaseValues(TrailStep* step) const {
   if (calc_.cases.empty()) return;
   TrailStep& s = *step;
-  const QuantityState& state = calc_.quantities[s.index];
+  const QuantityView state = calc_.quantity(s.index);
   const Slot slot(static_cast<uint32_t>(s.index));
   for (size_t k = 0; k < results_.size(); ++k) {
     TrailCaseValue v;
@@ -1055,14 +1055,14 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
         used_by.emplace_back();
         first_caller.push_back(-1);
       }
-      if (!calc.quantities[i].ok) continue;
+      if (!calc.ok(i)) continue;
       if (used_by[k].empty() || used_by[k].back() != q.name) used_by[k].push_back(q.name);
       if (first_caller[k] < 0) first_caller[k] = static_cast<int>(i);
     }
   }
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
-    const CheckState& s = calc.checks[k];
+    const CheckView s = calc.check(k);
     TrailCheck tc;
     tc.index = static_cast<int>(k);
     tc.name = c.name;
@@ -1150,7 +1150,7 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
     for (size_t i = static_cast<size_t>(std::max(first_caller[k], 0)); first_caller[k] >= 0 && fn.value.empty() &&
                                                                          i < sheet.quantities.size();
          ++i) {
-      if (!calc.quantities[i].ok) continue;
+      if (!calc.ok(i)) continue;
       calls.clear();
       collectCalls(*sheet.quantities[i].expr, &calls);
       if (std::none_of(calls.begin(), calls.end(), [&](const Expr* c) { return c->text == f->name; })) continue;

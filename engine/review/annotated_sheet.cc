@@ -19,11 +19,11 @@ std::string checkSummary(const Calculation& calc) {
     const int n = calc.diags.errorCount();
     return std::to_string(n) + (n == 1 ? " error" : " errors") + ", nothing calculated";
   }
-  const size_t total = calc.checks.size();
+  const size_t total = calc.checkCount();
   if (total == 0) return "no checks";
   std::string failed;
   for (size_t k = 0; k < total; ++k)
-    if (!calc.checks[k].passed) failed += (failed.empty() ? "" : ", ") + calc.sheet.checks[k].name;
+    if (!calc.checkResult(k).passed) failed += (failed.empty() ? "" : ", ") + calc.sheet.checks[k].name;
   const int n_failed = calc.failedChecks();
   std::string out = std::to_string(total) + (total == 1 ? " check, " : " checks, ");
   if (n_failed == 0) return out + "all PASS";
@@ -53,11 +53,11 @@ void appendInstanceLines(const Calculation& calc, int instance, int digits, std:
   std::stable_sort(items.begin(), items.end(), [](const Item& a, const Item& b) { return a.line < b.line; });
   for (const Item& item : items) {
     const size_t i = static_cast<size_t>(item.index);
-    if (item.kind == QuantityLine && calc.quantities[i].ok)
+    if (item.kind == QuantityLine && calc.ok(i))
       lines->push_back(calc.sheet.quantities[i].name + " = " +
-                       annotatedValue(calc.quantities[i].si, calc.quantities[i].display, digits));
+                       annotatedValue(calc.si(i), calc.display(i), digits));
     if (item.kind == CheckLine)
-      lines->push_back(annotatedCheck(calc.sheet.checks[i], calc.checks[i], digits));
+      lines->push_back(annotatedCheck(calc.sheet.checks[i], calc.check(i), digits));
     if (item.kind == UseLine) appendInstanceLines(calc, item.index, digits, lines);
   }
 }
@@ -99,7 +99,7 @@ static std::string checkSide(const Expr& side, double si, const Unit& unit, int 
   return annotatedValue(si, unit, digits);
 }
 
-std::string annotatedCheck(const Check& check, const CheckState& state, int digits) {
+std::string annotatedCheck(const Check& check, const CheckView& state, int digits) {
   return "check " + check.name + ": " + (state.passed ? "PASS  " : "FAIL  ") +
          checkSide(*check.lhs, state.lhs, state.display, digits) + " " + comparisonText(check.op) + " " +
          checkSide(*check.rhs, state.rhs, state.display, digits);
@@ -125,13 +125,13 @@ std::string annotatedSheet(const Calculation& calc, int digits) {
     out += withoutControlChars(text);
     out += "\n";
     if (calculated && st.kind == Statement::Define) {
-      const QuantityState& s = calc.quantities[st.index];
+      const QuantityView s = calc.quantity(st.index);
       if (!s.input && s.ok)
         out += mark + calc.sheet.quantities[st.index].name + " = " + annotatedValue(s.si, s.display, digits) + "\n";
     }
     if (calculated && st.kind == Statement::UseStmt) out += useLines(calc, st.index, digits);
     if (calculated && st.kind == Statement::CheckStmt) {
-      out += mark + annotatedCheck(calc.sheet.checks[st.index], calc.checks[st.index], digits) + "\n";
+      out += mark + annotatedCheck(calc.sheet.checks[st.index], calc.check(st.index), digits) + "\n";
     }
     auto [b, e] = by_line.equal_range(st.line);
     for (auto it = b; it != e; ++it)

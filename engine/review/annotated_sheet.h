@@ -31,6 +31,6 @@ std::string annotatedSheet(const Calculation& calc, int digits);
 std::string annotatedValue(double si, const Unit& unit, int digits);
 
 // A check's state as the text shows it: "check NAME: PASS  LHS OP RHS" (or FAIL).
-std::string annotatedCheck(const Check& check, const CheckState& state, int digits);
+std::string annotatedCheck(const Check& check, const CheckView& state, int digits);
 
 }  // namespace calctrail

@@ -39,7 +39,7 @@ const CaseRun* findRun(const Calculation& calc, const std::string& name) {
 
 QuantityEntry entryOf(const Calculation& calc, int i) {
   const Quantity& q = calc.sheet.quantities[i];
-  const QuantityState& s = calc.quantities[i];
+  const QuantityView s = calc.quantity(i);
   QuantityEntry e;
   e.name = q.name;
   e.formula = canonicalDefinition(q);
@@ -52,7 +52,7 @@ QuantityEntry entryOf(const Calculation& calc, int i) {
 
 CheckEntry checkEntryOf(const Calculation& calc, int k) {
   const Check& c = calc.sheet.checks[k];
-  const CheckState& s = calc.checks[k];
+  const CheckView s = calc.check(k);
   CheckEntry e;
   e.name = c.name;
   e.condition = conditionText(c);
@@ -156,8 +156,8 @@ void diffCases(const Calculation& o, const Calculation& n, double rtol, SheetDif
       const Quantity& q = n.sheet.quantities[i];
       const int oi = o.sheet.find(q.name);
       if (oi < 0) continue;
-      const QuantityState& s = n.quantities[i];
-      const QuantityState& os = o.quantities[oi];
+      const QuantityView s = n.quantity(i);
+      const QuantityView os = o.quantity(oi);
       ValueChange v;
       v.name = q.name;
       v.description = q.description;
@@ -187,7 +187,7 @@ void diffCases(const Calculation& o, const Calculation& n, double rtol, SheetDif
       f.now.rhs = rnow.rhs;
       f.old_lhs = rwas.lhs;
       f.old_rhs = rwas.rhs;
-      f.old_unit = o.checks[ok].display;
+      f.old_unit = o.checkDisplay(ok);
       f.old_lhs_expr = o.sheet.checks[ok].lhs.get();
       f.old_rhs_expr = o.sheet.checks[ok].rhs.get();
       f.in_case = c.name;
@@ -224,14 +224,14 @@ SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double 
 
   for (size_t i = 0; i < n.sheet.quantities.size(); ++i) {
     const Quantity& q = n.sheet.quantities[i];
-    const QuantityState& s = n.quantities[i];
+    const QuantityView s = n.quantity(i);
     const int j = o.sheet.find(q.name);
     if (j < 0) {
       d.added.push_back(entryOf(n, static_cast<int>(i)));
       continue;
     }
     const Quantity& oq = o.sheet.quantities[j];
-    const QuantityState& os = o.quantities[j];
+    const QuantityView os = o.quantity(j);
     ValueChange v;
     v.name = q.name;
     v.description = q.description;
@@ -272,13 +272,13 @@ SheetDiff diffCalculations(Calculation* old_calc, Calculation* new_calc, double 
     const std::string was = canonicalCondition(o.sheet.checks[ok]);
     const std::string now = canonicalCondition(c);
     if (was != now) d.formulas.push_back({c.name, true, was, now});
-    const bool flipped = o.checks[ok].passed != n.checks[k].passed;
-    if (flipped || !n.checks[k].passed) {
+    const bool flipped = o.checkResult(ok).passed != n.checkResult(k).passed;
+    if (flipped || !n.checkResult(k).passed) {
       CheckFlip f;
       f.now = checkEntryOf(n, static_cast<int>(k));
-      f.old_lhs = o.checks[ok].lhs;
-      f.old_rhs = o.checks[ok].rhs;
-      f.old_unit = o.checks[ok].display;
+      f.old_lhs = o.checkResult(ok).lhs;
+      f.old_rhs = o.checkResult(ok).rhs;
+      f.old_unit = o.checkDisplay(ok);
       f.old_lhs_expr = o.sheet.checks[ok].lhs.get();
       f.old_rhs_expr = o.sheet.checks[ok].rhs.get();
       // A check failing on both sides is no change, but never "all good".

@@ -157,7 +157,7 @@ std::string userLines(const Calculation& calc, const std::string& user, const st
   std::vector<std::string> lines;
   for (Slot slot : calc.model->downstream(from)) {  // in evaluation order: as a trail reads
     reached[slot.index()] = true;
-    const QuantityState& s = calc.quantities[slot.index()];
+    const QuantityView s = calc.quantity(slot.index());
     // Given values are in the template's own lines, or the sheet's bindings.
     if (!s.input && s.ok)
       lines.push_back(calc.sheet.quantities[slot.index()].name + " = " +
@@ -165,9 +165,9 @@ std::string userLines(const Calculation& calc, const std::string& user, const st
   }
   for (size_t k = 0; k < calc.sheet.checks.size(); ++k) {
     const auto& reads = calc.model->checks()[k].reads;
-    if (calc.checks[k].ok &&
+    if (calc.checkResult(k).ok &&
         std::any_of(reads.begin(), reads.end(), [&](Slot s) { return reached[s.index()]; }))
-      lines.push_back(annotatedCheck(calc.sheet.checks[k], calc.checks[k], digits));
+      lines.push_back(annotatedCheck(calc.sheet.checks[k], calc.check(k), digits));
   }
   if (lines.empty()) return head + "no result depends on it\n";
   std::string out;

@@ -231,7 +231,7 @@ std::string checkDiagnostics(const Calculation& calc, const SourceFile& file) {
 std::string checkTrail(const Calculation& calc, const Trail& trail, int digits) {
   for (const TrailStep& step : trail.steps) {
     if (!step.ok) continue;
-    const QuantityState& s = calc.quantities[step.index];
+    const QuantityView s = calc.quantity(step.index);
     const std::string value = numberText(step.result.number);
     const std::string why = checkFormatted(value, s.display.fromSI(s.si), digits);
     if (!why.empty()) return "`" + step.name + "` at " + std::to_string(digits) + " digits: " + why;
@@ -262,7 +262,7 @@ std::string checkJson(const Calculation& calc, const std::string& text) {
   for (size_t i = 0; i < qs.array.size(); ++i) {
     const test::Json& q = qs[i];
     const Quantity& sq = calc.sheet.quantities[i];
-    const QuantityState& s = calc.quantities[i];
+    const QuantityView s = calc.quantity(i);
     for (const char* key : {"name", "unit", "formula", "description"})
       if (!q.has(key) || q[key].type != test::Json::String)
         return "the JSON quantity `" + sq.name + "` has no string " + key;
@@ -282,7 +282,7 @@ std::string checkJson(const Calculation& calc, const std::string& text) {
   for (size_t k = 0; k < cs.array.size(); ++k) {
     const test::Json& c = cs[k];
     if (!c.has("name") || c["name"].string != calc.sheet.checks[k].name || !c.has("passed") ||
-        c["passed"].type != test::Json::Bool || c["passed"].boolean != calc.checks[k].passed)
+        c["passed"].type != test::Json::Bool || c["passed"].boolean != calc.checkResult(k).passed)
       return "the JSON check " + std::to_string(k) + " is not `" + calc.sheet.checks[k].name +
              "` as evaluated";
   }
@@ -403,13 +403,13 @@ std::string pipelineHolds(const std::string& bytes) {
   const SourceFile file(kPath, bytes);
   std::string why = checkDiagnostics(*calc, file);
   if (!why.empty() || calc->hasErrors()) return why;
-  for (size_t i = 0; i < calc->quantities.size(); ++i) {
-    const QuantityState& s = calc->quantities[i];
+  for (size_t i = 0; i < calc->quantityCount(); ++i) {
+    const QuantityView s = calc->quantity(i);
     if (!s.ok || !std::isfinite(s.si))
       return "`" + calc->sheet.quantities[i].name + "` has no finite value, and no error says why";
   }
-  for (size_t k = 0; k < calc->checks.size(); ++k) {
-    const CheckState& s = calc->checks[k];
+  for (size_t k = 0; k < calc->checkCount(); ++k) {
+    const CheckView s = calc->check(k);
     if (!s.ok || !std::isfinite(s.lhs) || !std::isfinite(s.rhs))
       return "the check `" + calc->sheet.checks[k].name + "` has no finite sides, and no error says why";
   }
@@ -467,13 +467,13 @@ std::string formatRoundTripHolds(const std::string& bytes) {
            std::to_string(b->diags.errorCount()) + " and " + std::to_string(b->diags.warningCount()) +
            " after)";
   if (a->hasErrors()) return "";
-  for (size_t i = 0; i < a->quantities.size(); ++i)
-    if (!sameBits(a->quantities[i].si, b->quantities[i].si) || a->quantities[i].display.text !=
-                                                                  b->quantities[i].display.text)
+  for (size_t i = 0; i < a->quantityCount(); ++i)
+    if (!sameBits(a->si(i), b->si(i)) || a->display(i).text != b->display(i).text)
       return "`" + a->sheet.quantities[i].name + "` calculates otherwise from the canonical text";
-  for (size_t k = 0; k < a->checks.size(); ++k)
-    if (a->checks[k].passed != b->checks[k].passed || !sameBits(a->checks[k].lhs, b->checks[k].lhs) ||
-        !sameBits(a->checks[k].rhs, b->checks[k].rhs))
+  for (size_t k = 0; k < a->checkCount(); ++k)
+    if (a->checkResult(k).passed != b->checkResult(k).passed ||
+        !sameBits(a->checkResult(k).lhs, b->checkResult(k).lhs) ||
+        !sameBits(a->checkResult(k).rhs, b->checkResult(k).rhs))
       return "the check `" + a->sheet.checks[k].name + "` evaluates otherwise from the canonical text";
   return "";
 }
@@ -491,7 +491,7 @@ std::string selfDiffHolds(const std::string& bytes) {
   // Its only entries are the checks that fail, as written and in each load
   // case that calculates, each listed as still failing.
   size_t failing = 0;
-  for (const CheckState& c : a->checks) failing += c.passed ? 0 : 1;
+  for (size_t k = 0; k < a->checkCount(); ++k) failing += a->checkResult(k).passed ? 0 : 1;
   for (const CaseRun& run : a->cases)
     if (run.ok())
       for (const CheckResult& r : run.results.checks) failing += r.passed ? 0 : 1;

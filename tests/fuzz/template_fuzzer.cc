@@ -59,11 +59,11 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* data, size_t size) {
   auto calc = calctrail::Calculation::fromText("main.calc", parts[0], options);
   if (!calc) broken("Calculation::fromText gave nothing");
   if (calc->hasErrors()) return 0;
-  for (size_t i = 0; i < calc->quantities.size(); ++i)
-    if (!calc->quantities[i].ok || !std::isfinite(calc->quantities[i].si))
+  for (size_t i = 0; i < calc->quantityCount(); ++i)
+    if (!calc->ok(i) || !std::isfinite(calc->si(i)))
       broken("`" + calc->sheet.quantities[i].name + "` has no finite value, and no error says why");
-  for (size_t k = 0; k < calc->checks.size(); ++k)
-    if (!calc->checks[k].ok) broken("the check `" + calc->sheet.checks[k].name + "` has no value");
+  for (size_t k = 0; k < calc->checkCount(); ++k)
+    if (!calc->checkResult(k).ok) broken("the check `" + calc->sheet.checks[k].name + "` has no value");
   const calctrail::Trail trail = calctrail::buildTrail(*calc, 4);
   for (const calctrail::ReportFormat& f : calctrail::reportFormats())
     if (calctrail::renderReport(trail, f.name).empty()) broken(std::string("empty ") + f.name + " output");
