@@ -39,6 +39,9 @@ std::string num(double v) {
   // std::to_chars with a precision is printf's %.4g by definition (C++17
   // [charconv.to.chars]), without snprintf's stream set-up: the library's
   // texts call this some 250 times at first use (docs/performance.md).
+  // A whole number below 10^4 is printed whole by %.4g.
+  if (v == std::trunc(v) && std::fabs(v) < 1e4 && !(v == 0 && std::signbit(v)))
+    return std::to_string(static_cast<int>(v));
   char buf[32];
   const std::to_chars_result r = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 4);
   return std::string(buf, r.ptr);
