@@ -15,6 +15,7 @@ struct Library {
 const Library& library() {
   static const Library lib = [] {
     Library l;
+    l.decls.reserve(128);  // room for every declaration: none is moved while the library grows
     using Adder = fn::GroupText (*)(std::vector<FunctionDecl>&);
     const Adder adders[] = {fn::addThreads, fn::addPowerScrews, fn::addCollars, fn::addStresses,
                             fn::addColumns, fn::addBallScrews,  fn::addGears,   fn::addMotors,

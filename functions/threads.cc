@@ -510,6 +510,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
   using namespace dims;
   const FunctionArg major = arg("d", length(), "nominal (major) diameter of the thread");
   const FunctionArg pitch = arg("p", length(), "pitch (axial distance between adjacent threads)", true);
+  // The limits of the three class 7e functions, built once.
+  const std::string held = trap7eHeldText() + kTrap7eSingleStart;
 
   {
     FunctionDecl d;
@@ -848,7 +850,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.result_unit = "mm";
     d.formula = "d - p/2 + es, with the fundamental deviation es of position e: " + trap7eDeviationText();
     d.formula_is_expression = false;
-    d.limits = trap7eHeldText() + kTrap7eSingleStart;
+    d.limits = held;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMaxPitchDia;
@@ -863,7 +865,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.result_unit = "mm";
     d.formula = "trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = " + trap7eToleranceText();
     d.formula_is_expression = false;
-    d.limits = trap7eHeldText() + kTrap7eSingleStart;
+    d.limits = held;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinPitchDia;
@@ -880,7 +882,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.formula = "trap_minor_dia(d, p) - Td3, with Td3 = 1.25*Td2 + |es| (Td2 and es as in trap_min_pitch_dia "
                 "and trap_max_pitch_dia)";
     d.formula_is_expression = false;
-    d.limits = trap7eHeldText() + kTrap7eSingleStart;
+    d.limits = held;
     d.source = kTrap7eSource;
     d.example = {0.020, 0.004};
     d.eval = trapMinMinorDia;

@@ -1,7 +1,7 @@
 #include "functions/validity.h"
 
+#include <charconv>
 #include <cmath>
-#include <cstdio>
 
 namespace calctrail::fn {
 
@@ -36,9 +36,15 @@ Shown unitOf(Show how) {
 std::string num(double v) {
   if (std::isnan(v)) return "NaN";
   if (std::isinf(v)) return v > 0 ? "inf" : "-inf";
+  // std::to_chars with a precision is printf's %.4g by definition (C++17
+  // [charconv.to.chars]), without snprintf's stream set-up: the library's
+  // texts call this some 250 times at first use (docs/performance.md).
+  // A whole number below 10^4 is printed whole by %.4g.
+  if (v == std::trunc(v) && std::fabs(v) < 1e4 && !(v == 0 && std::signbit(v)))
+    return std::to_string(static_cast<int>(v));
   char buf[32];
-  std::snprintf(buf, sizeof buf, "%.4g", v);
-  return buf;
+  const std::to_chars_result r = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::general, 4);
+  return std::string(buf, r.ptr);
 }
 
 std::string show(double si, Show how) {

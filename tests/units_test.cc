@@ -311,6 +311,15 @@ TEST_CASE("units: human spelling", "[units]") {
   CHECK(parsed("1/in").pretty() == "1/in");
   CHECK(parsed("%").pretty() == "%");
   CHECK(siUnit(kEnergy).pretty() == "kg\u00B7m\u00B2/s\u00B2");
+  // Units with nothing to change come back as written (pretty() returns the
+  // text at once when it holds no `*`, `^`, `u` or `d`).
+  CHECK(parsed("rpm").pretty() == "rpm");
+  CHECK(parsed("kN").pretty() == "kN");
+  CHECK(parsed("MPa").pretty() == "MPa");
+  CHECK(parsed("in/rev").pretty() == "in/rev");
+  CHECK(parsed("mm/deg").pretty() == "mm/\u00B0");
+  CHECK(parsed("ddegC").pretty() == "\u0394\u00B0C");
+  CHECK(parsed("um/s").pretty() == "\u00B5m/s");
 }
 
 TEST_CASE("units: suggestions for unknown units", "[units]") {

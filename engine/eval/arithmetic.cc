@@ -126,7 +126,11 @@ void ArithmeticParser::define(const Program& program, LibraryCallStore* store) {
 void ArithmeticParser::set(const Program& program, double* const* addresses, LibraryCallStore* store) {
   try {
     define(program, store);
-    parser_->ClearVar();
+    // v0, v1, ... are re-pointed, not cleared and defined anew: a name the
+    // last program had and this one lacks keeps its old address, unread (a
+    // parser binds only the names its text holds), and the parser's map of
+    // names allocates nothing for the next formula (the one-shot parse of a
+    // report sets a dozen programs in one parser; docs/performance.md).
     for (size_t k = 0; k < program.inputs.size(); ++k)
       parser_->DefineVar("v" + std::to_string(k), addresses[k]);
     parser_->SetExpr(program.text);

@@ -1,7 +1,7 @@
 #include "engine/eval/program.h"
 
 #include <algorithm>
-#include <cstdio>
+#include <charconv>
 
 #include "engine/eval/math_functions.h"
 #include "engine/util/math_constants.h"
@@ -10,11 +10,14 @@ namespace calctrail {
 
 namespace {
 
+// The shortest text that reads back as exactly `v` (std::to_chars; the
+// parser reads it with std::from_chars, arithmetic.cc): the same double as
+// "%.17g" gave, in fewer characters and without snprintf's set-up.
 void appendNumber(double v, std::string* out) {
   char buf[40];
-  std::snprintf(buf, sizeof buf, "%.17g", v);  // round-trips every double exactly
+  const std::to_chars_result r = std::to_chars(buf, buf + sizeof buf, v);
   if (v < 0) *out += '(';
-  *out += buf;
+  out->append(buf, r.ptr);
   if (v < 0) *out += ')';
 }
 
@@ -29,6 +32,38 @@ struct Compiler {
   const Sheet& sheet;
   const std::vector<FunctionDecl>& library;
   Program* program;
+
+  // How tightly an operator binds in muparser: + - 1, * / 2, ^ 3; 4 for an
+  // operand that needs no parentheses (a number, pi, a name, a call, a
+  // negation, which writes its own).
+  static int precedence(ExprKind k) {
+    switch (k) {
+      case ExprKind::Add:
+      case ExprKind::Subtract: return 1;
+      case ExprKind::Multiply:
+      case ExprKind::Divide: return 2;
+      case ExprKind::Power: return 3;
+      default: return 4;
+    }
+  }
+
+  // `e` as an operand of an operator of precedence `outer` (0: a whole
+  // formula or a call's argument), on its right side or not. Parentheses only
+  // where muparser would otherwise group differently, so that its bytecode
+  // is the one of the fully parenthesised text, with fewer tokens to read
+  // (each costs the one-shot parse some 3,000 instructions; docs/performance.md,
+  // startup_perftest): a left operand of the same precedence groups
+  // left as written (a - b - c); a right one keeps them ((a + (b + c)) is
+  // another rounding); an operand of ^ that is itself an operation keeps them,
+  // whatever muparser's associativity of ^.
+  void operand(const Expr& e, int outer, bool right, std::string* out) {
+    const Expr& x = *withoutParens(&e);
+    const int p = precedence(x.kind);
+    const bool wrap = p < outer || (p == outer && right) || (outer == 3 && p < 4);
+    if (wrap) *out += '(';
+    emit(x, out);
+    if (wrap) *out += ')';
+  }
 
   void emit(const Expr& e, std::string* out) {
     switch (e.kind) {
@@ -45,9 +80,11 @@ struct Compiler {
       }
       case ExprKind::Group: emit(*e.args[0], out); return;
       case ExprKind::Negate:
-        *out += "(-(";
-        emit(*e.args[0], out);
-        *out += "))";
+        // In parentheses of its own: muparser's unary minus then never meets
+        // a neighbouring operator, whatever their relative precedence.
+        *out += "(-";
+        operand(*e.args[0], 4, false, out);
+        *out += ')';
         return;
       case ExprKind::Call: call(e, out); return;
       default: break;
@@ -57,11 +94,10 @@ struct Compiler {
                      : e.kind == ExprKind::Multiply ? "*"
                      : e.kind == ExprKind::Divide   ? "/"
                                                     : "^";
-    *out += '(';
-    emit(*e.args[0], out);
+    const int p = precedence(e.kind);
+    operand(*e.args[0], p, false, out);
     *out += op;
-    emit(*e.args[1], out);
-    *out += ')';
+    operand(*e.args[1], p, true, out);
   }
 
   void call(const Expr& e, std::string* out) {
@@ -85,7 +121,7 @@ struct Compiler {
     *out += '(';
     for (size_t i = 0; i < e.args.size(); ++i) {
       if (i) *out += ',';
-      emit(*e.args[i], out);
+      operand(*e.args[i], 0, false, out);
     }
     *out += ')';
   }

@@ -16,7 +16,8 @@
 namespace calctrail {
 
 struct Program {
-  /// The muparser text: "((v0*v1)/2)".
+  /// The muparser text: "v0*v1/2", in parentheses only where muparser would
+  /// group otherwise (`v0/(v1*v2)`, `(v0+v1)^2`).
   std::string text;
   /// The quantity (sheet index, which is also its slot index) read as v0, v1, ...
   std::vector<int> inputs;

@@ -93,7 +93,10 @@ struct Interpreter {
     }
     const FunctionDecl* f = nullptr;
     for (const FunctionDecl& d : library)
-      if (d.name == e.text) f = &d;
+      if (d.name == e.text) {
+        f = &d;  // names are unique (tests/functions_library_test.cc)
+        break;
+      }
     if (!f || !f->eval) return failAt(e, "unknown function `" + e.text + "`");
     std::vector<Dimension> arg_dims;
     for (const ExprPtr& a : e.args) arg_dims.push_back(dims.of(*a));
