@@ -191,7 +191,7 @@ const Calculation::ShownReplacement* Calculation::shownReplacement(size_t i) con
 
 const Unit& Calculation::display(size_t i) const {
   const ShownReplacement* r = shownReplacement(i);
-  return r ? r->display : model->slot(slotOf(i)).display;
+  return r ? r->display : *model->slot(slotOf(i)).display;
 }
 
 bool Calculation::isInput(size_t i) const {
@@ -246,7 +246,7 @@ void Calculation::showReplacements() {
     r.input = readsNothing(*q.expr);
     r.display = !info.declared && info.has_dim
                     ? undeclaredDisplayUnit(*q.expr, info.dim, m.sheet().units, m.library())
-                    : info.display;
+                    : *info.display;
     replaced_.push_back(std::move(r));
   }
   std::sort(replaced_.begin(), replaced_.end(),

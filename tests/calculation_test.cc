@@ -274,7 +274,7 @@ TEST_CASE("what a quantity shows is read from the stages, a --set changing only 
   const Slot b = c->model->find("b");
   // The model, built before --set, shows b as calculated, in the unit of a's.
   REQUIRE_FALSE(c->model->slot(b).input);
-  REQUIRE(c->model->slot(b).display.text == "N");
+  REQUIRE(c->model->slot(b).display->text == "N");
   // The --set literal makes it a given value, shown in the unit it was written in.
   CHECK(c->isInput(b.index()));
   CHECK(c->display(b.index()).text == "kN");
@@ -284,7 +284,7 @@ TEST_CASE("what a quantity shows is read from the stages, a --set changing only 
   for (const char* name : {"a", "w", "s"}) {
     const Slot s = c->model->find(name);
     INFO(name);
-    CHECK(&c->display(s.index()) == &c->model->slot(s).display);
+    CHECK(&c->display(s.index()) == c->model->slot(s).display);
     CHECK(c->isInput(s.index()) == c->model->slot(s).input);
     CHECK(c->ok(s.index()));
     CHECK(c->si(s.index()) == c->results.value(s));

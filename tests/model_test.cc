@@ -39,12 +39,12 @@ TEST_CASE("model: every quantity has a slot with its dimension, unit and role", 
   CHECK_FALSE(m->find("nothing").valid());
   CHECK(m->slot(T).dim == Dimension::exponents(2, 1, -2));
   CHECK(m->slot(T).declared);
-  CHECK(m->slot(T).display.text == "N*m");
-  CHECK(m->slot(F).display.text == "kN");  // a lone literal keeps the unit it was written in
+  CHECK(m->slot(T).display->text == "N*m");
+  CHECK(m->slot(F).display->text == "kN");  // a lone literal keeps the unit it was written in
   CHECK(m->slot(F).input);
   CHECK_FALSE(m->slot(T).input);
   CHECK(m->slot(P).dim == Dimension::exponents(2, 1, -3));  // N*m*rad/s is W: the angle dropped
-  CHECK(m->slot(P).display.text == "W");
+  CHECK(m->slot(P).display->text == "W");
   // Dependencies first; ties in sheet order.
   REQUIRE(m->order().size() == 5);
   CHECK(m->rank(F) < m->rank(T));

@@ -122,7 +122,7 @@ void Evaluation::fault(Fault::Site site, uint32_t index, const Expr& expr, const
     const int j = sheet.find(e.text);
     if (j < 0 || !std::isfinite(values_[j])) return;
     inputs += (inputs.empty() ? "" : ", ") + e.text + " = " +
-              formatQuantity(values_[j], model_.slot(Slot(static_cast<uint32_t>(j))).display, 4);
+              formatQuantity(values_[j], *model_.slot(Slot(static_cast<uint32_t>(j))).display, 4);
   });
   if (!inputs.empty()) msg += " (with " + inputs + ")";
   results->faults.push_back({site, index, &file, at.begin, at.end, std::move(msg)});

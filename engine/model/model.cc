@@ -366,7 +366,7 @@ void Model::checkDimensions(Diagnostics* diags) {
       s.dim = quantityDimension(q.display->dim);
       s.has_dim = true;
       s.declared = true;
-      s.display = *q.display;
+      s.display = q.display.get();
       dims_[i] = s.dim;
       known_[i] = 1;
       continue;
@@ -388,14 +388,14 @@ void Model::checkDimensions(Diagnostics* diags) {
     NotedDiagnostics own_diags(diags, *sheet_, q.instance, site);
     if (q.display) {
       s.declared = true;
-      s.display = *q.display;
+      s.display = q.display.get();
       if (!fitsDeclaredUnit(q, *q.expr, formula_dims, *sheet_, sheet_->quantityFile(i), s.dim,
                             own_diags.get())) {
         known_[i] = 0;
         s.has_dim = false;
       }
     } else {
-      s.display = undeclaredDisplayUnit(*q.expr, s.dim, sheet_->units, *library_);
+      s.display = intern(undeclaredDisplayUnit(*q.expr, s.dim, sheet_->units, *library_));
       const std::string w = strayAngleWarning(q.name, s.dim, *q.expr, formula_dims, *sheet_);
       if (!w.empty()) own_diags.get()->warning(sheet_->quantityFile(i), q.name_begin, q.name_end, w, site);
     }
@@ -458,13 +458,31 @@ void Model::checkChecks(Diagnostics* diags) {
     for (const Expr* side : {c.lhs.get(), c.rhs.get()}) {
       const Expr* x = withoutParensOrSigns(side);
       if (x->kind == ExprKind::Name && slots_[sheet_->find(x->text)].has_dim) {
-        unit = &slots_[sheet_->find(x->text)].display;
+        unit = slots_[sheet_->find(x->text)].display;
         break;
       }
       if (!unit && x->kind == ExprKind::Number && x->unit) unit = x->unit.get();
     }
     s.display = unit && fitUnit(s.dim, unit->dim) != UnitFit::Incompatible ? *unit : sheet_->units.choose(s.dim);
   }
+}
+
+const Unit& noUnit() {
+  static const Unit none;
+  return none;
+}
+
+// A unit is the same unit when its text is (the table spells each one way);
+// the rest is compared too, so that a unit made another way is kept apart.
+const Unit* Model::intern(Unit unit) {
+  const auto it = unit_by_text_.find(unit.text);
+  if (it != unit_by_text_.end()) {
+    const Unit& u = *it->second;
+    if (u.factor == unit.factor && u.offset == unit.offset && u.dim == unit.dim) return &u;
+  }
+  units_.push_back(std::move(unit));
+  unit_by_text_.emplace(units_.back().text, &units_.back());
+  return &units_.back();
 }
 
 void Model::compile(Diagnostics* diags) {
@@ -536,7 +554,8 @@ size_t Model::compiledBytes() const {
   auto program = [](const Program& p) {
     return p.text.capacity() + p.inputs.capacity() * sizeof(int) + p.calls.capacity() * sizeof(LibraryCall);
   };
-  for (const SlotInfo& s : slots_) bytes += program(s.formula) + s.display.text.capacity();
+  for (const SlotInfo& s : slots_) bytes += program(s.formula);
+  for (const Unit& u : units_) bytes += sizeof(Unit) + u.text.capacity();
   for (const CheckInfo& c : checks_)
     bytes += program(c.lhs) + program(c.rhs) + c.reads.capacity() * sizeof(Slot);
   bytes += order_.capacity() * sizeof(Slot) + rank_.capacity() * sizeof(uint32_t);

@@ -8,8 +8,10 @@
 #pragma once
 
 #include <cstdint>
+#include <deque>
 #include <memory>
 #include <string>
+#include <unordered_map>
 #include <vector>
 
 #include "engine/eval/node_dims.h"
@@ -23,6 +25,9 @@
 
 namespace calctrail {
 
+// The unit of a slot without one (a formula that failed its check): "1".
+const Unit& noUnit();
+
 struct SlotInfo {
   /// The quantity's dimension (torque and power without a stray angle); valid when has_dim.
   Dimension dim;
@@ -33,7 +38,9 @@ struct SlotInfo {
   /// A given value: its formula reads no other quantity and calls no function.
   bool input = false;
   /// The declared unit, or the one the engine chose (the unit of a lone literal, else the preferred one).
-  Unit display;
+  /// One Unit per distinct unit, held by the model (or the sheet's quantity): a large sheet has
+  /// a few dozen units and a slot a line, and a Unit is 56 bytes.
+  const Unit* display = &noUnit();
   /// The compiled formula; empty text when there is none (has_dim false, or too long to compile).
   Program formula;
 };
@@ -153,6 +160,10 @@ class Model {
   // formula f's nodes are node_dims_[dims_at_[f], dims_at_[f + 1]).
   std::vector<Dimension> node_dims_;
   std::vector<uint32_t> dims_at_;
+  // The distinct display units the slots chose (a declared one is the sheet's), each once.
+  std::deque<Unit> units_;
+  std::unordered_map<std::string, const Unit*> unit_by_text_;
+  const Unit* intern(Unit unit);
   std::vector<char> unresolved_;  // per slot: the formula names something undefined (reported)
 };
 

@@ -23,7 +23,7 @@ bool compileStudyExpr(const Model& m, std::shared_ptr<const SourceFile> file, ui
   // A lone name is shown as the sheet shows it; a lone literal in the unit written.
   const Unit* written = unitAsWritten(*expr);
   const Slot named = expr->kind == ExprKind::Name ? m.find(expr->text) : Slot();
-  out->display = named.valid() ? m.slot(named).display : written ? *written : preferredUnit(out->dim);
+  out->display = named.valid() ? *m.slot(named).display : written ? *written : preferredUnit(out->dim);
   out->text = file->bytes().substr(expr->begin, expr->end - expr->begin);
   out->file = std::move(file);
   out->expr = std::shared_ptr<const Expr>(std::move(expr));

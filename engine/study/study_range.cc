@@ -93,7 +93,7 @@ bool resolveStudyInput(const Model& m, const Inputs& inputs, const SourceFile& f
   }
   out->slot = slot;
   out->name = name;
-  out->unit = m.slot(slot).display;
+  out->unit = *m.slot(slot).display;
   return true;
 }
 

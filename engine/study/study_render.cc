@@ -499,7 +499,7 @@ std::string percent(double change) {
 std::string renderSensitivityText(const StudySource& src, const Model& m, const SensitivityOutcome& out,
                                   int digits) {
   const Quantity& q = m.quantity(out.of);
-  const Unit& u = m.slot(out.of).display;
+  const Unit& u = *m.slot(out.of).display;
   std::string s = "Sensitivity " + sourceLines(src) + "\n";
   s += "of " + q.name + " = " + shown(out.value, u, digits) + " to the " + std::to_string(out.inputs.size()) +
        " given values it depends on, largest effect first.\n" + "Elasticity: the % change of " + q.name +
@@ -515,7 +515,7 @@ std::string renderSensitivityText(const StudySource& src, const Model& m, const 
     if (in.fails_at != 0)
       flips += (flips.empty() ? "" : "; ") + std::string("no value at ") + percent(in.fails_at);
     if (!in.ok) flips = in.error + (flips.empty() ? "" : "; " + flips);
-    rows.push_back({in.name, shown(in.value, m.slot(in.slot).display, digits),
+    rows.push_back({in.name, shown(in.value, *m.slot(in.slot).display, digits),
                     in.ok ? fmt::format("{:+.4f}", in.elasticity) : "-",
                     in.ok && in.elasticity != 0 ? std::string(direction(in)) + " " + in.name : "-",
                     flips.empty() ? "none" : flips});
@@ -530,7 +530,7 @@ std::string renderSensitivityJson(const StudySource& src, const Model& m, const 
   sourceJson(w, "sensitivity", src.path, src.sha256, src.sets);
   w.key("of").value(m.quantity(out.of).name);
   w.key("value");
-  quantity(w, out.value, m.slot(out.of).display);
+  quantity(w, out.value, *m.slot(out.of).display);
   w.key("inputs").beginArray();
   for (const InputSensitivity& in : out.inputs) {
     w.beginObject();
@@ -542,7 +542,7 @@ std::string renderSensitivityJson(const StudySource& src, const Model& m, const 
       w.null();
     w.key("raises").value(direction(in));
     w.key("value");
-    quantity(w, in.value, m.slot(in.slot).display);
+    quantity(w, in.value, *m.slot(in.slot).display);
     w.key("error");
     if (in.ok)
       w.null();

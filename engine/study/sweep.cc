@@ -53,7 +53,7 @@ SweepTable runSweep(const Model& m, const Inputs& base, const Results& base_resu
     t.vary.push_back({r.input.name, r.input.unit});
     t.grid.push_back(r.values.size());
   }
-  for (Slot s : spec.show) t.show.push_back({m.quantity(s).name, m.slot(s).display});
+  for (Slot s : spec.show) t.show.push_back({m.quantity(s).name, *m.slot(s).display});
   for (const Check& c : m.sheet().checks) t.checks.push_back(c.name);
   t.log = spec.log;
   t.shard = spec.shard;

@@ -69,7 +69,7 @@ Figures measure(const Model& m, const Inputs& nominal, const Results& base, cons
   const Slot slot = m.find(name);
   SweepSpec spec;
   StudyRange range;
-  range.input = {slot, name, m.slot(slot).display};
+  range.input = {slot, name, *m.slot(slot).display};
   for (int i = 0; i < points; ++i) range.values.push_back(from + (to - from) * i / (points - 1));
   spec.vary.push_back(range);
   spec.show = {m.find("motor.T_motor"), m.find("motor.P_motor")};
