@@ -101,7 +101,7 @@ TEST_CASE("a file of 4 GiB or more is a size-limit error at once", "[input-limit
     INFO(cmd);
     Run r = runCliIn(dir, std::string(cmd) + " huge.calc");
     CHECK(r.status == 2);
-    CHECK(r.err.find("huge.calc:1:1: error: the file is larger than 16 MiB, the limit for a worksheet "
+    CHECK(r.err.find("huge.calc:1:1: error: the file is larger than 64 MiB, the limit for a worksheet "
                      "(docs/limits.md)\n") == 0);
   }
   CHECK(secondsSince(start) < 30);
@@ -113,12 +113,12 @@ TEST_CASE("standard input past the size limit is an error, read in bounded steps
   Run r = runCliThrough(CALCTRAIL_SOURCE_DIR, "yes 'a = 1' |", "fmt -");
   CHECK(r.status == 2);
   CHECK(r.err ==
-        "<stdin>:1:1: error: standard input is larger than 16 MiB, the limit for a worksheet "
+        "<stdin>:1:1: error: standard input is larger than 64 MiB, the limit for a worksheet "
         "(docs/limits.md)\n");
   CHECK(r.out.empty());
   Run report = runCliThrough(CALCTRAIL_SOURCE_DIR, "yes 'a = 1' |", "report -");
   CHECK(report.status == 2);
-  CHECK(report.err.find("<stdin>:1:1: error: standard input is larger than 16 MiB") == 0);
+  CHECK(report.err.find("<stdin>:1:1: error: standard input is larger than 64 MiB") == 0);
 }
 
 TEST_CASE("a line past the line limit is named at FILE:LINE:1, and one at the limit is read",
@@ -203,7 +203,7 @@ TEST_CASE("diff REV:PATH: a blob past the size limit stops git, and a bad time l
   Run big = runCliIn(dir, "diff HEAD:x.calc x.calc");
   CHECK(big.status == 2);
   CHECK(
-      big.err.find("HEAD:x.calc:1:1: error: cannot read from git: the file is larger than 16 MiB, the limit "
+      big.err.find("HEAD:x.calc:1:1: error: cannot read from git: the file is larger than 64 MiB, the limit "
                    "for a worksheet (docs/limits.md)\n") == 0);
   for (const char* bad : {"0", "-1", "nan", "soon"}) {
     INFO(bad);

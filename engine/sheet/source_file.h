@@ -12,10 +12,11 @@
 
 namespace calctrail {
 
-// The largest worksheet calctrail reads: over twice the 100k-line worksheets the
-// benchmarks time (5-7 MB, docs/performance.md), far below the 4 GiB that byte
-// offsets can address.
-constexpr size_t kMaxSourceBytes = size_t{16} << 20;
+// The largest worksheet calctrail reads: a generated sheet of a million
+// lines (51 MB), which the benchmarks report on in about 1 GB (under 1 KB a
+// line, docs/performance.md), fits; far below the 4 GiB that byte offsets
+// can address.
+constexpr size_t kMaxSourceBytes = size_t{64} << 20;
 // The longest line: well beyond any formula the expression parser accepts
 // written with names of usual length; each diagnostic copies and prints its line.
 constexpr size_t kMaxLineBytes = size_t{64} << 10;
