@@ -386,9 +386,9 @@ std::optional<Unit> leadUnit(const Expr& arg, const Dimension& dim, const Calcul
 }
 
 // `dims`: the dimensions of the nodes of the formula `call` is in;
-// `given(j)`: quantity j's value as written, when it is given as one literal.
-template <class Given>
-TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& calc, const Given& given,
+// `steps.given(j)`: quantity j's value as written, when it is given as one literal.
+template <class Steps>
+TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& calc, const Steps& steps,
                     const Unit& step_unit, int digits) {
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
@@ -427,7 +427,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     const Expr* x = withoutParens(call.args[k].get());
     if (x->kind == ExprKind::Name) {
       const int j = calc.sheet.find(x->text);
-      if (calc.display(j).text == unit.text) as_written = given(static_cast<size_t>(j));
+      if (calc.display(j).text == unit.text) as_written = steps.given(static_cast<size_t>(j));
     } else if (x->kind == ExprKind::Number && (x->unit ? x->unit->text == unit.text : unit.text == "1")) {
       as_written =
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
@@ -674,12 +674,11 @@ class TrailStepBuilder {
     for (const CaseRun& run : calc.cases) results_.push_back(&run.results);
   }
 
-  // The fields a step has without explaining its value: name, texts,
-  // given value, result and units.
-  TrailStep head(size_t i) const;
   // The whole step: head, origin, the calls' audits, the substituted line,
   // its warnings and its values per load case.
   TrailStep build(size_t i) const;
+  // How many steps there are: one per quantity.
+  size_t size() const { return param.size(); }
 
   bool isInput(size_t i) const { return calc_.isInput(i); }
   // A given value written as one literal in its display unit, as written; else nothing.
@@ -705,6 +704,9 @@ class TrailStepBuilder {
   std::vector<char> param;
 
  private:
+  // The fields a step has without explaining its value: name, texts,
+  // given value, result and units.
+  TrailStep head(size_t i) const;
   void explain(TrailStep* s) const;
   void addCaseValues(TrailStep* s) const;
   std::optional<TrailValue> findGiven(size_t i) const;
@@ -785,9 +787,8 @@ void TrailStepBuilder::explain(TrailStep* step) const {
   std::vector<const Expr*> calls;
   collectCalls(expr, &calls);
   const NodeDims dims = calc_.exprDims(static_cast<size_t>(s.index));
-  const auto given_of = [this](size_t j) { return given(j); };
   for (const Expr* call : calls)
-    s.calls.push_back(auditCall(*call, dims, calc_, given_of, calc_.display(s.index), digits_));
+    s.calls.push_back(auditCall(*call, dims, calc_, *this, calc_.display(s.index), digits_));
   // A call inside another's arguments is shown there by its value.
   for (size_t k = 0; k < calls.size(); ++k)
     for (size_t o = 0; o < calls.size(); ++o)
@@ -848,7 +849,7 @@ TrailStep TrailStepBuilder::build(size_t i) const {
   return s;
 }
 
-size_t TrailSteps::size() const { return kept_ ? kept_->size() : builder_ ? builder_->param.size() : 0; }
+size_t TrailSteps::size() const { return kept_ ? kept_->size() : builder_ ? builder_->size() : 0; }
 
 // A kept trail reads only itself, so that it may outlive its Calculation.
 bool TrailSteps::isInput(size_t i) const { return kept_ ? (*kept_)[i].input : builder_->isInput(i); }
@@ -1146,13 +1147,13 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
     fn.source = f->source;
     fn.verification = verificationOf(*f);
     fn.trivial = f->args.empty();
-    // The value a call of it gave: a constant's, listed with it (the first call's that has one).
-    for (size_t i = static_cast<size_t>(std::max(first_caller[k], 0)); first_caller[k] >= 0 && fn.value.empty() &&
-                                                                         i < sheet.quantities.size();
-         ++i) {
+    // A constant (no arguments) is listed by the value its first call gave;
+    // only a calculated quantity's calls are audited.
+    for (size_t i = fn.trivial && first_caller[k] >= 0 ? static_cast<size_t>(first_caller[k]) : sheet.quantities.size();
+         fn.value.empty() && i < sheet.quantities.size(); ++i) {
       if (!calc.ok(i)) continue;
       calls.clear();
-      collectCalls(*sheet.quantities[i].expr, &calls);
+      collectCalls(*sheet.quantities[i].expr, &calls);  // a step is built only where it calls the constant
       if (std::none_of(calls.begin(), calls.end(), [&](const Expr* c) { return c->text == f->name; })) continue;
       const TrailSteps::Held step = t.steps.get(i);  // held: the loop reads into it
       for (const TrailCall& c : step->calls)
