@@ -2,8 +2,10 @@
 // control byte and of non-ASCII text, nesting and layout, numbers.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cfloat>
 #include <cmath>
+#include <random>
 
 #include <nlohmann/json.hpp>
 
@@ -113,4 +115,45 @@ TEST_CASE("JSON writer: -0 keeps its sign through nlohmann-json and both readers
   REQUIRE(calctrail::parseJsonText(w.str(), &v, &error));
   CHECK(std::signbit(v.array.at(0).number));
   CHECK_FALSE(std::signbit(v.array.at(1).number));
+}
+
+// The escaper reads eight bytes at a time; this is the plain definition it
+// must agree with, a byte at a time.
+static std::string escapedByteByByte(const std::string& s) {
+  std::string out = "\"";
+  for (const char c : s) {
+    const auto byte = static_cast<unsigned char>(c);
+    if (c == '"') out += "\\\"";
+    else if (c == '\\') out += "\\\\";
+    else if (c == '\n') out += "\\n";
+    else if (c == '\r') out += "\\r";
+    else if (c == '\t') out += "\\t";
+    else if (byte < 0x20) out += fmt::format("\\u{:04x}", byte);
+    else out += c;
+  }
+  return out + "\"";
+}
+
+TEST_CASE("JSON writer: the word-at-a-time escaper agrees with a byte at a time", "[json_writer]") {
+  // Every byte value at every place of strings 0 to 19 bytes long: in the
+  // first word, across a word's end, in the short tail.
+  for (size_t length = 0; length < 20; ++length)
+    for (size_t at = 0; at < std::max<size_t>(length, 1); ++at)
+      for (int b = 0; b < 256; ++b) {
+        std::string s(length, 'a');
+        if (length > 0) s[at] = static_cast<char>(b);
+        INFO("length " << length << ", byte " << b << " at " << at);
+        REQUIRE(JsonWriter::escape(s) == escapedByteByByte(s));
+      }
+  // Random text of every byte value, and of bytes near the escaped ones
+  // (0x00, 0x1F, 0x20, 0x21, 0x22, 0x5B, 0x5C, 0x5D, 0x7F, 0x80, 0xFF).
+  std::mt19937 random(12345);
+  const std::string near("\x00\x1f\x20\x21\x22\x5b\x5c\x5d\x7f\x80\xff", 11);
+  for (int k = 0; k < 3000; ++k) {
+    std::string s(random() % 70, ' ');
+    for (char& c : s)
+      c = k % 2 ? static_cast<char>(random() % 256) : near[random() % near.size()];
+    INFO("case " << k);
+    REQUIRE(JsonWriter::escape(s) == escapedByteByByte(s));
+  }
 }

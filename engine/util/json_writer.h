@@ -5,7 +5,6 @@
 
 #include <string>
 #include <string_view>
-#include <vector>
 
 #include <fmt/format.h>
 
@@ -44,9 +43,12 @@ class JsonWriter {
  private:
   void beforeValue();
   void newline();
+  void open(char bracket);   // { or [
+  void close(char bracket);  // } or ]
   fmt::memory_buffer own_;   // the output when no sink is given
   fmt::memory_buffer* out_;  // where the text goes: own_ or the caller's sink
-  std::vector<bool> first_;  // per open container: no member written yet
+  size_t depth_ = 0;         // containers open
+  bool first_ = true;        // the innermost open container has no member yet
   bool after_key_ = false;   // a key was written: the value follows on its line
 };
 
