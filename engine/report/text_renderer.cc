@@ -1,8 +1,8 @@
 #include "engine/report/text_renderer.h"
 
 #include <algorithm>
-#include <iterator>
 #include <string_view>
+#include <utility>
 
 #include "engine/util/text_width.h"
 
@@ -13,38 +13,48 @@ namespace {
 int width(const std::string& s) { return displayWidth(s); }
 std::string pad(const std::string& s, int w) { return padRight(s, w); }
 
-// Wraps words at `cols`, each line starting with `indent`. The widths are
-// counted once per word, not once per word for the whole line so far.
-std::string wrap(const std::string& text, const std::string& indent, int cols = 78) {
-  std::string out;
-  out.reserve(text.size() + text.size() / 40 * (indent.size() + 1) + indent.size() + 1);
-  const std::string_view all(text);
-  const int indent_width = width(indent);
+void put(fmt::memory_buffer& out, std::string_view s) { out.append(s.data(), s.data() + s.size()); }
+
+// fmt::format_to into the buffer itself: through fmt::appender, not a
+// back_insert_iterator, which fmt fills through a buffer of its own.
+template <typename... T>
+void print(fmt::memory_buffer& out, fmt::format_string<T...> format, T&&... args) {
+  fmt::format_to(fmt::appender(out), format, std::forward<T>(args)...);
+}
+
+// Appends `text` wrapped at `cols`, each line starting with `indent`: its
+// words (runs of non-spaces) in order, one space between two on a line.
+// Written through a pointer into room made once: the text, and for each
+// word (at most one per two bytes, and one) an indent and a newline.
+void wrap(fmt::memory_buffer& out, std::string_view text, std::string_view indent, int cols = 78) {
+  const size_t at = out.size();
+  out.resize(at + text.size() + (text.size() / 2 + 1) * (indent.size() + 1) + 1);
+  char* p = out.data() + at;
+  const int indent_width = displayWidth(indent);
   int line_width = -1;  // of the line so far, without the indent; -1: no word on it yet
-  size_t i = 0;
-  while (i < all.size()) {
-    while (i < all.size() && all[i] == ' ') ++i;
-    size_t j = all.find(' ', i);
-    if (j == std::string_view::npos) j = all.size();
-    const std::string_view word = all.substr(i, j - i);
-    i = j;
-    if (word.empty()) continue;
-    const int word_width = displayWidth(word);
+  for (size_t i = 0; i < text.size();) {
+    if (text[i] == ' ') {
+      ++i;
+      continue;
+    }
+    const size_t start = i;
+    int word_width = 0;  // counted as displayWidth counts, on the way to the word's end
+    for (; i < text.size() && text[i] != ' '; ++i) word_width += startsColumn(text[i]);
     if (line_width >= 0 && indent_width + line_width + 1 + word_width > cols) {
-      out += '\n';
+      *p++ = '\n';
       line_width = -1;
     }
     if (line_width < 0) {
-      out += indent;
+      p = std::copy(indent.begin(), indent.end(), p);
       line_width = word_width;
     } else {
-      out += ' ';
+      *p++ = ' ';
       line_width += 1 + word_width;
     }
-    out += word;
+    p = std::copy(text.data() + start, text.data() + i, p);
   }
-  if (line_width >= 0) out += '\n';
-  return out;
+  if (line_width >= 0) *p++ = '\n';
+  out.resize(static_cast<size_t>(p - out.data()));
 }
 
 std::string underline(const std::string& title, char c) {
@@ -62,39 +72,39 @@ std::string resultText(const TrailStep& s) {
 
 // A library call that is not the whole step: "where CALL = SUBSTITUTED =
 // RESULT", on one line when it fits, else one part a line.
-void whereLine(std::back_insert_iterator<fmt::memory_buffer> out, const TrailCall& c) {
+void whereLine(fmt::memory_buffer& out, const TrailCall& c) {
   std::vector<std::string> parts = {lineText(c.with_values)};
   if (c.formula_is_expression && c.show_substituted) parts.push_back(lineText(c.substituted));
   if (c.result) parts.push_back(valueText(*c.result) + (c.row.empty() ? "" : "  (" + c.row + ")"));
   std::string one = "      where " + parts[0];
   for (size_t k = 1; k < parts.size(); ++k) one += " = " + parts[k];
   if (width(one) <= 78) {
-    fmt::format_to(out, "{}\n", one);
+    print(out, "{}\n", one);
     return;
   }
-  fmt::format_to(out, "      where {}\n", parts[0]);
-  for (size_t k = 1; k < parts.size(); ++k) fmt::format_to(out, "          = {}\n", parts[k]);
+  print(out, "      where {}\n", parts[0]);
+  for (size_t k = 1; k < parts.size(); ++k) print(out, "          = {}\n", parts[k]);
 }
 
 // The load cases: each with what it replaces; a case that could not be
 // calculated says why.
-void caseList(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
-  fmt::format_to(out, "{}", heading("LOAD CASES"));
+void caseList(fmt::memory_buffer& out, const Trail& t) {
+  put(out, heading("LOAD CASES"));
   int w = 0;
   for (const TrailCase& c : t.cases) w = std::max(w, width(c.name));
   for (const TrailCase& c : t.cases) {
     std::string line = "  " + pad(c.name, w) + "  " +
                        (c.replacements.empty() ? std::string("the worksheet as written") : c.replacements);
     if (!c.description.empty()) line += "  (" + c.description + ")";
-    fmt::format_to(out, "{}\n", line);
-    for (const std::string& e : c.errors) fmt::format_to(out, "{}", wrap("NOT CALCULATED: " + e, "    "));
+    print(out, "{}\n", line);
+    for (const std::string& e : c.errors) wrap(out, "NOT CALCULATED: " + e, "    ");
   }
-  fmt::format_to(out, "\n");
+  print(out, "\n");
 }
 
 // A value that some case changes: one line per case, nominal first, so that
 // a diff shows which case moved.
-void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailStep& s,
+void caseValues(fmt::memory_buffer& out, const Trail& t, const TrailStep& s,
                 const std::string& indent) {
   int w = 0;
   for (const TrailCase& c : t.cases) w = std::max(w, width(c.name));
@@ -102,14 +112,14 @@ void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& 
     const TrailCaseValue& v = s.cases[k];
     std::string line = indent + pad(t.cases[k].name, w) + "  " + (v.ok ? valueText(v.value) : "not calculated");
     if (v.replaced) line += "  (replaced: " + v.formula + ")";
-    fmt::format_to(out, "{}\n", line);
+    print(out, "{}\n", line);
   }
 }
 
 // The checks in every case: a row per check, a column per case with
 // pass/FAIL and the margin; `*` marks the governing case (least margin).
-void caseChecks(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
-  fmt::format_to(out, "{}", heading("CHECKS BY LOAD CASE  (* governing: least margin)"));
+void caseChecks(fmt::memory_buffer& out, const Trail& t) {
+  put(out, heading("CHECKS BY LOAD CASE  (* governing: least margin)"));
   int name_w = 0;
   for (const TrailCheck& c : t.checks) name_w = std::max(name_w, width(c.name));
   std::vector<std::vector<std::string>> cells(t.checks.size());
@@ -145,25 +155,25 @@ void caseChecks(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& 
   if (std::all_of(even.begin(), even.end(), [&](const auto& g) { return fits(g.first, g.second); }))
     groups = even;
   for (const auto& [first, last] : groups) {
-    if (first > 0) fmt::format_to(out, "\n");
+    if (first > 0) print(out, "\n");
     std::string head = "  " + pad("", name_w);
     for (size_t k = first; k < last; ++k) head += "  " + pad(t.cases[k].name, col_w[k]);
     while (!head.empty() && head.back() == ' ') head.pop_back();
-    fmt::format_to(out, "{}\n", head);
+    print(out, "{}\n", head);
     for (size_t i = 0; i < t.checks.size(); ++i) {
       std::string row = "  " + pad(t.checks[i].name, name_w);
       for (size_t k = first; k < last; ++k) row += "  " + pad(cells[i][k], col_w[k]);
       while (!row.empty() && row.back() == ' ') row.pop_back();
-      fmt::format_to(out, "{}\n", row);
+      print(out, "{}\n", row);
     }
   }
-  fmt::format_to(out, "\n");
+  print(out, "\n");
 }
 
 // An instance's part: its heading, then its parameters a line each: the
 // value each is bound to and where it came from.
-void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailInstance& in) {
-  fmt::format_to(out, "\n{}\n\n", in.heading);
+void instanceHead(fmt::memory_buffer& out, const Trail& t, const TrailInstance& in) {
+  print(out, "\n{}\n\n", in.heading);
   if (in.params.empty()) return;
   std::vector<std::string> values;
   int name_w = width("parameter"), value_w = width("value");
@@ -174,7 +184,7 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
     name_w = std::max(name_w, width(p.name));
     value_w = std::max(value_w, width(values.back()));
   }
-  fmt::format_to(out, "  {}  {}  bound by\n", pad("parameter", name_w), pad("value", value_w));
+  print(out, "  {}  {}  bound by\n", pad("parameter", name_w), pad("value", value_w));
   for (size_t k = 0; k < in.params.size(); ++k) {
     const TrailInstanceParam& p = in.params[k];
     const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
@@ -184,17 +194,17 @@ void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail
                                            : p.binding;
     // Left out of the Inputs list: its note is given here.
     if (s.in_part_table && !s.description.empty()) from += "  " + s.description;
-    fmt::format_to(out, "  {}  {}  {}\n", pad(p.name, name_w), pad(values[k], value_w), from);
+    print(out, "  {}  {}  {}\n", pad(p.name, name_w), pad(values[k], value_w), from);
   }
 }
 
 // The worksheet's studies: a sweep as a table (values and every check per
 // point), a capacity as its answer.
-void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
-  fmt::format_to(out, "{}", heading("STUDIES"));
+void studies(fmt::memory_buffer& out, const Trail& t) {
+  put(out, heading("STUDIES"));
   for (const TrailStudy& st : t.studies) {
-    fmt::format_to(out, "  {}  {}\n", st.name, st.statement);
-    if (!st.description.empty()) fmt::format_to(out, "{}", wrap(st.description, "    "));
+    print(out, "  {}  {}\n", st.name, st.statement);
+    if (!st.description.empty()) wrap(out, st.description, "    ");
     if (!st.header.empty()) {
       std::vector<int> w(st.header.size());
       for (size_t c = 0; c < st.header.size(); ++c) {
@@ -208,67 +218,71 @@ void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
           line += "  " + (c < st.value_columns ? gap + cells[c] : cells[c] + gap);
         }
         while (!line.empty() && line.back() == ' ') line.pop_back();
-        fmt::format_to(out, "{}\n", line);
+        print(out, "{}\n", line);
       };
-      fmt::format_to(out, "\n");
+      print(out, "\n");
       row(st.header);
       for (const auto& r : st.rows) row(r);
-      fmt::format_to(out, "\n");
+      print(out, "\n");
     }
-    fmt::format_to(out, "{}", wrap(st.summary, "    "));
-    for (const std::string& e : st.errors) fmt::format_to(out, "{}", wrap(e, "    "));
-    fmt::format_to(out, "\n");
+    wrap(out, st.summary, "    ");
+    for (const std::string& e : st.errors) wrap(out, e, "    ");
+    print(out, "\n");
   }
 }
 
-void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+void signOff(fmt::memory_buffer& out, const Trail& t) {
   auto meta = [&](const std::string& key) {
     for (const auto& [k, v] : t.meta)
       if (k == key) return v;
     return std::string();
   };
   auto given = [](const std::string& v, const char* blank) { return v.empty() ? std::string(blank) : v; };
-  fmt::format_to(out, "\n{}", heading("SIGN-OFF"));
-  fmt::format_to(out, "  {}{}\n", pad("calc", 11), given(meta("calc"), "-"));
-  fmt::format_to(out, "  {}{}\n", pad("revision", 11), given(meta("revision"), "-"));
-  fmt::format_to(out, "  {}{}\n", pad("worksheet", 11), t.path);
-  fmt::format_to(out, "  {}{}\n", pad("sha256", 11), t.sha256);
-  if (!t.modified_by.empty()) fmt::format_to(out, "  {}by {}\n", pad("MODIFIED", 11), replacementList(t));
-  fmt::format_to(out, "{}\n", wrap(signOffStatement(t), "  "));
+  out.push_back('\n');
+  put(out, heading("SIGN-OFF"));
+  print(out, "  {}{}\n", pad("calc", 11), given(meta("calc"), "-"));
+  print(out, "  {}{}\n", pad("revision", 11), given(meta("revision"), "-"));
+  print(out, "  {}{}\n", pad("worksheet", 11), t.path);
+  print(out, "  {}{}\n", pad("sha256", 11), t.sha256);
+  if (!t.modified_by.empty()) print(out, "  {}by {}\n", pad("MODIFIED", 11), replacementList(t));
+  wrap(out, signOffStatement(t), "  ");
+  out.push_back('\n');
   const std::string line = "______________";
-  fmt::format_to(out, "  Prepared  {}  signature {}  date {}\n",
+  print(out, "  Prepared  {}  signature {}  date {}\n",
                  pad(given(meta("prepared"), line.c_str()), 16), line, given(meta("date"), line.c_str()));
-  fmt::format_to(out, "  Checked   {}  signature {}  date {}\n",
+  print(out, "  Checked   {}  signature {}  date {}\n",
                  pad(given(meta("checked"), line.c_str()), 16), line, line);
 }
 
 }  // namespace
 
 void renderText(const Trail& t, ReportSink& sink) {
-  fmt::memory_buffer& buffer = sink.buffer();
-  auto out = std::back_inserter(buffer);
-  fmt::format_to(out, "{}", underline(t.title.empty() ? "Calculation trail" : t.title, '='));
-  for (const auto& [key, value] : t.meta) fmt::format_to(out, "{}{}\n", pad(key, 10), value);
-  fmt::format_to(out, "{}{}\n", pad("file", 10), t.path);
-  fmt::format_to(out, "{}{}\n", pad("sha256", 10), t.sha256);
+  fmt::memory_buffer& out = sink.buffer();
+  put(out, underline(t.title.empty() ? "Calculation trail" : t.title, '='));
+  for (const auto& [key, value] : t.meta) print(out, "{}{}\n", pad(key, 10), value);
+  print(out, "{}{}\n", pad("file", 10), t.path);
+  print(out, "{}{}\n", pad("sha256", 10), t.sha256);
   for (size_t k = 1; k < t.files.size(); ++k)  // the templates, each with its hash
-    fmt::format_to(out, "{}{}\n{}{}\n", pad("template", 10), t.files[k].path, pad("sha256", 10),
+    print(out, "{}{}\n{}{}\n", pad("template", 10), t.files[k].path, pad("sha256", 10),
                    t.files[k].sha256);
   // Next to the hash: the hash alone no longer identifies these numbers.
-  if (!t.modified_by.empty()) fmt::format_to(out, "{}by {}\n", pad("MODIFIED", 10), replacementList(t));
-  fmt::format_to(out, "{}{}\n", pad("generator", 10), t.generator);
-  if (!t.modified_by.empty()) fmt::format_to(out, "\n{}", wrap(modifiedNotice(t), ""));
-  fmt::format_to(out, "\n");
+  if (!t.modified_by.empty()) print(out, "{}by {}\n", pad("MODIFIED", 10), replacementList(t));
+  print(out, "{}{}\n", pad("generator", 10), t.generator);
+  if (!t.modified_by.empty()) {
+    out.push_back('\n');
+    wrap(out, modifiedNotice(t), "");
+  }
+  print(out, "\n");
 
   // The verdict first: a failed check must be impossible to miss.
-  fmt::format_to(out, "{}\n", verdictSentence(t));
-  if (!t.warnings.empty()) fmt::format_to(out, "{}", wrap(warningSummary(t), ""));
-  fmt::format_to(out, "\n");
+  print(out, "{}\n", verdictSentence(t));
+  if (!t.warnings.empty()) wrap(out, warningSummary(t), "");
+  print(out, "\n");
 
   if (!t.cases.empty()) caseList(out, t);
 
   // Inputs, grouped under their sections.
-  fmt::format_to(out, "{}", heading("INPUTS"));
+  put(out, heading("INPUTS"));
   auto shown = [](const TrailStep& s) { return valueText(s.given ? *s.given : s.result); };
   int name_w = 0, value_w = 0;
   for (const TrailStep& s : t.steps.inputs()) {
@@ -283,7 +297,7 @@ void renderText(const Trail& t, ReportSink& sink) {
     if (s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
-      if (!section.empty()) fmt::format_to(out, "{}\n", section);
+      if (!section.empty()) print(out, "{}\n", section);
     }
     std::string line = fmt::format("  {}  {}", pad(s.name, name_w), pad(shown(s), value_w));
     std::string notes = s.description;
@@ -291,66 +305,70 @@ void renderText(const Trail& t, ReportSink& sink) {
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("[set on the command line]");
     if (!notes.empty()) line += "  " + notes;
     while (!line.empty() && line.back() == ' ') line.pop_back();
-    fmt::format_to(out, "{}\n", line);
+    print(out, "{}\n", line);
     if (s.varies) caseValues(out, t, s, "      ");
-    for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
+    for (const std::string& w : s.warnings) wrap(out, "WARNING: " + w, "    ");
   }
-  if (!instanceInputsPointer(t).empty()) fmt::format_to(out, "{}", wrap(instanceInputsPointer(t), "  "));
-  fmt::format_to(out, "\n");
+  if (!instanceInputsPointer(t).empty()) wrap(out, instanceInputsPointer(t), "  ");
+  print(out, "\n");
 
-  fmt::format_to(out, "{}", heading("CALCULATION"));
+  put(out, heading("CALCULATION"));
   for (const TrailBlock& b : t.blocks) {
     sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
-      fmt::format_to(out, "\n{}\n", t.blockText(b));
+      print(out, "\n{}\n", t.blockText(b));
     } else if (b.kind == TrailBlock::Note && b.instance >= 0) {
       continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
-      fmt::format_to(out, "\n{}", wrap(t.blockText(b), "  "));
+      out.push_back('\n');
+      wrap(out, t.blockText(b), "  ");
     } else if (b.kind == TrailBlock::CheckRef && b.instance >= 0) {
       // The part names its checks once, after its last step; their rows are in the summary.
       const TrailInstance& in = t.instances[static_cast<size_t>(b.instance)];
-      if (b.index == in.checks.front()) fmt::format_to(out, "\n{}", wrap(instanceChecksLine(t, in), "  "));
+      if (b.index == in.checks.front()) {
+        out.push_back('\n');
+        wrap(out, instanceChecksLine(t, in), "  ");
+      }
     } else if (b.kind == TrailBlock::Step) {
       if (t.steps.isInput(static_cast<size_t>(b.index))) continue;
       const TrailSteps::Held held = t.steps.get(static_cast<size_t>(b.index));
       const TrailStep& s = *held;
-      fmt::format_to(out, "\n  {}", s.name);
-      if (!s.description.empty()) fmt::format_to(out, "  {}", s.description);
-      if (s.overridden) fmt::format_to(out, "  [set on the command line]");
-      fmt::format_to(out, "\n");
+      print(out, "\n  {}", s.name);
+      if (!s.description.empty()) print(out, "  {}", s.description);
+      if (s.overridden) print(out, "  [set on the command line]");
+      print(out, "\n");
       const std::string indent = "    " + std::string(static_cast<size_t>(width(s.name)), ' ') + " ";
-      fmt::format_to(out, "    {} = {}\n", s.name, s.pretty);
-      if (s.show_substituted) fmt::format_to(out, "{}= {}\n", indent, lineText(s.substituted));
+      print(out, "    {} = {}\n", s.name, s.pretty);
+      if (s.show_substituted) print(out, "{}= {}\n", indent, lineText(s.substituted));
       // One call that is the whole formula continues the chain with its own
       // formula's values; its formula, limits and source are listed once,
       // under LIBRARY FUNCTIONS USED.
-      if (s.single_call) fmt::format_to(out, "{}= {}\n", indent, lineText(s.calls[0].substituted));
-      fmt::format_to(out, "{}= {}\n", indent, resultText(s));
+      if (s.single_call) print(out, "{}= {}\n", indent, lineText(s.calls[0].substituted));
+      print(out, "{}= {}\n", indent, resultText(s));
       if (s.varies) caseValues(out, t, s, indent + "  ");
       for (const TrailCall& c : s.calls)
         if (!c.whole) whereLine(out, c);
-      for (const std::string& w : s.warnings) fmt::format_to(out, "{}", wrap("WARNING: " + w, "    "));
+      for (const std::string& w : s.warnings) wrap(out, "WARNING: " + w, "    ");
     }
   }
-  fmt::format_to(out, "\n");
+  print(out, "\n");
 
   if (!t.checks.empty()) {
-    fmt::format_to(out, "{}", heading("CHECKS"));
+    put(out, heading("CHECKS"));
     int w = 0;
     for (const TrailCheck& c : t.checks) w = std::max(w, width(c.name));
     for (const TrailCheck& c : t.checks) {
-      fmt::format_to(out, "  {}  {}  {}\n", c.passed ? "pass" : "FAIL", pad(c.name, w), c.condition);
-      fmt::format_to(out, "        {:{}}  {} {} {}", "", w, valueText(c.lhs), c.op, valueText(c.rhs));
-      if (!c.measure.empty()) fmt::format_to(out, ": {}", c.measure);
-      if (!c.description.empty()) fmt::format_to(out, "  ({})", c.description);
-      fmt::format_to(out, "\n");
+      print(out, "  {}  {}  {}\n", c.passed ? "pass" : "FAIL", pad(c.name, w), c.condition);
+      print(out, "        {:{}}  {} {} {}", "", w, valueText(c.lhs), c.op, valueText(c.rhs));
+      if (!c.measure.empty()) print(out, ": {}", c.measure);
+      if (!c.description.empty()) print(out, "  ({})", c.description);
+      print(out, "\n");
       for (const std::string& m : c.warnings)
-        fmt::format_to(out, "{}", wrap("WARNING: " + m, std::string(static_cast<size_t>(w) + 10, ' ')));
+        wrap(out, "WARNING: " + m, std::string(static_cast<size_t>(w) + 10, ' '));
     }
-    fmt::format_to(out, "\n");
+    print(out, "\n");
     if (!t.cases.empty()) caseChecks(out, t);
   }
 
@@ -359,37 +377,38 @@ void renderText(const Trail& t, ReportSink& sink) {
   if (!t.functions.empty()) {
     // Each library function once: what it computes, how, within which
     // limits, from which source, and where its tests are listed.
-    fmt::format_to(out, "{}", heading("LIBRARY FUNCTIONS USED"));
+    put(out, heading("LIBRARY FUNCTIONS USED"));
     std::vector<std::string> definitions;
     for (const TrailFunction& f : t.functions) {
       if (f.trivial) {
         definitions.push_back(f.signature + " = " + f.value);
         continue;
       }
-      fmt::format_to(out, "  {}  used by {}\n", f.signature, fmt::join(f.used_by, ", "));
-      if (f.formula_is_expression) fmt::format_to(out, "    = {}\n", f.pretty);
-      else fmt::format_to(out, "{}", wrap("method: " + f.method, "    "));
-      if (!f.limits.empty()) fmt::format_to(out, "{}", wrap("limits: " + f.limits, "    "));
-      fmt::format_to(out, "{}", wrap("source: " + f.source, "    "));
-      fmt::format_to(out, "    verified: {}\n", f.verification);
+      print(out, "  {}  used by {}\n", f.signature, fmt::join(f.used_by, ", "));
+      if (f.formula_is_expression) print(out, "    = {}\n", f.pretty);
+      else wrap(out, "method: " + f.method, "    ");
+      if (!f.limits.empty()) wrap(out, "limits: " + f.limits, "    ");
+      wrap(out, "source: " + f.source, "    ");
+      print(out, "    verified: {}\n", f.verification);
     }
     if (!definitions.empty())
-      fmt::format_to(out, "{}",
-                     wrap("Definitions: " + fmt::format("{}", fmt::join(definitions, ", ")), "  "));
-    fmt::format_to(out, "\n");
+      wrap(out, "Definitions: " + fmt::format("{}", fmt::join(definitions, ", ")), "  ");
+    print(out, "\n");
   }
 
   if (!t.warnings.empty()) {
-    fmt::format_to(out, "{}", heading("WARNINGS"));
-    for (const std::string& w : t.warnings) fmt::format_to(out, "  {}\n", w);
-    fmt::format_to(out, "\n");
+    put(out, heading("WARNINGS"));
+    for (const std::string& w : t.warnings) print(out, "  {}\n", w);
+    print(out, "\n");
   }
 
-  fmt::format_to(out, "{}", heading("CAUTIONS"));
+  put(out, heading("CAUTIONS"));
   for (const std::string& c : t.cautions) {
-    std::string w = wrap(c, "    ");
-    w.replace(0, 4, "  - ");
-    fmt::format_to(out, "{}", w);
+    // Wrapped under a four-space indent, whose first line's is the bullet.
+    const size_t at = out.size();
+    wrap(out, c, "    ");
+    if (out.size() == at) put(out, "  - ");
+    else std::copy_n("  - ", 4, out.data() + at);
   }
   signOff(out, t);
 }
