@@ -3,7 +3,6 @@
 #include <algorithm>
 #include <cctype>
 #include <cmath>
-#include <iterator>
 #include <string_view>
 #include <vector>
 
@@ -294,7 +293,7 @@ std::string checkValues(const TrailCheck& c) {
 }
 
 // Every part of the document is appended to one buffer.
-using Out = std::back_insert_iterator<fmt::memory_buffer>;
+using Out = fmt::appender;  // into the buffer itself, not through a copy of fmt's own
 
 // Case columns per table on a portrait A4 or Letter page: the checks table
 // (a name column and cells such as "FAIL −10.00 N·m (governing)"), the
@@ -455,7 +454,7 @@ std::string symbolCell(const std::string& name) {
 // The inputs (every result is in its step): quantity, value, notes,
 // grouped under sections.
 void quantityTable(ReportSink& sink, const Trail& t, bool inputs) {
-  Out out = std::back_inserter(sink.buffer());
+  Out out = fmt::appender(sink.buffer());
   fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Quantity</th><th>{}</th></tr>"
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
@@ -591,7 +590,7 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
 }
 
 void calculation(ReportSink& sink, const Trail& t) {
-  Out out = std::back_inserter(sink.buffer());
+  Out out = fmt::appender(sink.buffer());
   fmt::format_to(out, "<section class=\"calculation\">\n<h2>Calculation</h2>\n");
   for (const TrailBlock& b : t.blocks) {
     sink.checkpoint();
@@ -722,7 +721,7 @@ void studies(Out out, const Trail& t) {
 
 void renderHtml(const Trail& t, ReportSink& sink) {
   fmt::memory_buffer& buffer = sink.buffer();
-  auto out = std::back_inserter(buffer);
+  auto out = fmt::appender(buffer);
   fmt::format_to(out, "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
   fmt::format_to(out, "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
   fmt::format_to(out, "<meta name=\"generator\" content=\"{}\">\n", esc(t.generator));

@@ -1,7 +1,6 @@
 #include "engine/report/markdown_renderer.h"
 
 #include <algorithm>
-#include <iterator>
 
 
 namespace calctrail {
@@ -13,8 +12,13 @@ namespace {
 // interpret is backslash-escaped.
 std::string text(const std::string& s) {
   std::string out;
+  out.reserve(s.size());
   for (char c : s) {
-    if (std::string_view("\\`*_[]<>|$~#").find(c) != std::string_view::npos) out += '\\';
+    switch (c) {
+      case '\\': case '`': case '*': case '_': case '[': case ']': case '<': case '>':
+      case '|': case '$': case '~': case '#': out += '\\'; break;
+      default: break;
+    }
     out += c;
   }
   return out;
@@ -29,10 +33,16 @@ std::string code(const std::string& s) {
     longest = std::max(longest, run);
   }
   const std::string fence(longest + 1, '`');
-  std::string body;
-  for (char c : s) body += c == '|' ? std::string("\\|") : std::string(1, c);
   const bool pad = longest > 0 || (!s.empty() && (s.front() == '`' || s.back() == '`'));
-  return fence + (pad ? " " : "") + body + (pad ? " " : "") + fence;
+  std::string out = fence;
+  out.reserve(2 * fence.size() + s.size() + 4);
+  if (pad) out += ' ';
+  for (char c : s) {
+    if (c == '|') out += '\\';
+    out += c;
+  }
+  if (pad) out += ' ';
+  return out + fence;
 }
 
 // Values for people: "1.5e9 W" as "1.5 × 10⁹ W".
@@ -52,7 +62,7 @@ std::string caseCell(const TrailStep& s, size_t k) {
 
 // Under a step that some case changes: its value in every case, nominal
 // first, as a small table (several for many cases).
-void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailStep& s) {
+void caseValues(fmt::appender out, const Trail& t, const TrailStep& s) {
   for (const auto& [first, last] : caseGroups(t.cases.size(), kValueColumns)) {
     fmt::format_to(out, "\n| Case |");
     for (size_t k = first; k < last; ++k) fmt::format_to(out, " {} |", code(t.cases[k].name));
@@ -71,7 +81,7 @@ void caseValues(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& 
 // An instance's part: its heading, then a table of its parameters: the
 // value each is bound to and where it came from (the binding in the using
 // sheet, the template's default, or the command line).
-void instanceHead(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t, const TrailInstance& in) {
+void instanceHead(fmt::appender out, const Trail& t, const TrailInstance& in) {
   fmt::format_to(out, "\n### Instance {}\n\n", code(in.name));
   fmt::format_to(out, "{} ({})\n", in.title.empty() ? std::string("Template") : text(in.title), code(in.path));
   if (in.params.empty()) return;
@@ -100,7 +110,7 @@ std::string meta(const Trail& t, const std::string& key) {
   return "";
 }
 
-void checksSummary(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+void checksSummary(fmt::appender out, const Trail& t) {
   // The verdict and every check first: a failed check must be impossible to miss.
   fmt::format_to(out, "## Design checks\n\n**{}**\n\n", text(verdictSentence(t)));
   if (!t.warnings.empty()) fmt::format_to(out, "**{}**\n\n", text(warningSummary(t)));
@@ -160,7 +170,7 @@ std::string resultText(const TrailStep& s) {
   return out;
 }
 
-void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+void signOff(fmt::appender out, const Trail& t) {
   auto given = [](const std::string& v) { return v.empty() ? std::string("\u2014") : text(v); };
   fmt::format_to(out, "## Sign-off\n\n");
   fmt::format_to(out, "- **calc:** {}\n- **revision:** {}\n", given(meta(t, "calc")),
@@ -175,7 +185,7 @@ void signOff(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
 }
 
 // The worksheet's studies: a sweep's table (values and every check per point), a capacity's answer.
-void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) {
+void studies(fmt::appender out, const Trail& t) {
   fmt::format_to(out, "## Studies\n\n");
   for (const TrailStudy& st : t.studies) {
     fmt::format_to(out, "### Study {}\n\n{}\n\n", code(st.name), code(st.statement));
@@ -203,7 +213,7 @@ void studies(std::back_insert_iterator<fmt::memory_buffer> out, const Trail& t) 
 
 void renderMarkdown(const Trail& t, ReportSink& sink) {
   fmt::memory_buffer& buffer = sink.buffer();
-  auto out = std::back_inserter(buffer);
+  auto out = fmt::appender(buffer);
   fmt::format_to(out, "# {}\n\n", text(t.title.empty() ? "Calculation trail" : t.title));
   for (const auto& [key, value] : t.meta) fmt::format_to(out, "- **{}:** {}\n", key, text(value));
   fmt::format_to(out, "- **file:** {}\n", code(t.path));

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cctype>
 #include <cstring>
+#include <string_view>
 #include <vector>
 
 #include "engine/report/xml_escape.h"
@@ -11,9 +12,14 @@ namespace calctrail {
 
 namespace {
 
-// Greek names as engineers write them in ASCII.
-const char* greek(const std::string& word) {
-  static const char* const table[][2] = {
+// Greek names as engineers write them in ASCII. string_views: a name of
+// another length is passed over without comparing its letters.
+const char* greek(std::string_view word) {
+  struct Letter {
+    std::string_view name;
+    const char* glyph;
+  };
+  static constexpr Letter table[] = {
       {"alpha", "\u03B1"},   {"beta", "\u03B2"},  {"gamma", "\u03B3"},   {"delta", "\u03B4"},
       {"epsilon", "\u03B5"}, {"zeta", "\u03B6"},  {"eta", "\u03B7"},     {"theta", "\u03B8"},
       {"iota", "\u03B9"},    {"kappa", "\u03BA"}, {"lambda", "\u03BB"},  {"mu", "\u03BC"},
@@ -24,8 +30,8 @@ const char* greek(const std::string& word) {
       {"Sigma", "\u03A3"},   {"Upsilon", "\u03A5"}, {"Phi", "\u03A6"},   {"Psi", "\u03A8"},
       {"Omega", "\u03A9"},
   };
-  for (const auto& row : table)
-    if (word == row[0]) return row[1];
+  for (const Letter& row : table)
+    if (word == row.name) return row.glyph;
   return nullptr;
 }
 
