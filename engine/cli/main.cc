@@ -11,6 +11,8 @@
 #include <cstring>
 #include <functional>
 #include <iostream>
+#include <iterator>
+#include <string_view>
 #include <utility>
 #include <vector>
 
@@ -195,8 +197,23 @@ int main(int argc, char** argv) {
     option_blocks.emplace_back(cmd, std::move(define));
   };
 
+  // When the first argument names a subcommand, the others are not built
+  // either (a CLI11 App each, some 20 k instructions): only that one can be
+  // parsed, and its --help shows no other. Each of them is then `unused`, an
+  // App never parsed, so that setting it up and asking parsed() stay as they are.
+  // `calctrail --help`, `--version` and a mistyped command build every one.
+  static constexpr std::string_view kCommands[] = {"report", "check",    "functions", "units",
+                                                   "diff",   "fmt",      "textconv",  "sweep",
+                                                   "solve",  "sensitivity", "pick",   "lsp"};
+  const std::string_view first = argc > 1 ? argv[1] : "";
+  const bool first_named = std::find(std::begin(kCommands), std::end(kCommands), first) != std::end(kCommands);
+  CLI::App unused;
+  const auto command = [&](const char* name, const char* description) {
+    return first_named && first != name ? &unused : app.add_subcommand(name, description);
+  };
+
   ReportArgs report;
-  CLI::App* report_cmd = app.add_subcommand(
+  CLI::App* report_cmd = command(
       "report", "Recalculate a worksheet and print its calculation trail (exit 0 even when a check fails)");
   options(report_cmd, [&] {
     report_cmd->add_option("FILE", report.file, "The worksheet (.calc); - reads standard input")->required();
@@ -220,7 +237,7 @@ int main(int argc, char** argv) {
   });
 
   CheckArgs check;
-  CLI::App* check_cmd = app.add_subcommand(
+  CLI::App* check_cmd = command(
       "check",
       "Evaluate worksheets; print one line per failed check and per error (exit 1 on a failed check)");
   options(check_cmd, [&] {
@@ -241,7 +258,7 @@ int main(int argc, char** argv) {
 
   std::string fn_name, fn_format = "text";
   CLI::App* fn_cmd =
-      app.add_subcommand("functions", "List the built-in drive functions, or show one in detail");
+      command("functions", "List the built-in drive functions, or show one in detail");
   options(fn_cmd, [&] {
     fn_cmd->add_option("NAME", fn_name, "A function name");
     fn_cmd->add_option("--format,-f", fn_format, "Output format")
@@ -251,7 +268,7 @@ int main(int argc, char** argv) {
 
   std::string units_format = "text";
   CLI::App* units_cmd =
-      app.add_subcommand("units", "List the units of measure, their definitions and sources");
+      command("units", "List the units of measure, their definitions and sources");
   options(units_cmd, [&] {
     units_cmd->add_option("--format,-f", units_format, "Output format")
         ->check(CLI::IsMember({"text", "md"}))
@@ -259,7 +276,7 @@ int main(int argc, char** argv) {
   });
 
   DiffArgs diff;
-  CLI::App* diff_cmd = app.add_subcommand(
+  CLI::App* diff_cmd = command(
       "diff",
       "Compare two revisions of a worksheet: flipped checks, changed inputs and formulas, moved results");
   options(diff_cmd, [&] {
@@ -289,7 +306,7 @@ int main(int argc, char** argv) {
       "  calctrail diff main:gate.calc gate.calc --format md > review.md");
 
   FmtArgs fmt_args;
-  CLI::App* fmt_cmd = app.add_subcommand("fmt",
+  CLI::App* fmt_cmd = command("fmt",
                                          "Lay out worksheets canonically (spacing, alignment, unit "
                                          "spelling), keeping every comment and meaning");
   options(fmt_cmd, [&] {
@@ -307,7 +324,7 @@ int main(int argc, char** argv) {
 
   std::string textconv_file;
   int textconv_digits = 6;
-  CLI::App* textconv_cmd = app.add_subcommand(
+  CLI::App* textconv_cmd = command(
       "textconv",
       "Print a worksheet with its recalculated results, for git's diff driver (see docs/review.md)");
   options(textconv_cmd, [&] {
@@ -340,7 +357,7 @@ int main(int argc, char** argv) {
   };
 
   SweepArgs sweep;
-  CLI::App* sweep_cmd = app.add_subcommand(
+  CLI::App* sweep_cmd = command(
       "sweep", "Evaluate a worksheet over a range or list of one input (or a grid of two): results, checks");
   options(sweep_cmd, [&] {
     sweep_cmd->add_option("FILE", sweep.study.file, "The worksheet (.calc)");
@@ -371,7 +388,7 @@ int main(int argc, char** argv) {
       "  calctrail sweep --merge a.json b.json --format csv");
 
   SolveArgs solve;
-  CLI::App* solve_cmd = app.add_subcommand(
+  CLI::App* solve_cmd = command(
       "solve", "Find the input that meets a target, or the largest/smallest for which every check passes");
   options(solve_cmd, [&] {
     solve_cmd->add_option("FILE", solve.study.file, "The worksheet (.calc)")->required();
@@ -390,7 +407,7 @@ int main(int argc, char** argv) {
       "passes, or a check fails at the value found; 2 errors.");
 
   SensitivityArgs sens;
-  CLI::App* sens_cmd = app.add_subcommand(
+  CLI::App* sens_cmd = command(
       "sensitivity", "Rank the given values by their effect on a result (elasticity), and checks they flip");
   options(sens_cmd, [&] {
     sens_cmd->add_option("FILE", sens.study.file, "The worksheet (.calc)")->required();
@@ -400,7 +417,7 @@ int main(int argc, char** argv) {
   sens_cmd->footer("\nExit status: 0 done; 1 a check fails at the nominal point; 2 errors.");
 
   PickArgs pick;
-  CLI::App* pick_cmd = app.add_subcommand(
+  CLI::App* pick_cmd = command(
       "pick", "Choose the smallest standard size (or the least --by result) for which every check passes");
   options(pick_cmd, [&] {
     pick_cmd->add_option("FILE", pick.study.file, "The worksheet (.calc)")->required();
@@ -414,7 +431,7 @@ int main(int argc, char** argv) {
   });
   pick_cmd->footer("\nExit status: 0 a value passes; 1 none does; 2 errors.");
 
-  CLI::App* lsp_cmd = app.add_subcommand(
+  CLI::App* lsp_cmd = command(
       "lsp", "Serve the Language Server Protocol on standard input and output (docs/editors/lsp.md)");
   lsp_cmd->footer(
       "\nEditors start it themselves: diagnostics, values on hover and as inlay hints, definition,\n"
