@@ -21,7 +21,9 @@ class ReportSink {
   // Holds the whole report (text()).
   ReportSink() = default;
   // Hands the report to `write` piece by piece, in order.
-  explicit ReportSink(Writer write) : write_(std::move(write)) {}
+  // Room for a chunk and what passes it before a checkpoint is made at once,
+  // not grown half again at a time (each growth copies what it holds).
+  explicit ReportSink(Writer write) : write_(std::move(write)) { buffer_.reserve(kChunk + kChunk / 4); }
   ReportSink(const ReportSink&) = delete;
   ReportSink& operator=(const ReportSink&) = delete;
 

@@ -21,22 +21,28 @@ void append(fmt::memory_buffer& out, std::string_view s) {
 
 bool needsEscape(unsigned char byte) { return byte < 0x20 || byte == '"' || byte == '\\'; }
 
-// Where the first byte that needs escaping is in `s`, or s.size(). Eight
-// bytes at a time, by the bit tests of "Bit Twiddling Hacks": with 0x01 in
-// every byte (`ones`), (x - ones) & ~x has a byte's high bit set for some
-// byte of x exactly when a byte of x is 0 (x ^ '"' is 0 where a byte is '"'),
-// and (x - 0x20 * ones) & ~x exactly when a byte is below 0x20. A word with
-// a hit, and the last bytes short of a word, are read a byte at a time.
-size_t firstEscaped(std::string_view s) {
+// Whether one of the eight bytes at `eight`, read as the word x, needs
+// escaping, by the bit tests of "Bit Twiddling Hacks": with 0x01 in every
+// byte (`ones`), (x - ones) & ~x has a byte's high bit set for some byte of
+// x exactly when a byte of x is 0 (x ^ '"' is 0 where a byte is '"'), and
+// (x - 0x20 * ones) & ~x exactly when a byte is below 0x20.
+bool wordNeedsEscape(const char* eight) {
   constexpr uint64_t ones = 0x0101010101010101u, high_bits = 0x80 * ones;
+  uint64_t x;
+  std::memcpy(&x, eight, 8);
+  const uint64_t quote = x ^ ('"' * ones), backslash = x ^ ('\\' * ones);
+  const uint64_t hits = ((quote - ones) & ~quote) | ((backslash - ones) & ~backslash) | ((x - 0x20 * ones) & ~x);
+  return (hits & high_bits) != 0;
+}
+
+// Where the first byte that needs escaping is in `s`, or s.size(): eight
+// bytes at a time, the last ones short of a word as the last eight of `s`
+// (read again in part); a word with a hit is then read a byte at a time.
+size_t firstEscaped(std::string_view s) {
   size_t i = 0;
-  for (; i + 8 <= s.size(); i += 8) {
-    uint64_t x;
-    std::memcpy(&x, s.data() + i, 8);
-    const uint64_t quote = x ^ ('"' * ones), backslash = x ^ ('\\' * ones);
-    const uint64_t hits = ((quote - ones) & ~quote) | ((backslash - ones) & ~backslash) | ((x - 0x20 * ones) & ~x);
-    if ((hits & high_bits) != 0) break;
-  }
+  while (i + 8 <= s.size() && !wordNeedsEscape(s.data() + i)) i += 8;
+  if (i + 8 > s.size() && s.size() >= 8 && i < s.size() && !wordNeedsEscape(s.data() + s.size() - 8))
+    return s.size();
   while (i < s.size() && !needsEscape(static_cast<unsigned char>(s[i]))) ++i;
   return i;
 }
