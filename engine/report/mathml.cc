@@ -30,6 +30,7 @@ const char* greek(std::string_view word) {
       {"Sigma", "\u03A3"},   {"Upsilon", "\u03A5"}, {"Phi", "\u03A6"},   {"Psi", "\u03A8"},
       {"Omega", "\u03A9"},
   };
+  if (word.size() < 2 || word.size() > 7) return nullptr;  // "mu" to "epsilon"
   for (const Letter& row : table)
     if (word == row.name) return row.glyph;
   return nullptr;
@@ -51,11 +52,22 @@ size_t glyphs(const std::string& s) {
 std::string mi(const std::string& text, bool upright = false) {
   // A one-letter <mi> is italic by default: upright where ISO 80000-2 wants it.
   const bool one = glyphs(text) == 1;
-  return std::string(one && upright ? "<mi mathvariant=\"normal\">" : "<mi>") + escapeXml(text) + "</mi>";
+  std::string out = one && upright ? "<mi mathvariant=\"normal\">" : "<mi>";
+  out += escapeXml(text);
+  out += "</mi>";
+  return out;
 }
 
-std::string mo(const std::string& op) { return "<mo>" + op + "</mo>"; }
-std::string mrow(const std::string& inner) { return "<mrow>" + inner + "</mrow>"; }
+// `inner` between `open` and `close`, in one string grown once.
+std::string element(std::string_view open, const std::string& inner, std::string_view close) {
+  std::string out;
+  out.reserve(open.size() + inner.size() + close.size());
+  out.append(open).append(inner).append(close);
+  return out;
+}
+
+std::string mo(const std::string& op) { return element("<mo>", op, "</mo>"); }
+std::string mrow(const std::string& inner) { return element("<mrow>", inner, "</mrow>"); }
 
 // A quantity symbol and a descriptive subscript: the subscript is upright
 // (a label such as "m" for mean, not a variable).
@@ -77,6 +89,7 @@ std::string subscriptPart(const std::string& part, double* w) {
 NameParts splitName(const std::string& name) {
   NameParts n;
   std::vector<std::string> parts;
+  parts.reserve(static_cast<size_t>(std::count(name.begin(), name.end(), '_')) + 2);  // and an index split off ("F1")
   size_t i = 0;
   while (i <= name.size()) {
     size_t j = name.find('_', i);
