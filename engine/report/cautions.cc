@@ -90,7 +90,7 @@ std::vector<const Caution*> cautionsForFunctionText(std::string_view text) {
   // the entries it stands for. A text not listed maps to nothing, which the
   // catalogue test reports.
   struct Mapping {
-    const char* text;
+    std::string_view text;  // its length known, so another text is passed over at once
     std::vector<const char*> ids;
   };
   static const std::vector<Mapping> map = {

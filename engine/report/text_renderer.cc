@@ -1,6 +1,7 @@
 #include "engine/report/text_renderer.h"
 
 #include <algorithm>
+#include <initializer_list>
 #include <string_view>
 #include <utility>
 
@@ -14,6 +15,12 @@ int width(const std::string& s) { return displayWidth(s); }
 std::string pad(const std::string& s, int w) { return padRight(s, w); }
 
 void put(fmt::memory_buffer& out, std::string_view s) { out.append(s.data(), s.data() + s.size()); }
+
+// A line of `pieces` one after another: print("{}{}..\n") without parsing a format.
+void putLine(fmt::memory_buffer& out, std::initializer_list<std::string_view> pieces) {
+  for (std::string_view piece : pieces) put(out, piece);
+  out.push_back('\n');
+}
 
 // fmt::format_to into the buffer itself: through fmt::appender, not a
 // back_insert_iterator, which fmt fills through a buffer of its own.
@@ -79,11 +86,11 @@ void whereLine(fmt::memory_buffer& out, const TrailCall& c) {
   std::string one = "      where " + parts[0];
   for (size_t k = 1; k < parts.size(); ++k) one += " = " + parts[k];
   if (width(one) <= 78) {
-    print(out, "{}\n", one);
+    putLine(out, {one});
     return;
   }
-  print(out, "      where {}\n", parts[0]);
-  for (size_t k = 1; k < parts.size(); ++k) print(out, "          = {}\n", parts[k]);
+  putLine(out, {"      where ", parts[0]});
+  for (size_t k = 1; k < parts.size(); ++k) putLine(out, {"          = ", parts[k]});
 }
 
 // The load cases: each with what it replaces; a case that could not be
@@ -96,10 +103,10 @@ void caseList(fmt::memory_buffer& out, const Trail& t) {
     std::string line = "  " + pad(c.name, w) + "  " +
                        (c.replacements.empty() ? std::string("the worksheet as written") : c.replacements);
     if (!c.description.empty()) line += "  (" + c.description + ")";
-    print(out, "{}\n", line);
+    putLine(out, {line});
     for (const std::string& e : c.errors) wrap(out, "NOT CALCULATED: " + e, "    ");
   }
-  print(out, "\n");
+  out.push_back('\n');
 }
 
 // A value that some case changes: one line per case, nominal first, so that
@@ -112,7 +119,7 @@ void caseValues(fmt::memory_buffer& out, const Trail& t, const TrailStep& s,
     const TrailCaseValue& v = s.cases[k];
     std::string line = indent + pad(t.cases[k].name, w) + "  " + (v.ok ? valueText(v.value) : "not calculated");
     if (v.replaced) line += "  (replaced: " + v.formula + ")";
-    print(out, "{}\n", line);
+    putLine(out, {line});
   }
 }
 
@@ -155,25 +162,25 @@ void caseChecks(fmt::memory_buffer& out, const Trail& t) {
   if (std::all_of(even.begin(), even.end(), [&](const auto& g) { return fits(g.first, g.second); }))
     groups = even;
   for (const auto& [first, last] : groups) {
-    if (first > 0) print(out, "\n");
+    if (first > 0) out.push_back('\n');
     std::string head = "  " + pad("", name_w);
     for (size_t k = first; k < last; ++k) head += "  " + pad(t.cases[k].name, col_w[k]);
     while (!head.empty() && head.back() == ' ') head.pop_back();
-    print(out, "{}\n", head);
+    putLine(out, {head});
     for (size_t i = 0; i < t.checks.size(); ++i) {
       std::string row = "  " + pad(t.checks[i].name, name_w);
       for (size_t k = first; k < last; ++k) row += "  " + pad(cells[i][k], col_w[k]);
       while (!row.empty() && row.back() == ' ') row.pop_back();
-      print(out, "{}\n", row);
+      putLine(out, {row});
     }
   }
-  print(out, "\n");
+  out.push_back('\n');
 }
 
 // An instance's part: its heading, then its parameters a line each: the
 // value each is bound to and where it came from.
 void instanceHead(fmt::memory_buffer& out, const Trail& t, const TrailInstance& in) {
-  print(out, "\n{}\n\n", in.heading);
+  putLine(out, {"\n", in.heading, "\n"});
   if (in.params.empty()) return;
   std::vector<std::string> values;
   int name_w = width("parameter"), value_w = width("value");
@@ -184,7 +191,7 @@ void instanceHead(fmt::memory_buffer& out, const Trail& t, const TrailInstance& 
     name_w = std::max(name_w, width(p.name));
     value_w = std::max(value_w, width(values.back()));
   }
-  print(out, "  {}  {}  bound by\n", pad("parameter", name_w), pad("value", value_w));
+  putLine(out, {"  ", pad("parameter", name_w), "  ", pad("value", value_w), "  bound by"});
   for (size_t k = 0; k < in.params.size(); ++k) {
     const TrailInstanceParam& p = in.params[k];
     const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
@@ -194,7 +201,7 @@ void instanceHead(fmt::memory_buffer& out, const Trail& t, const TrailInstance& 
                                            : p.binding;
     // Left out of the Inputs list: its note is given here.
     if (s.in_part_table && !s.description.empty()) from += "  " + s.description;
-    print(out, "  {}  {}  {}\n", pad(p.name, name_w), pad(values[k], value_w), from);
+    putLine(out, {"  ", pad(p.name, name_w), "  ", pad(values[k], value_w), "  ", from});
   }
 }
 
@@ -203,7 +210,7 @@ void instanceHead(fmt::memory_buffer& out, const Trail& t, const TrailInstance& 
 void studies(fmt::memory_buffer& out, const Trail& t) {
   put(out, heading("STUDIES"));
   for (const TrailStudy& st : t.studies) {
-    print(out, "  {}  {}\n", st.name, st.statement);
+    putLine(out, {"  ", st.name, "  ", st.statement});
     if (!st.description.empty()) wrap(out, st.description, "    ");
     if (!st.header.empty()) {
       std::vector<int> w(st.header.size());
@@ -218,16 +225,16 @@ void studies(fmt::memory_buffer& out, const Trail& t) {
           line += "  " + (c < st.value_columns ? gap + cells[c] : cells[c] + gap);
         }
         while (!line.empty() && line.back() == ' ') line.pop_back();
-        print(out, "{}\n", line);
+        putLine(out, {line});
       };
-      print(out, "\n");
+      out.push_back('\n');
       row(st.header);
       for (const auto& r : st.rows) row(r);
-      print(out, "\n");
+      out.push_back('\n');
     }
     wrap(out, st.summary, "    ");
     for (const std::string& e : st.errors) wrap(out, e, "    ");
-    print(out, "\n");
+    out.push_back('\n');
   }
 }
 
@@ -240,11 +247,11 @@ void signOff(fmt::memory_buffer& out, const Trail& t) {
   auto given = [](const std::string& v, const char* blank) { return v.empty() ? std::string(blank) : v; };
   out.push_back('\n');
   put(out, heading("SIGN-OFF"));
-  print(out, "  {}{}\n", pad("calc", 11), given(meta("calc"), "-"));
-  print(out, "  {}{}\n", pad("revision", 11), given(meta("revision"), "-"));
-  print(out, "  {}{}\n", pad("worksheet", 11), t.path);
-  print(out, "  {}{}\n", pad("sha256", 11), t.sha256);
-  if (!t.modified_by.empty()) print(out, "  {}by {}\n", pad("MODIFIED", 11), replacementList(t));
+  putLine(out, {"  ", pad("calc", 11), given(meta("calc"), "-")});
+  putLine(out, {"  ", pad("revision", 11), given(meta("revision"), "-")});
+  putLine(out, {"  ", pad("worksheet", 11), t.path});
+  putLine(out, {"  ", pad("sha256", 11), t.sha256});
+  if (!t.modified_by.empty()) putLine(out, {"  ", pad("MODIFIED", 11), "by ", replacementList(t)});
   wrap(out, signOffStatement(t), "  ");
   out.push_back('\n');
   const std::string line = "______________";
@@ -259,25 +266,25 @@ void signOff(fmt::memory_buffer& out, const Trail& t) {
 void renderText(const Trail& t, ReportSink& sink) {
   fmt::memory_buffer& out = sink.buffer();
   put(out, underline(t.title.empty() ? "Calculation trail" : t.title, '='));
-  for (const auto& [key, value] : t.meta) print(out, "{}{}\n", pad(key, 10), value);
-  print(out, "{}{}\n", pad("file", 10), t.path);
-  print(out, "{}{}\n", pad("sha256", 10), t.sha256);
+  for (const auto& [key, value] : t.meta) putLine(out, {pad(key, 10), value});
+  putLine(out, {pad("file", 10), t.path});
+  putLine(out, {pad("sha256", 10), t.sha256});
   for (size_t k = 1; k < t.files.size(); ++k)  // the templates, each with its hash
     print(out, "{}{}\n{}{}\n", pad("template", 10), t.files[k].path, pad("sha256", 10),
                    t.files[k].sha256);
   // Next to the hash: the hash alone no longer identifies these numbers.
-  if (!t.modified_by.empty()) print(out, "{}by {}\n", pad("MODIFIED", 10), replacementList(t));
-  print(out, "{}{}\n", pad("generator", 10), t.generator);
+  if (!t.modified_by.empty()) putLine(out, {pad("MODIFIED", 10), "by ", replacementList(t)});
+  putLine(out, {pad("generator", 10), t.generator});
   if (!t.modified_by.empty()) {
     out.push_back('\n');
     wrap(out, modifiedNotice(t), "");
   }
-  print(out, "\n");
+  out.push_back('\n');
 
   // The verdict first: a failed check must be impossible to miss.
-  print(out, "{}\n", verdictSentence(t));
+  putLine(out, {verdictSentence(t)});
   if (!t.warnings.empty()) wrap(out, warningSummary(t), "");
-  print(out, "\n");
+  out.push_back('\n');
 
   if (!t.cases.empty()) caseList(out, t);
 
@@ -297,20 +304,20 @@ void renderText(const Trail& t, ReportSink& sink) {
     if (s.in_part_table) continue;
     if (s.section != section) {
       section = s.section;
-      if (!section.empty()) print(out, "{}\n", section);
+      if (!section.empty()) putLine(out, {section});
     }
-    std::string line = fmt::format("  {}  {}", pad(s.name, name_w), pad(shown(s), value_w));
+    std::string row = "  " + pad(s.name, name_w) + "  " + pad(shown(s), value_w);
     std::string notes = s.description;
     if (s.formula_in_notes) notes = "= " + s.formula + (notes.empty() ? "" : "; " + notes);
     if (s.overridden) notes += (notes.empty() ? "" : " ") + std::string("[set on the command line]");
-    if (!notes.empty()) line += "  " + notes;
-    while (!line.empty() && line.back() == ' ') line.pop_back();
-    print(out, "{}\n", line);
+    if (!notes.empty()) row += "  " + notes;
+    while (!row.empty() && row.back() == ' ') row.pop_back();
+    putLine(out, {row});
     if (s.varies) caseValues(out, t, s, "      ");
     for (const std::string& w : s.warnings) wrap(out, "WARNING: " + w, "    ");
   }
   if (!instanceInputsPointer(t).empty()) wrap(out, instanceInputsPointer(t), "  ");
-  print(out, "\n");
+  out.push_back('\n');
 
   put(out, heading("CALCULATION"));
   for (const TrailBlock& b : t.blocks) {
@@ -318,7 +325,7 @@ void renderText(const Trail& t, ReportSink& sink) {
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
       instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
-      print(out, "\n{}\n", t.blockText(b));
+      putLine(out, {"\n", t.blockText(b)});
     } else if (b.kind == TrailBlock::Note && b.instance >= 0) {
       continue;  // the parameters, set as a table under the instance's heading
     } else if (b.kind == TrailBlock::Note) {
@@ -335,40 +342,38 @@ void renderText(const Trail& t, ReportSink& sink) {
       if (t.steps.isInput(static_cast<size_t>(b.index))) continue;
       const TrailSteps::Held held = t.steps.get(static_cast<size_t>(b.index));
       const TrailStep& s = *held;
-      print(out, "\n  {}", s.name);
-      if (!s.description.empty()) print(out, "  {}", s.description);
-      if (s.overridden) print(out, "  [set on the command line]");
-      print(out, "\n");
+      putLine(out, {"\n  ", s.name, s.description.empty() ? "" : "  ", s.description,
+                 s.overridden ? "  [set on the command line]" : ""});
       const std::string indent = "    " + std::string(static_cast<size_t>(width(s.name)), ' ') + " ";
-      print(out, "    {} = {}\n", s.name, s.pretty);
-      if (s.show_substituted) print(out, "{}= {}\n", indent, lineText(s.substituted));
+      putLine(out, {"    ", s.name, " = ", s.pretty});
+      if (s.show_substituted) putLine(out, {indent, "= ", lineText(s.substituted)});
       // One call that is the whole formula continues the chain with its own
       // formula's values; its formula, limits and source are listed once,
       // under LIBRARY FUNCTIONS USED.
-      if (s.single_call) print(out, "{}= {}\n", indent, lineText(s.calls[0].substituted));
-      print(out, "{}= {}\n", indent, resultText(s));
+      if (s.single_call) putLine(out, {indent, "= ", lineText(s.calls[0].substituted)});
+      putLine(out, {indent, "= ", resultText(s)});
       if (s.varies) caseValues(out, t, s, indent + "  ");
       for (const TrailCall& c : s.calls)
         if (!c.whole) whereLine(out, c);
       for (const std::string& w : s.warnings) wrap(out, "WARNING: " + w, "    ");
     }
   }
-  print(out, "\n");
+  out.push_back('\n');
 
   if (!t.checks.empty()) {
     put(out, heading("CHECKS"));
     int w = 0;
     for (const TrailCheck& c : t.checks) w = std::max(w, width(c.name));
     for (const TrailCheck& c : t.checks) {
-      print(out, "  {}  {}  {}\n", c.passed ? "pass" : "FAIL", pad(c.name, w), c.condition);
+      putLine(out, {"  ", c.passed ? "pass" : "FAIL", "  ", pad(c.name, w), "  ", c.condition});
       print(out, "        {:{}}  {} {} {}", "", w, valueText(c.lhs), c.op, valueText(c.rhs));
       if (!c.measure.empty()) print(out, ": {}", c.measure);
       if (!c.description.empty()) print(out, "  ({})", c.description);
-      print(out, "\n");
+      out.push_back('\n');
       for (const std::string& m : c.warnings)
         wrap(out, "WARNING: " + m, std::string(static_cast<size_t>(w) + 10, ' '));
     }
-    print(out, "\n");
+    out.push_back('\n');
     if (!t.cases.empty()) caseChecks(out, t);
   }
 
@@ -385,21 +390,21 @@ void renderText(const Trail& t, ReportSink& sink) {
         continue;
       }
       print(out, "  {}  used by {}\n", f.signature, fmt::join(f.used_by, ", "));
-      if (f.formula_is_expression) print(out, "    = {}\n", f.pretty);
+      if (f.formula_is_expression) putLine(out, {"    = ", f.pretty});
       else wrap(out, "method: " + f.method, "    ");
       if (!f.limits.empty()) wrap(out, "limits: " + f.limits, "    ");
       wrap(out, "source: " + f.source, "    ");
-      print(out, "    verified: {}\n", f.verification);
+      putLine(out, {"    verified: ", f.verification});
     }
     if (!definitions.empty())
       wrap(out, "Definitions: " + fmt::format("{}", fmt::join(definitions, ", ")), "  ");
-    print(out, "\n");
+    out.push_back('\n');
   }
 
   if (!t.warnings.empty()) {
     put(out, heading("WARNINGS"));
-    for (const std::string& w : t.warnings) print(out, "  {}\n", w);
-    print(out, "\n");
+    for (const std::string& w : t.warnings) putLine(out, {"  ", w});
+    out.push_back('\n');
   }
 
   put(out, heading("CAUTIONS"));

@@ -156,7 +156,8 @@ JsonWriter& JsonWriter::value(double d) {
 
 JsonWriter& JsonWriter::value(int i) {
   beforeValue();
-  fmt::format_to(fmt::appender(*out_), "{}", i);
+  const fmt::format_int text(i);
+  append(*out_, std::string_view(text.data(), text.size()));
   return *this;
 }
 
