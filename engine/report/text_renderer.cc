@@ -45,8 +45,10 @@ void wrap(fmt::memory_buffer& out, std::string_view text, std::string_view inden
       continue;
     }
     const size_t start = i;
-    int word_width = 0;  // counted as displayWidth counts, on the way to the word's end
-    for (; i < text.size() && text[i] != ' '; ++i) word_width += startsColumn(text[i]);
+    unsigned char bits = 0;  // every byte of the word or-ed: below 0x80 all are ASCII, a column each
+    for (; i < text.size() && text[i] != ' '; ++i) bits |= static_cast<unsigned char>(text[i]);
+    const std::string_view word = text.substr(start, i - start);
+    const int word_width = bits < 0x80 ? static_cast<int>(word.size()) : displayWidth(word);
     if (line_width >= 0 && indent_width + line_width + 1 + word_width > cols) {
       *p++ = '\n';
       line_width = -1;
@@ -58,7 +60,7 @@ void wrap(fmt::memory_buffer& out, std::string_view text, std::string_view inden
       *p++ = ' ';
       line_width += 1 + word_width;
     }
-    p = std::copy(text.data() + start, text.data() + i, p);
+    p = std::copy(word.begin(), word.end(), p);
   }
   if (line_width >= 0) *p++ = '\n';
   out.resize(static_cast<size_t>(p - out.data()));

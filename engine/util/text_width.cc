@@ -6,7 +6,8 @@ namespace calctrail {
 
 int displayWidth(std::string_view s) {
   int n = 0;
-  for (char c : s) n += startsColumn(c);
+  for (char c : s)
+    if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;  // count lead bytes only
   return n;
 }
 

@@ -7,9 +7,6 @@
 
 namespace calctrail {
 
-// Whether byte `c` begins a column: any byte but a UTF-8 continuation byte.
-inline bool startsColumn(char c) { return (static_cast<unsigned char>(c) & 0xC0) != 0x80; }
-
 int displayWidth(std::string_view s);
 
 // `s` followed by spaces up to `width` columns.
