@@ -1,26 +1,44 @@
 #include "engine/report/markdown_renderer.h"
 
 #include <algorithm>
-
+#include <array>
+#include <string_view>
 
 namespace calctrail {
 
 namespace {
 
+// Whether Markdown or GitHub (tables, math, autolinks) would interpret `c`:
+// a table of the byte values, made once from the list of them.
+bool interpreted(char c) {
+  static constexpr std::array<bool, 256> table = [] {
+    std::array<bool, 256> t{};
+    for (const char special : std::string_view("\\`*_[]<>|$~#")) t[static_cast<unsigned char>(special)] = true;
+    return t;
+  }();
+  return table[static_cast<unsigned char>(c)];
+}
+
+// `s` with a backslash before each character `escaped` picks, the runs
+// between them appended at once.
+template <typename Escaped>
+void appendEscaped(std::string& out, const std::string& s, Escaped escaped) {
+  size_t run = 0;  // the bytes before it are written
+  for (size_t i = 0; i < s.size(); ++i) {
+    if (!escaped(s[i])) continue;
+    out.append(s, run, i - run);
+    out += '\\';
+    run = i;  // the character itself begins the next run
+  }
+  out.append(s, run, std::string::npos);
+}
+
 // Worksheet text (titles, descriptions, notes) as literal Markdown: every
-// character that Markdown or GitHub (tables, math, autolinks) would
-// interpret is backslash-escaped.
+// character that Markdown or GitHub would interpret is backslash-escaped.
 std::string text(const std::string& s) {
   std::string out;
-  out.reserve(s.size());
-  for (char c : s) {
-    switch (c) {
-      case '\\': case '`': case '*': case '_': case '[': case ']': case '<': case '>':
-      case '|': case '$': case '~': case '#': out += '\\'; break;
-      default: break;
-    }
-    out += c;
-  }
+  out.reserve(s.size() + 8);
+  appendEscaped(out, s, interpreted);
   return out;
 }
 
@@ -37,10 +55,7 @@ std::string code(const std::string& s) {
   std::string out = fence;
   out.reserve(2 * fence.size() + s.size() + 4);
   if (pad) out += ' ';
-  for (char c : s) {
-    if (c == '|') out += '\\';
-    out += c;
-  }
+  appendEscaped(out, s, [](char c) { return c == '|'; });
   if (pad) out += ' ';
   return out + fence;
 }
