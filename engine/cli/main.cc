@@ -201,15 +201,17 @@ int main(int argc, char** argv) {
   // either (a CLI11 App each, some 20 k instructions): only that one can be
   // parsed, and its --help shows no other. Each of them is then `unused`, an
   // App never parsed, so that setting it up and asking parsed() stay as they are.
-  // `calctrail --help`, `--version` and a mistyped command build every one.
+  // `calctrail --version` alone builds none; `calctrail --help` and a
+  // mistyped command build every one.
   static constexpr std::string_view kCommands[] = {"report", "check",    "functions", "units",
                                                    "diff",   "fmt",      "textconv",  "sweep",
                                                    "solve",  "sensitivity", "pick",   "lsp"};
   const std::string_view first = argc > 1 ? argv[1] : "";
   const bool first_named = std::find(std::begin(kCommands), std::end(kCommands), first) != std::end(kCommands);
+  const bool version_alone = argc == 2 && first == "--version";
   CLI::App unused;
   const auto command = [&](const char* name, const char* description) {
-    return first_named && first != name ? &unused : app.add_subcommand(name, description);
+    return version_alone || (first_named && first != name) ? &unused : app.add_subcommand(name, description);
   };
 
   ReportArgs report;
