@@ -37,6 +37,10 @@ void wrap(fmt::memory_buffer& out, std::string_view text, std::string_view inden
   const size_t at = out.size();
   out.resize(at + text.size() + (text.size() / 2 + 1) * (indent.size() + 1) + 1);
   char* p = out.data() + at;
+  // Words one space apart in `text` stay so on a line, and go in with one
+  // copy: text[run, run_end) is on the line and not yet written.
+  size_t run = 0, run_end = 0;
+  const auto flush = [&] { p = std::copy(text.data() + run, text.data() + run_end, p); };
   const int indent_width = displayWidth(indent);
   int line_width = -1;  // of the line so far, without the indent; -1: no word on it yet
   for (size_t i = 0; i < text.size();) {
@@ -47,22 +51,31 @@ void wrap(fmt::memory_buffer& out, std::string_view text, std::string_view inden
     const size_t start = i;
     unsigned char bits = 0;  // every byte of the word or-ed: below 0x80 all are ASCII, a column each
     for (; i < text.size() && text[i] != ' '; ++i) bits |= static_cast<unsigned char>(text[i]);
-    const std::string_view word = text.substr(start, i - start);
-    const int word_width = bits < 0x80 ? static_cast<int>(word.size()) : displayWidth(word);
+    const int word_width =
+        bits < 0x80 ? static_cast<int>(i - start) : displayWidth(text.substr(start, i - start));
     if (line_width >= 0 && indent_width + line_width + 1 + word_width > cols) {
+      flush();
       *p++ = '\n';
       line_width = -1;
     }
     if (line_width < 0) {
       p = std::copy(indent.begin(), indent.end(), p);
       line_width = word_width;
+      run = start;
     } else {
-      *p++ = ' ';
       line_width += 1 + word_width;
+      if (start != run_end + 1) {  // more than one space before it
+        flush();
+        *p++ = ' ';
+        run = start;
+      }
     }
-    p = std::copy(word.begin(), word.end(), p);
+    run_end = i;
   }
-  if (line_width >= 0) *p++ = '\n';
+  if (line_width >= 0) {
+    flush();
+    *p++ = '\n';
+  }
   out.resize(static_cast<size_t>(p - out.data()));
 }
 
