@@ -9,9 +9,7 @@
 
 using namespace calctrail;
 
-namespace {
-
-std::string escapedByteByByte(const std::string& s) {
+static std::string escapedByteByByte(const std::string& s) {
   std::string out;
   for (const char c : s) {
     if (c == '&') out += "&amp;";
@@ -23,8 +21,6 @@ std::string escapedByteByByte(const std::string& s) {
   }
   return out;
 }
-
-}  // namespace
 
 TEST_CASE("XML escaper: the five characters, and every other byte as it is", "[xml_escape]") {
   CHECK(escapeXml("") == "");
