@@ -57,7 +57,8 @@ std::string code(const std::string& s) {
   if (pad) out += ' ';
   appendEscaped(out, s, [](char c) { return c == '|'; });
   if (pad) out += ' ';
-  return out + fence;
+  out += fence;
+  return out;
 }
 
 // Values for people: "1.5e9 W" as "1.5 × 10⁹ W".
