@@ -36,20 +36,20 @@ const char* greek(std::string_view word) {
   return nullptr;
 }
 
-bool allDigits(const std::string& s) {
+bool allDigits(std::string_view s) {
   return !s.empty() &&
          std::all_of(s.begin(), s.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); });
 }
 
 // Characters of UTF-8 text (for the single-letter rule and widths).
-size_t glyphs(const std::string& s) {
+size_t glyphs(std::string_view s) {
   size_t n = 0;
   for (char c : s)
     if ((static_cast<unsigned char>(c) & 0xC0) != 0x80) ++n;
   return n;
 }
 
-std::string mi(const std::string& text, bool upright = false) {
+std::string mi(std::string_view text, bool upright = false) {
   // A one-letter <mi> is italic by default: upright where ISO 80000-2 wants it.
   const bool one = glyphs(text) == 1;
   std::string out = one && upright ? "<mi mathvariant=\"normal\">" : "<mi>";
@@ -59,7 +59,7 @@ std::string mi(const std::string& text, bool upright = false) {
 }
 
 // `inner` between `open` and `close`, in one string grown once.
-std::string element(std::string_view open, const std::string& inner, std::string_view close) {
+std::string element(std::string_view open, std::string_view inner, std::string_view close) {
   std::string out;
   out.reserve(open.size() + inner.size() + close.size());
   out.append(open).append(inner).append(close);
@@ -76,33 +76,33 @@ struct NameParts {
   double base_w = 0, sub_w = 0;
 };
 
-std::string subscriptPart(const std::string& part, double* w) {
+std::string subscriptPart(std::string_view part, double* w) {
   if (const char* g = greek(part)) {
     *w += 0.4;
     return mi(g);
   }
   *w += 0.4 * static_cast<double>(glyphs(part));
-  if (allDigits(part)) return "<mn>" + part + "</mn>";
+  if (allDigits(part)) return element("<mn>", part, "</mn>");
   return mi(part, true);
 }
 
 NameParts splitName(const std::string& name) {
   NameParts n;
-  std::vector<std::string> parts;
+  std::vector<std::string_view> parts;  // views of `name`
   parts.reserve(static_cast<size_t>(std::count(name.begin(), name.end(), '_')) + 2);  // and an index split off ("F1")
   size_t i = 0;
   while (i <= name.size()) {
     size_t j = name.find('_', i);
     if (j == std::string::npos) j = name.size();
-    if (j > i) parts.push_back(name.substr(i, j - i));
+    if (j > i) parts.push_back(std::string_view(name).substr(i, j - i));
     i = j + 1;
   }
   // Subscripts belong to symbols: a letter or a Greek name ("d_m", "eta_gear").
   // A word ("frac_deep", "sum_of_terms") is shown as written.
-  auto symbolLike = [](const std::string& head) {
+  auto symbolLike = [](std::string_view head) {
     size_t k = head.size();
     while (k > 0 && std::isdigit(static_cast<unsigned char>(head[k - 1]))) --k;
-    const std::string letters = head.substr(0, k);
+    const std::string_view letters = head.substr(0, k);
     return glyphs(letters) == 1 || greek(letters) != nullptr;
   };
   // Two Latin letters with no underscore ("dm", "fc", "Sy", as the library
@@ -110,18 +110,18 @@ NameParts splitName(const std::string& name) {
   // subscript, so that a library formula and a worksheet set them alike.
   if (parts.size() == 1 && name.size() == 2 && std::isalpha(static_cast<unsigned char>(name[0])) &&
       std::islower(static_cast<unsigned char>(name[1])) && !greek(name))
-    parts = {name.substr(0, 1), name.substr(1)};
+    parts = {std::string_view(name).substr(0, 1), std::string_view(name).substr(1)};
   if (parts.empty() || !symbolLike(parts[0])) {
     n.base = mi(name);
     n.base_w = 0.55 * static_cast<double>(glyphs(name));
     return n;
   }
-  std::string head = parts[0];
+  std::string_view head = parts[0];
   // "F1", "d2", "alpha1": a letter (or Greek name) and an index.
   if (parts.size() == 1) {
     size_t k = head.size();
     while (k > 0 && std::isdigit(static_cast<unsigned char>(head[k - 1]))) --k;
-    const std::string letters = head.substr(0, k);
+    const std::string_view letters = head.substr(0, k);
     if (k > 0 && k < head.size() && (letters.size() == 1 || greek(letters))) {
       parts.push_back(head.substr(k));
       head = letters;
