@@ -97,7 +97,8 @@ class LineParser {
       reportBadStart(p, end);
       return false;
     }
-    const std::string word = s.substr(p, word_end - p);
+    // A view, so that telling the statement words apart copies nothing.
+    const std::string_view word = std::string_view(s).substr(p, word_end - p);
     const uint32_t next = skipSpace(word_end, end);
     const char nc = next < end ? s[next] : '\0';
     const bool definition_follows = nc == '=' || nc == '[';
@@ -120,12 +121,13 @@ class LineParser {
       }
       return true;
     }
-    if (nc == ':') return parseMeta(st, word, p, word_end, next, end);
+    if (nc == ':') return parseMeta(st, std::string(word), p, word_end, next, end);
     if (definition_follows) return parseDefinition(st, line, word, p, word_end, next, end);
     if (next == end) {
-      diags_->error(file_, p, word_end, "`" + word + "` alone is not a statement; define a quantity with `" + word + " = ...`");
+      const std::string w(word);
+      diags_->error(file_, p, word_end, "`" + w + "` alone is not a statement; define a quantity with `" + w + " = ...`");
     } else {
-      diags_->error(file_, next, next + 1, "expected `=` after the name `" + word + "` (or `[unit] =`)");
+      diags_->error(file_, next, next + 1, "expected `=` after the name `" + std::string(word) + "` (or `[unit] =`)");
     }
     return false;
   }
@@ -235,7 +237,7 @@ class LineParser {
     return true;
   }
 
-  bool parseDefinition(Statement* st, int line, const std::string& name, uint32_t p, uint32_t word_end,
+  bool parseDefinition(Statement* st, int line, std::string_view name, uint32_t p, uint32_t word_end,
                        uint32_t next, uint32_t end) {
     const std::string& s = file_.bytes();
     Quantity q;
@@ -256,7 +258,7 @@ class LineParser {
     }
     const uint32_t expr_begin = at + 1;
     if (skipSpace(expr_begin, body_end) == body_end) {
-      diags_->error(file_, at, at + 1, "`" + name + " =` needs a formula or a value after `=`");
+      diags_->error(file_, at, at + 1, "`" + q.name + " =` needs a formula or a value after `=`");
       return false;
     }
     if (name == "pi") {
