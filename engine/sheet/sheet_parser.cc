@@ -271,7 +271,7 @@ class LineParser {
     return addQuantity(st, std::move(q));
   }
 
-  bool addQuantity(Statement* st, Quantity q) {
+  bool addQuantity(Statement* st, Quantity&& q) {  // moved once, into the sheet
     const int existing = sheet_->find(q.name);
     if (existing >= 0) {
       diags_->error(file_, q.name_begin, q.name_end,

@@ -186,8 +186,11 @@ const std::vector<Spelling>& spellings() {
       v.emplace_back(d.name, &d);
       for (const std::string& a : d.aliases) v.emplace_back(a, &d);
     }
-    // Stable, so a spelling given twice finds its first unit, as the map's emplace kept it.
-    std::stable_sort(v.begin(), v.end(), [](const Spelling& a, const Spelling& b) { return a.first < b.first; });
+    // A spelling given twice finds its first unit, as a map's emplace would keep it:
+    // the units lie in one array, in table order.
+    std::sort(v.begin(), v.end(), [](const Spelling& a, const Spelling& b) {
+      return a.first != b.first ? a.first < b.first : a.second < b.second;
+    });
     return v;
   }();
   return sorted;
