@@ -1,12 +1,12 @@
 #include "engine/sheet/expr_parser.h"
 
 #include <cctype>
-#include <cerrno>
 #include <cmath>
 #include <cstdlib>
 
 #include "engine/sheet/control_chars.h"
 #include "engine/sheet/name_lexer.h"
+#include "engine/sheet/number_literal.h"
 #include "engine/units/unit_parser.h"
 #include "engine/units/unit_table.h"
 #include "engine/util/utf8.h"
@@ -398,7 +398,8 @@ uint32_t ExprParser::fractionEnd(uint32_t begin, uint32_t whole_end, std::string
   const uint32_t den_end = plainIntegerEnd(num_end + 1);
   if (den_end == 0) return 0;
   const auto read = [&](uint32_t b, uint32_t e) {
-    return std::strtod(std::string(src_.substr(b, e - b)).c_str(), nullptr);
+    bool in_range = true;  // not asked: the fraction's value is checked whole, below
+    return decimalValue(src_.substr(b, e - b), &in_range);
   };
   const double whole = *mixed ? read(begin, whole_end) : 0.0;
   const double num = read(num_begin, num_end), den = read(num_end + 1, den_end);
@@ -415,9 +416,9 @@ ExprPtr ExprParser::parseNumber() {
   e->kind = ExprKind::Number;
   e->begin = begin;
   e->text.assign(src_.substr(begin, p - begin));
-  errno = 0;
-  e->number = std::strtod(e->text.c_str(), nullptr);
-  if (errno == ERANGE || !std::isfinite(e->number)) {
+  bool in_range = true;
+  e->number = decimalValue(e->text, &in_range);
+  if (!in_range || !std::isfinite(e->number)) {
     fail(begin, p, "the number " + e->text + " is out of range");
     return nullptr;
   }
