@@ -71,7 +71,9 @@ class LineParser {
     const std::string_view text = file_.lineText(line);
     uint32_t begin = file_.lineStart(line);
     const uint32_t end = begin + static_cast<uint32_t>(text.size());
-    const size_t bad = findInvalidUtf8(text);
+    // Most lines are printable ASCII alone, with nothing in them to reject: one scan says so.
+    const bool plain = printableAsciiPrefix(text) == text.size();
+    const size_t bad = plain ? std::string_view::npos : findInvalidUtf8(text);
     if (bad != std::string_view::npos) {
       char hex[8];
       std::snprintf(hex, sizeof hex, "0x%02X", static_cast<unsigned char>(text[bad]));
@@ -79,7 +81,7 @@ class LineParser {
                     std::string("byte ") + hex + " is not UTF-8; save the worksheet as UTF-8");
       return false;
     }
-    if (!rejectControlChars(line, begin, text)) return false;
+    if (!rejectControlChars(line, begin, text, plain)) return false;
     if (line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) begin += 3;  // byte-order mark
     uint32_t p = skipSpace(begin, end);
     if (p == end) {
@@ -134,10 +136,11 @@ class LineParser {
 
   // A control character anywhere in the line, or a CR just before the end of
   // the file, which SourceFile takes as part of a line end but only CRLF is one.
-  bool rejectControlChars(int line, uint32_t begin, std::string_view text) {
+  // `plain`: the line is printable ASCII alone.
+  bool rejectControlChars(int line, uint32_t begin, std::string_view text, bool plain) {
     const std::string& s = file_.bytes();
     size_t length = 0;
-    size_t at = findControlChar(text, &length);
+    size_t at = plain ? std::string_view::npos : findControlChar(text, &length);
     if (at == std::string_view::npos) {
       const size_t after = begin + text.size();
       if (after + 1 != s.size() || s[after] != '\r' || line != file_.lineCount()) return true;
