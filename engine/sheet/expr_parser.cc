@@ -660,9 +660,10 @@ ExprPtr ExprParser::parseNameOrCall() {
   const uint32_t name_end = scanName(pos_);
   auto e = std::make_unique<Expr>();
   e->begin = begin;
-  e->text.assign(src_.substr(begin, name_end - begin));
+  const std::string_view name = src_.substr(begin, name_end - begin);
+  e->text.assign(name);
   pos_ = name_end;
-  if (e->text == "pi" && !(pos_ < end_ && src_[pos_] == '(')) {
+  if (name == "pi" && !(pos_ < end_ && src_[pos_] == '(')) {
     e->kind = ExprKind::Pi;
     e->end = pos_;
     return e;
