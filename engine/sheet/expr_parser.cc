@@ -296,8 +296,10 @@ ExprPtr ExprParser::parsePower() {
     if (!exponent) return nullptr;
     return makeBinary(ExprKind::Power, std::move(base), std::move(exponent));
   }
-  if (src_.substr(pos_, 2) == "\u00B2" || src_.substr(pos_, 2) == "\u00B3") {
-    // x² and x³ as typed in documents.
+  // x² and x³ as typed in documents (the lead byte first: most operands are followed by ASCII).
+  const bool superscript = pos_ < src_.size() && src_[pos_] == '\xC2' &&
+                           (src_.substr(pos_, 2) == "\u00B2" || src_.substr(pos_, 2) == "\u00B3");
+  if (superscript) {
     auto two = std::make_unique<Expr>();
     two->kind = ExprKind::Number;
     two->begin = pos_;
