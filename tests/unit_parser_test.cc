@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "engine/units/unit_parser.h"
+#include "engine/units/unit_table.h"
 
 using namespace calctrail;
 
@@ -281,4 +282,46 @@ TEST_CASE("unit parser: units run together, split into known units", "[units][pa
   // A plural is a plural: "lbs" is pounds before it is lb*s.
   REQUIRE_FALSE(parseUnit("lbs", &u, &err, "3"));
   CHECK(err.message.rfind("unknown unit `lbs`; did you mean `3 lb` or `3 lbf`?", 0) == 0);
+}
+
+// parseUnit takes a table name in ASCII letters (or `%`) straight from the
+// table; the same text in brackets always goes through the expression parser.
+// Both must give the same unit, and the same error one byte further on.
+TEST_CASE("unit parser: a plain unit name gives what the expression parser gives", "[units][parser]") {
+  std::vector<std::string> words = {"", "%", "m", "mm", "kN", "degC", "ddegF", "K", "rpm", "Nm", "lbs", "mN",
+                                    "kkm", "x", "Mm", "um", "\u00B5m", "N_m", "deg"};
+  for (const UnitDef& u : unitTable()) {
+    words.push_back(u.name);
+    words.push_back(u.name + "s");
+    words.push_back("k" + u.name);
+    for (const std::string& a : u.aliases) words.push_back(a);
+  }
+  std::mt19937 random(20261204);
+  std::uniform_int_distribution<int> length(1, 5), letter(0, 51);
+  for (int k = 0; k < 2000; ++k) {
+    std::string w(static_cast<size_t>(length(random)), 'a');
+    for (char& c : w) {
+      const int l = letter(random);
+      c = static_cast<char>(l < 26 ? 'a' + l : 'A' + (l - 26));
+    }
+    words.push_back(w);
+  }
+  for (const std::string& w : words) {
+    for (const std::string_view after : {std::string_view(), std::string_view("5")}) {
+      INFO("unit `" << w << "` after `" << after << "`");
+      Unit plain, parsed;
+      UnitError plain_err, parsed_err;
+      const bool ok = parseUnit(w, &plain, &plain_err, after);
+      REQUIRE(ok == parseUnit("[" + w + "]", &parsed, &parsed_err, after));
+      if (ok) {
+        CHECK(plain.factor == parsed.factor);
+        CHECK(plain.offset == parsed.offset);
+        CHECK(plain.dim == parsed.dim);
+        CHECK(plain.text == parsed.text);
+      } else if (!w.empty()) {
+        CHECK(plain_err.offset + 1 == parsed_err.offset);
+        CHECK(plain_err.message == parsed_err.message);
+      }
+    }
+  }
 }

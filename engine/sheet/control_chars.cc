@@ -2,6 +2,8 @@
 
 #include <cstdio>
 
+#include "engine/util/utf8.h"
+
 namespace calctrail {
 
 namespace {
@@ -30,6 +32,8 @@ bool isForbiddenControl(char32_t c) { return (c < 0x20 && c != '\t') || (c >= 0x
 
 size_t findControlChar(std::string_view s, size_t* length) {
   for (size_t i = 0; i < s.size(); ++i) {
+    i += printableAsciiPrefix(s.substr(i));  // printable ASCII holds no control character
+    if (i == s.size()) break;
     if (const size_t n = controlAt(s, i)) {
       *length = n;
       return i;

@@ -1,12 +1,12 @@
 #include "engine/sheet/expr_parser.h"
 
 #include <cctype>
-#include <cerrno>
 #include <cmath>
 #include <cstdlib>
 
 #include "engine/sheet/control_chars.h"
 #include "engine/sheet/name_lexer.h"
+#include "engine/sheet/number_literal.h"
 #include "engine/units/unit_parser.h"
 #include "engine/units/unit_table.h"
 #include "engine/util/utf8.h"
@@ -296,8 +296,10 @@ ExprPtr ExprParser::parsePower() {
     if (!exponent) return nullptr;
     return makeBinary(ExprKind::Power, std::move(base), std::move(exponent));
   }
-  if (src_.substr(pos_, 2) == "\u00B2" || src_.substr(pos_, 2) == "\u00B3") {
-    // x² and x³ as typed in documents.
+  // x² and x³ as typed in documents (the lead byte first: most operands are followed by ASCII).
+  const bool superscript = pos_ < src_.size() && src_[pos_] == '\xC2' &&
+                           (src_.substr(pos_, 2) == "\u00B2" || src_.substr(pos_, 2) == "\u00B3");
+  if (superscript) {
     auto two = std::make_unique<Expr>();
     two->kind = ExprKind::Number;
     two->begin = pos_;
@@ -398,7 +400,8 @@ uint32_t ExprParser::fractionEnd(uint32_t begin, uint32_t whole_end, std::string
   const uint32_t den_end = plainIntegerEnd(num_end + 1);
   if (den_end == 0) return 0;
   const auto read = [&](uint32_t b, uint32_t e) {
-    return std::strtod(std::string(src_.substr(b, e - b)).c_str(), nullptr);
+    bool in_range = true;  // not asked: the fraction's value is checked whole, below
+    return decimalValue(src_.substr(b, e - b), &in_range);
   };
   const double whole = *mixed ? read(begin, whole_end) : 0.0;
   const double num = read(num_begin, num_end), den = read(num_end + 1, den_end);
@@ -415,9 +418,9 @@ ExprPtr ExprParser::parseNumber() {
   e->kind = ExprKind::Number;
   e->begin = begin;
   e->text.assign(src_.substr(begin, p - begin));
-  errno = 0;
-  e->number = std::strtod(e->text.c_str(), nullptr);
-  if (errno == ERANGE || !std::isfinite(e->number)) {
+  bool in_range = true;
+  e->number = decimalValue(e->text, &in_range);
+  if (!in_range || !std::isfinite(e->number)) {
     fail(begin, p, "the number " + e->text + " is out of range");
     return nullptr;
   }
@@ -659,9 +662,10 @@ ExprPtr ExprParser::parseNameOrCall() {
   const uint32_t name_end = scanName(pos_);
   auto e = std::make_unique<Expr>();
   e->begin = begin;
-  e->text.assign(src_.substr(begin, name_end - begin));
+  const std::string_view name = src_.substr(begin, name_end - begin);
+  e->text.assign(name);
   pos_ = name_end;
-  if (e->text == "pi" && !(pos_ < end_ && src_[pos_] == '(')) {
+  if (name == "pi" && !(pos_ < end_ && src_[pos_] == '(')) {
     e->kind = ExprKind::Pi;
     e->end = pos_;
     return e;

@@ -71,7 +71,9 @@ class LineParser {
     const std::string_view text = file_.lineText(line);
     uint32_t begin = file_.lineStart(line);
     const uint32_t end = begin + static_cast<uint32_t>(text.size());
-    const size_t bad = findInvalidUtf8(text);
+    // Most lines are printable ASCII alone, with nothing in them to reject: one scan says so.
+    const bool plain = printableAsciiPrefix(text) == text.size();
+    const size_t bad = plain ? std::string_view::npos : findInvalidUtf8(text);
     if (bad != std::string_view::npos) {
       char hex[8];
       std::snprintf(hex, sizeof hex, "0x%02X", static_cast<unsigned char>(text[bad]));
@@ -79,7 +81,7 @@ class LineParser {
                     std::string("byte ") + hex + " is not UTF-8; save the worksheet as UTF-8");
       return false;
     }
-    if (!rejectControlChars(line, begin, text)) return false;
+    if (!rejectControlChars(line, begin, text, plain)) return false;
     if (line == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) begin += 3;  // byte-order mark
     uint32_t p = skipSpace(begin, end);
     if (p == end) {
@@ -97,7 +99,8 @@ class LineParser {
       reportBadStart(p, end);
       return false;
     }
-    const std::string word = s.substr(p, word_end - p);
+    // A view, so that telling the statement words apart copies nothing.
+    const std::string_view word = std::string_view(s).substr(p, word_end - p);
     const uint32_t next = skipSpace(word_end, end);
     const char nc = next < end ? s[next] : '\0';
     const bool definition_follows = nc == '=' || nc == '[';
@@ -120,22 +123,24 @@ class LineParser {
       }
       return true;
     }
-    if (nc == ':') return parseMeta(st, word, p, word_end, next, end);
+    if (nc == ':') return parseMeta(st, std::string(word), p, word_end, next, end);
     if (definition_follows) return parseDefinition(st, line, word, p, word_end, next, end);
     if (next == end) {
-      diags_->error(file_, p, word_end, "`" + word + "` alone is not a statement; define a quantity with `" + word + " = ...`");
+      const std::string w(word);
+      diags_->error(file_, p, word_end, "`" + w + "` alone is not a statement; define a quantity with `" + w + " = ...`");
     } else {
-      diags_->error(file_, next, next + 1, "expected `=` after the name `" + word + "` (or `[unit] =`)");
+      diags_->error(file_, next, next + 1, "expected `=` after the name `" + std::string(word) + "` (or `[unit] =`)");
     }
     return false;
   }
 
   // A control character anywhere in the line, or a CR just before the end of
   // the file, which SourceFile takes as part of a line end but only CRLF is one.
-  bool rejectControlChars(int line, uint32_t begin, std::string_view text) {
+  // `plain`: the line is printable ASCII alone.
+  bool rejectControlChars(int line, uint32_t begin, std::string_view text, bool plain) {
     const std::string& s = file_.bytes();
     size_t length = 0;
-    size_t at = findControlChar(text, &length);
+    size_t at = plain ? std::string_view::npos : findControlChar(text, &length);
     if (at == std::string_view::npos) {
       const size_t after = begin + text.size();
       if (after + 1 != s.size() || s[after] != '\r' || line != file_.lineCount()) return true;
@@ -235,7 +240,7 @@ class LineParser {
     return true;
   }
 
-  bool parseDefinition(Statement* st, int line, const std::string& name, uint32_t p, uint32_t word_end,
+  bool parseDefinition(Statement* st, int line, std::string_view name, uint32_t p, uint32_t word_end,
                        uint32_t next, uint32_t end) {
     const std::string& s = file_.bytes();
     Quantity q;
@@ -256,7 +261,7 @@ class LineParser {
     }
     const uint32_t expr_begin = at + 1;
     if (skipSpace(expr_begin, body_end) == body_end) {
-      diags_->error(file_, at, at + 1, "`" + name + " =` needs a formula or a value after `=`");
+      diags_->error(file_, at, at + 1, "`" + q.name + " =` needs a formula or a value after `=`");
       return false;
     }
     if (name == "pi") {
@@ -269,7 +274,7 @@ class LineParser {
     return addQuantity(st, std::move(q));
   }
 
-  bool addQuantity(Statement* st, Quantity q) {
+  bool addQuantity(Statement* st, Quantity&& q) {  // moved once, into the sheet
     const int existing = sheet_->find(q.name);
     if (existing >= 0) {
       diags_->error(file_, q.name_begin, q.name_end,

@@ -15,9 +15,11 @@ SourceFile::SourceFile(std::string path, std::string bytes)
   // Offsets are 32-bit throughout the parser; a larger text would wrap them.
   if (bytes_.size() > kMaxSourceBytes) throw std::length_error(path_ + ": worksheet over the size limit");
   line_starts_.push_back(0);
-  const uint32_t size = static_cast<uint32_t>(bytes_.size());
-  for (uint32_t i = 0; i < size; ++i)
-    if (bytes_[i] == '\n' && i + 1 < size) line_starts_.push_back(i + 1);
+  const char* const data = bytes_.data();
+  const char* const end = data + bytes_.size();
+  for (const char* p = data; (p = static_cast<const char*>(std::memchr(p, '\n', static_cast<size_t>(end - p))));) {
+    if (++p < end) line_starts_.push_back(static_cast<uint32_t>(p - data));
+  }
 }
 
 std::string_view SourceFile::lineText(int line) const {
@@ -65,20 +67,23 @@ class LimitedText {
       return false;
     }
     total_ += n;
-    for (size_t i = 0; i < n; ++i) {
-      // Lines are numbered by LF, as SourceFile numbers them; a CR also ends the
-      // measured run, so a file with CR line endings is not one long line.
-      if (data[i] == '\n') {
+    // Lines are numbered by LF, as SourceFile numbers them; a CR also ends the
+    // measured run, so a file with CR line endings is not one long line.
+    // memchr finds both a word at a time.
+    for (const char *p = data, *end = data + n; p < end;) {
+      const char* lf = static_cast<const char*>(std::memchr(p, '\n', static_cast<size_t>(end - p)));
+      const char* stop = lf ? lf : end;
+      for (const char* cr; (cr = static_cast<const char*>(std::memchr(p, '\r', static_cast<size_t>(stop - p))));) {
+        if (!addToRun(static_cast<size_t>(cr - p), error)) return false;
+        run_ = 0;
+        p = cr + 1;
+      }
+      if (!addToRun(static_cast<size_t>(stop - p), error)) return false;
+      if (lf) {
         ++line_;
         run_ = 0;
-      } else if (data[i] == '\r') {
-        run_ = 0;
-      } else if (++run_ > kMaxLineBytes) {
-        *error = {"line " + std::to_string(line_) + " is longer than " + sizeText(kMaxLineBytes) +
-                      ", the limit for one line (docs/limits.md)",
-                  line_};
-        return false;
       }
+      p = lf ? lf + 1 : end;
     }
     if (keep_) text_.append(data, n);
     return true;
@@ -92,6 +97,16 @@ class LimitedText {
   }
 
  private:
+  // `n` more bytes of the run of the current line, with neither LF nor CR among them.
+  bool addToRun(size_t n, ReadError* error) {
+    run_ += n;
+    if (run_ <= kMaxLineBytes) return true;
+    *error = {"line " + std::to_string(line_) + " is longer than " + sizeText(kMaxLineBytes) +
+                  ", the limit for one line (docs/limits.md)",
+              line_};
+    return false;
+  }
+
   std::string what_;   // names the input in messages: "the file", "standard input"
   bool keep_;          // whether the bytes are kept, or only checked
   std::string text_;   // the bytes so far, when kept

@@ -10,21 +10,30 @@ namespace calctrail {
 namespace {
 
 // Every name in `e` gets `prefix`: a template's `F` is the instance's `left.F`.
-void qualifyNames(Expr* e, const std::string& prefix) {
+// `stack` is the walk's own, kept by the caller from one tree to the next.
+void qualifyNames(Expr* e, const std::string& prefix, std::vector<Expr*>* stack) {
   if (prefix.empty()) return;
-  std::vector<Expr*> stack{e};
-  while (!stack.empty()) {  // iterative, as every walk here
-    Expr* x = stack.back();
-    stack.pop_back();
+  stack->assign(1, e);
+  while (!stack->empty()) {  // iterative, as every walk here
+    Expr* x = stack->back();
+    stack->pop_back();
     if (x->kind == ExprKind::Name) x->text.insert(0, prefix);
-    for (ExprPtr& a : x->args) stack.push_back(a.get());
+    for (ExprPtr& a : x->args) stack->push_back(a.get());
   }
 }
 
-ExprPtr qualifiedCopy(const Expr& e, const std::string& prefix) {
+ExprPtr qualifiedCopy(const Expr& e, const std::string& prefix, std::vector<Expr*>* stack) {
   ExprPtr copy = cloneExpr(e);
-  qualifyNames(copy.get(), prefix);
+  qualifyNames(copy.get(), prefix, stack);
   return copy;
+}
+
+// Room for `more` elements in `v`, grown by doubling as push_back would, so
+// that each instance's quantities and checks are added without regrowing
+// the vector on the way.
+template <class T>
+void reserveMore(std::vector<T>* v, size_t more) {
+  if (v->size() + more > v->capacity()) v->reserve(std::max(v->size() + more, 2 * v->capacity()));
 }
 
 std::string baseName(const std::string& path) {
@@ -151,6 +160,8 @@ class Expander {
       error(u, b.name_begin, b.name_end, msg);
     }
     const std::string own_prefix = name + ".";
+    reserveMore(&out_->quantities, ts.quantities.size());
+    reserveMore(&out_->checks, ts.checks.size());
     for (size_t j = 0; j < ts.quantities.size(); ++j) {
       const Quantity& tq = ts.quantities[j];
       Quantity q;
@@ -172,7 +183,7 @@ class Expander {
       const UseBinding* b = binding_of[j];
       InstanceParam param;
       if (b) {
-        q.expr = qualifiedCopy(*b->expr, u.prefix);
+        q.expr = qualifiedCopy(*b->expr, u.prefix, &walk_);
         q.bound = true;
         q.required = false;
         q.expr_file = u.file;
@@ -194,7 +205,7 @@ class Expander {
                   tq.unit_written + "] of " + rel + ", which has no default: add `with " + tq.name +
                   " = ...`");
       } else {
-        q.expr = qualifiedCopy(*tq.expr, own_prefix);
+        q.expr = qualifiedCopy(*tq.expr, own_prefix, &walk_);
       }
       const int qi = static_cast<int>(out_->quantities.size());
       if (out_->find(q.name) >= 0) {
@@ -215,8 +226,8 @@ class Expander {
       c.name = own_prefix + tc.name;
       c.name_begin = tc.name_begin;
       c.name_end = tc.name_end;
-      c.lhs = qualifiedCopy(*tc.lhs, own_prefix);
-      c.rhs = qualifiedCopy(*tc.rhs, own_prefix);
+      c.lhs = qualifiedCopy(*tc.lhs, own_prefix, &walk_);
+      c.rhs = qualifiedCopy(*tc.rhs, own_prefix, &walk_);
       c.op = tc.op;
       c.op_begin = tc.op_begin;
       c.description = tc.description;
@@ -259,6 +270,7 @@ class Expander {
   Diagnostics* diags_;
   std::vector<std::string> chain_;        // read paths of the files being expanded, the main sheet first
   std::vector<std::string> chain_names_;  // the same, as the cycle message names them
+  std::vector<Expr*> walk_;               // qualifyNames' stack
 };
 
 }  // namespace

@@ -1,17 +1,18 @@
 #include "engine/template/template_path.h"
 
+#include <string_view>
 #include <vector>
 
 namespace calctrail {
 
 std::string normalizePath(const std::string& path) {
   const bool absolute = !path.empty() && path[0] == '/';
-  std::vector<std::string> parts;
+  std::vector<std::string_view> parts;  // views into `path`: no copy of a part until the result
   size_t i = 0;
   while (i <= path.size()) {
     size_t j = path.find('/', i);
     if (j == std::string::npos) j = path.size();
-    const std::string part = path.substr(i, j - i);
+    const std::string_view part = std::string_view(path).substr(i, j - i);
     i = j + 1;
     if (part.empty() || part == ".") continue;
     if (part == ".." && !parts.empty() && parts.back() != "..") {
@@ -22,7 +23,11 @@ std::string normalizePath(const std::string& path) {
     parts.push_back(part);
   }
   std::string out = absolute ? "/" : "";
-  for (size_t k = 0; k < parts.size(); ++k) out += (k ? "/" : "") + parts[k];
+  out.reserve(path.size());
+  for (size_t k = 0; k < parts.size(); ++k) {
+    if (k) out += '/';
+    out += parts[k];
+  }
   return out;
 }
 

@@ -77,10 +77,13 @@ constexpr BaseSymbol kSymbolOrder[] = {
     {Base::Luminous, "cd"}, {Base::Angle, "rad"},
 };
 
-std::string factorText(const char* symbol, int power) {
-  std::string s = symbol;
-  if (power != 1) s += "^" + std::to_string(power);
-  return s;
+// Appends `symbol` with its power ("m", "s^2") to *out.
+void appendFactor(std::string* out, const char* symbol, int power) {
+  *out += symbol;
+  if (power != 1) {
+    *out += '^';
+    *out += std::to_string(power);
+  }
 }
 
 }  // namespace
@@ -142,23 +145,34 @@ Dimension Dimension::withoutAngle() const {
 }
 
 std::string Dimension::siSymbol() const {
-  std::string num, den;
+  // Written into one string, numerator first and then the denominator, with
+  // no string made for a part (most symbols fit the string's own buffer): the
+  // trail asks for it once per step.
+  std::string out;
   int den_count = 0;
   for (const BaseSymbol& b : kSymbolOrder) {
     const int e = exponent(b.base);
     if (e > 0) {
-      if (!num.empty()) num += "*";
-      num += factorText(b.symbol, e);
+      if (!out.empty()) out += '*';
+      appendFactor(&out, b.symbol, e);
     } else if (e < 0) {
-      if (!den.empty()) den += "*";
-      den += factorText(b.symbol, -e);
       ++den_count;
     }
   }
-  if (num.empty()) num = "1";
-  if (den.empty()) return num;
+  if (out.empty()) out = "1";
+  if (den_count == 0) return out;
   // Parenthesised so that the text reads (and parses) as one quotient.
-  return num + "/" + (den_count > 1 ? "(" + den + ")" : den);
+  out += den_count > 1 ? "/(" : "/";
+  bool first = true;
+  for (const BaseSymbol& b : kSymbolOrder) {
+    const int e = exponent(b.base);
+    if (e >= 0) continue;
+    if (!first) out += '*';
+    first = false;
+    appendFactor(&out, b.symbol, -e);
+  }
+  if (den_count > 1) out += ')';
+  return out;
 }
 
 std::string Dimension::name() const {

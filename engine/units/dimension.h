@@ -7,6 +7,7 @@
 
 #include <array>
 #include <cstdint>
+#include <cstring>
 #include <string>
 #include <vector>
 
@@ -42,8 +43,10 @@ class Dimension {
   // The n-th root; false (and *out untouched) when an exponent is not a multiple of n.
   bool root(int n, Dimension* out) const;
 
-  bool operator==(const Dimension& o) const { return e_ == o.e_; }
-  bool operator!=(const Dimension& o) const { return e_ != o.e_; }
+  // The eight exponents compared as one 64-bit word: std::array's == is a call
+  // to memcmp, and dimensions are compared at every node of every formula.
+  bool operator==(const Dimension& o) const { return word() == o.word(); }
+  bool operator!=(const Dimension& o) const { return word() != o.word(); }
   bool operator<(const Dimension& o) const { return e_ < o.e_; }
 
   // True when every exponent, angle included, is zero.
@@ -65,6 +68,13 @@ class Dimension {
   std::string preferredSymbol() const;
 
  private:
+  std::uint64_t word() const {
+    static_assert(sizeof e_ == sizeof(std::uint64_t), "eight one-byte exponents");
+    std::uint64_t w;
+    std::memcpy(&w, e_.data(), sizeof w);
+    return w;
+  }
+
   std::array<std::int8_t, kBases> e_{};
 };
 

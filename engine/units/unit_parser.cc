@@ -549,7 +549,28 @@ class Parser {
 
 }  // namespace
 
+namespace {
+
+// The table's unit when `text` is one of its names in ASCII letters alone, or
+// `%`: most units written ("mm", "kN", "rpm"). Its Unit is the table's row, as
+// the parser below would make it, without parsing an expression; anything
+// else (and every error) goes through the parser.
+const UnitDef* plainUnitName(std::string_view text) {
+  if (text.empty() || !(text == "%" || std::all_of(text.begin(), text.end(), isAsciiLetter))) return nullptr;
+  const UnitDef* def = findUnit(text);
+  return def && std::isfinite(def->factor) && def->factor > 0.0 ? def : nullptr;
+}
+
+}  // namespace
+
 bool parseUnit(std::string_view text, Unit* out, UnitError* err, std::string_view after_number) {
+  if (const UnitDef* def = plainUnitName(text)) {
+    out->factor = def->factor;
+    out->offset = def->offset;
+    out->dim = def->dim;
+    out->text = def->name;
+    return true;
+  }
   Parser parser(text, err, after_number);
   return parser.run(out);
 }

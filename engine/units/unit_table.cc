@@ -58,6 +58,7 @@ std::vector<UnitDef> buildTable() {
   const Dimension temperature = dims(0, 0, 0, 0, 1);
 
   std::vector<UnitDef> t;
+  t.reserve(64);  // the whole table without regrowing it
   // Length.
   t.push_back(unit("m", {}, 1.0, length, "length", "SI base unit", kSiBase, "meter"));
   t.push_back(unit("km", {}, 1e3, length, "length", "1000 m", kSiPrefix, "kilometer"));
@@ -172,16 +173,32 @@ std::vector<UnitDef> buildTable() {
   return t;
 }
 
-const std::unordered_map<std::string, const UnitDef*>& spellings() {
-  static const std::unordered_map<std::string, const UnitDef*> map = [] {
-    std::unordered_map<std::string, const UnitDef*> m;
+// Every name and alias with its unit, sorted by length and then by bytes
+// (spellingBefore). A sorted array of views into the table: built with one
+// allocation and searched without copying the name looked up, where a hash
+// map of strings made a node and a copy per spelling (it is built at every
+// start-up, docs/performance.md).
+using Spelling = std::pair<std::string_view, const UnitDef*>;
+// Length first: most steps of a search then compare two sizes, not two texts.
+bool spellingBefore(std::string_view a, std::string_view b) {
+  return a.size() != b.size() ? a.size() < b.size() : a < b;
+}
+const std::vector<Spelling>& spellings() {
+  static const std::vector<Spelling> sorted = [] {
+    std::vector<Spelling> v;
+    v.reserve(128);
     for (const UnitDef& d : unitTable()) {
-      m.emplace(d.name, &d);
-      for (const std::string& a : d.aliases) m.emplace(a, &d);
+      v.emplace_back(d.name, &d);
+      for (const std::string& a : d.aliases) v.emplace_back(a, &d);
     }
-    return m;
+    // A spelling given twice finds its first unit, as a map's emplace would keep it:
+    // the units lie in one array, in table order.
+    std::sort(v.begin(), v.end(), [](const Spelling& a, const Spelling& b) {
+      return a.first != b.first ? spellingBefore(a.first, b.first) : a.second < b.second;
+    });
+    return v;
   }();
-  return map;
+  return sorted;
 }
 
 // Names and ASCII aliases: what a suggestion may offer.
@@ -257,9 +274,10 @@ const std::vector<UnitDef>& unitTable() {
 }
 
 const UnitDef* findUnit(std::string_view name) {
-  const auto& map = spellings();
-  auto it = map.find(std::string(name));
-  return it == map.end() ? nullptr : it->second;
+  const auto& sorted = spellings();
+  auto it = std::lower_bound(sorted.begin(), sorted.end(), name,
+                             [](const Spelling& s, std::string_view n) { return spellingBefore(s.first, n); });
+  return it == sorted.end() || it->first != name ? nullptr : it->second;
 }
 
 std::vector<std::string> suggestUnits(std::string_view name, size_t max) {

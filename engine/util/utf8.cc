@@ -1,6 +1,8 @@
 #include "engine/util/utf8.h"
 
+#include <cstdint>
 #include <cstdio>
+#include <cstring>
 
 namespace calctrail {
 
@@ -32,10 +34,28 @@ Utf8Char readUtf8(std::string_view s, size_t i) {
   return {cp, n, true};
 }
 
+size_t printableAsciiPrefix(std::string_view s) {
+  // Eight bytes a step. In each word, a byte below 0x20 sets its top bit in
+  // (w - 0x20..20) & ~w, and one above 0x7E in (w + 0x01..01) | w; a borrow
+  // or carry out of a byte so marked may mark the next as well, but none
+  // marks a word that holds no such byte. The bytes loop finds which it is.
+  constexpr uint64_t kOnes = 0x0101010101010101u, kTops = 0x8080808080808080u;
+  size_t i = 0;
+  for (; s.size() - i >= 8; i += 8) {
+    uint64_t w;
+    std::memcpy(&w, s.data() + i, 8);
+    if ((((w - kOnes * 0x20) & ~w) | ((w + kOnes) | w)) & kTops) break;
+  }
+  while (i < s.size() && static_cast<unsigned char>(s[i]) >= 0x20 && static_cast<unsigned char>(s[i]) <= 0x7E) ++i;
+  return i;
+}
+
 size_t findInvalidUtf8(std::string_view s) {
   for (size_t i = 0; i < s.size();) {
+    i += printableAsciiPrefix(s.substr(i));
+    if (i == s.size()) break;
     if (static_cast<unsigned char>(s[i]) < 0x80) {
-      ++i;  // ASCII, most of any worksheet, without the call
+      ++i;  // a TAB or another control byte: ASCII, so UTF-8
       continue;
     }
     const Utf8Char c = readUtf8(s, i);

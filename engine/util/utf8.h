@@ -31,6 +31,12 @@ Utf8Char readUtf8(std::string_view s, size_t i);
 /// Offset of the first byte that is not part of valid UTF-8, or npos.
 size_t findInvalidUtf8(std::string_view s);
 
+/// The length of the run of printable ASCII (0x20 to 0x7E) at the start of
+/// `s`: most of any worksheet, and text with nothing in it to reject, so the
+/// scans over whole files (this one's, the control characters') skip it a
+/// word at a time.
+size_t printableAsciiPrefix(std::string_view s);
+
 /// readUtf8's code point at s[i], its byte length in *length.
 inline char32_t decodeUtf8(std::string_view s, size_t i, size_t* length) {
   const Utf8Char c = readUtf8(s, i);
