@@ -145,16 +145,21 @@ std::string numberText(const ShownNumber& n, NumberStyle style) {
 
 std::string formatNumber(double value, int digits) { return numberText(roundNumber(value, digits)); }
 
-std::string joinNumberUnit(const std::string& number, const std::string& unit) {
-  const std::string_view u = unit;  // compared by length first, inline
-  if (u.empty() || u == "1") return number;
+UnitJoin unitJoin(std::string_view unit) {
+  if (unit.empty() || unit == "1") return UnitJoin::None;  // compared by length first, inline
   // SI Brochure: a space between number and unit, "%" included; none
   // before the degree, minute and second of plane angle.
-  if (u == "\u00B0" || u == "\u2032" || u == "\u2033") return number + unit;
+  if (unit == "\u00B0" || unit == "\u2032" || unit == "\u2033") return UnitJoin::Adjoined;
+  return UnitJoin::Spaced;
+}
+
+std::string joinNumberUnit(const std::string& number, const std::string& unit) {
+  const UnitJoin join = unitJoin(unit);
+  if (join == UnitJoin::None) return number;
   std::string out;
   out.reserve(number.size() + 1 + unit.size());
   out += number;
-  out += ' ';
+  if (join == UnitJoin::Spaced) out += ' ';
   out += unit;
   return out;
 }

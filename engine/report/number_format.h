@@ -63,5 +63,9 @@ std::string formatQuantity(double si, const Unit& unit, int digits, bool pretty 
 // "6.4 kN", "15°", "35 %": a number and a unit spelled for people (no unit
 // for plain numbers).
 std::string joinNumberUnit(const std::string& number, const std::string& unit);
+// How joinNumberUnit puts `unit` after a number: not at all (a plain number),
+// right after it ("15°"), or after a space ("6.4 kN").
+enum class UnitJoin { None, Adjoined, Spaced };
+UnitJoin unitJoin(std::string_view unit);
 
 }  // namespace calctrail

@@ -146,8 +146,10 @@ std::string signOffStatement(const Trail& t) {
 void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
   // joinNumberUnit(number, unit), written straight into `out`: the unit with what joins it.
   appendNumber(out, v.number, style);
-  const std::string unit = joinNumberUnit("", v.unit);
-  out.append(unit.data(), unit.data() + unit.size());
+  const UnitJoin join = unitJoin(v.unit);
+  if (join == UnitJoin::None) return;
+  if (join == UnitJoin::Spaced) out.push_back(' ');
+  out.append(v.unit.data(), v.unit.data() + v.unit.size());
 }
 
 std::string valueText(const TrailValue& v, NumberStyle style) {
@@ -192,49 +194,32 @@ TrailValue written(const std::string& literal, double si, double value, const st
   return {value, si, writtenNumber(literal), unit_pretty};
 }
 
-// renderExpr() fills names with text; the trail keeps values apart. Each
-// value goes in as a marker "\x1F<index>\x1F" (no worksheet text holds that
-// byte) and the rendered text is then cut at the markers. renderExpr puts a
-// power's base in parentheses when its text holds a space ((33.00 mm)^2), so
-// the marker holds one exactly when the value's text does.
-constexpr char kMark = '\x1F';
-
-std::string marker(std::vector<TrailValue>* values, TrailValue v) {
-  // valueText(v) holds a space where the number does, or the unit with what joins it to the number.
-  const bool spaced = v.number.digits.find(' ') != std::string::npos ||
-                      v.number.exponent.find(' ') != std::string::npos ||
-                      joinNumberUnit("", v.unit).find(' ') != std::string::npos;
-  values->push_back(std::move(v));
-  std::string m(1, kMark);
-  m += std::to_string(values->size() - 1);
-  if (spaced) m += ' ';
-  m += kMark;
-  return m;
-}
-
-// A value in parentheses when it is negative, as a substituted line needs it.
-std::string markerInLine(std::vector<TrailValue>* values, TrailValue v, bool negative) {
-  const std::string m = marker(values, std::move(v));
-  return negative ? "(" + m + ")" : m;
-}
-
-TrailLine cutAtMarkers(const std::string& text, const std::vector<TrailValue>& values) {
-  TrailLine line;
-  line.reserveValues(values.size());
-  size_t i = 0;
-  while (i < text.size()) {
-    const size_t at = text.find(kMark, i);
-    if (at == std::string::npos) {
-      line.addText(std::string_view(text).substr(i));
-      break;
-    }
-    if (at > i) line.addText(std::string_view(text).substr(i, at - i));
-    const size_t end = text.find(kMark, at + 1);
-    line.addValue(values.at(std::strtoul(text.c_str() + at + 1, nullptr, 10)));
-    i = end + 1;
+// A formula written as a TrailLine: renderExprTo's text with a mark where
+// each value goes (TrailLine::kValueMark), and the values in their order.
+class LineWriter {
+ public:
+  // Puts `v` in the line: in parentheses when it is negative, as a
+  // substituted line needs it, and as a power's base where its text holds a
+  // space ((33.00 mm)^2), as renderExpr puts a name's text.
+  void value(TrailValue v, bool negative, bool power_base, std::string* out) {
+    const bool spaced = v.number.digits.find(' ') != std::string::npos ||
+                        v.number.exponent.find(' ') != std::string::npos ||
+                        v.unit.find(' ') != std::string::npos || unitJoin(v.unit) == UnitJoin::Spaced;
+    const bool wrap = negative || (power_base && spaced);
+    if (wrap) *out += '(';
+    *out += TrailLine::kValueMark;
+    if (wrap) *out += ')';
+    values_.push_back(std::move(v));
   }
-  return line;
-}
+  TrailLine line(std::string marked) { return TrailLine(std::move(marked), std::move(values_)); }
+
+ private:
+  std::vector<TrailValue> values_;
+};
+
+// In a copy of a step's formula, a nested library call becomes a name: this
+// byte and the call's index (no worksheet text holds the byte).
+constexpr char kMark = '\x1F';
 
 // Every call of a library function in a formula, in source order.
 void collectCalls(const Expr& e, std::vector<const Expr*>* out) {
@@ -442,17 +427,19 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   c.with_values.addText(")");
   if (const Expr* formula = parsedFormula(f)) {
     c.pretty = renderExpr(*formula, nullptr, true);
-    std::vector<TrailValue> values;
-    const std::string text = renderExpr(
-        *formula,
-        [&](const Expr& name) {
-          auto it = shown.find(name.text);
-          if (it == shown.end()) return name.text;
-          c.bindings.push_back({&name, it->second.first, it->second.second});
-          return markerInLine(&values, it->second.first, it->second.second);
-        },
-        true);
-    c.substituted = cutAtMarkers(text, values);
+    LineWriter line;
+    NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
+      auto it = shown.find(name.text);
+      if (it == shown.end()) {
+        *out += name.text;
+        return;
+      }
+      c.bindings.push_back({&name, it->second.first, it->second.second});
+      line.value(it->second.first, it->second.second, power_base, out);
+    });
+    std::string text;
+    renderExprTo(*formula, &names, true, &text);
+    c.substituted = line.line(std::move(text));
     c.show_substituted = !c.substituted.empty() && lineText(c.substituted) != c.pretty;
   }
   EvalFault fault;
@@ -508,31 +495,33 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
 template <class Steps>
 TrailLine substitute(const Expr& e, const Calculation& calc, const Steps& steps, const std::vector<TrailCall>& calls,
                      std::vector<TrailBinding>* bindings) {
-  std::vector<TrailValue> values;
-  const std::string text = renderExpr(
-      e,
-      [&](const Expr& name) {
-        if (!name.text.empty() && name.text[0] == kMark) {
-          // A nested call, put as the value it gave.
-          const size_t k = std::strtoul(name.text.c_str() + 1, nullptr, 10);
-          if (k >= calls.size() || !calls[k].result) return name.text.substr(1);
-          const TrailValue& v = *calls[k].result;
-          bindings->push_back({&name, v, v.si < 0});
-          return markerInLine(&values, v, v.si < 0);
-        }
-        const int j = calc.sheet.find(name.text);
-        const QuantityView s = calc.quantity(j);
-        // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
-        std::optional<TrailValue> given = steps.given(static_cast<size_t>(j));
-        TrailValue v = given ? std::move(*given) : steps.shown(static_cast<size_t>(j));
-        const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
-        bindings->push_back({&name, v, negative});
-        return markerInLine(&values, std::move(v), negative);
-      },
-      true);
-  return cutAtMarkers(text, values);
+  LineWriter line;
+  NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
+    if (!name.text.empty() && name.text[0] == kMark) {
+      // A nested call, put as the value it gave.
+      const size_t k = std::strtoul(name.text.c_str() + 1, nullptr, 10);
+      if (k >= calls.size() || !calls[k].result) {
+        out->append(name.text, 1, std::string::npos);
+        return;
+      }
+      const TrailValue& v = *calls[k].result;
+      bindings->push_back({&name, v, v.si < 0});
+      line.value(v, v.si < 0, power_base, out);
+      return;
+    }
+    const int j = calc.sheet.find(name.text);
+    const QuantityView s = calc.quantity(j);
+    // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
+    std::optional<TrailValue> given = steps.given(static_cast<size_t>(j));
+    TrailValue v = given ? std::move(*given) : steps.shown(static_cast<size_t>(j));
+    const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
+    bindings->push_back({&name, v, negative});
+    line.value(std::move(v), negative, power_base, out);
+  });
+  std::string text;
+  renderExprTo(e, &names, true, &text);
+  return line.line(std::move(text));
 }
-
 
 }  // namespace
 
