@@ -221,26 +221,40 @@ class LineWriter {
 // byte and the call's index (no worksheet text holds the byte).
 constexpr char kMark = '\x1F';
 
-// Every call of a library function in a formula, in source order.
-void collectCalls(const Expr& e, std::vector<const Expr*>* out) {
-  if (e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text)) out->push_back(&e);
-  for (const auto& a : e.args) collectCalls(*a, out);
+bool isLibraryCall(const Expr& e) {
+  return e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text);
+}
+
+// Every call of a library function in a formula, in source order; `*nested`,
+// when given, is set where one call is inside another's arguments.
+void collectCalls(const Expr& e, std::vector<const Expr*>* out, bool* nested = nullptr, bool inside_call = false) {
+  const bool library = isLibraryCall(e);
+  if (library) out->push_back(&e);
+  if (library && inside_call && nested) *nested = true;
+  for (const auto& a : e.args) collectCalls(*a, out, nested, inside_call || library);
 }
 
 // A library function's own formula, parsed once, so the trail can show it
-// with the call's values substituted.
-const Expr* parsedFormula(const FunctionDecl& f) {
-  static std::map<std::string, std::pair<std::shared_ptr<SourceFile>, ExprPtr>> cache;
+// with the call's values substituted, and its text with the product dot.
+struct LibraryFormula {
+  std::shared_ptr<SourceFile> file;  // the text `expr` points into
+  ExprPtr expr;                      // null for a method in words
+  std::string pretty;                // renderExpr(*expr, nullptr, true); "" without one
+};
+
+const LibraryFormula& parsedFormula(const FunctionDecl& f) {
+  static std::map<std::string, LibraryFormula> cache;
   auto it = cache.find(f.name);
   if (it == cache.end()) {
-    auto file = std::make_shared<SourceFile>("function " + f.name, f.formula);
+    LibraryFormula parsed;
+    parsed.file = std::make_shared<SourceFile>("function " + f.name, f.formula);
     Diagnostics ignored;
-    ExprPtr e;
     if (f.formula_is_expression)
-      e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
-    it = cache.emplace(f.name, std::make_pair(file, std::move(e))).first;
+      parsed.expr = ExprParser(*parsed.file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
+    if (parsed.expr) parsed.pretty = renderExpr(*parsed.expr, nullptr, true);
+    it = cache.emplace(f.name, std::move(parsed)).first;
   }
-  return it->second.second.get();
+  return it->second;
 }
 
 // `u` itself when it has dimension `want`; for a unit per revolution
@@ -386,7 +400,8 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   c.source = f.source;
   c.caution = f.caution;
   c.trivial = f.args.empty();
-  c.formula_expr = parsedFormula(f);
+  const LibraryFormula& library_formula = parsedFormula(f);
+  c.formula_expr = library_formula.expr.get();
   auto value_of = [&](const Expr& e) {
     const int j = calc.sheet.find(e.text);
     return j >= 0 && calc.ok(j) ? calc.si(j) : NAN;
@@ -418,15 +433,17 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
     TrailValue shown_value = as_written ? std::move(*as_written) : rounded(lead ? raw : v, unit, digits);
-    c.arguments.addText(fmt::format("{}{} = ", k ? ", " : "", f.args[k].name));
+    if (k) c.arguments.addText(", ");
+    c.arguments.addText(f.args[k].name);
+    c.arguments.addText(" = ");
     c.arguments.addValue(shown_value);
     if (k) c.with_values.addText(", ");
     c.with_values.addValue(shown_value);
     shown[f.args[k].name] = {std::move(shown_value), v < 0};
   }
   c.with_values.addText(")");
-  if (const Expr* formula = parsedFormula(f)) {
-    c.pretty = renderExpr(*formula, nullptr, true);
+  if (const Expr* formula = c.formula_expr) {
+    c.pretty = library_formula.pretty;
     LineWriter line;
     NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
       auto it = shown.find(name.text);
@@ -438,6 +455,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
       line.value(it->second.first, it->second.second, power_base, out);
     });
     std::string text;
+    text.reserve(renderedSize(*formula));
     renderExprTo(*formula, &names, true, &text);
     c.substituted = line.line(std::move(text));
     c.show_substituted = !c.substituted.empty() && lineText(c.substituted) != c.pretty;
@@ -466,16 +484,6 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   return c;
 }
 
-bool isLibraryCall(const Expr& e) {
-  return e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text);
-}
-
-bool hasNestedCall(const Expr& e, bool inside_call) {
-  if (isLibraryCall(e) && inside_call) return true;
-  for (const auto& a : e.args)
-    if (hasNestedCall(*a, inside_call || isLibraryCall(e))) return true;
-  return false;
-}
 
 // In a copy of a step's formula, every library call inside another becomes
 // a name "\x1F<k>" standing for the k-th call of the step (source order).
@@ -519,6 +527,7 @@ TrailLine substitute(const Expr& e, const Calculation& calc, const Steps& steps,
     line.value(std::move(v), negative, power_base, out);
   });
   std::string text;
+  text.reserve(renderedSize(e));
   renderExprTo(e, &names, true, &text);
   return line.line(std::move(text));
 }
@@ -774,7 +783,8 @@ void TrailStepBuilder::explain(TrailStep* step) const {
   if (!calc_.ok(s.index)) return;
   const Expr& expr = *sheet.quantities[s.index].expr;
   std::vector<const Expr*> calls;
-  collectCalls(expr, &calls);
+  bool nested_call = false;
+  collectCalls(expr, &calls, &nested_call);
   const NodeDims dims = calc_.exprDims(static_cast<size_t>(s.index));
   for (const Expr* call : calls)
     s.calls.push_back(auditCall(*call, dims, calc_, *this, calc_.display(s.index), digits_));
@@ -784,7 +794,7 @@ void TrailStepBuilder::explain(TrailStep* step) const {
       if (o != k && calls[o]->begin <= calls[k]->begin && calls[k]->end <= calls[o]->end)
         s.calls[k].nested = true;
   s.substituted_expr = &expr;
-  if (hasNestedCall(expr, false)) {
+  if (nested_call) {
     ExprPtr copy = cloneExpr(expr);
     int next = 0;
     markNestedCalls(*copy, false, &next);
@@ -1130,8 +1140,9 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
     fn.summary = f->summary;
     fn.method = methodOf(*f);
     fn.formula_is_expression = f->formula_is_expression;
-    fn.formula_expr = parsedFormula(*f);
-    if (fn.formula_expr) fn.pretty = renderExpr(*fn.formula_expr, nullptr, true);
+    const LibraryFormula& formula = parsedFormula(*f);
+    fn.formula_expr = formula.expr.get();
+    fn.pretty = formula.pretty;
     fn.limits = f->limits;
     fn.source = f->source;
     fn.verification = verificationOf(*f);

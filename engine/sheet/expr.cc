@@ -187,12 +187,18 @@ void render(const Expr& e, NameWriter* names, bool pretty, std::string* out) {
 
 }  // namespace
 
+size_t renderedSize(const Expr& e) {
+  // The source text, and room for the spaces, dots and values that canonical spelling adds.
+  return 2 * static_cast<size_t>(e.end > e.begin ? e.end - e.begin : 0) + 16;
+}
+
 void renderExprTo(const Expr& e, NameWriter* names, bool pretty, std::string* out) {
   render(e, names, pretty, out);
 }
 
 std::string renderExpr(const Expr& e, const NameRenderer& value_of, bool pretty) {
   std::string out;
+  out.reserve(renderedSize(e));
   if (!value_of) {
     render(e, nullptr, pretty, &out);
     return out;

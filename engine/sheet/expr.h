@@ -164,5 +164,7 @@ class NameWriterOf final : public NameWriter {
 
 // renderExpr appended to `out`, each name written by `names` (as written when null).
 void renderExprTo(const Expr& e, NameWriter* names, bool pretty, std::string* out);
+// About how long a rendering of `e` is, for a string's reserve(): from its source offsets.
+size_t renderedSize(const Expr& e);
 
 }  // namespace calctrail
