@@ -198,6 +198,8 @@ TrailValue written(const std::string& literal, double si, double value, const st
 // each value goes (TrailLine::kValueMark), and the values in their order.
 class LineWriter {
  public:
+  // Room for the values of the `names` names of a formula (namesIn).
+  explicit LineWriter(size_t names) { values_.reserve(names); }
   // Puts `v` in the line: in parentheses when it is negative, as a
   // substituted line needs it, and as a power's base where its text holds a
   // space ((33.00 mm)^2), as renderExpr puts a name's text.
@@ -216,6 +218,13 @@ class LineWriter {
  private:
   std::vector<TrailValue> values_;
 };
+
+// How many names a formula holds: the values a line of it shows at most.
+size_t namesIn(const Expr& e) {
+  size_t n = e.kind == ExprKind::Name ? 1 : 0;
+  for (const auto& a : e.args) n += namesIn(*a);
+  return n;
+}
 
 // In a copy of a step's formula, a nested library call becomes a name: this
 // byte and the call's index (no worksheet text holds the byte).
@@ -408,6 +417,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   };
   std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
   std::vector<double> library_args;
+  library_args.reserve(f.args.size());
   c.arguments.reserveValues(f.args.size());
   c.with_values.reserveValues(f.args.size());
   c.with_values.addText(f.name);
@@ -444,7 +454,9 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   c.with_values.addText(")");
   if (const Expr* formula = c.formula_expr) {
     c.pretty = library_formula.pretty;
-    LineWriter line;
+    const size_t names_in = namesIn(*formula);
+    c.bindings.reserve(names_in);
+    LineWriter line(names_in);
     NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
       auto it = shown.find(name.text);
       if (it == shown.end()) {
@@ -503,7 +515,9 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
 template <class Steps>
 TrailLine substitute(const Expr& e, const Calculation& calc, const Steps& steps, const std::vector<TrailCall>& calls,
                      std::vector<TrailBinding>* bindings) {
-  LineWriter line;
+  const size_t names_in = namesIn(e);
+  bindings->reserve(names_in);
+  LineWriter line(names_in);
   NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
     if (!name.text.empty() && name.text[0] == kMark) {
       // A nested call, put as the value it gave.
@@ -786,6 +800,7 @@ void TrailStepBuilder::explain(TrailStep* step) const {
   bool nested_call = false;
   collectCalls(expr, &calls, &nested_call);
   const NodeDims dims = calc_.exprDims(static_cast<size_t>(s.index));
+  s.calls.reserve(calls.size());
   for (const Expr* call : calls)
     s.calls.push_back(auditCall(*call, dims, calc_, *this, calc_.display(s.index), digits_));
   // A call inside another's arguments is shown there by its value.
