@@ -687,8 +687,9 @@ class TrailStepBuilder {
   }
 
   // The whole step: head, origin, the calls' audits, the substituted line,
-  // its warnings and its values per load case.
-  TrailStep build(size_t i) const;
+  // its warnings and its values per load case. Into a new step where it is
+  // kept: a TrailStep moved is some forty strings.
+  void build(size_t i, TrailStep* step) const;
   // How many steps there are: one per quantity.
   size_t size() const { return param.size(); }
 
@@ -718,7 +719,7 @@ class TrailStepBuilder {
  private:
   // The fields a step has without explaining its value: name, texts,
   // given value, result and units.
-  TrailStep head(size_t i) const;
+  void head(size_t i, TrailStep* step) const;
   void explain(TrailStep* s) const;
   void addCaseValues(TrailStep* s) const;
   std::optional<TrailValue> findGiven(size_t i) const;
@@ -750,11 +751,11 @@ std::optional<TrailValue> TrailStepBuilder::findGiven(size_t i) const {
   return written(x->text, s.si, s.display.fromSI(s.si), x->unit ? x->unit->pretty() : "");
 }
 
-TrailStep TrailStepBuilder::head(size_t i) const {
+void TrailStepBuilder::head(size_t i, TrailStep* to) const {
   const Sheet& sheet = calc_.sheet;
   const Quantity& q = sheet.quantities[i];
   const QuantityView s = calc_.quantity(i);
-  TrailStep step;
+  TrailStep& step = *to;
   step.index = static_cast<int>(i);
   step.name = q.name;
   step.description = q.description;
@@ -781,7 +782,6 @@ TrailStep TrailStepBuilder::head(size_t i) const {
   step.si_unit = s.dim.siSymbol();
   step.unit_pretty = s.display.pretty();
   step.dimension = s.dim.name();
-  return step;
 }
 
 // Where the value comes from (given in the worksheet, set on the command
@@ -850,17 +850,17 @@ void TrailStepBuilder::addCaseValues(TrailStep* step) const {
   }
 }
 
-TrailStep TrailStepBuilder::build(size_t i) const {
-  TrailStep s = head(i);
-  explain(&s);
+void TrailStepBuilder::build(size_t i, TrailStep* step) const {
+  TrailStep& s = *step;
+  head(i, step);
+  explain(step);
   const auto first = std::lower_bound(warnings.begin(), warnings.end(), static_cast<int>(i),
                                       [](const Flagged& w, int q) { return w.quantity < q; });
   for (auto w = first; w != warnings.end() && w->quantity == static_cast<int>(i); ++w)
     s.warnings.push_back(w->message);
-  addCaseValues(&s);
+  addCaseValues(step);
   // After the warnings and the cases: an input that has either stays in the Inputs list.
   s.in_part_table = param[i] && s.input && !s.varies && s.warnings.empty();
-  return s;
 }
 
 size_t TrailSteps::size() const { return kept_ ? kept_->size() : builder_ ? builder_->size() : 0; }
@@ -870,7 +870,9 @@ bool TrailSteps::isInput(size_t i) const { return kept_ ? (*kept_)[i].input : bu
 
 std::shared_ptr<const TrailStep> TrailSteps::get(size_t i) const {
   if (kept_) return std::shared_ptr<const TrailStep>(kept_, &(*kept_)[i]);
-  return std::make_shared<const TrailStep>(builder_->build(i));
+  auto step = std::make_shared<TrailStep>();
+  builder_->build(i, step.get());
+  return step;
 }
 
 bool TrailSteps::passes(size_t i, Filter filter) const {
@@ -1075,6 +1077,7 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
       if (first_caller[k] < 0) first_caller[k] = static_cast<int>(i);
     }
   }
+  t.checks.reserve(sheet.checks.size());
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
     const CheckView s = calc.check(k);
@@ -1135,9 +1138,8 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && sheet.quantities.size() <= kKeptSteps);
   if (keep_all) {
     builder->remember();
-    auto kept = std::make_shared<std::vector<TrailStep>>();
-    kept->reserve(sheet.quantities.size());
-    for (size_t i = 0; i < sheet.quantities.size(); ++i) kept->push_back(builder->build(i));
+    auto kept = std::make_shared<std::vector<TrailStep>>(sheet.quantities.size());
+    for (size_t i = 0; i < sheet.quantities.size(); ++i) builder->build(i, &(*kept)[i]);
     t.steps.kept_ = std::move(kept);
   } else {
     t.steps.builder_ = std::move(builder);
@@ -1145,6 +1147,7 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   addCases(calc, digits, &t);
   addInstances(sheet, &t);
   // Library functions used, each once, in order of first use.
+  t.functions.reserve(used.size());
   for (size_t k = 0; k < used.size(); ++k) {
     const FunctionDecl* f = used[k];
     TrailFunction fn;
