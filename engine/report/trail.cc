@@ -767,9 +767,13 @@ void TrailStepBuilder::head(size_t i, TrailStep* to) const {
   step.local_name = sheet.localName(q.instance, q.name);
   // In the names of the scope the formula is written in (a --set one in the main sheet's).
   const int scope = q.overridden ? -1 : q.expr_instance;
-  const NameRenderer local = [&](const Expr& n) { return sheet.localName(scope, n.text); };
-  step.formula = renderExpr(*q.expr, scope < 0 ? nullptr : local);
-  step.pretty = renderExpr(*q.expr, scope < 0 ? nullptr : local, true);
+  // A name is never put in parentheses as a power's base: it holds no space.
+  NameWriterOf local([&](const Expr& n, bool, std::string* out) { *out += sheet.localName(scope, n.text); });
+  NameWriter* names = scope < 0 ? nullptr : &local;
+  step.formula.reserve(renderedSize(*q.expr));
+  renderExprTo(*q.expr, names, false, &step.formula);
+  step.pretty.reserve(renderedSize(*q.expr));
+  renderExprTo(*q.expr, names, true, &step.pretty);
   step.expr = q.expr.get();
   step.ok = s.ok;
   step.result = shown(i);
