@@ -415,7 +415,13 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     const int j = calc.sheet.find(e.text);
     return j >= 0 && calc.ok(j) ? calc.si(j) : NAN;
   };
-  std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
+  struct Shown {
+    const std::string* argument;  // its name in the function's formula
+    TrailValue value;
+    bool negative;
+  };
+  std::vector<Shown> shown;  // per argument evaluated, in order (a function has a few)
+  shown.reserve(f.args.size());
   std::vector<double> library_args;
   library_args.reserve(f.args.size());
   c.arguments.reserveValues(f.args.size());
@@ -449,7 +455,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     c.arguments.addValue(shown_value);
     if (k) c.with_values.addText(", ");
     c.with_values.addValue(shown_value);
-    shown[f.args[k].name] = {std::move(shown_value), v < 0};
+    shown.push_back({&f.args[k].name, std::move(shown_value), v < 0});
   }
   c.with_values.addText(")");
   if (const Expr* formula = c.formula_expr) {
@@ -458,13 +464,13 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     c.bindings.reserve(names_in);
     LineWriter line(names_in);
     NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
-      auto it = shown.find(name.text);
+      auto it = std::find_if(shown.begin(), shown.end(), [&](const Shown& a) { return *a.argument == name.text; });
       if (it == shown.end()) {
         *out += name.text;
         return;
       }
-      c.bindings.push_back({&name, it->second.first, it->second.second});
-      line.value(it->second.first, it->second.second, power_base, out);
+      c.bindings.push_back({&name, it->value, it->negative});
+      line.value(it->value, it->negative, power_base, out);
     });
     std::string text;
     text.reserve(renderedSize(*formula));
