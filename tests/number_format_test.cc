@@ -6,6 +6,8 @@
 #include <cfloat>
 #include <cmath>
 #include <cstdlib>
+#include <random>
+#include <string_view>
 #include <regex>
 
 #include "engine/report/number_format.h"
@@ -94,6 +96,52 @@ TEST_CASE("number format: every magnitude, both signs, every digits setting read
     }
   }
   CHECK(checked > 2 * 17 * 3000);
+}
+
+namespace {
+std::string_view digitsOf(const RoundedDigits& r) { return {r.digits, static_cast<size_t>(r.count)}; }
+}  // namespace
+
+TEST_CASE("number format: the fast rounding agrees with fmt's wherever it answers", "[number_format]") {
+  std::vector<double> values = {1.0, 0.001, 0.00099996, 999.96, 999.95, 999.949999, 9.9996, 99999.7, 1e6,
+                                999999.6, 0.125, 0.375, 2.5, 2.675, 1.0005, 0.15, 1.45, 15184.36, 1e15,
+                                1e22, 1e-22, 123456789012345.0, 0.1 + 0.2, 1.0 / 3, 2.0 / 3,
+                                std::numeric_limits<double>::denorm_min(), DBL_MIN, DBL_MAX,
+                                std::nextafter(1.0, 0.0), std::nextafter(1.0, 2.0)};
+  // Values on and beside the ties of every digits setting: k.5 units of the last digit.
+  for (int e = -8; e <= 16; ++e)
+    for (double m : {1.5, 1.05, 1.005, 1.0005, 9.5, 9.95, 9.995, 9.9995, 2.25, 6.125, 4.4445})
+      {
+        const double v = std::strtod(fmt::format("{}e{}", m, e).c_str(), nullptr);
+        values.push_back(v);
+        values.push_back(std::nextafter(v, 0.0));
+        values.push_back(std::nextafter(v, DBL_MAX));
+      }
+  // Every magnitude, and many random significands.
+  std::mt19937_64 random(20261204);
+  std::uniform_real_distribution<double> significand(1.0, 10.0);
+  for (int e = -324; e <= 308; ++e)
+    for (int n = 0; n < 20; ++n) {
+      const double v = std::strtod(fmt::format("{}e{}", significand(random), e).c_str(), nullptr);
+      if (v > 0 && std::isfinite(v)) values.push_back(v);
+    }
+  for (int n = 0; n < 20000; ++n) values.push_back(significand(random) * std::pow(10.0, n % 12 - 4));
+  size_t fast = 0, compared = 0;
+  for (double v : values) {
+    if (!(v > 0) || !std::isfinite(v)) continue;
+    for (int digits = 1; digits <= 17; ++digits) {
+      const RoundedDigits exact = roundDigitsExact(v, digits);
+      RoundedDigits quick;
+      ++compared;
+      if (!roundDigitsFast(v, digits, &quick)) continue;
+      ++fast;
+      INFO(formatExact(v) << " with " << digits << " digits");
+      REQUIRE(digitsOf(quick) == digitsOf(exact));
+      REQUIRE(quick.exp10 == exact.exp10);
+    }
+  }
+  // The fast way answers nearly always where a report's numbers are.
+  CHECK(fast > compared / 2);
 }
 
 TEST_CASE("number format: typeset powers of ten and literals as written", "[number_format]") {

@@ -31,6 +31,21 @@ enum class NumberStyle { ENotation, TimesTen };
 // every finite double, subnormals and the largest included; -0 is "0.000".
 ShownNumber roundNumber(double value, int digits);
 
+// The first step of roundNumber: the significant digits of a finite, nonzero
+// `magnitude` (> 0) correctly rounded to `digits` (1..17), and the power of
+// ten of the first of them after rounding (999.96 at 4 digits: "1000", 3).
+struct RoundedDigits {
+  char digits[17];
+  int count = 0;
+  int exp10 = 0;
+};
+// Exact for every positive double, by fmt.
+RoundedDigits roundDigitsExact(double magnitude, int digits);
+// The same in a few double operations, for the common case: false where it
+// cannot be sure (near a tie, or 10^k not exact), and roundNumber then asks
+// roundDigitsExact. The tests hold the two equal over many values.
+bool roundDigitsFast(double magnitude, int digits, RoundedDigits* out);
+
 // A numeric literal as the worksheet writes it ("2e-7", "0.35"), unrounded.
 ShownNumber writtenNumber(std::string_view literal);
 
@@ -48,5 +63,9 @@ std::string formatQuantity(double si, const Unit& unit, int digits, bool pretty 
 // "6.4 kN", "15°", "35 %": a number and a unit spelled for people (no unit
 // for plain numbers).
 std::string joinNumberUnit(const std::string& number, const std::string& unit);
+// How joinNumberUnit puts `unit` after a number: not at all (a plain number),
+// right after it ("15°"), or after a space ("6.4 kN").
+enum class UnitJoin { None, Adjoined, Spaced };
+UnitJoin unitJoin(std::string_view unit);
 
 }  // namespace calctrail

@@ -146,8 +146,10 @@ std::string signOffStatement(const Trail& t) {
 void appendValue(fmt::memory_buffer& out, const TrailValue& v, NumberStyle style) {
   // joinNumberUnit(number, unit), written straight into `out`: the unit with what joins it.
   appendNumber(out, v.number, style);
-  const std::string unit = joinNumberUnit("", v.unit);
-  out.append(unit.data(), unit.data() + unit.size());
+  const UnitJoin join = unitJoin(v.unit);
+  if (join == UnitJoin::None) return;
+  if (join == UnitJoin::Spaced) out.push_back(' ');
+  out.append(v.unit.data(), v.unit.data() + v.unit.size());
 }
 
 std::string valueText(const TrailValue& v, NumberStyle style) {
@@ -192,70 +194,76 @@ TrailValue written(const std::string& literal, double si, double value, const st
   return {value, si, writtenNumber(literal), unit_pretty};
 }
 
-// renderExpr() fills names with text; the trail keeps values apart. Each
-// value goes in as a marker "\x1F<index>\x1F" (no worksheet text holds that
-// byte) and the rendered text is then cut at the markers. renderExpr puts a
-// power's base in parentheses when its text holds a space ((33.00 mm)^2), so
-// the marker holds one exactly when the value's text does.
+// A formula written as a TrailLine: renderExprTo's text with a mark where
+// each value goes (TrailLine::kValueMark), and the values in their order.
+class LineWriter {
+ public:
+  // Room for the values of the `names` names of a formula (namesIn).
+  explicit LineWriter(size_t names) { values_.reserve(names); }
+  // Puts `v` in the line: in parentheses when it is negative, as a
+  // substituted line needs it, and as a power's base where its text holds a
+  // space ((33.00 mm)^2), as renderExpr puts a name's text.
+  void value(TrailValue v, bool negative, bool power_base, std::string* out) {
+    const bool spaced = v.number.digits.find(' ') != std::string::npos ||
+                        v.number.exponent.find(' ') != std::string::npos ||
+                        v.unit.find(' ') != std::string::npos || unitJoin(v.unit) == UnitJoin::Spaced;
+    const bool wrap = negative || (power_base && spaced);
+    if (wrap) *out += '(';
+    *out += TrailLine::kValueMark;
+    if (wrap) *out += ')';
+    values_.push_back(std::move(v));
+  }
+  TrailLine line(std::string marked) { return TrailLine(std::move(marked), std::move(values_)); }
+
+ private:
+  std::vector<TrailValue> values_;
+};
+
+// How many names a formula holds: the values a line of it shows at most.
+size_t namesIn(const Expr& e) {
+  size_t n = e.kind == ExprKind::Name ? 1 : 0;
+  for (const auto& a : e.args) n += namesIn(*a);
+  return n;
+}
+
+// In a copy of a step's formula, a nested library call becomes a name: this
+// byte and the call's index (no worksheet text holds the byte).
 constexpr char kMark = '\x1F';
 
-std::string marker(std::vector<TrailValue>* values, TrailValue v) {
-  // valueText(v) holds a space where the number does, or the unit with what joins it to the number.
-  const bool spaced = v.number.digits.find(' ') != std::string::npos ||
-                      v.number.exponent.find(' ') != std::string::npos ||
-                      joinNumberUnit("", v.unit).find(' ') != std::string::npos;
-  values->push_back(std::move(v));
-  std::string m(1, kMark);
-  m += std::to_string(values->size() - 1);
-  if (spaced) m += ' ';
-  m += kMark;
-  return m;
+bool isLibraryCall(const Expr& e) {
+  return e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text);
 }
 
-// A value in parentheses when it is negative, as a substituted line needs it.
-std::string markerInLine(std::vector<TrailValue>* values, TrailValue v, bool negative) {
-  const std::string m = marker(values, std::move(v));
-  return negative ? "(" + m + ")" : m;
-}
-
-TrailLine cutAtMarkers(const std::string& text, const std::vector<TrailValue>& values) {
-  TrailLine line;
-  line.reserveValues(values.size());
-  size_t i = 0;
-  while (i < text.size()) {
-    const size_t at = text.find(kMark, i);
-    if (at == std::string::npos) {
-      line.addText(std::string_view(text).substr(i));
-      break;
-    }
-    if (at > i) line.addText(std::string_view(text).substr(i, at - i));
-    const size_t end = text.find(kMark, at + 1);
-    line.addValue(values.at(std::strtoul(text.c_str() + at + 1, nullptr, 10)));
-    i = end + 1;
-  }
-  return line;
-}
-
-// Every call of a library function in a formula, in source order.
-void collectCalls(const Expr& e, std::vector<const Expr*>* out) {
-  if (e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text)) out->push_back(&e);
-  for (const auto& a : e.args) collectCalls(*a, out);
+// Every call of a library function in a formula, in source order; `*nested`,
+// when given, is set where one call is inside another's arguments.
+void collectCalls(const Expr& e, std::vector<const Expr*>* out, bool* nested = nullptr, bool inside_call = false) {
+  const bool library = isLibraryCall(e);
+  if (library) out->push_back(&e);
+  if (library && inside_call && nested) *nested = true;
+  for (const auto& a : e.args) collectCalls(*a, out, nested, inside_call || library);
 }
 
 // A library function's own formula, parsed once, so the trail can show it
-// with the call's values substituted.
-const Expr* parsedFormula(const FunctionDecl& f) {
-  static std::map<std::string, std::pair<std::shared_ptr<SourceFile>, ExprPtr>> cache;
+// with the call's values substituted, and its text with the product dot.
+struct LibraryFormula {
+  std::shared_ptr<SourceFile> file;  // the text `expr` points into
+  ExprPtr expr;                      // null for a method in words
+  std::string pretty;                // renderExpr(*expr, nullptr, true); "" without one
+};
+
+const LibraryFormula& parsedFormula(const FunctionDecl& f) {
+  static std::map<std::string, LibraryFormula> cache;
   auto it = cache.find(f.name);
   if (it == cache.end()) {
-    auto file = std::make_shared<SourceFile>("function " + f.name, f.formula);
+    LibraryFormula parsed;
+    parsed.file = std::make_shared<SourceFile>("function " + f.name, f.formula);
     Diagnostics ignored;
-    ExprPtr e;
     if (f.formula_is_expression)
-      e = ExprParser(*file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
-    it = cache.emplace(f.name, std::make_pair(file, std::move(e))).first;
+      parsed.expr = ExprParser(*parsed.file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
+    if (parsed.expr) parsed.pretty = renderExpr(*parsed.expr, nullptr, true);
+    it = cache.emplace(f.name, std::move(parsed)).first;
   }
-  return it->second.second.get();
+  return it->second;
 }
 
 // `u` itself when it has dimension `want`; for a unit per revolution
@@ -401,13 +409,21 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   c.source = f.source;
   c.caution = f.caution;
   c.trivial = f.args.empty();
-  c.formula_expr = parsedFormula(f);
+  const LibraryFormula& library_formula = parsedFormula(f);
+  c.formula_expr = library_formula.expr.get();
   auto value_of = [&](const Expr& e) {
     const int j = calc.sheet.find(e.text);
     return j >= 0 && calc.ok(j) ? calc.si(j) : NAN;
   };
-  std::map<std::string, std::pair<TrailValue, bool>> shown;  // argument -> value, negative
+  struct Shown {
+    const std::string* argument;  // its name in the function's formula
+    TrailValue value;
+    bool negative;
+  };
+  std::vector<Shown> shown;  // per argument evaluated, in order (a function has a few)
+  shown.reserve(f.args.size());
   std::vector<double> library_args;
+  library_args.reserve(f.args.size());
   c.arguments.reserveValues(f.args.size());
   c.with_values.reserveValues(f.args.size());
   c.with_values.addText(f.name);
@@ -433,26 +449,33 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
           written(x->text, lead ? raw : v, unit.fromSI(lead ? raw : v), x->unit ? unit.pretty() : "");
     }
     TrailValue shown_value = as_written ? std::move(*as_written) : rounded(lead ? raw : v, unit, digits);
-    c.arguments.addText(fmt::format("{}{} = ", k ? ", " : "", f.args[k].name));
+    if (k) c.arguments.addText(", ");
+    c.arguments.addText(f.args[k].name);
+    c.arguments.addText(" = ");
     c.arguments.addValue(shown_value);
     if (k) c.with_values.addText(", ");
     c.with_values.addValue(shown_value);
-    shown[f.args[k].name] = {std::move(shown_value), v < 0};
+    shown.push_back({&f.args[k].name, std::move(shown_value), v < 0});
   }
   c.with_values.addText(")");
-  if (const Expr* formula = parsedFormula(f)) {
-    c.pretty = renderExpr(*formula, nullptr, true);
-    std::vector<TrailValue> values;
-    const std::string text = renderExpr(
-        *formula,
-        [&](const Expr& name) {
-          auto it = shown.find(name.text);
-          if (it == shown.end()) return name.text;
-          c.bindings.push_back({&name, it->second.first, it->second.second});
-          return markerInLine(&values, it->second.first, it->second.second);
-        },
-        true);
-    c.substituted = cutAtMarkers(text, values);
+  if (const Expr* formula = c.formula_expr) {
+    c.pretty = library_formula.pretty;
+    const size_t names_in = namesIn(*formula);
+    c.bindings.reserve(names_in);
+    LineWriter line(names_in);
+    NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
+      auto it = std::find_if(shown.begin(), shown.end(), [&](const Shown& a) { return *a.argument == name.text; });
+      if (it == shown.end()) {
+        *out += name.text;
+        return;
+      }
+      c.bindings.push_back({&name, it->value, it->negative});
+      line.value(it->value, it->negative, power_base, out);
+    });
+    std::string text;
+    text.reserve(renderedSize(*formula));
+    renderExprTo(*formula, &names, true, &text);
+    c.substituted = line.line(std::move(text));
     c.show_substituted = !c.substituted.empty() && lineText(c.substituted) != c.pretty;
   }
   EvalFault fault;
@@ -479,16 +502,6 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   return c;
 }
 
-bool isLibraryCall(const Expr& e) {
-  return e.kind == ExprKind::Call && !findMathFunction(e.text) && findFunction(e.text);
-}
-
-bool hasNestedCall(const Expr& e, bool inside_call) {
-  if (isLibraryCall(e) && inside_call) return true;
-  for (const auto& a : e.args)
-    if (hasNestedCall(*a, inside_call || isLibraryCall(e))) return true;
-  return false;
-}
 
 // In a copy of a step's formula, every library call inside another becomes
 // a name "\x1F<k>" standing for the k-th call of the step (source order).
@@ -508,31 +521,36 @@ void markNestedCalls(Expr& e, bool inside_call, int* next) {
 template <class Steps>
 TrailLine substitute(const Expr& e, const Calculation& calc, const Steps& steps, const std::vector<TrailCall>& calls,
                      std::vector<TrailBinding>* bindings) {
-  std::vector<TrailValue> values;
-  const std::string text = renderExpr(
-      e,
-      [&](const Expr& name) {
-        if (!name.text.empty() && name.text[0] == kMark) {
-          // A nested call, put as the value it gave.
-          const size_t k = std::strtoul(name.text.c_str() + 1, nullptr, 10);
-          if (k >= calls.size() || !calls[k].result) return name.text.substr(1);
-          const TrailValue& v = *calls[k].result;
-          bindings->push_back({&name, v, v.si < 0});
-          return markerInLine(&values, v, v.si < 0);
-        }
-        const int j = calc.sheet.find(name.text);
-        const QuantityView s = calc.quantity(j);
-        // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
-        std::optional<TrailValue> given = steps.given(static_cast<size_t>(j));
-        TrailValue v = given ? std::move(*given) : steps.shown(static_cast<size_t>(j));
-        const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
-        bindings->push_back({&name, v, negative});
-        return markerInLine(&values, std::move(v), negative);
-      },
-      true);
-  return cutAtMarkers(text, values);
+  const size_t names_in = namesIn(e);
+  bindings->reserve(names_in);
+  LineWriter line(names_in);
+  NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
+    if (!name.text.empty() && name.text[0] == kMark) {
+      // A nested call, put as the value it gave.
+      const size_t k = std::strtoul(name.text.c_str() + 1, nullptr, 10);
+      if (k >= calls.size() || !calls[k].result) {
+        out->append(name.text, 1, std::string::npos);
+        return;
+      }
+      const TrailValue& v = *calls[k].result;
+      bindings->push_back({&name, v, v.si < 0});
+      line.value(v, v.si < 0, power_base, out);
+      return;
+    }
+    const int j = calc.sheet.find(name.text);
+    const QuantityView s = calc.quantity(j);
+    // A given value appears as written ("950 kg", "0.35"), unrounded; any other rounded, as in its step.
+    std::optional<TrailValue> given = steps.given(static_cast<size_t>(j));
+    TrailValue v = given ? std::move(*given) : steps.shown(static_cast<size_t>(j));
+    const bool negative = s.si < 0 || s.display.fromSI(s.si) < 0;
+    bindings->push_back({&name, v, negative});
+    line.value(std::move(v), negative, power_base, out);
+  });
+  std::string text;
+  text.reserve(renderedSize(e));
+  renderExprTo(e, &names, true, &text);
+  return line.line(std::move(text));
 }
-
 
 }  // namespace
 
@@ -675,8 +693,9 @@ class TrailStepBuilder {
   }
 
   // The whole step: head, origin, the calls' audits, the substituted line,
-  // its warnings and its values per load case.
-  TrailStep build(size_t i) const;
+  // its warnings and its values per load case. Into a new step where it is
+  // kept: a TrailStep moved is some forty strings.
+  void build(size_t i, TrailStep* step) const;
   // How many steps there are: one per quantity.
   size_t size() const { return param.size(); }
 
@@ -706,7 +725,7 @@ class TrailStepBuilder {
  private:
   // The fields a step has without explaining its value: name, texts,
   // given value, result and units.
-  TrailStep head(size_t i) const;
+  void head(size_t i, TrailStep* step) const;
   void explain(TrailStep* s) const;
   void addCaseValues(TrailStep* s) const;
   std::optional<TrailValue> findGiven(size_t i) const;
@@ -738,11 +757,11 @@ std::optional<TrailValue> TrailStepBuilder::findGiven(size_t i) const {
   return written(x->text, s.si, s.display.fromSI(s.si), x->unit ? x->unit->pretty() : "");
 }
 
-TrailStep TrailStepBuilder::head(size_t i) const {
+void TrailStepBuilder::head(size_t i, TrailStep* to) const {
   const Sheet& sheet = calc_.sheet;
   const Quantity& q = sheet.quantities[i];
   const QuantityView s = calc_.quantity(i);
-  TrailStep step;
+  TrailStep& step = *to;
   step.index = static_cast<int>(i);
   step.name = q.name;
   step.description = q.description;
@@ -754,9 +773,13 @@ TrailStep TrailStepBuilder::head(size_t i) const {
   step.local_name = sheet.localName(q.instance, q.name);
   // In the names of the scope the formula is written in (a --set one in the main sheet's).
   const int scope = q.overridden ? -1 : q.expr_instance;
-  const NameRenderer local = [&](const Expr& n) { return sheet.localName(scope, n.text); };
-  step.formula = renderExpr(*q.expr, scope < 0 ? nullptr : local);
-  step.pretty = renderExpr(*q.expr, scope < 0 ? nullptr : local, true);
+  // A name is never put in parentheses as a power's base: it holds no space.
+  NameWriterOf local([&](const Expr& n, bool, std::string* out) { *out += sheet.localName(scope, n.text); });
+  NameWriter* names = scope < 0 ? nullptr : &local;
+  step.formula.reserve(renderedSize(*q.expr));
+  renderExprTo(*q.expr, names, false, &step.formula);
+  step.pretty.reserve(renderedSize(*q.expr));
+  renderExprTo(*q.expr, names, true, &step.pretty);
   step.expr = q.expr.get();
   step.ok = s.ok;
   step.result = shown(i);
@@ -769,7 +792,6 @@ TrailStep TrailStepBuilder::head(size_t i) const {
   step.si_unit = s.dim.siSymbol();
   step.unit_pretty = s.display.pretty();
   step.dimension = s.dim.name();
-  return step;
 }
 
 // Where the value comes from (given in the worksheet, set on the command
@@ -785,8 +807,10 @@ void TrailStepBuilder::explain(TrailStep* step) const {
   if (!calc_.ok(s.index)) return;
   const Expr& expr = *sheet.quantities[s.index].expr;
   std::vector<const Expr*> calls;
-  collectCalls(expr, &calls);
+  bool nested_call = false;
+  collectCalls(expr, &calls, &nested_call);
   const NodeDims dims = calc_.exprDims(static_cast<size_t>(s.index));
+  s.calls.reserve(calls.size());
   for (const Expr* call : calls)
     s.calls.push_back(auditCall(*call, dims, calc_, *this, calc_.display(s.index), digits_));
   // A call inside another's arguments is shown there by its value.
@@ -795,7 +819,7 @@ void TrailStepBuilder::explain(TrailStep* step) const {
       if (o != k && calls[o]->begin <= calls[k]->begin && calls[k]->end <= calls[o]->end)
         s.calls[k].nested = true;
   s.substituted_expr = &expr;
-  if (hasNestedCall(expr, false)) {
+  if (nested_call) {
     ExprPtr copy = cloneExpr(expr);
     int next = 0;
     markNestedCalls(*copy, false, &next);
@@ -836,17 +860,17 @@ void TrailStepBuilder::addCaseValues(TrailStep* step) const {
   }
 }
 
-TrailStep TrailStepBuilder::build(size_t i) const {
-  TrailStep s = head(i);
-  explain(&s);
+void TrailStepBuilder::build(size_t i, TrailStep* step) const {
+  TrailStep& s = *step;
+  head(i, step);
+  explain(step);
   const auto first = std::lower_bound(warnings.begin(), warnings.end(), static_cast<int>(i),
                                       [](const Flagged& w, int q) { return w.quantity < q; });
   for (auto w = first; w != warnings.end() && w->quantity == static_cast<int>(i); ++w)
     s.warnings.push_back(w->message);
-  addCaseValues(&s);
+  addCaseValues(step);
   // After the warnings and the cases: an input that has either stays in the Inputs list.
   s.in_part_table = param[i] && s.input && !s.varies && s.warnings.empty();
-  return s;
 }
 
 size_t TrailSteps::size() const { return kept_ ? kept_->size() : builder_ ? builder_->size() : 0; }
@@ -856,7 +880,9 @@ bool TrailSteps::isInput(size_t i) const { return kept_ ? (*kept_)[i].input : bu
 
 std::shared_ptr<const TrailStep> TrailSteps::get(size_t i) const {
   if (kept_) return std::shared_ptr<const TrailStep>(kept_, &(*kept_)[i]);
-  return std::make_shared<const TrailStep>(builder_->build(i));
+  auto step = std::make_shared<TrailStep>();
+  builder_->build(i, step.get());
+  return step;
 }
 
 bool TrailSteps::passes(size_t i, Filter filter) const {
@@ -1061,6 +1087,7 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
       if (first_caller[k] < 0) first_caller[k] = static_cast<int>(i);
     }
   }
+  t.checks.reserve(sheet.checks.size());
   for (size_t k = 0; k < sheet.checks.size(); ++k) {
     const Check& c = sheet.checks[k];
     const CheckView s = calc.check(k);
@@ -1121,9 +1148,8 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && sheet.quantities.size() <= kKeptSteps);
   if (keep_all) {
     builder->remember();
-    auto kept = std::make_shared<std::vector<TrailStep>>();
-    kept->reserve(sheet.quantities.size());
-    for (size_t i = 0; i < sheet.quantities.size(); ++i) kept->push_back(builder->build(i));
+    auto kept = std::make_shared<std::vector<TrailStep>>(sheet.quantities.size());
+    for (size_t i = 0; i < sheet.quantities.size(); ++i) builder->build(i, &(*kept)[i]);
     t.steps.kept_ = std::move(kept);
   } else {
     t.steps.builder_ = std::move(builder);
@@ -1131,6 +1157,7 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   addCases(calc, digits, &t);
   addInstances(sheet, &t);
   // Library functions used, each once, in order of first use.
+  t.functions.reserve(used.size());
   for (size_t k = 0; k < used.size(); ++k) {
     const FunctionDecl* f = used[k];
     TrailFunction fn;
@@ -1141,8 +1168,9 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
     fn.summary = f->summary;
     fn.method = methodOf(*f);
     fn.formula_is_expression = f->formula_is_expression;
-    fn.formula_expr = parsedFormula(*f);
-    if (fn.formula_expr) fn.pretty = renderExpr(*fn.formula_expr, nullptr, true);
+    const LibraryFormula& formula = parsedFormula(*f);
+    fn.formula_expr = formula.expr.get();
+    fn.pretty = formula.pretty;
     fn.limits = f->limits;
     fn.source = f->source;
     fn.verification = verificationOf(*f);

@@ -41,6 +41,10 @@ class TrailLine {
  public:
   static constexpr char kValueMark = '\x1E';  // no worksheet or library text holds it
 
+  TrailLine() = default;
+  // `marked`: the text with a kValueMark where each of `values` goes, in order.
+  TrailLine(std::string marked, std::vector<TrailValue> values)
+      : text_(std::move(marked)), values_(std::move(values)) {}
   void addText(std::string_view text) { text_.append(text.data(), text.size()); }
   void addValue(TrailValue value) {
     text_ += kValueMark;

@@ -116,11 +116,11 @@ bool numberShownWithBareUnit(const Expr& e, bool pretty) {
   return pretty ? e.unit != nullptr : e.unitWritten()[0] != '[';
 }
 
-void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::string* out) {
+void render(const Expr& e, NameWriter* names, bool pretty, std::string* out) {
   auto binary = [&](const char* op) {
-    render(*e.args[0], value_of, pretty, out);
+    render(*e.args[0], names, pretty, out);
     *out += op;
-    render(*e.args[1], value_of, pretty, out);
+    render(*e.args[1], names, pretty, out);
   };
   switch (e.kind) {
     case ExprKind::Number:
@@ -140,57 +140,78 @@ void render(const Expr& e, const NameRenderer& value_of, bool pretty, std::strin
       *out += pretty ? "\u03C0" : "pi";
       break;
     case ExprKind::Name:
-      *out += value_of ? value_of(e) : e.text;
+      if (names) names->write(e, false, out);
+      else *out += e.text;
       break;
     case ExprKind::Call:
       *out += e.text;
       *out += '(';
       for (size_t i = 0; i < e.args.size(); ++i) {
         if (i) *out += ", ";
-        render(*e.args[i], value_of, pretty, out);
+        render(*e.args[i], names, pretty, out);
       }
       *out += ')';
       break;
     case ExprKind::Negate:
       *out += '-';
-      render(*e.args[0], value_of, pretty, out);
+      render(*e.args[0], names, pretty, out);
       break;
     case ExprKind::Add: binary(" + "); break;
     case ExprKind::Subtract: binary(" - "); break;
     case ExprKind::Multiply: binary(pretty ? " \u00B7 " : " * "); break;
     case ExprKind::Divide: binary(" / "); break;
     case ExprKind::Power:
-      if (value_of && e.args[0]->kind == ExprKind::Name) {
-        // (33.00 mm)^2, not 33.00 mm^2: the power applies to the value with its unit.
-        const std::string base = value_of(*e.args[0]);
-        const bool wrap = base.find(' ') != std::string::npos && base[0] != '(';
-        *out += wrap ? "(" + base + ")" : base;
+      if (names && e.args[0]->kind == ExprKind::Name) {
+        names->write(*e.args[0], true, out);
         *out += '^';
-        render(*e.args[1], value_of, pretty, out);
+        render(*e.args[1], names, pretty, out);
         break;
       }
       if (numberShownWithBareUnit(*e.args[0], pretty)) {
         // `3 [mm]^2` is shown `(3 mm)^2`: `3 mm^2` would read two ways (docs/format.md).
         *out += '(';
-        render(*e.args[0], value_of, pretty, out);
+        render(*e.args[0], names, pretty, out);
         *out += ")^";
-        render(*e.args[1], value_of, pretty, out);
+        render(*e.args[1], names, pretty, out);
         break;
       }
       binary("^");
       break;
     case ExprKind::Group:
       *out += '(';
-      render(*e.args[0], value_of, pretty, out);
+      render(*e.args[0], names, pretty, out);
       *out += ')';
       break;
   }
 }
+
 }  // namespace
+
+size_t renderedSize(const Expr& e) {
+  // The source text, and room for the spaces, dots and values that canonical spelling adds.
+  return 2 * static_cast<size_t>(e.end > e.begin ? e.end - e.begin : 0) + 16;
+}
+
+void renderExprTo(const Expr& e, NameWriter* names, bool pretty, std::string* out) {
+  render(e, names, pretty, out);
+}
 
 std::string renderExpr(const Expr& e, const NameRenderer& value_of, bool pretty) {
   std::string out;
-  render(e, value_of, pretty, &out);
+  out.reserve(renderedSize(e));
+  if (!value_of) {
+    render(e, nullptr, pretty, &out);
+    return out;
+  }
+  // A power's base in parentheses where its text holds a space and has none around it already.
+  NameWriterOf names([&](const Expr& name_node, bool power_base, std::string* to) {
+    const std::string text = value_of(name_node);
+    const bool wrap = power_base && text.find(' ') != std::string::npos && text[0] != '(';
+    if (wrap) *to += '(';
+    *to += text;
+    if (wrap) *to += ')';
+  });
+  render(e, &names, pretty, &out);
   return out;
 }
 

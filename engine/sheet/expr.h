@@ -6,6 +6,7 @@
 #include <functional>
 #include <memory>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "engine/units/unit.h"
@@ -135,5 +136,35 @@ void forEachName(const Expr& e, const std::function<void(const Expr&)>& fn);
 // `pretty` writes products with the SI Brochure's dot (F · dm) and pi as π.
 using NameRenderer = std::function<std::string(const Expr& name_node)>;
 std::string renderExpr(const Expr& e, const NameRenderer& value_of = nullptr, bool pretty = false);
+
+// What renderExprTo writes in place of each name. An interface rather than a
+// NameRenderer: the trail writes every formula with its values, and a text
+// returned per name was a string made, copied and freed each time.
+class NameWriter {
+ public:
+  // Appends the text for `name_node` to `out`. `power_base`: the name is the
+  // base of a power, whose text is then put in parentheses where it holds a
+  // space ((33.00 mm)^2, not 33.00 mm^2: the power applies to the value with its unit).
+  virtual void write(const Expr& name_node, bool power_base, std::string* out) = 0;
+
+ protected:
+  ~NameWriter() = default;
+};
+
+// A NameWriter that calls `write` (a lambda taking the same arguments as NameWriter::write).
+template <class Write>
+class NameWriterOf final : public NameWriter {
+ public:
+  explicit NameWriterOf(Write write) : write_(std::move(write)) {}
+  void write(const Expr& name_node, bool power_base, std::string* out) override { write_(name_node, power_base, out); }
+
+ private:
+  Write write_;
+};
+
+// renderExpr appended to `out`, each name written by `names` (as written when null).
+void renderExprTo(const Expr& e, NameWriter* names, bool pretty, std::string* out);
+// About how long a rendering of `e` is, for a string's reserve(): from its source offsets.
+size_t renderedSize(const Expr& e);
 
 }  // namespace calctrail

@@ -1,6 +1,7 @@
 #include "engine/units/unit.h"
 
 #include <cctype>
+#include <string_view>
 
 #include "engine/units/unit_parser.h"
 
@@ -16,7 +17,7 @@ bool isNameChar(char c) {
 }
 
 // Canonical names whose printed symbol differs from the ASCII spelling.
-const char* prettyName(const std::string& name) {
+const char* prettyName(std::string_view name) {
   if (name == "um") return "\u00B5m";
   if (name == "deg") return "\u00B0";
   if (name == "degC") return "\u00B0C";
@@ -45,24 +46,34 @@ const char* superscript(char c) {
 
 }  // namespace
 
+// Called for every value a report shows (some 300 times for a demo), so it
+// appends in place: no substring per name, and the text itself when there
+// is nothing to change ("mm", "kN", "MPa"; docs/performance.md, startup_perftest).
 std::string Unit::pretty() const {
+  const bool plain = text.find_first_of("*^") == std::string::npos &&
+                     text.find_first_of("ud") == std::string::npos;  // um, deg, degC, ddegC...
+  if (plain) return text;
   std::string out;
+  out.reserve(text.size() + 8);
+  const std::string_view all(text);
   size_t i = 0;
-  while (i < text.size()) {
-    const char c = text[i];
+  while (i < all.size()) {
+    const char c = all[i];
     if (isNameChar(c)) {
       size_t j = i;
-      while (j < text.size() && isNameChar(text[j])) ++j;
-      const std::string name = text.substr(i, j - i);
-      const char* p = prettyName(name);
-      out += p ? p : name;
+      while (j < all.size() && isNameChar(all[j])) ++j;
+      const std::string_view name = all.substr(i, j - i);
+      if (const char* p = prettyName(name))
+        out += p;
+      else
+        out += name;
       i = j;
     } else if (c == '*') {
       out += "\u00B7";
       ++i;
     } else if (c == '^') {
       ++i;
-      while (i < text.size() && superscript(text[i])) out += superscript(text[i++]);
+      while (i < all.size() && superscript(all[i])) out += superscript(all[i++]);
     } else {
       out += c;
       ++i;
