@@ -335,7 +335,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = angle();
     d.result_unit = "rev";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 [rev]";
-    d.limits = std::string(kLifeLimits) + ". The peak load must also stay below C0a (ball_screw_static_safety)";
+    d.limits = keep(std::string(kLifeLimits) + ". The peak load must also stay below C0a (ball_screw_static_safety)");
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";
     d.example = {30000, 3000, 0.62, 1.2};
@@ -350,8 +350,8 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = time();
     d.result_unit = "h";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 [rev] / n_m";
-    d.limits = std::string(kLifeLimits) + ", n_m > 0. Running hours: divide by the share of time the axis runs "
-               "for calendar hours";
+    d.limits = keep(std::string(kLifeLimits) + ", n_m > 0. Running hours: divide by the share of time the axis runs "
+               "for calendar hours");
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";
     d.example = {30000, 3000, 1, 1.2, 500 * 2 * kPi / 60};
@@ -366,7 +366,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = length();
     d.result_unit = "km";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 * l";
-    d.limits = std::string(kLifeLimits) + ", l > 0";
+    d.limits = keep(std::string(kLifeLimits) + ", l > 0");
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";
     d.example = {30000, 3000, 1, 1.2, 0.010};

@@ -175,7 +175,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = none();
     d.result_unit = "1";
     d.formula = "sqrt(2*pi^2*C*E/Sy)";
-    d.limits = cl + "; 0 < E <= 1200 GPa, 0 < Sy < E";
+    d.limits = keep(cl + "; 0 < E <= 1200 GPa, 0 < Sy < E");
     d.source = kSource;
     d.caution = kCaution;
     d.example = {1, 207e9, 500e6};
@@ -190,12 +190,12 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "C*pi^2*E*(pi*dr^4/64)/L^2";
-    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
+    d.limits = keep("dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
                "below it Euler overestimates the load (use buckling_load, which chooses). Without Sy the "
                "transition is unknown: a call whose Euler stress exceeds half the yield strength of a mild "
-               "screw steel (0.0005*E) is a warning";
+               "screw steel (0.0005*E) is a warning");
     d.source = kSource;
-    d.caution = std::string(kCaution) + " Below the transition slenderness Euler's load is unsafe.";
+    d.caution = keep(std::string(kCaution) + " Below the transition slenderness Euler's load is unsafe.");
     d.example = {0.0375, 1.5, 1, 207e9};
     d.eval = eulerLoad;
     d.advise = adviseEuler;
@@ -209,8 +209,8 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "pi*dr^2/4 * (Sy - (2*Sy*L/(pi*dr))^2/(C*E))";
-    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
-               "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error";
+    d.limits = keep("dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
+               "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error");
     d.source = kSource;
     d.caution = kCaution;
     d.example = {0.0375, 0.5, 1, 207e9, 500e6};
@@ -226,7 +226,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result_unit = "kN";
     d.formula = "johnson_load when L/(dr/4) <= sqrt(2*pi^2*C*E/Sy), else euler_load";
     d.formula_is_expression = false;
-    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E";
+    d.limits = keep("dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E");
     d.source = kSource;
     d.caution = kCaution;
     d.example = {0.0375, 1.5, 1, 207e9, 500e6};
@@ -242,7 +242,7 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result_unit = "1";
     d.formula = "buckling_load(dr, L, C, E, Sy) / F";
     d.formula_is_expression = false;
-    d.limits = "F > 0, dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E";
+    d.limits = keep("F > 0, dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E");
     d.source = kSource;
     d.caution = kCaution;
     d.example = {22000, 0.0375, 1.5, 1, 207e9, 500e6};

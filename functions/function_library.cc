@@ -1,7 +1,9 @@
 #include "functions/function_library.h"
 
 #include <cctype>
+#include <deque>
 #include <functional>
+#include <string>
 
 namespace calctrail {
 
@@ -48,13 +50,19 @@ const FunctionDecl* findFunction(std::string_view name) {
 
 std::string FunctionDecl::argName(int k) const {
   const int fixed = static_cast<int>(args.size());
-  if (k < fixed || repeat == 0) return args[static_cast<size_t>(k)].name;
+  if (k < fixed || repeat == 0) return std::string(args[static_cast<size_t>(k)].name);
   // The declared name of the group's last repetition, split into stem and number.
-  const std::string& last = argAt(k).name;
+  const std::string_view last = argAt(k).name;
   size_t digits = last.size();
   while (digits > 0 && std::isdigit(static_cast<unsigned char>(last[digits - 1]))) --digits;
-  const int number = digits < last.size() ? std::stoi(last.substr(digits)) : 1;
-  return last.substr(0, digits) + std::to_string(number + 1 + (k - fixed) / repeat);
+  const int number = digits < last.size() ? std::stoi(std::string(last.substr(digits))) : 1;
+  return std::string(last.substr(0, digits)) + std::to_string(number + 1 + (k - fixed) / repeat);
+}
+
+std::string_view fn::keep(std::string text) {
+  // A deque never moves its elements, so a view into one stays valid.
+  static std::deque<std::string> kept;
+  return kept.emplace_back(std::move(text));
 }
 
 const FunctionGroup* groupOf(const FunctionDecl& decl) {

@@ -160,7 +160,7 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {arg("P", power(), "required power at the motor shaft")};
     d.result = power();
     d.result_unit = "kW";
-    d.formula = "smallest rated output >= P from the series " + ratedText();
+    d.formula = keep("smallest rated output >= P from the series " + ratedText());
     d.formula_is_expression = false;
     d.limits = "0 < P <= 1000 kW; above it the table ends and this is an error. Up to 200 kW the outputs have "
                "standard frame sizes (EN 50347); above, the frame is the maker's";

@@ -192,7 +192,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = raise;
+    d.formula = keep(raise);
     d.limits = kRaiseLimits;
     d.source = kSource;
     d.caution = kFrictionCaution;
@@ -207,8 +207,8 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = lower;
-    d.limits = std::string(kThreadLimits) + "; a negative result is the torque needed to hold the load";
+    d.formula = keep(lower);
+    d.limits = keep(std::string(kThreadLimits) + "; a negative result is the torque needed to hold the load");
     d.source = kSource;
     d.caution = kLockCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 14.5 * kPi / 180};
@@ -222,8 +222,8 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha, fc, dc};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = raise + " + F*fc*dc/2";
-    d.limits = std::string(kRaiseLimits) + "; 0 <= fc <= 1, dc > 0";
+    d.formula = keep(raise + " + F*fc*dc/2");
+    d.limits = keep(std::string(kRaiseLimits) + "; 0 <= fc <= 1, dc > 0");
     d.source = kSource;
     d.caution = kFrictionCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};
@@ -237,9 +237,9 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha, fc, dc};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = lower + " + F*fc*dc/2";
-    d.limits = std::string(kThreadLimits) + "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
-               "hold the load";
+    d.formula = keep(lower + " + F*fc*dc/2");
+    d.limits = keep(std::string(kThreadLimits) + "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
+               "hold the load");
     d.source = kSource;
     d.caution = kLockCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};

@@ -511,7 +511,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
   const FunctionArg major = arg("d", length(), "nominal (major) diameter of the thread");
   const FunctionArg pitch = arg("p", length(), "pitch (axial distance between adjacent threads)", true);
   // The limits of the three class 7e functions, built once.
-  const std::string held = trap7eHeldText() + kTrap7eSingleStart;
+  const std::string_view held = keep(trap7eHeldText() + kTrap7eSingleStart);
 
   {
     FunctionDecl d;
@@ -520,7 +520,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major};
     d.result = perLength();
     d.result_unit = "1/in";
-    d.formula = "table lookup, ASME B1.5 general-purpose series, nominal size in inches (threads per inch): " + acmeSeriesText();
+    d.formula = keep("table lookup, ASME B1.5 general-purpose series, nominal size in inches (threads per inch): " + acmeSeriesText());
     d.formula_is_expression = false;
     d.limits = "d must be a size of the series (within 1 um); any other size is an error naming the nearest sizes";
     d.source = kAcmeSource;
@@ -592,7 +592,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "table lookup, ISO 2904 series (preferred combinations): " + trapSeriesText();
+    d.formula = keep("table lookup, ISO 2904 series (preferred combinations): " + trapSeriesText());
     d.formula_is_expression = false;
     d.limits = "d must be a diameter of the series, 8 to 300 mm (within 1 um); any other size is an error naming "
                "the nearest sizes. The finer and coarser pitches of the series are accepted by trap_pitch_dia "
@@ -848,7 +848,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major, pitch};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "d - p/2 + es, with the fundamental deviation es of position e: " + trap7eDeviationText();
+    d.formula = keep("d - p/2 + es, with the fundamental deviation es of position e: " + trap7eDeviationText());
     d.formula_is_expression = false;
     d.limits = held;
     d.source = kTrap7eSource;
@@ -863,7 +863,7 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major, pitch};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = " + trap7eToleranceText();
+    d.formula = keep("trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = " + trap7eToleranceText());
     d.formula_is_expression = false;
     d.limits = held;
     d.source = kTrap7eSource;
