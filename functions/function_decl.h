@@ -2,8 +2,8 @@
 // trail, the CLI listing and docs/functions.md need. Nothing about a function
 // is written twice: the listing and the docs are generated from these.
 // Every text is a std::string_view into constant data (string literals, or
-// fn::keep for the few texts built from a table), so that building the
-// library at start-up allocates no string.
+// texts joined at compile time: const_text.h), so that building the library
+// at start-up makes no string.
 #pragma once
 
 #include <cmath>
@@ -129,9 +129,6 @@ inline FunctionArg usual(FunctionArg a, double lo, double hi, std::string_view u
   a.usual_why = why;
   return a;
 }
-// A text built at start-up (from a table), kept for the life of the process so
-// that a declaration can point at it.
-std::string_view keep(std::string text);
 }  // namespace fn
 
 // Every function of the library, in a stable order (listing order).

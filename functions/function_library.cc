@@ -1,7 +1,6 @@
 #include "functions/function_library.h"
 
 #include <cctype>
-#include <deque>
 #include <functional>
 #include <string>
 
@@ -57,12 +56,6 @@ std::string FunctionDecl::argName(int k) const {
   while (digits > 0 && std::isdigit(static_cast<unsigned char>(last[digits - 1]))) --digits;
   const int number = digits < last.size() ? std::stoi(std::string(last.substr(digits))) : 1;
   return std::string(last.substr(0, digits)) + std::to_string(number + 1 + (k - fixed) / repeat);
-}
-
-std::string_view fn::keep(std::string text) {
-  // A deque never moves its elements, so a view into one stays valid.
-  static std::deque<std::string> kept;
-  return kept.emplace_back(std::move(text));
 }
 
 const FunctionGroup* groupOf(const FunctionDecl& decl) {
