@@ -246,6 +246,33 @@ TEST_CASE("library: groups cover the library in order, and lookup works", "[func
   CHECK(calctrail::groupOf(*calctrail::findFunction("acme_tpi"))->title == "Threads");
 }
 
+// findFunction and findMathFunction search faster than a scan of the table:
+// each must answer as the plain scan does, for every name and near misses.
+TEST_CASE("library: the name lookups answer as a scan of the tables does", "[functions][library]") {
+  std::vector<std::string> probes = {"", "a", "z", "_", "torque", "torque_raise_", "Torque_raise", "sqrt2", "s"};
+  for (const FunctionDecl& d : functionLibrary()) probes.emplace_back(d.name);
+  for (const calctrail::MathFunction& m : calctrail::mathFunctions()) probes.emplace_back(m.name);
+  const std::size_t named = probes.size();
+  for (std::size_t k = 0; k < named; ++k) {
+    const std::string& p = probes[k];
+    if (p.empty()) continue;
+    probes.push_back(p.substr(0, p.size() - 1));  // a prefix
+    probes.push_back(p + "x");                    // a longer name
+    probes.push_back(p.substr(1));                // without its first letter
+  }
+  for (const std::string& p : probes) {
+    INFO("name `" << p << "`");
+    const FunctionDecl* scanned = nullptr;
+    for (const FunctionDecl& d : functionLibrary())
+      if (d.name == p) scanned = &d;
+    CHECK(calctrail::findFunction(p) == scanned);
+    const calctrail::MathFunction* math = nullptr;
+    for (const calctrail::MathFunction& m : calctrail::mathFunctions())
+      if (p == m.name) math = &m;
+    CHECK(calctrail::findMathFunction(p) == math);
+  }
+}
+
 TEST_CASE("library: formula strings mention only their declared arguments", "[functions][library]") {
   for (const FunctionDecl& d : functionLibrary()) {
     if (!d.formula_is_expression) continue;
