@@ -352,8 +352,9 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = time();
     d.result_unit = "h";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 [rev] / n_m";
-    static constexpr auto kLimits = join(kLifeLimits, ", n_m > 0. Running hours: divide by the share of time the axis runs "
-               "for calendar hours");
+    static constexpr auto kLimits =
+        join(kLifeLimits, ", n_m > 0. Running hours: divide by the share of time the axis runs "
+                          "for calendar hours");
     d.limits = kLimits.view();
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";

@@ -191,10 +191,11 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "C*pi^2*E*(pi*dr^4/64)/L^2";
-    static constexpr auto kLimits = join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
-               "below it Euler overestimates the load (use buckling_load, which chooses). Without Sy the "
-               "transition is unknown: a call whose Euler stress exceeds half the yield strength of a mild "
-               "screw steel (0.0005*E) is a warning");
+    static constexpr auto kLimits =
+        join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
+                                         "below it Euler overestimates the load (use buckling_load, which chooses). Without Sy the "
+                                         "transition is unknown: a call whose Euler stress exceeds half the yield strength of a mild "
+                                         "screw steel (0.0005*E) is a warning");
     d.limits = kLimits.view();
     d.source = kSource;
     static constexpr auto kEulerCaution = join(kCaution, " Below the transition slenderness Euler's load is unsafe.");
@@ -212,8 +213,9 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "pi*dr^2/4 * (Sy - (2*Sy*L/(pi*dr))^2/(C*E))";
-    static constexpr auto kLimits = join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
-               "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error");
+    static constexpr auto kLimits =
+        join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
+                                         "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error");
     d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kCaution;

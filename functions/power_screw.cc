@@ -243,8 +243,9 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.result_unit = "N*m";
     static constexpr auto kFormula = join(kLower, " + F*fc*dc/2");
     d.formula = kFormula.view();
-    static constexpr auto kLimits = join(kThreadLimits, "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
-               "hold the load");
+    static constexpr auto kLimits =
+        join(kThreadLimits, "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
+                            "hold the load");
     d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kLockCaution;
