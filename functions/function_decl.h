@@ -3,7 +3,8 @@
 // is written twice: the listing and the docs are generated from these.
 // Every text is a std::string_view into constant data (string literals, or
 // texts joined at compile time: const_text.h), so that building the library
-// at start-up makes no string.
+// at start-up makes no string. Never assign one a std::string: the view of a
+// temporary dangles.
 #pragma once
 
 #include <cmath>
