@@ -794,7 +794,7 @@ void runParserNote(ParserNote* note) {
       auto p = std::make_unique<mu::Parser>();
       if (with_library)
         for (const FunctionDecl& f : functionLibrary())
-          p->DefineFunUserData(f.name, callLib, const_cast<FunctionDecl*>(&f), false);
+          p->DefineFunUserData(std::string(f.name), callLib, const_cast<FunctionDecl*>(&f), false);
       for (size_t k = 0; k < programs[i].inputs.size() && k < 4; ++k) {
         slots[4 * static_cast<size_t>(i) + k] = values[programs[i].inputs[k]];
         p->DefineVar("v" + std::to_string(k), &slots[4 * static_cast<size_t>(i) + k]);

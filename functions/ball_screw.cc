@@ -5,6 +5,7 @@
 #include <string>
 #include <vector>
 
+#include "functions/const_text.h"
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
@@ -293,7 +294,7 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
                                  "1.0 to 1.2 smooth, 1.2 to 1.5 normal, 1.5 to 3 with shock and vibration "
                                  "(makers' catalogues, common practice)");
   const FunctionArg d0 = arg("d0", length(), "ball circle (pitch) diameter of the screw");
-  const char* kLifeLimits = "Ca > 0, Fm > 0, 0 < a1 <= 1, fw >= 1";
+  static constexpr char kLifeLimits[] = "Ca > 0, Fm > 0, 0 < a1 <= 1, fw >= 1";
   {
     FunctionDecl d;
     d.name = "ball_screw_static_safety";
@@ -335,7 +336,8 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = angle();
     d.result_unit = "rev";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 [rev]";
-    d.limits = std::string(kLifeLimits) + ". The peak load must also stay below C0a (ball_screw_static_safety)";
+    static constexpr auto kLimits = join(kLifeLimits, ". The peak load must also stay below C0a (ball_screw_static_safety)");
+    d.limits = kLimits.view();
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";
     d.example = {30000, 3000, 0.62, 1.2};
@@ -350,8 +352,10 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = time();
     d.result_unit = "h";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 [rev] / n_m";
-    d.limits = std::string(kLifeLimits) + ", n_m > 0. Running hours: divide by the share of time the axis runs "
-               "for calendar hours";
+    static constexpr auto kLimits =
+        join(kLifeLimits, ", n_m > 0. Running hours: divide by the share of time the axis runs "
+                          "for calendar hours");
+    d.limits = kLimits.view();
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";
     d.example = {30000, 3000, 1, 1.2, 500 * 2 * kPi / 60};
@@ -366,7 +370,8 @@ GroupText addBallScrews(std::vector<FunctionDecl>& out) {
     d.result = length();
     d.result_unit = "km";
     d.formula = "a1*(Ca/(fw*Fm))^3 * 1e6 * l";
-    d.limits = std::string(kLifeLimits) + ", l > 0";
+    static constexpr auto kLimits = join(kLifeLimits, ", l > 0");
+    d.limits = kLimits.view();
     d.source = kAdjustedSource;
     d.caution = "A rating life is statistical: shock loads, misalignment and poor lubrication shorten it.";
     d.example = {30000, 3000, 1, 1.2, 0.010};

@@ -7,6 +7,7 @@
 #include <string>
 #include <vector>
 
+#include "functions/const_text.h"
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
@@ -131,10 +132,10 @@ const char* kSource =
     "columns with central loading): Euler Pcr/A = C*pi^2*E/(l/k)^2, Eq. (4-43), the transition (l/k)1 = "
     "(2*pi^2*C*E/Sy)^(1/2) where Pcr/A = Sy/2, Eq. (4-45), and the parabolic formula, Eq. (4-46), p. 184; its "
     "table of end-condition constants (from memory)";
-const char* kCaution =
+constexpr char kCaution[] =
     "Long screws buckle: these loads assume a straight screw loaded on its axis; take the end-condition "
     "constant conservatively and apply a design factor.";
-const char* kCLimit =
+constexpr char kCLimit[] =
     "0 < C <= 4: C = 1/4 fixed-free, 1 both ends pinned (rounded), 2 fixed-pinned (1.2 recommended), "
     "4 both fixed (1.2 recommended)";
 
@@ -151,7 +152,6 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
                                  "screw metals: annealed bronze and aluminium alloys from about 100 MPa, "
                                  "structural steels 235 to 355 MPa, quenched and tempered alloy steels to "
                                  "about 1500 MPa (EN 10025-2, EN 10083-3 minimum values, from memory)");
-  const std::string cl(kCLimit);
   {
     FunctionDecl d;
     d.name = "slenderness";
@@ -175,7 +175,8 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = none();
     d.result_unit = "1";
     d.formula = "sqrt(2*pi^2*C*E/Sy)";
-    d.limits = cl + "; 0 < E <= 1200 GPa, 0 < Sy < E";
+    static constexpr auto kLimits = join(kCLimit, "; 0 < E <= 1200 GPa, 0 < Sy < E");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kCaution;
     d.example = {1, 207e9, 500e6};
@@ -190,12 +191,15 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "C*pi^2*E*(pi*dr^4/64)/L^2";
-    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
-               "below it Euler overestimates the load (use buckling_load, which chooses). Without Sy the "
-               "transition is unknown: a call whose Euler stress exceeds half the yield strength of a mild "
-               "screw steel (0.0005*E) is a warning";
+    static constexpr auto kLimits =
+        join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa. Valid above the transition slenderness only: "
+                                         "below it Euler overestimates the load (use buckling_load, which chooses). Without Sy the "
+                                         "transition is unknown: a call whose Euler stress exceeds half the yield strength of a mild "
+                                         "screw steel (0.0005*E) is a warning");
+    d.limits = kLimits.view();
     d.source = kSource;
-    d.caution = std::string(kCaution) + " Below the transition slenderness Euler's load is unsafe.";
+    static constexpr auto kEulerCaution = join(kCaution, " Below the transition slenderness Euler's load is unsafe.");
+    d.caution = kEulerCaution.view();
     d.example = {0.0375, 1.5, 1, 207e9};
     d.eval = eulerLoad;
     d.advise = adviseEuler;
@@ -209,8 +213,10 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result = force();
     d.result_unit = "kN";
     d.formula = "pi*dr^2/4 * (Sy - (2*Sy*L/(pi*dr))^2/(C*E))";
-    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
-               "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error";
+    static constexpr auto kLimits =
+        join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa, 0 < Sy < E; the slenderness L/(dr/4) must not exceed the "
+                                         "transition sqrt(2*pi^2*C*E/Sy): beyond it the column is long and this is an error");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kCaution;
     d.example = {0.0375, 0.5, 1, 207e9, 500e6};
@@ -226,7 +232,8 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result_unit = "kN";
     d.formula = "johnson_load when L/(dr/4) <= sqrt(2*pi^2*C*E/Sy), else euler_load";
     d.formula_is_expression = false;
-    d.limits = "dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E";
+    static constexpr auto kLimits = join("dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa, 0 < Sy < E");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kCaution;
     d.example = {0.0375, 1.5, 1, 207e9, 500e6};
@@ -242,7 +249,8 @@ GroupText addColumns(std::vector<FunctionDecl>& out) {
     d.result_unit = "1";
     d.formula = "buckling_load(dr, L, C, E, Sy) / F";
     d.formula_is_expression = false;
-    d.limits = "F > 0, dr > 0, L > 0, " + cl + ", 0 < E <= 1200 GPa, 0 < Sy < E";
+    static constexpr auto kLimits = join("F > 0, dr > 0, L > 0, ", kCLimit, ", 0 < E <= 1200 GPa, 0 < Sy < E");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kCaution;
     d.example = {22000, 0.0375, 1.5, 1, 207e9, 500e6};

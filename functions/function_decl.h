@@ -1,6 +1,10 @@
 // How a drive function is declared: once, with everything the engine, the
 // trail, the CLI listing and docs/functions.md need. Nothing about a function
 // is written twice: the listing and the docs are generated from these.
+// Every text is a std::string_view into constant data (string literals, or
+// texts joined at compile time: const_text.h), so that building the library
+// at start-up makes no string. Never assign one a std::string: the view of a
+// temporary dangles.
 #pragma once
 
 #include <cmath>
@@ -14,9 +18,9 @@
 namespace calctrail {
 
 struct FunctionArg {
-  std::string name;         // as in the formula: "F", "dm", "f", "alpha"
+  std::string_view name;    // as in the formula: "F", "dm", "f", "alpha"
   Dimension dim;            // checked at compile time like any formula
-  std::string description;  // "axial load on the screw"
+  std::string_view description;  // "axial load on the screw"
   // A lead or a pitch: accepts a plain length (read as per revolution) or a
   // length per angle such as [mm/rev]. eval() always receives metres per
   // revolution.
@@ -26,10 +30,10 @@ struct FunctionArg {
   // the call (a value off by 1000 is a slip of units). Infinite: no bound.
   double usual_min = -HUGE_VAL, usual_max = HUGE_VAL;
   // The unit the warning and the docs show the range in ("GPa"), and its SI value.
-  std::string usual_unit;
+  std::string_view usual_unit;
   double usual_factor = 1.0;
   // What the range stands for, with its source ("steels 190 to 215 GPa ...").
-  std::string usual_why;
+  std::string_view usual_why;
   bool hasUsualRange() const { return usual_min > -HUGE_VAL || usual_max < HUGE_VAL; }
 };
 
@@ -45,8 +49,8 @@ class DomainError : public std::runtime_error {
 };
 
 struct FunctionDecl {
-  std::string name;      // short, in the words of the trade: "torque_raise"
-  std::string summary;   // one line for listings
+  std::string_view name;     // short, in the words of the trade: "torque_raise"
+  std::string_view summary;  // one line for listings
   std::vector<FunctionArg> args;
   // The last `repeat` arguments form a group that may be given again any number
   // of times (stages of a train, steps of a duty cycle): `overall_ratio(i1, i2,
@@ -59,16 +63,16 @@ struct FunctionDecl {
   // revolution and the engine stores it as length per angle, so that
   // rpm * lead gives a speed without a lost 2*pi.
   bool result_per_revolution = false;
-  std::string result_unit;  // the unit the trail shows by default ("N*m", "mm")
+  std::string_view result_unit;  // the unit the trail shows by default ("N*m", "mm")
   // The formula in worksheet expression syntax over the argument names
   // ("F*dm/2 * (l + pi*f*dm/cos(alpha)) / (pi*dm - f*l/cos(alpha))"), so the
   // trail can show it and substitute values; or, for a table lookup or a
   // multi-step method, a plain description with formula_is_expression false.
-  std::string formula;
+  std::string_view formula;
   bool formula_is_expression = true;
-  std::string limits;   // validity limits in words, as checked by eval()
-  std::string source;   // published source: standard, handbook, textbook method
-  std::string caution;  // for results that feed a safety decision; "" otherwise
+  std::string_view limits;   // validity limits in words, as checked by eval()
+  std::string_view source;   // published source: standard, handbook, textbook method
+  std::string_view caution;  // for results that feed a safety decision; "" otherwise
   // One call inside the validity limits, in the SI values eval() receives:
   // the formula test evaluates the declared formula there and compares it
   // with eval(). Empty: the test samples values by dimension.
@@ -106,7 +110,8 @@ struct FunctionDecl {
 
 namespace fn {
 // An argument as the declarations write it: arg("F", force(), "axial load").
-inline FunctionArg arg(const char* name, Dimension dim, const char* description, bool per_rev = false) {
+inline FunctionArg arg(std::string_view name, Dimension dim, std::string_view description,
+                       bool per_rev = false) {
   FunctionArg x;
   x.name = name;
   x.dim = dim;
@@ -116,8 +121,8 @@ inline FunctionArg arg(const char* name, Dimension dim, const char* description,
 }
 // The same argument with a usual range (SI values), shown in `unit` (SI value
 // `factor`), and what the range stands for.
-inline FunctionArg usual(FunctionArg a, double lo, double hi, const char* unit, double factor,
-                         const char* why) {
+inline FunctionArg usual(FunctionArg a, double lo, double hi, std::string_view unit, double factor,
+                         std::string_view why) {
   a.usual_min = lo;
   a.usual_max = hi;
   a.usual_unit = unit;

@@ -14,7 +14,7 @@ namespace calctrail {
 namespace {
 
 std::string signature(const FunctionDecl& d) {
-  std::string s = d.name + "(";
+  std::string s = std::string(d.name) + "(";
   for (std::size_t k = 0; k < d.args.size(); ++k) {
     if (k) s += ", ";
     s += d.args[k].name;
@@ -93,8 +93,8 @@ const char* kIntro =
     "qualified engineer.\n";
 
 void appendDetail(std::string& out, const FunctionDecl& d) {
-  out += signature(d) + " -> " + dimText(d.result, d.result_per_revolution) + ", shown in " + d.result_unit + "\n";
-  out += "  " + d.summary + "\n";
+  out += signature(d) + " -> " + dimText(d.result, d.result_per_revolution) + ", shown in " + std::string(d.result_unit) + "\n";
+  out += "  " + std::string(d.summary) + "\n";
   if (d.args.empty()) {
     out += "  Arguments: none\n";
   } else {
@@ -105,15 +105,15 @@ void appendDetail(std::string& out, const FunctionDecl& d) {
       dim_w = std::max(dim_w, dimText(a.dim, a.per_revolution).size());
     }
     for (const FunctionArg& a : d.args)
-      out += "    " + pad(a.name, name_w) + "  " + pad(dimText(a.dim, a.per_revolution), dim_w) + "  " +
-             a.description + "\n";
+      out += "    " + pad(std::string(a.name), name_w) + "  " + pad(dimText(a.dim, a.per_revolution), dim_w) + "  " +
+             std::string(a.description) + "\n";
     if (d.repeat > 0) out += "    then " + repeatText(d) + "\n";
   }
-  out += std::string(d.formula_is_expression ? "  Formula: " : "  Method:  ") + d.formula + "\n";
-  out += "  Limits:  " + d.limits + "\n";
+  out += std::string(d.formula_is_expression ? "  Formula: " : "  Method:  ") + std::string(d.formula) + "\n";
+  out += "  Limits:  " + std::string(d.limits) + "\n";
   if (!usualText(d).empty()) out += "  Warns outside the usual range: " + usualText(d) + "\n";
-  out += "  Source:  " + d.source + "\n";
-  if (!d.caution.empty()) out += "  Caution: " + d.caution + "\n";
+  out += "  Source:  " + std::string(d.source) + "\n";
+  if (!d.caution.empty()) out += "  Caution: " + std::string(d.caution) + "\n";
 }
 
 void jsonString(std::string& out, std::string_view s) { out += JsonWriter::escape(s); }
@@ -168,7 +168,7 @@ void appendJson(std::string& out, const FunctionDecl& d) {
 }
 
 // GitHub-style heading anchor: lower case, spaces to '-', punctuation dropped.
-std::string anchor(const std::string& title) {
+std::string anchor(std::string_view title) {
   std::string a;
   for (const char c : title) {
     const unsigned char u = static_cast<unsigned char>(c);
@@ -180,7 +180,7 @@ std::string anchor(const std::string& title) {
   return a;
 }
 
-std::string cell(const std::string& s) {
+std::string cell(std::string_view s) {
   std::string out;
   for (const char c : s) {
     if (c == '|') out += "\\|";
@@ -204,9 +204,9 @@ std::string functionsText(std::string_view name) {
   for (const FunctionDecl& d : all) sig_w = std::max(sig_w, signature(d).size());
   out += "Drive functions (" + std::to_string(all.size()) + "); `calctrail functions NAME` shows one in detail.\n";
   for (const FunctionGroup& g : functionGroups()) {
-    out += "\n" + g.title + "\n";
+    out += "\n" + std::string(g.title) + "\n";
     for (std::size_t k = g.first; k < g.first + g.count; ++k)
-      out += "  " + pad(signature(all[k]), sig_w) + "  " + all[k].summary + "\n";
+      out += "  " + pad(signature(all[k]), sig_w) + "  " + std::string(all[k].summary) + "\n";
   }
   return out;
 }
@@ -239,39 +239,39 @@ std::string functionsMarkdown() {
   out += "\nThe check of each function against a published value is listed in [verification.md](verification.md).\n";
   out += "\n## Contents\n\n";
   for (const FunctionGroup& g : functionGroups()) {
-    out += "- [" + g.title + "](#" + anchor(g.title) + "): ";
+    out += "- [" + std::string(g.title) + "](#" + anchor(g.title) + "): ";
     for (std::size_t k = g.first; k < g.first + g.count; ++k) {
       if (k > g.first) out += ", ";
-      out += "[`" + all[k].name + "`](#" + anchor(all[k].name) + ")";
+      out += "[`" + std::string(all[k].name) + "`](#" + anchor(all[k].name) + ")";
     }
     out += "\n";
   }
   for (const FunctionGroup& g : functionGroups()) {
-    out += "\n## " + g.title + "\n\n" + g.intro + "\n";
+    out += "\n## " + std::string(g.title) + "\n\n" + std::string(g.intro) + "\n";
     for (std::size_t k = g.first; k < g.first + g.count; ++k) {
       const FunctionDecl& d = all[k];
-      out += "\n### " + d.name + "\n\n";
+      out += "\n### " + std::string(d.name) + "\n\n";
       out += "`" + signature(d) + "` -> " + dimText(d.result, d.result_per_revolution) + ", shown in `" +
-             d.result_unit + "`\n\n";
-      out += d.summary + ".\n\n";
+             std::string(d.result_unit) + "`\n\n";
+      out += std::string(d.summary) + ".\n\n";
       if (d.args.empty()) {
         out += "No arguments.\n\n";
       } else {
         out += "| Argument | Dimension (usual unit) | SI value passed | Description |\n|---|---|---|---|\n";
         for (const FunctionArg& a : d.args)
-          out += "| `" + a.name + "` | " + dimText(a.dim, a.per_revolution) + " | " +
+          out += "| `" + std::string(a.name) + "` | " + dimText(a.dim, a.per_revolution) + " | " +
                  siUnit(a.dim, a.per_revolution) + " | " + cell(a.description) + " |\n";
         out += "\n";
         if (d.repeat > 0) out += "Then " + repeatText(d) + ".\n\n";
       }
       if (d.formula_is_expression)
-        out += "Formula: `" + d.formula + "`\n\n";
+        out += "Formula: `" + std::string(d.formula) + "`\n\n";
       else
-        out += "Method: " + d.formula + ".\n\n";
-      out += "Limits: " + d.limits + ".\n\n";
+        out += "Method: " + std::string(d.formula) + ".\n\n";
+      out += "Limits: " + std::string(d.limits) + ".\n\n";
       if (!usualText(d).empty()) out += "Warns outside the usual range: " + usualText(d) + ".\n\n";
-      out += "Source: " + d.source + ".\n";
-      if (!d.caution.empty()) out += "\n> Caution: " + d.caution + "\n";
+      out += "Source: " + std::string(d.source) + ".\n";
+      if (!d.caution.empty()) out += "\n> Caution: " + std::string(d.caution) + "\n";
     }
   }
   return out;

@@ -4,7 +4,7 @@
 #pragma once
 
 #include <cstddef>
-#include <string>
+#include <string_view>
 #include <vector>
 
 #include "functions/function_decl.h"
@@ -12,8 +12,8 @@
 namespace calctrail {
 
 struct FunctionGroup {
-  std::string title;  // "Power screws"
-  std::string intro;  // a short paragraph for the docs: conventions, practice values
+  std::string_view title;  // "Power screws"
+  std::string_view intro;  // a short paragraph for the docs: conventions, practice values
   std::size_t first = 0;  // index into functionLibrary()
   std::size_t count = 0;
 };

@@ -5,8 +5,10 @@
 #include <string>
 #include <vector>
 
+#include "functions/const_text.h"
 #include "functions/dims.h"
 #include "functions/function_library.h"
+#include "functions/table_texts.h"
 #include "functions/validity.h"
 #include "engine/util/math_constants.h"
 
@@ -26,6 +28,11 @@ namespace {
 const double kRatedKw[] = {0.06, 0.09, 0.12, 0.18, 0.25, 0.37, 0.55, 0.75, 1.1, 1.5, 2.2, 3,  4,   5.5, 7.5,
                            11,   15,   18.5, 22,   30,   37,   45,   55,   75,  90,  110, 132, 160, 200,
                            250,  315,  355,  400,  450,  500,  560,  630,  710, 800, 900, 1000};
+// The table as standard_motor_power's formula quotes it, constant so that it is
+// not formatted at start-up: ratedMotorText(), which tests/functions_table_texts_test.cc checks.
+constexpr char kRatedSeries[] =
+    "0.06, 0.09, 0.12, 0.18, 0.25, 0.37, 0.55, 0.75, 1.1, 1.5, 2.2, 3, 4, 5.5, 7.5, 11, 15, 18.5, 22, 30, 37, "
+    "45, 55, 75, 90, 110, 132, 160, 200, 250, 315, 355, 400, 450, 500, 560, 630, 710, 800, 900, 1000 kW";
 
 double screwsTorque(const double* a) {
   const double T = nonNegative(a, 0, "torque per screw T_screw", Show::Torque);
@@ -72,7 +79,14 @@ double standardMotorPower(const double* a) {
               " kW, the largest rated output in this table; choose from the motor maker's range");
 }
 
-std::string ratedText() {
+
+const char* kDriveSource =
+    "Power and torque balance of a drive (P = T*omega, torque through a reduction T_out = T_in*i*eta), as in "
+    "Shigley's Mechanical Engineering Design, Sec. 8-2 and Ch. 13 (from memory)";
+
+}  // namespace
+
+std::string ratedMotorText() {
   std::string s;
   for (double kw : kRatedKw) {
     if (!s.empty()) s += ", ";
@@ -80,12 +94,6 @@ std::string ratedText() {
   }
   return s + " kW";
 }
-
-const char* kDriveSource =
-    "Power and torque balance of a drive (P = T*omega, torque through a reduction T_out = T_in*i*eta), as in "
-    "Shigley's Mechanical Engineering Design, Sec. 8-2 and Ch. 13 (from memory)";
-
-}  // namespace
 
 GroupText addMotors(std::vector<FunctionDecl>& out) {
   using namespace dims;
@@ -160,7 +168,8 @@ GroupText addMotors(std::vector<FunctionDecl>& out) {
     d.args = {arg("P", power(), "required power at the motor shaft")};
     d.result = power();
     d.result_unit = "kW";
-    d.formula = "smallest rated output >= P from the series " + ratedText();
+    static constexpr auto kFormula = join("smallest rated output >= P from the series ", kRatedSeries);
+    d.formula = kFormula.view();
     d.formula_is_expression = false;
     d.limits = "0 < P <= 1000 kW; above it the table ends and this is an error. Up to 200 kW the outputs have "
                "standard frame sizes (EN 50347); above, the frame is the maker's";

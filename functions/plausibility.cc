@@ -11,7 +11,10 @@ std::string shown(double si, const FunctionArg& a) {
   char buf[40];
   std::snprintf(buf, sizeof buf, "%.4g", si / a.usual_factor);
   std::string s = buf;
-  if (!a.usual_unit.empty()) s += " " + a.usual_unit;
+  if (!a.usual_unit.empty()) {
+    s += ' ';
+    s += a.usual_unit;
+  }
   return s;
 }
 
@@ -69,7 +72,7 @@ std::vector<Doubt> doubtsOf(const FunctionDecl& decl, const double* args, int n)
     const FunctionArg& a = decl.argAt(k);
     if (!outside(a, args[k])) continue;
     std::string m = decl.argName(k) + " = " + shown(args[k], a) + " is outside the usual range " +
-                    rangeOf(a) + " of the " + a.description + " (" + a.usual_why + ")";
+                    rangeOf(a) + " of the " + std::string(a.description) + " (" + std::string(a.usual_why) + ")";
     // A factor of about 1000 from the middle of the range (geometric, for a two-sided
     // range of positive values) is a unit slip, not a design.
     double typical = args[k] < a.usual_min ? a.usual_min : a.usual_max;
@@ -88,7 +91,7 @@ std::vector<Doubt> doubtsOf(const FunctionDecl& decl, const double* args, int n)
 
 std::string usualRangeText(const FunctionArg& a) {
   if (!a.hasUsualRange()) return "";
-  return a.name + ": " + rangeOf(a) + " (" + a.usual_why + ")";
+  return std::string(a.name) + ": " + rangeOf(a) + " (" + std::string(a.usual_why) + ")";
 }
 
 }  // namespace calctrail

@@ -6,6 +6,7 @@
 #include <string>
 #include <vector>
 
+#include "functions/const_text.h"
 #include "functions/dims.h"
 #include "functions/function_library.h"
 #include "functions/validity.h"
@@ -149,9 +150,9 @@ const char* kFrictionCaution =
 const char* kLockCaution =
     "Self-locking is no brake: vibration and low friction can back-drive the screw; provide a brake where a "
     "load is held.";
-const char* kThreadLimits =
+constexpr char kThreadLimits[] =
     "F > 0, dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg";
-const char* kRaiseLimits =
+constexpr char kRaiseLimits[] =
     "F > 0, dm > 0, l > 0, 0 <= f <= 1, 0 <= alpha <= 45 deg; pi*dm - f*l/cos(alpha) > 0 (beyond it the lead "
     "angle plus the friction angle reach 90 deg and the screw cannot raise the load)";
 
@@ -168,8 +169,8 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
   const FunctionArg fc = usually(arg("fc", none(), "collar friction coefficient"), 0.05, 0.30, Show::Plain,
                                   "thrust collars of steel on cast iron and on bronze run at 0.06 to 0.12 and start at 0.08 to 0.17 (Shigley's Mechanical Engineering Design, 9th ed., Table 8-6, p. 422); widened to 0.05 to 0.30 as for the thread (common practice), a rolling bearing is thrust_bearing_torque's");
   const FunctionArg dc = arg("dc", length(), "collar mean diameter");
-  const std::string raise = "F*dm/2 * (l + pi*f*dm/cos(alpha)) / (pi*dm - f*l/cos(alpha))";
-  const std::string lower = "F*dm/2 * (pi*f*dm/cos(alpha) - l) / (pi*dm + f*l/cos(alpha))";
+  static constexpr char kRaise[] = "F*dm/2 * (l + pi*f*dm/cos(alpha)) / (pi*dm - f*l/cos(alpha))";
+  static constexpr char kLower[] = "F*dm/2 * (pi*f*dm/cos(alpha) - l) / (pi*dm + f*l/cos(alpha))";
 
   {
     FunctionDecl d;
@@ -192,7 +193,7 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = raise;
+    d.formula = kRaise;
     d.limits = kRaiseLimits;
     d.source = kSource;
     d.caution = kFrictionCaution;
@@ -207,8 +208,9 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = lower;
-    d.limits = std::string(kThreadLimits) + "; a negative result is the torque needed to hold the load";
+    d.formula = kLower;
+    static constexpr auto kLimits = join(kThreadLimits, "; a negative result is the torque needed to hold the load");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kLockCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 14.5 * kPi / 180};
@@ -222,8 +224,10 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha, fc, dc};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = raise + " + F*fc*dc/2";
-    d.limits = std::string(kRaiseLimits) + "; 0 <= fc <= 1, dc > 0";
+    static constexpr auto kFormula = join(kRaise, " + F*fc*dc/2");
+    d.formula = kFormula.view();
+    static constexpr auto kLimits = join(kRaiseLimits, "; 0 <= fc <= 1, dc > 0");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kFrictionCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};
@@ -237,9 +241,12 @@ GroupText addPowerScrews(std::vector<FunctionDecl>& out) {
     d.args = {F, dm, l, f, alpha, fc, dc};
     d.result = torque();
     d.result_unit = "N*m";
-    d.formula = lower + " + F*fc*dc/2";
-    d.limits = std::string(kThreadLimits) + "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
-               "hold the load";
+    static constexpr auto kFormula = join(kLower, " + F*fc*dc/2");
+    d.formula = kFormula.view();
+    static constexpr auto kLimits =
+        join(kThreadLimits, "; 0 <= fc <= 1, dc > 0; a negative result is the torque needed to "
+                            "hold the load");
+    d.limits = kLimits.view();
     d.source = kSource;
     d.caution = kLockCaution;
     d.example = {6400, 0.030, 0.008, 0.08, 0, 0.08, 0.040};

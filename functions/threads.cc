@@ -10,8 +10,10 @@
 #include <string>
 #include <vector>
 
+#include "functions/const_text.h"
 #include "functions/dims.h"
 #include "functions/function_library.h"
+#include "functions/table_texts.h"
 #include "functions/validity.h"
 #include "engine/util/math_constants.h"
 
@@ -348,6 +350,29 @@ const Trap7eTolerance kTrap7eTolerance[] = {
     {22.4, 45, 5, 300},
 };
 
+// The tables as the declarations quote them, constant so that no table is
+// formatted at start-up; each is the text that the function named beside it
+// builds from the table, which tests/functions_table_texts_test.cc checks.
+constexpr char kAcmeSeries[] =  // acmeSeriesText()
+    "1/4 (16), 5/16 (14), 3/8 (12), 7/16 (12), 1/2 (10), 5/8 (8), 3/4 (6), 7/8 (6), 1 (5), 1-1/8 (5), "
+    "1-1/4 (5), 1-3/8 (4), 1-1/2 (4), 1-3/4 (4), 2 (4), 2-1/4 (3), 2-1/2 (3), 2-3/4 (3), 3 (2), 3-1/2 (2), "
+    "4 (2), 4-1/2 (2), 5 (2)";
+constexpr char kTrapSeries[] =  // trapSeriesText()
+    "Tr 8x1.5, Tr 9x2, Tr 10x2, Tr 11x3, Tr 12x3, Tr 14x3, Tr 16x4, Tr 18x4, Tr 20x4, Tr 22x5, Tr 24x5, "
+    "Tr 26x5, Tr 28x5, Tr 30x6, Tr 32x6, Tr 34x6, Tr 36x6, Tr 38x7, Tr 40x7, Tr 42x7, Tr 44x7, Tr 46x8, "
+    "Tr 48x8, Tr 50x8, Tr 52x8, Tr 55x9, Tr 60x9, Tr 65x10, Tr 70x10, Tr 75x10, Tr 80x10, Tr 85x12, "
+    "Tr 90x12, Tr 95x12, Tr 100x12, Tr 110x12, Tr 120x14, Tr 130x14, Tr 140x14, Tr 150x16, Tr 160x16, "
+    "Tr 170x16, Tr 180x18, Tr 190x18, Tr 200x18, Tr 210x20, Tr 220x20, Tr 230x20, Tr 240x22, Tr 250x22, "
+    "Tr 260x22, Tr 270x24, Tr 280x24, Tr 290x24, Tr 300x24";
+constexpr char kTrap7eHeld[] =  // trap7eHeldText()
+    "d over 5.6 up to 11.2 mm with p = 1.5, 2 and 3 mm, over 11.2 up to 22.4 mm with p = 2, 3, 4 and 5 mm "
+    "and over 22.4 up to 45 mm with p = 3 and 5 mm";
+constexpr char kTrap7eDeviationText[] =  // trap7eDeviationText()
+    "-67 um for p = 1.5 mm, -71 um for 2 mm, -85 um for 3 mm, -95 um for 4 mm, -106 um for 5 mm";
+constexpr char kTrap7eToleranceText[] =  // trap7eToleranceText()
+    "170, 190, 212 um for p = 1.5, 2, 3 mm (d over 5.6 up to 11.2 mm); 200, 224, 265, 280 um for p = 2, 3, "
+    "4, 5 mm (d over 11.2 up to 22.4 mm); 250, 300 um for p = 3, 5 mm (d over 22.4 up to 45 mm)";
+
 // "1.5, 2 and 3" mm: the list of numbers in words.
 std::string andList(const std::vector<std::string>& items) {
   std::string s;
@@ -357,6 +382,98 @@ std::string andList(const std::vector<std::string>& items) {
   }
   return s;
 }
+
+
+
+
+struct Trap7e {
+  double d_mm, p_mm, es_um, td2_um;
+  double maxPitchDia() const { return d_mm - p_mm / 2 + es_um * 1e-3; }
+  double minPitchDia() const { return maxPitchDia() - td2_um * 1e-3; }
+  double maxMinorDia() const { return d_mm - p_mm - 2 * trapClearanceMm(p_mm); }
+  double minMinorDia() const { return maxMinorDia() - (1.25 * td2_um - es_um) * 1e-3; }
+};
+
+Trap7e trap7e(const double* a, const char* call) {
+  majorAndPitch(a, "trapezoidal", call, true);
+  const double p_mm = trapPitchMm(a);
+  const double d_mm = a[0] / kMm;
+  for (const Trap7eTolerance& t : kTrap7eTolerance) {
+    if (t.p_mm != p_mm || !(d_mm > t.d_over_mm + kMatch / kMm) || !(d_mm <= t.d_upto_mm + kMatch / kMm)) continue;
+    for (const Trap7eDeviation& e : kTrap7eDeviation)
+      if (e.p_mm == p_mm) {
+        const Trap7e r{d_mm, p_mm, e.es_um, t.td2_um};
+        if (!(r.minMinorDia() > 0))
+          fail(0, "major diameter d = " + show(a[0], Show::Length) + " leaves no minor diameter for pitch p = " +
+                      show(a[1], Show::Lead));
+        return r;
+      }
+  }
+  fail(-1, "the ISO 2903 class 7e tolerances of d = " + show(a[0], Show::Length) + ", p = " + show(a[1], Show::Lead) +
+               " are not held here: they are held for " + kTrap7eHeld +
+               " (the values published tables of limits confirm); take the limits of this size from ISO 2903");
+}
+
+double trapMaxPitchDia(const double* a) { return result(trap7e(a, "trap_max_pitch_dia").maxPitchDia() * kMm); }
+double trapMinPitchDia(const double* a) { return result(trap7e(a, "trap_min_pitch_dia").minPitchDia() * kMm); }
+double trapMinMinorDia(const double* a) { return result(trap7e(a, "trap_min_minor_dia").minMinorDia() * kMm); }
+
+double threadLead(const double* a) {
+  const double p = positive(a, 0, "pitch p", Show::Lead);
+  const double n = count(a, 1, "number of starts");
+  return result(n * p);
+}
+
+
+
+const char* kAcmeSource =
+    "ASME B1.5 (Acme screw threads), general-purpose series and basic dimensions, reprinted in Machinery's "
+    "Handbook (from memory); fourteen sizes 1/4 to 3 in with their pitches also as Shigley's Mechanical "
+    "Engineering Design, 9th ed., Table 8-3 (p. 414) prints them, and 1/4-16 to 7/8-6 as Lew Merrick's Acme "
+    "thread data sheets do";
+const char* kTrapSource =
+    "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions: d2, d3, D1 and D4 checked "
+    "against two published reprints of the ISO 2904 table; the diameters and their coarse, normal (preferred) "
+    "and fine pitches against a published reprint of ISO 2904's diameter-pitch combinations, F-M-S's "
+    "(docs/verification.md); the root clearances ac from memory, which the reprinted d3 and D4 reproduce "
+    "(pitches 1.5 to 5, 7, 8 and 12 mm; the 1 mm of the pitches 14 to 44 mm is in no reprint at hand)";
+const char* kStubSource =
+    "ASME B1.8 (Stub Acme screw threads): basic thread height 0.3p, 29 deg included angle, the preferred "
+    "diameter-pitch combinations of the general-purpose Acme series (from memory)";
+const char* kButtressSource =
+    "ASME B1.9-1973, reaffirmed 2017 (buttress inch screw threads, 7 deg/45 deg form with 0.6 pitch basic "
+    "height of thread engagement, as its title says): basic pitch diameter D - 0.6p (from memory; the sharp-V "
+    "height p/(tan 7 deg + tan 45 deg) = 0.89064p, truncated alike at crest and root to the 0.6p engagement, "
+    "puts the pitch line 0.3p below the major diameter); the standard's preferred "
+    "diameter-pitch combinations (its Table 1) and pitch diameter tolerances (para. 6.1) are not held here";
+const char* kAcme2GSource =
+    "ASME B1.5 (Acme screw threads), general-purpose class 2G external thread: pitch diameter allowance "
+    "0.008*sqrt(D), pitch diameter tolerance 0.006*sqrt(D) + 0.030*sqrt(p), minor diameter max D - (p + 0.020 "
+    "in) for 10 tpi and coarser, D - (p + 0.010 in) finer, minor diameter tolerance 1.5 times the pitch "
+    "diameter tolerance (D, p in inches); checked against two published class 2G tables, a thread maker's "
+    "and Lew Merrick's Acme thread data sheets (see docs/verification.md)";
+// The sizes the 2G and 7e tolerance functions hold, the same for each limit.
+const char* kAcme2GLimits =
+    "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
+    "within 1 um. The limits of a single-start thread, as the published tables give them; a "
+    "multiple-start screw may be made to other limits: take them from its drawing";
+// Single-start threads only, the same for the three 7e limits.
+constexpr char kTrap7eSingleStart[] =
+    "; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
+    "widens Td2 of a multiple-start thread (clause 10), which is not held here";
+const char* kTrap7eSource =
+    "ISO 2903 (ISO metric trapezoidal screw threads, tolerances), class 7e of the external thread: "
+    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clause 7, its formula "
+    "clause 11.4.1), d and d3 of position h (clause 6), Td3 (clause 11.5) = 1.25*Td2 + |es| (the relation from "
+    "memory); clause and table numbers as the published contents and text of ISO 2903:2016 give them. Every es "
+    "and Td2 held is read from two published tables of 7e limits, Engineers Edge's and a lead-screw maker's "
+    "(see docs/verification.md)";
+const char* kSquareSource =
+    "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
+    "Mechanical Engineering Design, Fig. 8-3) and Machinery's Handbook: depth p/2; "
+    "no current standard series";
+
+}  // namespace
 
 // The sizes held, read from the table: "over 5.6 up to 11.2 mm with p = 1.5,
 // 2 and 3 mm, over 11.2 up to 22.4 mm with ...". One text for the limits of
@@ -401,44 +518,6 @@ std::string trap7eToleranceText() {
   return s;
 }
 
-struct Trap7e {
-  double d_mm, p_mm, es_um, td2_um;
-  double maxPitchDia() const { return d_mm - p_mm / 2 + es_um * 1e-3; }
-  double minPitchDia() const { return maxPitchDia() - td2_um * 1e-3; }
-  double maxMinorDia() const { return d_mm - p_mm - 2 * trapClearanceMm(p_mm); }
-  double minMinorDia() const { return maxMinorDia() - (1.25 * td2_um - es_um) * 1e-3; }
-};
-
-Trap7e trap7e(const double* a, const char* call) {
-  majorAndPitch(a, "trapezoidal", call, true);
-  const double p_mm = trapPitchMm(a);
-  const double d_mm = a[0] / kMm;
-  for (const Trap7eTolerance& t : kTrap7eTolerance) {
-    if (t.p_mm != p_mm || !(d_mm > t.d_over_mm + kMatch / kMm) || !(d_mm <= t.d_upto_mm + kMatch / kMm)) continue;
-    for (const Trap7eDeviation& e : kTrap7eDeviation)
-      if (e.p_mm == p_mm) {
-        const Trap7e r{d_mm, p_mm, e.es_um, t.td2_um};
-        if (!(r.minMinorDia() > 0))
-          fail(0, "major diameter d = " + show(a[0], Show::Length) + " leaves no minor diameter for pitch p = " +
-                      show(a[1], Show::Lead));
-        return r;
-      }
-  }
-  fail(-1, "the ISO 2903 class 7e tolerances of d = " + show(a[0], Show::Length) + ", p = " + show(a[1], Show::Lead) +
-               " are not held here: they are held for " + trap7eHeldText() +
-               " (the values published tables of limits confirm); take the limits of this size from ISO 2903");
-}
-
-double trapMaxPitchDia(const double* a) { return result(trap7e(a, "trap_max_pitch_dia").maxPitchDia() * kMm); }
-double trapMinPitchDia(const double* a) { return result(trap7e(a, "trap_min_pitch_dia").minPitchDia() * kMm); }
-double trapMinMinorDia(const double* a) { return result(trap7e(a, "trap_min_minor_dia").minMinorDia() * kMm); }
-
-double threadLead(const double* a) {
-  const double p = positive(a, 0, "pitch p", Show::Lead);
-  const double n = count(a, 1, "number of starts");
-  return result(n * p);
-}
-
 std::string acmeSeriesText() {
   std::string s;
   for (const AcmeRow& r : kAcme) {
@@ -457,61 +536,13 @@ std::string trapSeriesText() {
   return s;
 }
 
-const char* kAcmeSource =
-    "ASME B1.5 (Acme screw threads), general-purpose series and basic dimensions, reprinted in Machinery's "
-    "Handbook (from memory); fourteen sizes 1/4 to 3 in with their pitches also as Shigley's Mechanical "
-    "Engineering Design, 9th ed., Table 8-3 (p. 414) prints them, and 1/4-16 to 7/8-6 as Lew Merrick's Acme "
-    "thread data sheets do";
-const char* kTrapSource =
-    "ISO 2904 / DIN 103 (metric trapezoidal screw threads), basic dimensions: d2, d3, D1 and D4 checked "
-    "against two published reprints of the ISO 2904 table; the diameters and their coarse, normal (preferred) "
-    "and fine pitches against a published reprint of ISO 2904's diameter-pitch combinations, F-M-S's "
-    "(docs/verification.md); the root clearances ac from memory, which the reprinted d3 and D4 reproduce "
-    "(pitches 1.5 to 5, 7, 8 and 12 mm; the 1 mm of the pitches 14 to 44 mm is in no reprint at hand)";
-const char* kStubSource =
-    "ASME B1.8 (Stub Acme screw threads): basic thread height 0.3p, 29 deg included angle, the preferred "
-    "diameter-pitch combinations of the general-purpose Acme series (from memory)";
-const char* kButtressSource =
-    "ASME B1.9-1973, reaffirmed 2017 (buttress inch screw threads, 7 deg/45 deg form with 0.6 pitch basic "
-    "height of thread engagement, as its title says): basic pitch diameter D - 0.6p (from memory; the sharp-V "
-    "height p/(tan 7 deg + tan 45 deg) = 0.89064p, truncated alike at crest and root to the 0.6p engagement, "
-    "puts the pitch line 0.3p below the major diameter); the standard's preferred "
-    "diameter-pitch combinations (its Table 1) and pitch diameter tolerances (para. 6.1) are not held here";
-const char* kAcme2GSource =
-    "ASME B1.5 (Acme screw threads), general-purpose class 2G external thread: pitch diameter allowance "
-    "0.008*sqrt(D), pitch diameter tolerance 0.006*sqrt(D) + 0.030*sqrt(p), minor diameter max D - (p + 0.020 "
-    "in) for 10 tpi and coarser, D - (p + 0.010 in) finer, minor diameter tolerance 1.5 times the pitch "
-    "diameter tolerance (D, p in inches); checked against two published class 2G tables, a thread maker's "
-    "and Lew Merrick's Acme thread data sheets (see docs/verification.md)";
-// The sizes the 2G and 7e tolerance functions hold, the same for each limit.
-const char* kAcme2GLimits =
-    "d a size of the ASME B1.5 general-purpose series and p its series pitch (acme_pitch(d)), each "
-    "within 1 um. The limits of a single-start thread, as the published tables give them; a "
-    "multiple-start screw may be made to other limits: take them from its drawing";
-// Single-start threads only, the same for the three 7e limits.
-const char* kTrap7eSingleStart =
-    "; any other size is an error (its values are not held here). Single-start threads: ISO 2903 "
-    "widens Td2 of a multiple-start thread (clause 10), which is not held here";
-const char* kTrap7eSource =
-    "ISO 2903 (ISO metric trapezoidal screw threads, tolerances), class 7e of the external thread: "
-    "fundamental deviation es of d2 for position e (Table 1), grade 7 tolerance Td2 (clause 7, its formula "
-    "clause 11.4.1), d and d3 of position h (clause 6), Td3 (clause 11.5) = 1.25*Td2 + |es| (the relation from "
-    "memory); clause and table numbers as the published contents and text of ISO 2903:2016 give them. Every es "
-    "and Td2 held is read from two published tables of 7e limits, Engineers Edge's and a lead-screw maker's "
-    "(see docs/verification.md)";
-const char* kSquareSource =
-    "Square thread proportions as in the machine design textbooks (e.g. Shigley's "
-    "Mechanical Engineering Design, Fig. 8-3) and Machinery's Handbook: depth p/2; "
-    "no current standard series";
-
-}  // namespace
-
 GroupText addThreads(std::vector<FunctionDecl>& out) {
   using namespace dims;
   const FunctionArg major = arg("d", length(), "nominal (major) diameter of the thread");
   const FunctionArg pitch = arg("p", length(), "pitch (axial distance between adjacent threads)", true);
   // The limits of the three class 7e functions, built once.
-  const std::string held = trap7eHeldText() + kTrap7eSingleStart;
+  static constexpr auto kHeld = join(kTrap7eHeld, kTrap7eSingleStart);
+  const std::string_view held = kHeld.view();
 
   {
     FunctionDecl d;
@@ -520,7 +551,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major};
     d.result = perLength();
     d.result_unit = "1/in";
-    d.formula = "table lookup, ASME B1.5 general-purpose series, nominal size in inches (threads per inch): " + acmeSeriesText();
+    static constexpr auto kFormula =
+        join("table lookup, ASME B1.5 general-purpose series, nominal size in inches (threads per inch): ", kAcmeSeries);
+    d.formula = kFormula.view();
     d.formula_is_expression = false;
     d.limits = "d must be a size of the series (within 1 um); any other size is an error naming the nearest sizes";
     d.source = kAcmeSource;
@@ -592,7 +625,8 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "table lookup, ISO 2904 series (preferred combinations): " + trapSeriesText();
+    static constexpr auto kFormula = join("table lookup, ISO 2904 series (preferred combinations): ", kTrapSeries);
+    d.formula = kFormula.view();
     d.formula_is_expression = false;
     d.limits = "d must be a diameter of the series, 8 to 300 mm (within 1 um); any other size is an error naming "
                "the nearest sizes. The finer and coarser pitches of the series are accepted by trap_pitch_dia "
@@ -848,7 +882,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major, pitch};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "d - p/2 + es, with the fundamental deviation es of position e: " + trap7eDeviationText();
+    static constexpr auto kFormula =
+        join("d - p/2 + es, with the fundamental deviation es of position e: ", kTrap7eDeviationText);
+    d.formula = kFormula.view();
     d.formula_is_expression = false;
     d.limits = held;
     d.source = kTrap7eSource;
@@ -863,7 +899,9 @@ GroupText addThreads(std::vector<FunctionDecl>& out) {
     d.args = {major, pitch};
     d.result = length();
     d.result_unit = "mm";
-    d.formula = "trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = " + trap7eToleranceText();
+    static constexpr auto kFormula =
+        join("trap_max_pitch_dia(d, p) - Td2, with the grade 7 tolerance Td2 = ", kTrap7eToleranceText);
+    d.formula = kFormula.view();
     d.formula_is_expression = false;
     d.limits = held;
     d.source = kTrap7eSource;

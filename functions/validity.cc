@@ -54,8 +54,8 @@ std::string show(double si, Show how) {
 
 FunctionArg usually(FunctionArg a, double lo, double hi, Show how, const char* why) {
   const Shown s = unitOf(how);
-  const std::string unit = s.unit[0] == ' ' ? s.unit + 1 : s.unit;
-  return usual(std::move(a), lo, hi, unit.c_str(), s.factor, why);
+  const std::string_view unit = s.unit[0] == ' ' ? s.unit + 1 : s.unit;
+  return usual(a, lo, hi, unit, s.factor, why);
 }
 
 void fail(int arg, const std::string& message) { throw DomainError(arg, message); }

@@ -27,7 +27,7 @@ TEST_CASE("docs: the markdown has a section per function with its formula and so
   const std::string md = calctrail::functionsMarkdown();
   for (const calctrail::FunctionDecl& d : calctrail::functionLibrary()) {
     INFO(d.name);
-    CHECK(md.find("\n### " + d.name + "\n") != std::string::npos);
+    CHECK(md.find("\n### " + std::string(d.name) + "\n") != std::string::npos);
     CHECK(md.find(d.source) != std::string::npos);
   }
 }
@@ -35,7 +35,7 @@ TEST_CASE("docs: the markdown has a section per function with its formula and so
 TEST_CASE("docs: the text listing shows every function, one in detail, and nothing for an unknown name",
           "[functions][docs]") {
   const std::string all = calctrail::functionsText();
-  for (const calctrail::FunctionDecl& d : calctrail::functionLibrary()) CHECK(all.find(d.name + "(") != std::string::npos);
+  for (const calctrail::FunctionDecl& d : calctrail::functionLibrary()) CHECK(all.find(std::string(d.name) + "(") != std::string::npos);
   const std::string one = calctrail::functionsText("torque_raise");
   CHECK_THAT(one, Catch::StartsWith("torque_raise(F, dm, l, f, alpha) -> torque or energy"));
   CHECK_THAT(one, Catch::Contains("Formula: F*dm/2"));

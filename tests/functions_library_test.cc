@@ -35,17 +35,17 @@ using calctrail::functionLibrary;
 
 constexpr double kPi = 3.14159265358979323846;
 
-const std::set<std::string> kMathFunctions = {"sqrt", "sin",  "cos", "tan", "asin",  "acos", "atan",
+const std::set<std::string, std::less<>> kMathFunctions = {"sqrt", "sin",  "cos", "tan", "asin",  "acos", "atan",
                                               "atan2", "exp", "ln",  "log10", "abs", "min",  "max"};
 
-bool isIdentifier(const std::string& s) {
+bool isIdentifier(std::string_view s) {
   if (s.empty() || !std::isalpha(static_cast<unsigned char>(s[0]))) return false;
   for (char c : s)
     if (!std::isalnum(static_cast<unsigned char>(c)) && c != '_') return false;
   return true;
 }
 
-bool isSnakeCase(const std::string& s) {
+bool isSnakeCase(std::string_view s) {
   if (s.empty() || !std::islower(static_cast<unsigned char>(s[0]))) return false;
   for (char c : s)
     if (!std::islower(static_cast<unsigned char>(c)) && !std::isdigit(static_cast<unsigned char>(c)) && c != '_')
@@ -53,7 +53,7 @@ bool isSnakeCase(const std::string& s) {
   return true;
 }
 
-bool isPrintableAscii(const std::string& s) {
+bool isPrintableAscii(std::string_view s) {
   for (char c : s) {
     const unsigned char u = static_cast<unsigned char>(c);
     if (u < 0x20 || u > 0x7e) return false;
@@ -71,7 +71,7 @@ struct ParsedFormula {
 };
 ParsedFormula parseFormula(const FunctionDecl& d) {
   ParsedFormula f;
-  f.file = std::make_unique<calctrail::SourceFile>("function " + d.name, d.formula);
+  f.file = std::make_unique<calctrail::SourceFile>("function " + std::string(d.name), std::string(d.formula));
   calctrail::Diagnostics diags;
   f.expr = calctrail::ExprParser(*f.file, 0, static_cast<uint32_t>(d.formula.size()), &diags).parseWhole();
   return f;
@@ -131,11 +131,11 @@ std::string readFile(const std::string& path) {
 }  // namespace
 
 TEST_CASE("library: every declaration is complete", "[functions][library]") {
-  std::set<std::string> names;
+  std::set<std::string, std::less<>> names;
   for (const FunctionDecl& d : functionLibrary()) {
     INFO("function " << d.name);
     CHECK(isSnakeCase(d.name));
-    CHECK(names.insert(d.name).second);  // unique
+    CHECK(names.emplace(d.name).second);  // unique
     CHECK(kMathFunctions.count(d.name) == 0);
     CHECK(d.name != "pi");
     CHECK(!d.summary.empty());
@@ -144,15 +144,15 @@ TEST_CASE("library: every declaration is complete", "[functions][library]") {
     CHECK(!d.formula.empty());
     CHECK(!d.result_unit.empty());
     CHECK(d.eval != nullptr);
-    for (const std::string* s : {&d.name, &d.summary, &d.formula, &d.limits, &d.source, &d.caution, &d.result_unit})
+    for (const std::string_view* s : {&d.name, &d.summary, &d.formula, &d.limits, &d.source, &d.caution, &d.result_unit})
       CHECK(isPrintableAscii(*s));
-    std::set<std::string> arg_names;
+    std::set<std::string, std::less<>> arg_names;
     for (const calctrail::FunctionArg& a : d.args) {
       INFO("argument " << a.name);
       CHECK(isIdentifier(a.name));
       CHECK(a.name != "pi");
       CHECK(kMathFunctions.count(a.name) == 0);
-      CHECK(arg_names.insert(a.name).second);  // unique within the function
+      CHECK(arg_names.emplace(a.name).second);  // unique within the function
       CHECK(!a.description.empty());
       CHECK(isPrintableAscii(a.description));
       if (a.per_revolution) CHECK(a.dim == Dimension::exponents(1, 0, 0));  // leads and pitches only
@@ -187,7 +187,7 @@ TEST_CASE("library: a repeated argument group is declared whole and evaluates an
     // eval() is eval_n() over the declared arguments.
     CHECK(d.eval(d.example.data()) == d.eval_n(d.example.data(), n));
     // The names of further groups follow the declared numbering: i3 after i1, i2.
-    const std::string last = d.args.back().name;
+    const std::string last(d.args.back().name);
     CHECK(d.argName(n + d.repeat - 1) == last.substr(0, last.size() - 1) + "3");
     // The group repeated with its own values twice over gives the same result for these means and products
     // only where the function is a mean; the evaluation itself must succeed and be finite.
@@ -246,14 +246,41 @@ TEST_CASE("library: groups cover the library in order, and lookup works", "[func
   CHECK(calctrail::groupOf(*calctrail::findFunction("acme_tpi"))->title == "Threads");
 }
 
+// findFunction and findMathFunction search faster than a scan of the table:
+// each must answer as the plain scan does, for every name and near misses.
+TEST_CASE("library: the name lookups answer as a scan of the tables does", "[functions][library]") {
+  std::vector<std::string> probes = {"", "a", "z", "_", "torque", "torque_raise_", "Torque_raise", "sqrt2", "s"};
+  for (const FunctionDecl& d : functionLibrary()) probes.emplace_back(d.name);
+  for (const calctrail::MathFunction& m : calctrail::mathFunctions()) probes.emplace_back(m.name);
+  const std::size_t named = probes.size();
+  for (std::size_t k = 0; k < named; ++k) {
+    const std::string& p = probes[k];
+    if (p.empty()) continue;
+    probes.push_back(p.substr(0, p.size() - 1));  // a prefix
+    probes.push_back(p + "x");                    // a longer name
+    probes.push_back(p.substr(1));                // without its first letter
+  }
+  for (const std::string& p : probes) {
+    INFO("name `" << p << "`");
+    const FunctionDecl* scanned = nullptr;
+    for (const FunctionDecl& d : functionLibrary())
+      if (d.name == p) scanned = &d;
+    CHECK(calctrail::findFunction(p) == scanned);
+    const calctrail::MathFunction* math = nullptr;
+    for (const calctrail::MathFunction& m : calctrail::mathFunctions())
+      if (p == m.name) math = &m;
+    CHECK(calctrail::findMathFunction(p) == math);
+  }
+}
+
 TEST_CASE("library: formula strings mention only their declared arguments", "[functions][library]") {
   for (const FunctionDecl& d : functionLibrary()) {
     if (!d.formula_is_expression) continue;
     INFO("function " << d.name << ": " << d.formula);
     ParsedFormula f = parseFormula(d);
     REQUIRE(f.expr);
-    std::set<std::string> declared;
-    for (const calctrail::FunctionArg& a : d.args) declared.insert(a.name);
+    std::set<std::string, std::less<>> declared;
+    for (const calctrail::FunctionArg& a : d.args) declared.emplace(a.name);
     calctrail::forEachName(*f.expr, [&](const calctrail::Expr& n) {
       INFO("name " << n.text);
       CHECK(declared.count(n.text) == 1);
@@ -285,7 +312,7 @@ TEST_CASE("library: formula strings agree with eval() on random valid inputs", "
       if (sample > 0) REQUIRE(validSample(d, rng, args));
       std::map<std::string, double> vars;
       for (std::size_t k = 0; k < d.args.size(); ++k)
-        vars[d.args[k].name] = args[k];
+        vars[std::string(d.args[k].name)] = args[k];
       const double from_formula = evalFormula(*f.expr, vars);
       const double from_eval = d.eval(args.data());
       INFO("formula " << from_formula << " eval " << from_eval);
@@ -368,8 +395,8 @@ TEST_CASE("library: docs/verification.md lists every function with tests that ex
   }
   for (const FunctionDecl& d : functionLibrary()) {
     INFO("function " << d.name);
-    REQUIRE(rows.count(d.name) == 1);
-    const std::string& row = rows[d.name];
+    REQUIRE(rows.count(std::string(d.name)) == 1);
+    const std::string& row = rows[std::string(d.name)];
     // Every test name quoted in the row, after the first cell, is a registered test case.
     std::size_t cell3 = row.find('|', 1);
     cell3 = row.find('|', cell3 + 1);

@@ -155,7 +155,7 @@ TEST_CASE("The fuzz dictionary lists every unit and function", "[fuzz]") {
     }
   }
   for (const MathFunction& f : mathFunctions()) CHECK(dict.count(std::string(f.name) + "(") == 1);
-  for (const FunctionDecl& f : functionLibrary()) CHECK(dict.count(f.name + "(") == 1);
+  for (const FunctionDecl& f : functionLibrary()) CHECK(dict.count(std::string(f.name) + "(") == 1);
   for (const char* keyword : {"check ", "section ", "note ", "title:", "pi", "<=", ">="})
     CHECK(dict.count(keyword) == 1);
 }

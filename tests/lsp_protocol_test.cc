@@ -386,8 +386,8 @@ TEST_CASE("lsp hover: value, formula, substituted formula, description, function
   REQUIRE(decl);
   CHECK(fn.find("**trap_pitch(d [mm]) -> mm**") == 0);
   CHECK(fn.find(decl->formula) != std::string::npos);
-  CHECK(fn.find("Limits: " + decl->limits) != std::string::npos);
-  CHECK(fn.find("Source: " + decl->source) != std::string::npos);
+  CHECK(fn.find("Limits: " + std::string(decl->limits)) != std::string::npos);
+  CHECK(fn.find("Source: " + std::string(decl->source)) != std::string::npos);
   // A check: its condition, the two sides and the verdict.
   CHECK(c.result("textDocument/hover", textPos(5, 8))["contents"]["value"] ==
         "**check stress**: pass\n\n```\ncheck stress: sigma <= 50 MPa\n  15.92 MPa <= 50.00 "

@@ -111,7 +111,7 @@ TEST_CASE("every table lookup of the library has its row finder", "[report][layo
     INFO(f.name << ": add its row to lookupTables() in engine/report/trail.cc");
     std::unique_ptr<Calculation> c;
     for (const char* arg : {"1 in", "48 mm", "2 kW", "95 %"}) {
-      c = calc("x = " + f.name + "(" + arg + ")\n");
+      c = calc("x = " + std::string(f.name) + "(" + arg + ")\n");
       if (!c->hasErrors()) break;
     }
     INFO(diagnostics(*c));

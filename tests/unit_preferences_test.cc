@@ -93,7 +93,7 @@ TEST_CASE("every library result unit parses to the result's dimension", "[units]
     INFO(f.name << " shown in " << f.result_unit);
     Unit u;
     UnitError err;
-    REQUIRE(parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &u, &err));
+    REQUIRE(parseUnit(std::string(f.result_unit) + (f.result_per_revolution ? "/rev" : ""), &u, &err));
     const Dimension want = f.result_per_revolution ? f.result / Dimension::of(Base::Angle) : f.result;
     CHECK(u.dim == want);
   }

@@ -11,7 +11,7 @@ namespace calctrail {
 int runFunctions(const std::string& name, const std::string& format) {
   if (!name.empty() && !findFunction(name)) {
     std::vector<std::string> names;
-    for (const FunctionDecl& f : functionLibrary()) names.push_back(f.name);
+    for (const FunctionDecl& f : functionLibrary()) names.emplace_back(f.name);
     std::cerr << "calctrail: error: no built-in function `" << name << "`";
     auto near = nearestWords(name, names);
     if (!near.empty()) std::cerr << "; did you mean " << quotedList(near) << "?";

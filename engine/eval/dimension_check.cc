@@ -480,7 +480,7 @@ bool DimensionChecker::checkCall(const Expr& e) {
   if (!f) {
     std::vector<std::string> names;
     for (const MathFunction& m : mathFunctions()) names.push_back(m.name);
-    for (const FunctionDecl& d : library_) names.push_back(d.name);
+    for (const FunctionDecl& d : library_) names.emplace_back(d.name);
     std::string msg = "unknown function `" + e.text + "`";
     auto near = nearestWords(e.text, names);
     if (!near.empty()) msg += "; did you mean " + quotedList(near) + "?";
@@ -491,15 +491,15 @@ bool DimensionChecker::checkCall(const Expr& e) {
   if (!args_ok) return false;
   if (!f->takes(n)) {
     std::string names;
-    for (size_t i = 0; i < f->args.size(); ++i) names += (i ? ", " : "") + f->args[i].name;
+    for (size_t i = 0; i < f->args.size(); ++i) names += (i ? ", " : "") + std::string(f->args[i].name);
     const size_t fixed = f->args.size();
     if (f->repeat == 0)
-      return fail(e, "`" + f->name + "` takes " + std::to_string(fixed) + " arguments (" + names + "), not " +
+      return fail(e, "`" + std::string(f->name) + "` takes " + std::to_string(fixed) + " arguments (" + names + "), not " +
                          std::to_string(n));
     std::string group;
     for (int k = 0; k < f->repeat; ++k)
       group += (k ? ", " : "") + f->argName(static_cast<int>(fixed) + k);
-    return fail(e, "`" + f->name + "` takes " + names + ", then any number of further " +
+    return fail(e, "`" + std::string(f->name) + "` takes " + names + ", then any number of further " +
                        (f->repeat == 1 ? "arguments like the last (" + group + ", ...)"
                                        : "groups of " + std::to_string(f->repeat) + " like the last (" +
                                              group + ", ...)") +
@@ -510,8 +510,8 @@ bool DimensionChecker::checkCall(const Expr& e) {
     const Dimension got = dim(*e.args[static_cast<size_t>(i)]);
     if (got == arg.dim) continue;
     if (arg.per_revolution && got == arg.dim / kAngle) continue;  // [mm/rev]
-    std::string msg = "argument " + std::to_string(i + 1) + " of `" + f->name + "` (" + f->argName(i) + ", " +
-                      arg.description + ") must be " + words(arg.dim);
+    std::string msg = "argument " + std::to_string(i + 1) + " of `" + std::string(f->name) + "` (" + f->argName(i) + ", " +
+                      std::string(arg.description) + ") must be " + words(arg.dim);
     if (arg.per_revolution) msg += " or a length per revolution";
     msg += ", not " + words(got);
     if (arg.dim == kAngle && got.dimensionless()) {

@@ -50,8 +50,8 @@ double LibraryCall::call(const double* args, int n, DoubtCounter* counter) const
 }
 
 std::string LibraryCall::compiledName() const {
-  if (per_angle_args == 0) return decl->name;
-  return decl->name + "__r" + std::to_string(per_angle_args);
+  if (per_angle_args == 0) return std::string(decl->name);
+  return std::string(decl->name) + "__r" + std::to_string(per_angle_args);
 }
 
 }  // namespace calctrail

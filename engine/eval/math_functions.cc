@@ -74,8 +74,11 @@ const std::vector<MathFunction>& mathFunctions() {
 }
 
 const MathFunction* findMathFunction(std::string_view name) {
+  // The first letter rejects most names (a drive function's, asked first by
+  // some callers) without measuring the table's C string.
+  if (name.empty()) return nullptr;
   for (const MathFunction& f : mathFunctions())
-    if (name == f.name) return &f;
+    if (f.name[0] == name[0] && name == f.name) return &f;
   return nullptr;
 }
 

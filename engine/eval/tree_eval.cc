@@ -104,18 +104,18 @@ struct Interpreter {
       const LibraryCall c = LibraryCall::at(*f, arg_dims);
       const int n = static_cast<int>(args.size());
       const double r = c(args.data(), n);
-      if (!std::isfinite(r)) return failAt(e, "`" + f->name + "` gives no finite value for these inputs");
+      if (!std::isfinite(r)) return failAt(e, "`" + std::string(f->name) + "` gives no finite value for these inputs");
       if (doubts) {
         std::vector<double> passed;
         for (Doubt& d : doubtsOf(*f, c.converted(args.data(), n, &passed), n)) {
           const Expr* at = d.arg >= 0 && d.arg < n ? e.args[static_cast<size_t>(d.arg)].get() : &e;
-          doubts->push_back({at, "`" + f->name + "`: " + d.message});
+          doubts->push_back({at, "`" + std::string(f->name) + "`: " + d.message});
         }
       }
       return r;
     } catch (const DomainError& err) {
       const Expr& at = err.arg() >= 0 && err.arg() < static_cast<int>(e.args.size()) ? *e.args[err.arg()] : e;
-      return failAt(at, "`" + f->name + "`: " + err.what());
+      return failAt(at, "`" + std::string(f->name) + "`: " + err.what());
     }
   }
 };

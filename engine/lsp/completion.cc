@@ -67,9 +67,9 @@ nlohmann::json completion(const Analysis& a, const Document& doc, uint32_t offse
       }
     }
     for (const FunctionDecl& f : functionLibrary()) {
-      std::string doc_text = f.summary;
-      for (const FunctionArg& arg : f.args) doc_text += "\n- `" + arg.name + "`: " + arg.description;
-      items.push_back(item(f.name, kFunction, signature(f), doc_text));
+      std::string doc_text(f.summary);
+      for (const FunctionArg& arg : f.args) doc_text += "\n- `" + std::string(arg.name) + "`: " + std::string(arg.description);
+      items.push_back(item(std::string(f.name), kFunction, signature(f), doc_text));
     }
     for (const MathFunction& m : mathFunctions()) items.push_back(item(m.name, kFunction, m.summary, ""));
     items.push_back(item("pi", kConstant, "3.14159...", ""));

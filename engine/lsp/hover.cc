@@ -67,20 +67,20 @@ std::string checkHover(const Analysis& a, int k) {
 
 std::string functionHover(const std::string& name) {
   if (const FunctionDecl* f = findFunction(name)) {
-    std::string out = "**" + signature(*f) + "**\n\n" + f->summary + "\n";
+    std::string out = "**" + signature(*f) + "**\n\n" + std::string(f->summary) + "\n";
     out +=
-        "\n" + std::string(f->formula_is_expression ? "```\n" + f->formula + "\n```\n" : f->formula + "\n");
+        "\n" + std::string(f->formula_is_expression ? "```\n" + std::string(f->formula) + "\n```\n" : std::string(f->formula) + "\n");
     if (!f->args.empty()) {
       out += "\n";
       for (const FunctionArg& arg : f->args) {
         const std::string unit = unitOf(arg.dim);
         out +=
-            "- `" + arg.name + "`" + (unit.empty() ? "" : " [" + unit + "]") + ": " + arg.description + "\n";
+            "- `" + std::string(arg.name) + "`" + (unit.empty() ? "" : " [" + unit + "]") + ": " + std::string(arg.description) + "\n";
       }
     }
-    if (!f->limits.empty()) out += "\nLimits: " + f->limits + "\n";
-    if (!f->source.empty()) out += "\nSource: " + f->source + "\n";
-    if (!f->caution.empty()) out += "\nCaution: " + f->caution + "\n";
+    if (!f->limits.empty()) out += "\nLimits: " + std::string(f->limits) + "\n";
+    if (!f->source.empty()) out += "\nSource: " + std::string(f->source) + "\n";
+    if (!f->caution.empty()) out += "\nCaution: " + std::string(f->caution) + "\n";
     return out;
   }
   if (const MathFunction* m = findMathFunction(name)) return "**" + name + "**: " + m->summary + "\n";
@@ -94,13 +94,13 @@ std::string valueText(const Analysis& a, int i) {
 }
 
 std::string signature(const FunctionDecl& f) {
-  std::string out = f.name + "(";
+  std::string out = std::string(f.name) + "(";
   for (size_t i = 0; i < f.args.size(); ++i) {
     const std::string unit = unitOf(f.args[i].dim);
-    out += (i ? ", " : "") + f.args[i].name + (unit.empty() ? "" : " [" + unit + "]");
+    out += (i ? ", " : "") + std::string(f.args[i].name) + (unit.empty() ? "" : " [" + unit + "]");
   }
   out += ")";
-  if (!f.result_unit.empty()) out += " -> " + f.result_unit;
+  if (!f.result_unit.empty()) out += " -> " + std::string(f.result_unit);
   return out;
 }
 

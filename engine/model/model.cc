@@ -30,7 +30,7 @@ Unit undeclaredDisplayUnit(const Expr& formula, const Dimension& dim, const Unit
       Unit natural;
       UnitError err;
       // The library's tests keep every result unit parsable and of the result's dimension.
-      if (!f.result_unit.empty() && parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
+      if (!f.result_unit.empty() && parseUnit(std::string(f.result_unit) + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
           natural.dim == dim)
         return prefs.choose(dim, &natural);
       break;

@@ -6,6 +6,7 @@
 #include <cstdlib>
 #include <map>
 #include <memory>
+#include <mutex>
 #include <optional>
 
 #include "engine/eval/math_functions.h"
@@ -251,17 +252,21 @@ struct LibraryFormula {
   std::string pretty;                // renderExpr(*expr, nullptr, true); "" without one
 };
 
+// Shared by every trail of the process, so guarded: trails may be built on
+// several threads (entries are never removed, so a reference stays valid).
 const LibraryFormula& parsedFormula(const FunctionDecl& f) {
-  static std::map<std::string, LibraryFormula> cache;
+  static std::mutex lock;
+  static std::map<std::string, LibraryFormula, std::less<>> cache;
+  const std::lock_guard<std::mutex> hold(lock);
   auto it = cache.find(f.name);
   if (it == cache.end()) {
     LibraryFormula parsed;
-    parsed.file = std::make_shared<SourceFile>("function " + f.name, f.formula);
+    parsed.file = std::make_shared<SourceFile>("function " + std::string(f.name), std::string(f.formula));
     Diagnostics ignored;
     if (f.formula_is_expression)
       parsed.expr = ExprParser(*parsed.file, 0, static_cast<uint32_t>(f.formula.size()), &ignored).parseWhole();
     if (parsed.expr) parsed.pretty = renderExpr(*parsed.expr, nullptr, true);
-    it = cache.emplace(f.name, std::move(parsed)).first;
+    it = cache.emplace(std::string(f.name), std::move(parsed)).first;
   }
   return it->second;
 }
@@ -334,12 +339,12 @@ const std::vector<LookupTable>& lookupTables() {
       {"trap_pitch", ": ",
        [](const std::vector<double>& a, double r, const FunctionDecl& f) {
          const std::string item = "Tr " + rowNumber(a[0] * 1000) + "x" + rowNumber(r * 1000);
-         return listHolds(f.formula, ": ", item) ? item + ", ISO 2904 table" : std::string();
+         return listHolds(std::string(f.formula), ": ", item) ? item + ", ISO 2904 table" : std::string();
        }},
       {"acme_tpi", ": ",
        [](const std::vector<double>& a, double r, const FunctionDecl& f) {
          const std::string label = inchLabel(a[0] / 0.0254), tpi = rowNumber(r * 0.0254);
-         return listHolds(f.formula, ": ", label + " (" + tpi + ")")
+         return listHolds(std::string(f.formula), ": ", label + " (" + tpi + ")")
                     ? "Acme " + label + "-" + tpi + ", ASME B1.5 table"
                     : std::string();
        }},
@@ -347,14 +352,14 @@ const std::vector<LookupTable>& lookupTables() {
        [](const std::vector<double>& a, double r, const FunctionDecl&) {
          const FunctionDecl* table = findFunction("acme_tpi");
          const std::string label = inchLabel(a[0] / 0.0254), tpi = rowNumber(0.0254 / r);
-         return table && listHolds(table->formula, ": ", label + " (" + tpi + ")")
+         return table && listHolds(std::string(table->formula), ": ", label + " (" + tpi + ")")
                     ? "Acme " + label + "-" + tpi + ", ASME B1.5 table"
                     : std::string();
        }},
       {"standard_motor_power", "the series ",
        [](const std::vector<double>&, double r, const FunctionDecl& f) {
          const std::string kw = rowNumber(r / 1000);
-         std::string series = f.formula;
+         std::string series(f.formula);
          if (series.size() > 3 && series.compare(series.size() - 3, 3, " kW") == 0)
            series.resize(series.size() - 3);
          return listHolds(series, "the series ", kw) ? kw + " kW, IEC 60072-1 series" : std::string();
@@ -370,7 +375,7 @@ const std::vector<LookupTable>& lookupTables() {
   return tables;
 }
 
-const LookupTable* lookupTable(const std::string& function) {
+const LookupTable* lookupTable(std::string_view function) {
   for (const LookupTable& t : lookupTables())
     if (function == t.function) return &t;
   return nullptr;
@@ -401,8 +406,8 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
   const FunctionDecl& f = *findFunction(call.text);
   TrailCall c;
   c.name = f.name;
-  c.signature = f.name + "(";
-  for (size_t k = 0; k < f.args.size(); ++k) c.signature += (k ? ", " : "") + f.args[k].name;
+  c.signature = std::string(f.name) + "(";
+  for (size_t k = 0; k < f.args.size(); ++k) c.signature += (k ? ", " : "") + std::string(f.args[k].name);
   c.signature += ")";
   c.formula = f.formula;
   c.formula_is_expression = f.formula_is_expression;
@@ -416,7 +421,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     return j >= 0 && calc.ok(j) ? calc.si(j) : NAN;
   };
   struct Shown {
-    const std::string* argument;  // its name in the function's formula
+    std::string_view argument;  // its name in the function's formula
     TrailValue value;
     bool negative;
   };
@@ -455,7 +460,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     c.arguments.addValue(shown_value);
     if (k) c.with_values.addText(", ");
     c.with_values.addValue(shown_value);
-    shown.push_back({&f.args[k].name, std::move(shown_value), v < 0});
+    shown.push_back({f.args[k].name, std::move(shown_value), v < 0});
   }
   c.with_values.addText(")");
   if (const Expr* formula = c.formula_expr) {
@@ -464,7 +469,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     c.bindings.reserve(names_in);
     LineWriter line(names_in);
     NameWriterOf names([&](const Expr& name, bool power_base, std::string* out) {
-      auto it = std::find_if(shown.begin(), shown.end(), [&](const Shown& a) { return *a.argument == name.text; });
+      auto it = std::find_if(shown.begin(), shown.end(), [&](const Shown& a) { return a.argument == name.text; });
       if (it == shown.end()) {
         *out += name.text;
         return;
@@ -490,7 +495,7 @@ TrailCall auditCall(const Expr& call, const NodeDims& dims, const Calculation& c
     if (step_unit.dim == call_dim) unit = step_unit;
     else if (auto u = unitFor(step_unit, f.result); u && !f.result_per_revolution) unit = *u;
     else if (Unit natural; !f.result_unit.empty() &&
-             parseUnit(f.result_unit + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
+             parseUnit(std::string(f.result_unit) + (f.result_per_revolution ? "/rev" : ""), &natural, &err) &&
              natural.dim == call_dim)
       unit = calc.sheet.units.choose(call_dim, &natural);
     else
@@ -598,17 +603,17 @@ void measureCheck(TrailCheck* tc, const CheckView& s, const Check& c, int digits
 }
 
 // Where a trail says what the library's tests of a function are.
-std::string verificationOf(const FunctionDecl& f) { return "docs/verification.md, `" + f.name + "`"; }
+std::string verificationOf(const FunctionDecl& f) { return "docs/verification.md, `" + std::string(f.name) + "`"; }
 
 // The method of a library function for "Library functions used": a table
 // lookup without its rows (the row found is shown at each step).
 std::string methodOf(const FunctionDecl& f) {
   const LookupTable* table = lookupTable(f.name);
-  if (!table || !*table->rows_after) return f.formula;
+  if (!table || !*table->rows_after) return std::string(f.formula);
   const size_t at = f.formula.find(table->rows_after);
-  if (at == std::string::npos) return f.formula;
+  if (at == std::string::npos) return std::string(f.formula);
   const std::string after = table->rows_after;
-  std::string method = f.formula.substr(0, at + (after == ": " ? 0 : after.size()));
+  std::string method(f.formula.substr(0, at + (after == ": " ? 0 : after.size())));
   while (!method.empty() && method.back() == ' ') method.pop_back();
   return method + " (the row found is shown at each step; every row: docs/functions.md)";
 }
@@ -1162,8 +1167,8 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
     const FunctionDecl* f = used[k];
     TrailFunction fn;
     fn.name = f->name;
-    fn.signature = f->name + "(";
-    for (size_t a = 0; a < f->args.size(); ++a) fn.signature += (a ? ", " : "") + f->args[a].name;
+    fn.signature = std::string(f->name) + "(";
+    for (size_t a = 0; a < f->args.size(); ++a) fn.signature += (a ? ", " : "") + std::string(f->args[a].name);
     fn.signature += ")";
     fn.summary = f->summary;
     fn.method = methodOf(*f);
