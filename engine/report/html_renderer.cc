@@ -556,7 +556,7 @@ void step(Out out, const Trail& t, const TrailStep& s) {
 // An instance's part: a heading with the instance, the template's title and
 // file, then its parameters: the value each is bound to and where it came
 // from (the binding in the using sheet, the default, the command line).
-void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
+void instanceHead(Out out, const TrailInstance& in) {
   fmt::format_to(out, "<h3 class=\"instance\">Instance <code>{}</code>: {} <span class=\"source\">(<code>{}</code>)"
                       "</span></h3>\n",
                  esc(in.name), esc(in.title.empty() ? std::string("template") : in.title), esc(in.path));
@@ -569,16 +569,14 @@ void instanceHead(Out out, const Trail& t, const TrailInstance& in) {
   fmt::format_to(out, "<table class=\"params\">\n<thead><tr>{}{}</tr></thead>\n<tbody>\n", head,
                  rows < count ? head : "");
   const auto cells = [&](const TrailInstanceParam& p) {
-    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
-    const TrailStep& s = *held;
-    std::string from = s.overridden        ? std::string("<em>set on the command line</em>")
+    std::string from = p.overridden        ? std::string("<em>set on the command line</em>")
                        : p.binding.empty() ? std::string("<em>default</em>")
                                            : "<code>" + esc(p.binding) + "</code>";
     // Left out of the Inputs list: its note is given here.
-    if (s.in_part_table && !s.description.empty())
-      from += " <span class=\"desc\">" + esc(s.description) + "</span>";
+    if (p.in_part_table && !p.description.empty())
+      from += " <span class=\"desc\">" + esc(p.description) + "</span>";
     fmt::format_to(out, "<td>{}</td><td class=\"value\">{}</td><td>{}</td>", symbolCell(p.name),
-                   human(s.given ? *s.given : s.result), from);
+                   human(p.shown), from);
   };
   for (size_t r = 0; r < rows; ++r) {
     fmt::format_to(out, "<tr>");
@@ -595,7 +593,7 @@ void calculation(ReportSink& sink, const Trail& t) {
   for (const TrailBlock& b : t.blocks) {
     sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0)
-      instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
+      instanceHead(out, t.instances[static_cast<size_t>(b.instance)]);
     else if (b.kind == TrailBlock::Section) fmt::format_to(out, "<h3>{}</h3>\n", esc(t.blockText(b)));
     else if (b.kind == TrailBlock::Note && b.instance < 0)
       fmt::format_to(out, "<p class=\"note\">{}</p>\n", esc(t.blockText(b)));

@@ -167,22 +167,20 @@ void writeCheck(JsonWriter& w, const Trail& t, const TrailCheck& c) {
   w.endObject();
 }
 
-void writeInstance(JsonWriter& w, const Trail& t, const TrailInstance& i) {
+void writeInstance(JsonWriter& w, const TrailInstance& i) {
   w.beginObject();
   w.key("name").value(i.name);
   w.key("template").value(i.path);
   w.key("title").value(i.title);
   w.key("parameters").beginArray();
   for (const TrailInstanceParam& p : i.params) {
-    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
-    const TrailStep& s = *held;
     w.beginObject();
     w.key("name").value(p.name);
-    w.key("quantity").value(s.name);
+    w.key("quantity").value(p.quantity);
     w.key("binding").value(p.binding);
-    w.key("value").value(s.result.value);
-    w.key("unit").value(s.unit_written);
-    w.key("si").value(s.result.si);
+    w.key("value").value(p.result.value);
+    w.key("unit").value(p.unit_written);
+    w.key("si").value(p.result.si);
     w.endObject();
   }
   w.endArray();
@@ -284,7 +282,7 @@ void renderJson(const Trail& t, ReportSink& sink) {
   }
   w.endArray();
   w.key("instances").beginArray();
-  for (const TrailInstance& i : t.instances) writeInstance(w, t, i);
+  for (const TrailInstance& i : t.instances) writeInstance(w, i);
   w.endArray();
   w.key("digits").value(t.digits);
   w.key("title").value(t.title);

@@ -97,20 +97,18 @@ void caseValues(fmt::appender out, const Trail& t, const TrailStep& s) {
 // An instance's part: its heading, then a table of its parameters: the
 // value each is bound to and where it came from (the binding in the using
 // sheet, the template's default, or the command line).
-void instanceHead(fmt::appender out, const Trail& t, const TrailInstance& in) {
+void instanceHead(fmt::appender out, const TrailInstance& in) {
   fmt::format_to(out, "\n### Instance {}\n\n", code(in.name));
   fmt::format_to(out, "{} ({})\n", in.title.empty() ? std::string("Template") : text(in.title), code(in.path));
   if (in.params.empty()) return;
   fmt::format_to(out, "\n| Parameter | Value | Bound by |\n|---|---|---|\n");
   for (const TrailInstanceParam& p : in.params) {
-    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
-    const TrailStep& s = *held;
-    std::string from = s.overridden        ? std::string("*set on the command line*")
+    std::string from = p.overridden        ? std::string("*set on the command line*")
                        : p.binding.empty() ? std::string("*default*")
                                            : code(p.binding);
     // Left out of the Inputs list: its note is given here.
-    if (s.in_part_table && !s.description.empty()) from += ": " + text(s.description);
-    fmt::format_to(out, "| {} | {} | {} |\n", code(p.name), human(s.given ? *s.given : s.result), from);
+    if (p.in_part_table && !p.description.empty()) from += ": " + text(p.description);
+    fmt::format_to(out, "| {} | {} | {} |\n", code(p.name), human(p.shown), from);
   }
 }
 
@@ -262,7 +260,7 @@ void renderMarkdown(const Trail& t, ReportSink& sink) {
   for (const TrailBlock& b : t.blocks) {
     sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
-      instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
+      instanceHead(out, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
       fmt::format_to(out, "\n### {}\n", text(t.blockText(b)));
     } else if (b.kind == TrailBlock::Note && b.instance >= 0) {

@@ -194,28 +194,24 @@ void caseChecks(fmt::memory_buffer& out, const Trail& t) {
 
 // An instance's part: its heading, then its parameters a line each: the
 // value each is bound to and where it came from.
-void instanceHead(fmt::memory_buffer& out, const Trail& t, const TrailInstance& in) {
+void instanceHead(fmt::memory_buffer& out, const TrailInstance& in) {
   putLine(out, {"\n", in.heading, "\n"});
   if (in.params.empty()) return;
   std::vector<std::string> values;
   int name_w = width("parameter"), value_w = width("value");
   for (const TrailInstanceParam& p : in.params) {
-    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
-    const TrailStep& s = *held;
-    values.push_back(valueText(s.given ? *s.given : s.result));
+    values.push_back(valueText(p.shown));
     name_w = std::max(name_w, width(p.name));
     value_w = std::max(value_w, width(values.back()));
   }
   putLine(out, {"  ", pad("parameter", name_w), "  ", pad("value", value_w), "  bound by"});
   for (size_t k = 0; k < in.params.size(); ++k) {
     const TrailInstanceParam& p = in.params[k];
-    const TrailSteps::Held held = t.steps.get(static_cast<size_t>(p.step));
-    const TrailStep& s = *held;
-    std::string from = s.overridden        ? std::string("[set on the command line]")
+    std::string from = p.overridden        ? std::string("[set on the command line]")
                        : p.binding.empty() ? std::string("(default)")
                                            : p.binding;
     // Left out of the Inputs list: its note is given here.
-    if (s.in_part_table && !s.description.empty()) from += "  " + s.description;
+    if (p.in_part_table && !p.description.empty()) from += "  " + p.description;
     putLine(out, {"  ", pad(p.name, name_w), "  ", pad(values[k], value_w), "  ", from});
   }
 }
@@ -338,7 +334,7 @@ void renderText(const Trail& t, ReportSink& sink) {
   for (const TrailBlock& b : t.blocks) {
     sink.checkpoint();
     if (b.kind == TrailBlock::Section && b.instance >= 0) {
-      instanceHead(out, t, t.instances[static_cast<size_t>(b.instance)]);
+      instanceHead(out, t.instances[static_cast<size_t>(b.instance)]);
     } else if (b.kind == TrailBlock::Section) {
       putLine(out, {"\n", t.blockText(b)});
     } else if (b.kind == TrailBlock::Note && b.instance >= 0) {

@@ -939,9 +939,11 @@ void addInstances(const Sheet& sheet, Trail* t) {
     for (const InstanceParam& p : inst.params) {
       const TrailSteps::Held held = t->steps.get(static_cast<size_t>(p.quantity));
       const TrailStep& s = *held;
-      TrailInstanceParam tp{s.local_name, p.quantity, p.binding, s.in_part_table};
+      TrailInstanceParam tp{s.local_name, p.quantity, p.binding, s.in_part_table,
+                            s.name, s.given ? *s.given : s.result, s.result, s.unit_written,
+                            s.description, s.overridden};
       params += (params.empty() ? "" : "; ") + tp.name + " = ";
-      const std::string value = valueText(s.given ? *s.given : s.result);
+      const std::string value = valueText(tp.shown);
       if (!p.binding.empty() && p.binding != value) params += p.binding + " = ";
       params += value;
       if (s.overridden) params += " (set on the command line)";

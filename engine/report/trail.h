@@ -260,6 +260,15 @@ struct TrailInstanceParam {
   int step = 0;           // into steps: its value, unit and description
   std::string binding;    // the binding as written in the using sheet ("F_total / 2"); "" at its default
   bool in_part_table = false;  // its step's in_part_table: the Inputs list leaves it out
+  // What the parameter tables show of the step, copied from it once, so that
+  // a trail whose steps are built when read does not build them again for
+  // every table and format.
+  std::string quantity;      // the step's dotted name: "screw.F"
+  TrailValue shown;          // as the step shows it: as written when given, else its result
+  TrailValue result;         // the step's result
+  std::string unit_written;  // the step's unit as written
+  std::string description;   // the step's description
+  bool overridden = false;   // replaced by --set
 };
 
 struct TrailInstance {    // a template used as an instance: its own part of the trail
