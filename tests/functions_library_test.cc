@@ -254,7 +254,7 @@ TEST_CASE("library: the name lookups answer as a scan of the tables does", "[fun
   for (const calctrail::MathFunction& m : calctrail::mathFunctions()) probes.emplace_back(m.name);
   const std::size_t named = probes.size();
   for (std::size_t k = 0; k < named; ++k) {
-    const std::string& p = probes[k];
+    const std::string p = probes[k];  // a copy: the pushes below may move the vector's strings
     if (p.empty()) continue;
     probes.push_back(p.substr(0, p.size() - 1));  // a prefix
     probes.push_back(p + "x");                    // a longer name
