@@ -202,7 +202,8 @@ int main(int argc, char** argv) {
   // parsed, and its --help shows no other. Each of them is then `unused`, an
   // App never parsed, so that setting it up and asking parsed() stay as they are.
   // `calctrail --version` alone builds none; `calctrail --help` and a
-  // mistyped command build every one.
+  // mistyped command build every one. kCommands must name every
+  // subcommand below (one left out is only built needlessly).
   static constexpr std::string_view kCommands[] = {"report", "check",    "functions", "units",
                                                    "diff",   "fmt",      "textconv",  "sweep",
                                                    "solve",  "sensitivity", "pick",   "lsp"};

@@ -317,10 +317,10 @@ std::string inchLabel(double inches) {
 }
 
 // `item` is one entry of the comma-separated list after `list_at` in `text`.
-bool listHolds(const std::string& text, const std::string& list_at, const std::string& item) {
+bool listHolds(std::string_view text, std::string_view list_at, const std::string& item) {
   const size_t at = text.find(list_at);
-  if (at == std::string::npos || item.empty()) return false;
-  const std::string list = ", " + text.substr(at + list_at.size()) + ",";
+  if (at == std::string_view::npos || item.empty()) return false;
+  const std::string list = ", " + std::string(text.substr(at + list_at.size())) + ",";
   return list.find(", " + item + ",") != std::string::npos;
 }
 
@@ -339,12 +339,12 @@ const std::vector<LookupTable>& lookupTables() {
       {"trap_pitch", ": ",
        [](const std::vector<double>& a, double r, const FunctionDecl& f) {
          const std::string item = "Tr " + rowNumber(a[0] * 1000) + "x" + rowNumber(r * 1000);
-         return listHolds(std::string(f.formula), ": ", item) ? item + ", ISO 2904 table" : std::string();
+         return listHolds(f.formula, ": ", item) ? item + ", ISO 2904 table" : std::string();
        }},
       {"acme_tpi", ": ",
        [](const std::vector<double>& a, double r, const FunctionDecl& f) {
          const std::string label = inchLabel(a[0] / 0.0254), tpi = rowNumber(r * 0.0254);
-         return listHolds(std::string(f.formula), ": ", label + " (" + tpi + ")")
+         return listHolds(f.formula, ": ", label + " (" + tpi + ")")
                     ? "Acme " + label + "-" + tpi + ", ASME B1.5 table"
                     : std::string();
        }},
@@ -352,7 +352,7 @@ const std::vector<LookupTable>& lookupTables() {
        [](const std::vector<double>& a, double r, const FunctionDecl&) {
          const FunctionDecl* table = findFunction("acme_tpi");
          const std::string label = inchLabel(a[0] / 0.0254), tpi = rowNumber(0.0254 / r);
-         return table && listHolds(std::string(table->formula), ": ", label + " (" + tpi + ")")
+         return table && listHolds(table->formula, ": ", label + " (" + tpi + ")")
                     ? "Acme " + label + "-" + tpi + ", ASME B1.5 table"
                     : std::string();
        }},

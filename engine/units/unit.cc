@@ -50,8 +50,8 @@ const char* superscript(char c) {
 // appends in place: no substring per name, and the text itself when there
 // is nothing to change ("mm", "kN", "MPa"; docs/performance.md, startup_perftest).
 std::string Unit::pretty() const {
-  const bool plain = text.find_first_of("*^") == std::string::npos &&
-                     text.find_first_of("ud") == std::string::npos;  // um, deg, degC, ddegC...
+  // No product, no power, and none of prettyName's names (um, deg, degC, ddegC...: each holds a u or a d).
+  const bool plain = text.find_first_of("*^ud") == std::string::npos;
   if (plain) return text;
   std::string out;
   out.reserve(text.size() + 8);
