@@ -1,12 +1,10 @@
 #include "functions/function_library.h"
 
-#include <array>
 #include <cctype>
-#include <cstdint>
 #include <functional>
 #include <iterator>
-#include <stdexcept>
 #include <string>
+#include <unordered_map>
 
 namespace calctrail {
 
@@ -15,21 +13,10 @@ namespace {
 struct Library {
   std::vector<FunctionDecl> decls;
   std::vector<FunctionGroup> groups;
-  // The declarations by name, for findFunction (a worksheet's calls are
-  // looked up a few hundred times a run): an open-addressing hash table at
-  // most half full, so that a lookup is one hash and about one compare.
-  std::array<const FunctionDecl*, 256> by_name{};
+  // The declarations by name, for findFunction: a worksheet's calls are
+  // looked up a few hundred times a run, a scan compared every name.
+  std::unordered_map<std::string_view, const FunctionDecl*> by_name;
 };
-
-// FNV-1a: a few instructions a character, and no collisions to speak of among
-// the library's names.
-std::size_t slotOf(std::string_view name) {
-  std::uint32_t h = 2166136261u;
-  for (const char c : name) h = (h ^ static_cast<unsigned char>(c)) * 16777619u;
-  return h;
-}
-
-constexpr std::size_t kSlotMask = 255;  // by_name.size() - 1
 
 const Library& library() {
   static const Library lib = [] {
@@ -49,12 +36,8 @@ const Library& library() {
       g.count = l.decls.size() - g.first;
       l.groups.push_back(std::move(g));
     }
-    if (l.decls.size() * 2 > l.by_name.size()) throw std::logic_error("the drive library outgrew its name table");
-    for (const FunctionDecl& d : l.decls) {
-      std::size_t k = slotOf(d.name) & kSlotMask;
-      while (l.by_name[k]) k = (k + 1) & kSlotMask;
-      l.by_name[k] = &d;
-    }
+    l.by_name.reserve(l.decls.size());
+    for (const FunctionDecl& d : l.decls) l.by_name.emplace(d.name, &d);
     return l;
   }();
   return lib;
@@ -68,9 +51,8 @@ const std::vector<FunctionGroup>& functionGroups() { return library().groups; }
 
 const FunctionDecl* findFunction(std::string_view name) {
   const auto& by_name = library().by_name;
-  for (std::size_t k = slotOf(name) & kSlotMask; by_name[k]; k = (k + 1) & kSlotMask)
-    if (by_name[k]->name == name) return by_name[k];
-  return nullptr;
+  const auto it = by_name.find(name);
+  return it == by_name.end() ? nullptr : it->second;
 }
 
 std::string FunctionDecl::argName(int k) const {
