@@ -110,3 +110,43 @@ TEST_CASE("a trail keeps the steps of a small sheet and builds those of a large 
   for (const TrailStep& st : tl.steps.inputs()) inputs += st.input ? 1 : 100;
   CHECK(inputs == kKeptSteps);
 }
+
+TEST_CASE("a step's head is the step without its explanation, kept or built when read", "[trail][report]") {
+  for (const std::string& name : demoNames()) {
+    INFO("demo " << name);
+    auto c = demoWith(name);
+    REQUIRE_FALSE(c->hasErrors());
+    const Trail kept = buildTrail(*c, 4, TrailKeep::All);
+    const Trail built = buildTrail(*c, 4, TrailKeep::None);
+    size_t explained = 0;
+    for (size_t i = 0; i < built.steps.size(); ++i) {
+      INFO("step " << i);
+      const TrailSteps::Held whole = kept.steps.get(i), head = built.steps.head(i);
+      CHECK(built.steps.name(i) == whole->name);
+      CHECK(kept.steps.name(i) == whole->name);
+      CHECK(head->name == whole->name);
+      CHECK(head->local_name == whole->local_name);
+      CHECK(head->description == whole->description);
+      CHECK(head->section == whole->section);
+      CHECK(head->input == whole->input);
+      CHECK(head->formula == whole->formula);
+      CHECK(head->pretty == whole->pretty);
+      CHECK(head->formula_in_notes == whole->formula_in_notes);
+      CHECK(valueText(head->result) == valueText(whole->result));
+      CHECK(head->result.si == whole->result.si);
+      CHECK(head->given.has_value() == whole->given.has_value());
+      CHECK(head->unit_written == whole->unit_written);
+      CHECK(head->warnings == whole->warnings);
+      CHECK(head->varies == whole->varies);
+      CHECK(head->cases.size() == whole->cases.size());
+      CHECK(head->in_part_table == whole->in_part_table);
+      // What explaining adds is not in a head built when read; a kept step is whole.
+      CHECK(head->origin.empty());
+      CHECK(head->calls.empty());
+      CHECK(head->substituted.empty());
+      CHECK(kept.steps.head(i)->origin == whole->origin);
+      explained += whole->origin.empty() ? 0 : 1;
+    }
+    CHECK(explained == built.steps.size());  // every whole step says where its value comes from
+  }
+}

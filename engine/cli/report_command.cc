@@ -35,7 +35,11 @@ int runReport(const ReportArgs& args) {
   for (const CaseRun& run : calc->cases)
     for (const Diagnostic& d : run.errors.list()) std::cerr << d.render();
   const int status = calc->caseErrors() ? kExitError : kExitOk;
-  const auto trail = std::make_shared<const Trail>(buildTrail(*calc, args.digits));
+  // The Calculation lives to the end, so the trail may build each step when
+  // a renderer reaches it rather than keep them all: each step is explained
+  // once (the tables read only heads), and the demo's report touches 46 fewer
+  // heap pages (docs/performance.md, "Start-up, round 5").
+  const auto trail = std::make_shared<const Trail>(buildTrail(*calc, args.digits, TrailKeep::None));
   keepUntilExit(trail);
   // Written as it is made: a report of a large sheet is never held whole.
   const auto render = [&](const ReportSink::Writer& write) {

@@ -384,7 +384,7 @@ void casesTables(Out out, const Trail& t) {
     fmt::format_to(out, "<table class=\"cases\">\n<thead><tr><th>Quantity</th>");
     for (size_t k = first; k < last; ++k) fmt::format_to(out, "<th><code>{}</code></th>", esc(t.cases[k].name));
     fmt::format_to(out, "</tr></thead>\n<tbody>\n");
-    for (const TrailStep& s : t.steps) {
+    for (const TrailStep& s : t.steps.heads()) {
       if (!s.varies) continue;
       fmt::format_to(out, "<tr><td><code>{}</code></td>", esc(s.name));
       for (size_t k = first; k < last; ++k) fmt::format_to(out, "<td class=\"value\">{}</td>", caseCell(s, k));
@@ -458,7 +458,7 @@ void quantityTable(ReportSink& sink, const Trail& t, bool inputs) {
   fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Quantity</th><th>{}</th></tr>"
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
-  for (const TrailStep& s : inputs ? t.steps.inputs() : t.steps.calculated()) {
+  for (const TrailStep& s : t.steps.heads(inputs ? TrailSteps::Filter::Inputs : TrailSteps::Filter::Calculated)) {
     sink.checkpoint();
     if (inputs && s.in_part_table) continue;
     if (s.section != section) {

@@ -293,7 +293,8 @@ void renderJson(const Trail& t, ReportSink& sink) {
   for (const auto& [k, v] : t.meta) w.key(k).value(v);
   w.endObject();
   w.key("inputs").beginArray();
-  for (const TrailStep& s : t.steps.inputs()) w.value(s.name);
+  for (size_t i = 0; i < t.steps.size(); ++i)
+    if (t.steps.isInput(i)) w.value(t.steps.name(i));
   w.endArray();
   w.key("quantities").beginArray();
   for (const TrailStep& s : t.steps) {

@@ -240,7 +240,7 @@ void renderMarkdown(const Trail& t, ReportSink& sink) {
 
   fmt::format_to(out, "## Inputs\n\n| Quantity | Value | Notes |\n|---|---|---|\n");
   std::string section = "\x01";
-  for (const TrailStep& s : t.steps.inputs()) {
+  for (const TrailStep& s : t.steps.heads(TrailSteps::Filter::Inputs)) {
     sink.checkpoint();
     if (s.in_part_table) continue;
     if (s.section != section) {
@@ -303,7 +303,7 @@ void renderMarkdown(const Trail& t, ReportSink& sink) {
   if (t.steps.anyCalculated()) {
     if (t.cases.empty()) {
       fmt::format_to(out, "## Results\n\n| Quantity | Result | Description |\n|---|---|---|\n");
-      for (const TrailStep& s : t.steps.calculated()) {
+      for (const TrailStep& s : t.steps.heads(TrailSteps::Filter::Calculated)) {
         sink.checkpoint();
         fmt::format_to(out, "| {} | {} | {} |\n", code(s.name), human(s.result), text(s.description));
       }
@@ -316,7 +316,7 @@ void renderMarkdown(const Trail& t, ReportSink& sink) {
         fmt::format_to(out, " Description |\n|---|");
         for (size_t k = first; k <= last; ++k) fmt::format_to(out, "---|");
         fmt::format_to(out, "\n");
-        for (const TrailStep& s : t.steps) {
+        for (const TrailStep& s : t.steps.heads()) {
           sink.checkpoint();
           if (s.input && !s.varies) continue;
           fmt::format_to(out, "| {} |", code(s.name));

@@ -303,14 +303,14 @@ void renderText(const Trail& t, ReportSink& sink) {
   put(out, heading("INPUTS"));
   auto shown = [](const TrailStep& s) { return valueText(s.given ? *s.given : s.result); };
   int name_w = 0, value_w = 0;
-  for (const TrailStep& s : t.steps.inputs()) {
+  for (const TrailStep& s : t.steps.heads(TrailSteps::Filter::Inputs)) {
     sink.checkpoint();
     if (s.in_part_table) continue;
     name_w = std::max(name_w, width(s.name));
     value_w = std::max(value_w, width(shown(s)));
   }
   std::string section = "\x01";
-  for (const TrailStep& s : t.steps.inputs()) {
+  for (const TrailStep& s : t.steps.heads(TrailSteps::Filter::Inputs)) {
     sink.checkpoint();
     if (s.in_part_table) continue;
     if (s.section != section) {

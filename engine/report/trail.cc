@@ -700,11 +700,14 @@ class TrailStepBuilder {
   // The whole step: head, origin, the calls' audits, the substituted line,
   // its warnings and its values per load case. Into a new step where it is
   // kept: a TrailStep moved is some forty strings.
-  void build(size_t i, TrailStep* step) const;
+  // `explained` false: all but what explain() adds (the origin, the calls'
+  // audits and the substituted line), for a reader of the head alone.
+  void build(size_t i, TrailStep* step, bool explained = true) const;
   // How many steps there are: one per quantity.
   size_t size() const { return param.size(); }
 
   bool isInput(size_t i) const { return calc_.isInput(i); }
+  const std::string& name(size_t i) const { return calc_.sheet.quantities[i].name; }
   // A given value written as one literal in its display unit, as written; else nothing.
   std::optional<TrailValue> given(size_t i) const { return memo_.empty() ? findGiven(i) : memo_[i].given; }
   // Quantity i's value as its step shows it (0 in its unit when it has none).
@@ -865,10 +868,10 @@ void TrailStepBuilder::addCaseValues(TrailStep* step) const {
   }
 }
 
-void TrailStepBuilder::build(size_t i, TrailStep* step) const {
+void TrailStepBuilder::build(size_t i, TrailStep* step, bool explained) const {
   TrailStep& s = *step;
   head(i, step);
-  explain(step);
+  if (explained) explain(step);
   const auto first = std::lower_bound(warnings.begin(), warnings.end(), static_cast<int>(i),
                                       [](const Flagged& w, int q) { return w.quantity < q; });
   for (auto w = first; w != warnings.end() && w->quantity == static_cast<int>(i); ++w)
@@ -888,6 +891,17 @@ std::shared_ptr<const TrailStep> TrailSteps::get(size_t i) const {
   auto step = std::make_shared<TrailStep>();
   builder_->build(i, step.get());
   return step;
+}
+
+std::shared_ptr<const TrailStep> TrailSteps::head(size_t i) const {
+  if (kept_) return get(i);
+  auto step = std::make_shared<TrailStep>();
+  builder_->build(i, step.get(), false);
+  return step;
+}
+
+const std::string& TrailSteps::name(size_t i) const {
+  return kept_ ? (*kept_)[i].name : builder_->name(i);
 }
 
 bool TrailSteps::passes(size_t i, Filter filter) const {
@@ -937,7 +951,7 @@ void addInstances(const Sheet& sheet, Trail* t) {
                  (inst.title.empty() ? std::string("template") : inst.title) + " (" + inst.path + ")";
     std::string params;
     for (const InstanceParam& p : inst.params) {
-      const TrailSteps::Held held = t->steps.get(static_cast<size_t>(p.quantity));
+      const TrailSteps::Held held = t->steps.head(static_cast<size_t>(p.quantity));
       const TrailStep& s = *held;
       TrailInstanceParam tp{s.local_name, p.quantity, p.binding, s.in_part_table,
                             s.name, s.given ? *s.given : s.result, s.result, s.unit_written,

@@ -366,9 +366,12 @@ class TrailSteps {
     using difference_type = std::ptrdiff_t;
     using pointer = const TrailStep*;
     using reference = const TrailStep&;
-    Iterator(const TrailSteps* steps, size_t i, Filter filter) : steps_(steps), i_(i), filter_(filter) { skip(); }
+    Iterator(const TrailSteps* steps, size_t i, Filter filter, bool heads = false)
+        : steps_(steps), i_(i), filter_(filter), heads_(heads) {
+      skip();
+    }
     const TrailStep& operator*() {
-      if (!held_) held_ = steps_->get(i_);
+      if (!held_) held_ = heads_ ? steps_->head(i_) : steps_->get(i_);
       return *held_;
     }
     const TrailStep* operator->() { return &**this; }
@@ -388,6 +391,7 @@ class TrailSteps {
     const TrailSteps* steps_;
     size_t i_;
     Filter filter_;
+    bool heads_;
     Held held_;
   };
   struct Range {
@@ -400,6 +404,11 @@ class TrailSteps {
   bool empty() const { return size() == 0; }
   // Step i (into the sheet's quantities), kept or built now; the pointer holds it.
   Held get(size_t i) const;
+  // Step i without what explaining its value adds (origin, calls, the
+  // substituted line): the whole step where it is kept, else built without it.
+  Held head(size_t i) const;
+  // Step i's name, known without building it.
+  const std::string& name(size_t i) const;
   // Step i is a given value (TrailStep::input), known without building it.
   bool isInput(size_t i) const;
   // Some step is calculated (not an input).
@@ -410,6 +419,11 @@ class TrailSteps {
   Range inputs() const { return {Iterator(this, 0, Filter::Inputs), Iterator(this, size(), Filter::Inputs)}; }
   Range calculated() const {
     return {Iterator(this, 0, Filter::Calculated), Iterator(this, size(), Filter::Calculated)};
+  }
+  // The steps' heads alone (head()), for a table that shows no step's
+  // explanation: where steps are built when read, none is explained twice.
+  Range heads(Filter filter = Filter::All) const {
+    return {Iterator(this, 0, filter, true), Iterator(this, size(), filter, true)};
   }
   // Every step was built once and is kept.
   bool kept() const { return kept_ != nullptr; }
