@@ -1166,9 +1166,12 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
   // it, and an instance's parameter table reads whether its step has one.
   placeWarnings(calc, builder.get(), &t);
   // The steps, kept or built when read; from here on every step is read through t.steps.
-  const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && sheet.quantities.size() <= kKeptSteps);
+  const bool small = sheet.quantities.size() <= kKeptSteps;
+  const bool keep_all = keep == TrailKeep::All || (keep == TrailKeep::BySize && small);
+  // Each value is read by every formula that names it: found once here,
+  // unless the sheet is large (then a table per quantity would outweigh it).
+  if (keep_all || small) builder->remember();
   if (keep_all) {
-    builder->remember();
     auto kept = std::make_shared<std::vector<TrailStep>>(sheet.quantities.size());
     for (size_t i = 0; i < sheet.quantities.size(); ++i) builder->build(i, &(*kept)[i]);
     t.steps.kept_ = std::move(kept);
