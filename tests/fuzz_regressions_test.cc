@@ -110,7 +110,8 @@ TEST_CASE("Every demo worksheet and docs example holds every invariant", "[fuzz]
 TEST_CASE("Every unit name and alias holds the unit parser invariant", "[fuzz]") {
   for (const UnitDef& u : unitTable()) {
     for (const std::string& spelling : [&] {
-           std::vector<std::string> all = {u.name, "1/" + u.name, u.name + "^2", u.name + "*s"};
+           const std::string name(u.name);
+           std::vector<std::string> all = {name, "1/" + name, name + "^2", name + "*s"};
            all.insert(all.end(), u.aliases.begin(), u.aliases.end());
            return all;
          }()) {
@@ -148,10 +149,10 @@ TEST_CASE("The fuzz expectation line is held", "[fuzz]") {
 TEST_CASE("The fuzz dictionary lists every unit and function", "[fuzz]") {
   const std::set<std::string> dict = dictionaryValues(readFile(repoPath("tests/fuzz/calc.dict")));
   for (const UnitDef& u : unitTable()) {
-    CHECK(dict.count(u.name) == 1);
-    for (const std::string& a : u.aliases) {
+    CHECK(dict.count(std::string(u.name)) == 1);
+    for (std::string_view a : u.aliases) {
       INFO("alias of " << u.name);
-      CHECK(dict.count(a) == 1);
+      CHECK(dict.count(std::string(a)) == 1);
     }
   }
   for (const MathFunction& f : mathFunctions()) CHECK(dict.count(std::string(f.name) + "(") == 1);

@@ -42,6 +42,6 @@ TEST_CASE("unit docs: the generated page lists every unit", "[units][docs]") {
   CHECK(md.find("build/calctrail units --format md > docs/units.md") != std::string::npos);
   for (const UnitDef& d : unitTable()) {
     INFO(d.name);
-    CHECK(md.find("| `" + d.name + "` |") != std::string::npos);
+    CHECK(md.find("| `" + std::string(d.name) + "` |") != std::string::npos);
   }
 }

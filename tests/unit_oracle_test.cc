@@ -79,21 +79,22 @@ TEST_CASE("unit oracle: every unit of the table agrees with GNU units", "[units]
   requireGnuUnits();
   for (const UnitDef& d : unitTable()) {
     const std::string si = d.dim.withoutAngle().siSymbol();
+    const std::string name(d.name), oracle(d.oracle);
     if (d.offset == 0.0) {
-      compare("unit `" + d.name + "` factor", d.oracle, si, d.factor);
+      compare("unit `" + name + "` factor", oracle, si, d.factor);
       continue;
     }
     // Absolute temperatures: GNU units writes them as functions, `tempC(1)`.
     // Two (here three) points give the factor and the offset.
     const std::string suffix = "(1)";
     INFO("unit `" << d.name << "`: an offset unit's oracle is `function(1)`");
-    REQUIRE(d.oracle.size() > suffix.size());
-    REQUIRE(d.oracle.compare(d.oracle.size() - suffix.size(), suffix.size(), suffix) == 0);
-    const std::string function = d.oracle.substr(0, d.oracle.size() - suffix.size());
+    REQUIRE(oracle.size() > suffix.size());
+    REQUIRE(oracle.compare(oracle.size() - suffix.size(), suffix.size(), suffix) == 0);
+    const std::string function = oracle.substr(0, oracle.size() - suffix.size());
     for (double x : {0.0, 100.0, -40.0}) {
       std::ostringstream point;
       point << function << "(" << x << ")";
-      compare("unit `" + d.name + "` at " + std::to_string(static_cast<int>(x)) + " " + d.name,
+      compare("unit `" + name + "` at " + std::to_string(static_cast<int>(x)) + " " + name,
               point.str(), si, d.factor * x + d.offset);
     }
   }

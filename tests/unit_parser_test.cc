@@ -291,10 +291,11 @@ TEST_CASE("unit parser: a plain unit name gives what the expression parser gives
   std::vector<std::string> words = {"", "%", "m", "mm", "kN", "degC", "ddegF", "K", "rpm", "Nm", "lbs", "mN",
                                     "kkm", "x", "Mm", "um", "\u00B5m", "N_m", "deg"};
   for (const UnitDef& u : unitTable()) {
-    words.push_back(u.name);
-    words.push_back(u.name + "s");
-    words.push_back("k" + u.name);
-    for (const std::string& a : u.aliases) words.push_back(a);
+    const std::string name(u.name);
+    words.push_back(name);
+    words.push_back(name + "s");
+    words.push_back("k" + name);
+    for (std::string_view a : u.aliases) words.emplace_back(a);
   }
   std::mt19937 random(20261204);
   std::uniform_int_distribution<int> length(1, 5), letter(0, 51);

@@ -106,8 +106,8 @@ TEST_CASE("units: the table is complete and consistent", "[units]") {
   std::set<std::string> spellings;
   for (const UnitDef& d : unitTable()) {
     INFO("unit " << d.name);
-    CHECK(spellings.insert(d.name).second);
-    for (const std::string& a : d.aliases) CHECK(spellings.insert(a).second);
+    CHECK(spellings.insert(std::string(d.name)).second);
+    for (std::string_view a : d.aliases) CHECK(spellings.insert(std::string(a)).second);
     CHECK(std::isfinite(d.factor));
     CHECK(d.factor > 0);
     CHECK_FALSE(d.quantity.empty());
@@ -116,8 +116,8 @@ TEST_CASE("units: the table is complete and consistent", "[units]") {
     CHECK_FALSE(d.oracle.empty());
     CHECK((d.offset != 0.0) == (d.name == "degC" || d.name == "degF"));
     // Every name and alias parses to exactly its definition, spelled canonically.
-    std::vector<std::string> all = d.aliases;
-    all.push_back(d.name);
+    std::vector<std::string> all(d.aliases.begin(), d.aliases.end());
+    all.emplace_back(d.name);
     for (const std::string& s : all) {
       Unit u = parsed(s);
       CHECK(u.text == d.name);
@@ -126,7 +126,7 @@ TEST_CASE("units: the table is complete and consistent", "[units]") {
       CHECK(u.dim == d.dim);
     }
     // The human spelling reads back as the same unit.
-    CHECK(parsed(parsed(d.name).pretty()).text == d.name);
+    CHECK(parsed(parsed(std::string(d.name)).pretty()).text == d.name);
   }
   CHECK(findUnit("mPa") == nullptr);  // case-sensitive: MPa only
   CHECK(findUnit("") == nullptr);

@@ -31,7 +31,7 @@ int runUnits(const std::string& format) {
   }
   for (const UnitDef& u : unitTable()) {
     std::cout << u.name;
-    for (const std::string& a : u.aliases) std::cout << " " << a;
+    for (std::string_view a : u.aliases) std::cout << " " << a;
     std::cout << "\t" << u.quantity << "\t" << u.definition << "\t" << u.source << "\n";
   }
   return kExitOk;

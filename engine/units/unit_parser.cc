@@ -507,7 +507,7 @@ class Parser {
     const auto replaced = [&](const std::string& by) {
       return std::string(whole).replace(at_name, len, by);
     };
-    std::vector<std::string> fixes = {replaced("d" + def.name)};
+    std::vector<std::string> fixes = {replaced("d" + std::string(def.name))};
     if (def.factor == 1.0) fixes.push_back(replaced("K"));  // degC differences are kelvins
     return "`" + std::string(s_.substr(start, len)) +
            "` is an absolute temperature with an offset, so it can only stand alone, not in "

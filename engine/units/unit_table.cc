@@ -37,12 +37,10 @@ Dimension dims(int length, int mass, int time, int current = 0, int temperature 
   return Dimension::exponents(length, mass, time, current, temperature, 0, 0, angle);
 }
 
-UnitDef unit(std::string name, std::vector<std::string> aliases, double factor,
-             Dimension dim, std::string quantity, std::string definition,
-             std::string source, std::string oracle, double offset = 0.0) {
-  return UnitDef{std::move(name),       std::move(aliases), factor,
-                 offset,                dim,                std::move(quantity),
-                 std::move(definition), std::move(source),  std::move(oracle)};
+UnitDef unit(std::string_view name, std::vector<std::string_view> aliases, double factor,
+             Dimension dim, std::string_view quantity, std::string_view definition,
+             std::string_view source, std::string_view oracle, double offset = 0.0) {
+  return UnitDef{name, std::move(aliases), factor, offset, dim, quantity, definition, source, oracle};
 }
 
 std::vector<UnitDef> buildTable() {
@@ -189,7 +187,7 @@ const std::vector<Spelling>& spellings() {
     v.reserve(128);
     for (const UnitDef& d : unitTable()) {
       v.emplace_back(d.name, &d);
-      for (const std::string& a : d.aliases) v.emplace_back(a, &d);
+      for (std::string_view a : d.aliases) v.emplace_back(a, &d);
     }
     // A spelling given twice finds its first unit, as a map's emplace would keep it:
     // the units lie in one array, in table order.
@@ -206,11 +204,11 @@ const std::vector<std::string>& suggestible() {
   static const std::vector<std::string> names = [] {
     std::vector<std::string> v;
     for (const UnitDef& d : unitTable()) {
-      v.push_back(d.name);
-      for (const std::string& a : d.aliases)
+      v.emplace_back(d.name);
+      for (std::string_view a : d.aliases)
         if (std::all_of(a.begin(), a.end(),
                         [](char c) { return static_cast<unsigned char>(c) < 0x80; }))
-          v.push_back(a);
+          v.emplace_back(a);
     }
     return v;
   }();
@@ -257,7 +255,7 @@ void addUnique(std::vector<std::string>* out, const std::string& s) {
   if (std::find(out->begin(), out->end(), s) == out->end()) out->push_back(s);
 }
 
-std::string escapeCell(const std::string& s) {
+std::string escapeCell(std::string_view s) {
   std::string out;
   for (char c : s) {
     if (c == '|') out += '\\';
@@ -432,7 +430,7 @@ shown alike in both systems.
 )md";
   for (const UnitDef& d : unitTable()) {
     std::string aliases;
-    for (const std::string& a : d.aliases) {
+    for (std::string_view a : d.aliases) {
       if (!aliases.empty()) aliases += ", ";
       aliases += "`" + escapeCell(a) + "`";
     }

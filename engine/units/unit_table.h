@@ -11,16 +11,18 @@
 
 namespace calctrail {
 
+// Every text is a view of a constant of the table: building it allocates
+// only the few alias lists, once per process.
 struct UnitDef {
-  std::string name;        // canonical spelling, ASCII where one exists ("um")
-  std::vector<std::string> aliases;  // other accepted spellings ("µm")
+  std::string_view name;        // canonical spelling, ASCII where one exists ("um")
+  std::vector<std::string_view> aliases;  // other accepted spellings ("µm")
   double factor;           // SI value of one unit (exact where the definition is)
   double offset;           // absolute temperatures only
   Dimension dim;
-  std::string quantity;    // "length", "force", ...
-  std::string definition;  // "0.0254 m (exact)"
-  std::string source;      // "NIST SP 811 B.9", "SI Brochure 9th ed. Table 8", ...
-  std::string oracle;      // GNU units expression for one of this unit ("inch", "tempC(1)")
+  std::string_view quantity;    // "length", "force", ...
+  std::string_view definition;  // "0.0254 m (exact)"
+  std::string_view source;      // "NIST SP 811 B.9", "SI Brochure 9th ed. Table 8", ...
+  std::string_view oracle;      // GNU units expression for one of this unit ("inch", "tempC(1)")
 };
 
 const std::vector<UnitDef>& unitTable();
