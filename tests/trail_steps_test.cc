@@ -148,5 +148,25 @@ TEST_CASE("a step's head is the step without its explanation, kept or built when
       explained += whole->origin.empty() ? 0 : 1;
     }
     CHECK(explained == built.steps.size());  // every whole step says where its value comes from
+    // An instance's parameter rows, found without building the steps, are those of the kept steps.
+    REQUIRE(built.instances.size() == kept.instances.size());
+    for (size_t k = 0; k < kept.instances.size(); ++k) {
+      const auto &a = kept.instances[k].params, &b = built.instances[k].params;
+      REQUIRE(a.size() == b.size());
+      for (size_t j = 0; j < a.size(); ++j) {
+        INFO("parameter " << a[j].quantity);
+        CHECK(a[j].name == b[j].name);
+        CHECK(a[j].step == b[j].step);
+        CHECK(a[j].binding == b[j].binding);
+        CHECK(a[j].in_part_table == b[j].in_part_table);
+        CHECK(a[j].quantity == b[j].quantity);
+        CHECK(valueText(a[j].shown) == valueText(b[j].shown));
+        CHECK(a[j].shown.si == b[j].shown.si);
+        CHECK(valueText(a[j].result) == valueText(b[j].result));
+        CHECK(a[j].unit_written == b[j].unit_written);
+        CHECK(a[j].description == b[j].description);
+        CHECK(a[j].overridden == b[j].overridden);
+      }
+    }
   }
 }

@@ -719,6 +719,28 @@ class TrailStepBuilder {
     for (size_t i = 0; i < calc_.sheet.quantities.size(); ++i) memo_.push_back({findShown(i), findGiven(i)});
   }
 
+  // What an instance's parameter tables show of quantity i, found without
+  // building its step; false in a sheet with load cases, where whether it
+  // varies needs the step's case values.
+  bool paramRow(size_t i, TrailInstanceParam* row) const {
+    if (!calc_.cases.empty()) return false;
+    const Sheet& sheet = calc_.sheet;
+    const Quantity& q = sheet.quantities[i];
+    const QuantityView s = calc_.quantity(i);
+    row->name = sheet.localName(q.instance, q.name);
+    row->step = static_cast<int>(i);
+    row->quantity = q.name;
+    row->result = shown(i);
+    std::optional<TrailValue> as_given = given(i);
+    row->shown = as_given ? std::move(*as_given) : row->result;
+    row->unit_written = s.declared ? q.unit_written : s.display.text;
+    row->description = q.description;
+    row->overridden = q.overridden;
+    // As build() finds it: no case values, so it varies nowhere.
+    row->in_part_table = param[i] && s.input && !warned(i);
+    return true;
+  }
+
   // Every warning flagged at a step, by quantity, each quantity's in the
   // order of the diagnostics.
   struct Flagged {
@@ -727,6 +749,14 @@ class TrailStepBuilder {
     std::string message;
   };
   std::vector<Flagged> warnings;
+  std::vector<Flagged>::const_iterator firstWarning(size_t i) const {
+    return std::lower_bound(warnings.begin(), warnings.end(), static_cast<int>(i),
+                            [](const Flagged& w, int q) { return w.quantity < q; });
+  }
+  bool warned(size_t i) const {
+    const auto w = firstWarning(i);
+    return w != warnings.end() && w->quantity == static_cast<int>(i);
+  }
   // Per quantity: a parameter of some instance (its part's table shows it).
   std::vector<char> param;
 
@@ -872,9 +902,7 @@ void TrailStepBuilder::build(size_t i, TrailStep* step, bool explained) const {
   TrailStep& s = *step;
   head(i, step);
   if (explained) explain(step);
-  const auto first = std::lower_bound(warnings.begin(), warnings.end(), static_cast<int>(i),
-                                      [](const Flagged& w, int q) { return w.quantity < q; });
-  for (auto w = first; w != warnings.end() && w->quantity == static_cast<int>(i); ++w)
+  for (auto w = firstWarning(i); w != warnings.end() && w->quantity == static_cast<int>(i); ++w)
     s.warnings.push_back(w->message);
   addCaseValues(step);
   // After the warnings and the cases: an input that has either stays in the Inputs list.
@@ -940,7 +968,8 @@ std::vector<int> instanceSteps(const Sheet& sheet, const Instance& inst) {
 // Each instance as a part of its own after the main sheet's blocks: a
 // heading naming the instance, its template's title and file; its
 // parameters with their bound values and bindings; then its steps and checks.
-void addInstances(const Sheet& sheet, Trail* t) {
+// `builder`: the trail's, when its steps are built when read (else null).
+void addInstances(const Sheet& sheet, const TrailStepBuilder* builder, Trail* t) {
   for (const Instance& inst : sheet.instances) {
     TrailInstance ti;
     ti.name = inst.name;
@@ -951,16 +980,19 @@ void addInstances(const Sheet& sheet, Trail* t) {
                  (inst.title.empty() ? std::string("template") : inst.title) + " (" + inst.path + ")";
     std::string params;
     for (const InstanceParam& p : inst.params) {
-      const TrailSteps::Held held = t->steps.head(static_cast<size_t>(p.quantity));
-      const TrailStep& s = *held;
-      TrailInstanceParam tp{s.local_name, p.quantity, p.binding, s.in_part_table,
-                            s.name, s.given ? *s.given : s.result, s.result, s.unit_written,
-                            s.description, s.overridden};
+      TrailInstanceParam tp;
+      if (!builder || !builder->paramRow(static_cast<size_t>(p.quantity), &tp)) {
+        const TrailSteps::Held held = t->steps.head(static_cast<size_t>(p.quantity));
+        const TrailStep& s = *held;
+        tp = {s.local_name, p.quantity, {}, s.in_part_table, s.name, s.given ? *s.given : s.result, s.result,
+              s.unit_written, s.description, s.overridden};
+      }
+      tp.binding = p.binding;
       params += (params.empty() ? "" : "; ") + tp.name + " = ";
       const std::string value = valueText(tp.shown);
       if (!p.binding.empty() && p.binding != value) params += p.binding + " = ";
       params += value;
-      if (s.overridden) params += " (set on the command line)";
+      if (tp.overridden) params += " (set on the command line)";
       else if (p.binding.empty()) params += " (default)";
       ti.params.push_back(std::move(tp));
     }
@@ -1179,7 +1211,7 @@ Trail buildTrail(const Calculation& calc, int digits, TrailKeep keep) {
     t.steps.builder_ = std::move(builder);
   }
   addCases(calc, digits, &t);
-  addInstances(sheet, &t);
+  addInstances(sheet, keep_all ? nullptr : t.steps.builder_.get(), &t);
   // Library functions used, each once, in order of first use.
   t.functions.reserve(used.size());
   for (size_t k = 0; k < used.size(); ++k) {
