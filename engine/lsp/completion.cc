@@ -52,7 +52,8 @@ nlohmann::json completion(const Analysis& a, const Document& doc, uint32_t offse
   const size_t in_line = bytesForUtf16(line, pos.character);
   const CompletionContext context = completionContext(line.substr(0, in_line));
   if (context == CompletionContext::Units) {
-    for (const UnitDef& u : unitTable()) items.push_back(item(std::string(u.name), kUnit, std::string(u.quantity), std::string(u.definition)));
+    for (const UnitDef& u : unitTable())
+      items.push_back(item(std::string(u.name), kUnit, std::string(u.quantity), std::string(u.definition)));
   } else if (context == CompletionContext::Names) {
     if (a.calc) {
       const Sheet& sheet = a.calc->sheet;

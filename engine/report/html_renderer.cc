@@ -458,7 +458,8 @@ void quantityTable(ReportSink& sink, const Trail& t, bool inputs) {
   fmt::format_to(out, "<table class=\"quantities\">\n<thead><tr><th>Quantity</th><th>{}</th></tr>"
                       "</thead>\n<tbody>\n", inputs ? "Value</th><th>Notes" : "Result</th><th>Description");
   std::string section = "\x01";
-  for (const TrailStep& s : t.steps.heads(inputs ? TrailSteps::Filter::Inputs : TrailSteps::Filter::Calculated)) {
+  const TrailSteps::Filter filter = inputs ? TrailSteps::Filter::Inputs : TrailSteps::Filter::Calculated;
+  for (const TrailStep& s : t.steps.heads(filter)) {
     sink.checkpoint();
     if (inputs && s.in_part_table) continue;
     if (s.section != section) {

@@ -733,11 +733,10 @@ class TrailStepBuilder {
     row->result = shown(i);
     std::optional<TrailValue> as_given = given(i);
     row->shown = as_given ? std::move(*as_given) : row->result;
-    row->unit_written = s.declared ? q.unit_written : s.display.text;
+    row->unit_written = unitWritten(q, s);
     row->description = q.description;
     row->overridden = q.overridden;
-    // As build() finds it: no case values, so it varies nowhere.
-    row->in_part_table = param[i] && s.input && !warned(i);
+    row->in_part_table = inPartTable(i, s.input, /*varies=*/false, warned(i));  // no cases: it varies nowhere
     return true;
   }
 
@@ -761,6 +760,15 @@ class TrailStepBuilder {
   std::vector<char> param;
 
  private:
+  // A parameter given as a value, the same in every case and warned of
+  // nowhere, is shown in its part's table alone, not in the Inputs list.
+  bool inPartTable(size_t i, bool input, bool varies, bool has_warnings) const {
+    return param[i] && input && !varies && !has_warnings;
+  }
+  // The contract's unit: the declared display unit as written, else the engine's choice.
+  static const std::string& unitWritten(const Quantity& q, const QuantityView& s) {
+    return s.declared ? q.unit_written : s.display.text;
+  }
   // The fields a step has without explaining its value: name, texts,
   // given value, result and units.
   void head(size_t i, TrailStep* step) const;
@@ -824,9 +832,8 @@ void TrailStepBuilder::head(size_t i, TrailStep* to) const {
   step.given = given(i);
   step.formula_in_notes = !step.given && step.formula != (s.ok ? valueText(step.result) : "");
   step.unit = s.display.text;
-  // The contract: the declared display unit as written, else the engine's choice.
   step.unit_declared = s.declared;
-  step.unit_written = s.declared ? q.unit_written : step.unit;
+  step.unit_written = unitWritten(q, s);
   step.si_unit = s.dim.siSymbol();
   step.unit_pretty = s.display.pretty();
   step.dimension = s.dim.name();
@@ -906,7 +913,7 @@ void TrailStepBuilder::build(size_t i, TrailStep* step, bool explained) const {
     s.warnings.push_back(w->message);
   addCaseValues(step);
   // After the warnings and the cases: an input that has either stays in the Inputs list.
-  s.in_part_table = param[i] && s.input && !s.varies && s.warnings.empty();
+  s.in_part_table = inPartTable(i, s.input, s.varies, !s.warnings.empty());
 }
 
 size_t TrailSteps::size() const { return kept_ ? kept_->size() : builder_ ? builder_->size() : 0; }

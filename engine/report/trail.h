@@ -415,11 +415,8 @@ class TrailSteps {
   bool anyCalculated() const;
   Iterator begin() const { return Iterator(this, 0, Filter::All); }
   Iterator end() const { return Iterator(this, size(), Filter::All); }
-  // The given values alone, and the calculated ones alone, each built as reached.
+  // The given values alone, each built as reached.
   Range inputs() const { return {Iterator(this, 0, Filter::Inputs), Iterator(this, size(), Filter::Inputs)}; }
-  Range calculated() const {
-    return {Iterator(this, 0, Filter::Calculated), Iterator(this, size(), Filter::Calculated)};
-  }
   // The steps' heads alone (head()), for a table that shows no step's
   // explanation: where steps are built when read, none is explained twice.
   Range heads(Filter filter = Filter::All) const {
